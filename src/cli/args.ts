@@ -1,0 +1,138 @@
+// A small declarative option parser: each command lists its options once, and the same
+// list drives parsing, validation (one-line errors naming the option) and `--help` text.
+
+import { InputError } from "../errors.js";
+
+export type OptionType = "boolean" | "string" | "number" | "integer";
+
+export interface OptionSpec {
+  name: string; // long name without dashes, e.g. "seconds"
+  type: OptionType;
+  description: string;
+  default?: boolean | string | number;
+  /** For strings: the allowed values. */
+  choices?: readonly string[];
+  /** For numbers: inclusive bounds. */
+  min?: number;
+  max?: number;
+  /** Placeholder shown in help, e.g. "S". */
+  placeholder?: string;
+}
+
+export interface CommandSpec {
+  name: string;
+  summary: string;
+  /** e.g. "<source...>"; shown in usage. */
+  positionals: string;
+  minPositionals: number;
+  maxPositionals: number; // Infinity for variadic
+  options: readonly OptionSpec[];
+  /** Extra lines shown under the usage (examples). */
+  examples?: readonly string[];
+  run(args: ParsedArgs, io: CommandIO): Promise<number>;
+}
+
+export interface ParsedArgs {
+  positionals: string[];
+  options: Record<string, boolean | string | number | undefined>;
+}
+
+export interface CommandIO {
+  stdout: NodeJS.WritableStream;
+  stderr: NodeJS.WritableStream;
+  stdin: NodeJS.ReadableStream;
+}
+
+function parseValue(cmd: string, spec: OptionSpec, raw: string): string | number {
+  if (spec.type === "string") {
+    if (spec.choices && !spec.choices.includes(raw)) {
+      throw new InputError(`${cmd}: --${spec.name} must be one of ${spec.choices.join(", ")} (got ${JSON.stringify(raw)})`);
+    }
+    return raw;
+  }
+  const x = Number(raw);
+  if (raw.trim() === "" || !Number.isFinite(x)) {
+    throw new InputError(`${cmd}: --${spec.name} must be a number (got ${JSON.stringify(raw)})`);
+  }
+  if (spec.type === "integer" && !Number.isInteger(x)) {
+    throw new InputError(`${cmd}: --${spec.name} must be an integer (got ${JSON.stringify(raw)})`);
+  }
+  if ((spec.min !== undefined && x < spec.min) || (spec.max !== undefined && x > spec.max)) {
+    const range = `[${spec.min ?? "-∞"}, ${spec.max ?? "∞"}]`;
+    throw new InputError(`${cmd}: --${spec.name} must lie in ${range} (got ${raw})`);
+  }
+  return x;
+}
+
+export function parseArgs(cmd: CommandSpec, argv: readonly string[]): ParsedArgs {
+  const byName = new Map(cmd.options.map((o) => [o.name, o]));
+  const options: ParsedArgs["options"] = {};
+  for (const o of cmd.options) options[o.name] = o.default;
+  const positionals: string[] = [];
+  const where = `halfplus ${cmd.name}`;
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    if (a === "--") {
+      positionals.push(...argv.slice(i + 1));
+      break;
+    }
+    if (a.startsWith("--")) {
+      const eq = a.indexOf("=");
+      const name = eq < 0 ? a.slice(2) : a.slice(2, eq);
+      let spec = byName.get(name);
+      if (spec === undefined && name.startsWith("no-") && byName.get(name.slice(3))?.type === "boolean") {
+        if (eq >= 0) throw new InputError(`${where}: --${name} takes no value`);
+        options[name.slice(3)] = false;
+        continue;
+      }
+      if (spec === undefined) {
+        throw new InputError(`${where}: unknown option --${name} (see halfplus ${cmd.name} --help)`);
+      }
+      if (spec.type === "boolean") {
+        if (eq >= 0) throw new InputError(`${where}: --${name} takes no value`);
+        options[name] = true;
+        continue;
+      }
+      let raw: string;
+      if (eq >= 0) raw = a.slice(eq + 1);
+      else {
+        if (i + 1 >= argv.length) throw new InputError(`${where}: --${name} needs a value`);
+        raw = argv[++i];
+      }
+      options[name] = parseValue(where, spec, raw);
+      continue;
+    }
+    positionals.push(a);
+  }
+  if (positionals.length < cmd.minPositionals) {
+    throw new InputError(`${where}: missing ${cmd.positionals} (see halfplus ${cmd.name} --help)`);
+  }
+  if (positionals.length > cmd.maxPositionals) {
+    throw new InputError(`${where}: too many arguments: ${positionals.slice(cmd.maxPositionals).join(" ")}`);
+  }
+  return { positionals, options };
+}
+
+export function commandHelp(cmd: CommandSpec): string {
+  const lines = [`halfplus ${cmd.name} ${cmd.positionals}`.trimEnd(), "", `  ${cmd.summary}`, ""];
+  if (cmd.options.length > 0) {
+    lines.push("options:");
+    const rows = cmd.options.map((o) => {
+      const flag = o.type === "boolean" ? `--${o.name}` : `--${o.name} ${o.placeholder ?? o.type.toUpperCase()}`;
+      const extra = [
+        o.choices ? `one of ${o.choices.join("|")}` : "",
+        o.default !== undefined && o.type !== "boolean" ? `default ${o.default}` : "",
+      ].filter(Boolean);
+      return [flag, o.description + (extra.length ? ` (${extra.join("; ")})` : "")];
+    });
+    const w = Math.max(...rows.map((r) => r[0].length));
+    for (const [f, d] of rows) lines.push(`  ${f.padEnd(w)}  ${d}`);
+    lines.push("");
+  }
+  if (cmd.examples && cmd.examples.length > 0) {
+    lines.push("examples:");
+    for (const e of cmd.examples) lines.push(`  ${e}`);
+    lines.push("");
+  }
+  return lines.join("\n");
+}

@@ -1,0 +1,38 @@
+// The one place a cut's value is computed. Every solver's claim, `verify`, and the tests
+// go through here, so a solver cannot report a value its partition does not have.
+
+import { InputError } from "../errors.js";
+import type { Graph } from "../graph/graph.js";
+
+/** A side (0 or 1) for each vertex. */
+export type Partition = Uint8Array;
+
+export function checkPartition(graph: Graph, partition: ArrayLike<number>, owner = "partition"): void {
+  if (partition.length !== graph.n) {
+    throw new InputError(`${owner}: has ${partition.length} entries but the graph has ${graph.n} vertices`);
+  }
+  for (let i = 0; i < partition.length; i++) {
+    const s = partition[i];
+    if (s !== 0 && s !== 1) throw new InputError(`${owner}: entry ${i} is ${s}, expected 0 or 1`);
+  }
+}
+
+/** Total weight of edges whose endpoints lie on different sides. */
+export function cutValue(graph: Graph, partition: ArrayLike<number>): number {
+  checkPartition(graph, partition);
+  const { offsets, neighbors, weights } = graph;
+  let cut = 0;
+  for (let u = 0; u < graph.n; u++) {
+    const su = partition[u];
+    for (let i = offsets[u]; i < offsets[u + 1]; i++) {
+      const v = neighbors[i];
+      if (v > u && partition[v] !== su) cut += weights === null ? 1 : weights[i];
+    }
+  }
+  return cut;
+}
+
+/** surplus = cut − W/2, the excess over a uniformly random cut. */
+export function surplusOf(graph: Graph, cut: number): number {
+  return cut - graph.totalWeight / 2;
+}

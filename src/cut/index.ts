@@ -1,0 +1,2 @@
+export * from "./evaluate.js";
+export * from "./types.js";

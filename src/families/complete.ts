@@ -1,0 +1,25 @@
+// Complete graph K_n: every pair adjacent. m = n(n−1)/2, (n−1)-regular.
+// Max cut ⌊n²/4⌋ (balanced bipartition); for odd n it meets Edwards' bound with equality.
+
+import { EdgeBuffer } from "../graph/builder.js";
+import type { Graph } from "../graph/graph.js";
+import type { FamilyDefinition } from "./types.js";
+
+export function completeGraph(n: number): Graph {
+  const buf = new EdgeBuffer({ capacity: (n * (n - 1)) / 2 });
+  for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) buf.add(u, v);
+  return buf.build(n).graph;
+}
+
+export const complete: FamilyDefinition = {
+  name: "complete",
+  summary: "complete graph K_n",
+  params: [{ name: "n", type: "integer", description: "number of vertices", min: 1, max: 30000 }],
+  random: false,
+  freeOf: (p) => ((p.n as number) < 3 ? [{ pattern: "K3", source: "fewer than 3 vertices" }] : []),
+  expected: (p) => {
+    const n = p.n as number;
+    return { n, m: (n * (n - 1)) / 2, mExact: true, minDegree: n - 1, maxDegree: n - 1 };
+  },
+  build: (p) => completeGraph(p.n as number),
+};

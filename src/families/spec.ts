@@ -1,0 +1,144 @@
+// Family spec strings: `name` or `name:key=value,key=value`. The same string is accepted by
+// the CLI, `family()`, sweep plans and stored results, so parsing lives only here.
+
+import { InputError, invalidParameter } from "../errors.js";
+import type { FamilyDefinition, ParamSpec, ParamValue, Params } from "./types.js";
+
+export interface RawSpec {
+  name: string;
+  values: Map<string, string>;
+}
+
+const NAME_RE = /^[a-z][a-z0-9-]*$/;
+
+/** Does this look like a family spec (as opposed to a file path)? */
+export function looksLikeSpec(s: string): boolean {
+  const colon = s.indexOf(":");
+  const name = colon < 0 ? s : s.slice(0, colon);
+  return NAME_RE.test(name) && !s.includes("/") && !/\.[a-z0-9]+$/i.test(name);
+}
+
+export function parseRawSpec(spec: string): RawSpec {
+  const colon = spec.indexOf(":");
+  const name = (colon < 0 ? spec : spec.slice(0, colon)).trim();
+  if (!NAME_RE.test(name)) throw new InputError(`family spec ${JSON.stringify(spec)}: bad family name ${JSON.stringify(name)}`);
+  const values = new Map<string, string>();
+  if (colon >= 0) {
+    const body = spec.slice(colon + 1);
+    // Lists use `;` or `+` inside a value (e.g. `circulant:n=13,s=1+5`), so `,` always separates parameters.
+    for (const part of body.split(",")) {
+      if (part.trim() === "") continue;
+      const eq = part.indexOf("=");
+      if (eq <= 0) throw new InputError(`family spec ${JSON.stringify(spec)}: expected key=value, got ${JSON.stringify(part)}`);
+      const key = part.slice(0, eq).trim();
+      if (values.has(key)) throw new InputError(`family spec ${JSON.stringify(spec)}: parameter \`${key}\` given twice`);
+      values.set(key, part.slice(eq + 1).trim());
+    }
+  }
+  return { name, values };
+}
+
+function convert(owner: string, p: ParamSpec, raw: string): ParamValue {
+  switch (p.type) {
+    case "string":
+      if (p.choices && !p.choices.includes(raw)) throw invalidParameter(owner, p.name, `should be one of ${p.choices.join(", ")}`, raw);
+      return raw;
+    case "boolean":
+      if (raw === "true" || raw === "1") return true;
+      if (raw === "false" || raw === "0") return false;
+      throw invalidParameter(owner, p.name, "should be true or false", raw);
+    case "integer-list": {
+      const items = raw.split(/[+;]/).filter((x) => x !== "");
+      const out = items.map((x) => Number(x));
+      if (out.length === 0 || out.some((x) => !Number.isInteger(x))) {
+        throw invalidParameter(owner, p.name, "should be integers separated by +", raw);
+      }
+      return out;
+    }
+    default: {
+      const x = Number(raw);
+      if (raw === "" || !Number.isFinite(x)) throw invalidParameter(owner, p.name, "should be a number", raw);
+      return x;
+    }
+  }
+}
+
+/** Check a value against its spec's type and range; shared by spec strings and typed calls. */
+export function checkParam(owner: string, p: ParamSpec, v: ParamValue): void {
+  const range =
+    p.min !== undefined && p.max !== undefined
+      ? `between ${p.min} and ${p.max}`
+      : p.min !== undefined
+        ? `at least ${p.min}`
+        : p.max !== undefined
+          ? `at most ${p.max}`
+          : "";
+  if (p.type === "integer" || p.type === "number") {
+    if (typeof v !== "number" || !Number.isFinite(v)) throw invalidParameter(owner, p.name, "should be a number", v);
+    if (p.type === "integer" && !Number.isInteger(v)) throw invalidParameter(owner, p.name, `should be an integer${range ? " " + range : ""}`, v);
+    if ((p.min !== undefined && v < p.min) || (p.max !== undefined && v > p.max)) {
+      throw invalidParameter(owner, p.name, `should be a${p.type === "integer" ? "n integer" : " number"} ${range}`, v);
+    }
+  } else if (p.type === "integer-list") {
+    if (!Array.isArray(v) || v.some((x) => !Number.isInteger(x))) throw invalidParameter(owner, p.name, "should be a list of integers", v);
+  } else if (p.type === "string") {
+    if (typeof v !== "string" || (p.choices && !p.choices.includes(v))) {
+      throw invalidParameter(owner, p.name, p.choices ? `should be one of ${p.choices.join(", ")}` : "should be a string", v);
+    }
+  } else if (typeof v !== "boolean") throw invalidParameter(owner, p.name, "should be true or false", v);
+}
+
+export const SEED_PARAM: ParamSpec = {
+  name: "seed",
+  type: "integer",
+  description: "PRNG seed (xoshiro128**)",
+  default: 0,
+  min: 0,
+  max: 0xffffffff,
+};
+
+/** All parameters of a family, including the implicit seed of random families. */
+export function allParams(def: FamilyDefinition): readonly ParamSpec[] {
+  return def.random ? [...def.params, SEED_PARAM] : def.params;
+}
+
+/**
+ * Resolve raw values (strings from a spec, or typed values from TypeScript) against a
+ * definition: apply defaults, convert, check ranges, run the family's own validation.
+ */
+export function resolveParams(def: FamilyDefinition, given: Map<string, string> | Params): { params: Params; defaulted: string[] } {
+  const owner = def.name;
+  const specs = allParams(def);
+  const known = new Set(specs.map((p) => p.name));
+  const entries = given instanceof Map ? [...given.keys()] : Object.keys(given);
+  for (const k of entries) {
+    if (!known.has(k)) {
+      throw new InputError(`${owner}: unknown parameter \`${k}\` (parameters: ${specs.map((p) => p.name).join(", ") || "none"})`);
+    }
+  }
+  const params: Params = {};
+  const defaulted: string[] = [];
+  for (const p of specs) {
+    const raw = given instanceof Map ? given.get(p.name) : given[p.name];
+    let v: ParamValue;
+    if (raw === undefined) {
+      if (p.default === undefined) throw new InputError(`${owner}: missing parameter \`${p.name}\` (${p.description})`);
+      v = p.default;
+      defaulted.push(p.name);
+    } else v = typeof raw === "string" && p.type !== "string" ? convert(owner, p, raw) : (raw as ParamValue);
+    if (typeof raw === "string" && p.type === "string") v = convert(owner, p, raw);
+    checkParam(owner, p, v);
+    params[p.name] = v;
+  }
+  def.validate?.(params);
+  return { params, defaulted };
+}
+
+/** The canonical spec: every parameter in declaration order, lists joined by `+`. */
+export function formatSpec(def: FamilyDefinition, params: Params): string {
+  const parts = allParams(def).map((p) => {
+    const v = params[p.name];
+    return `${p.name}=${Array.isArray(v) ? v.join("+") : String(v)}`;
+  });
+  return parts.length === 0 ? def.name : `${def.name}:${parts.join(",")}`;
+}

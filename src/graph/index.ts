@@ -1,0 +1,3 @@
+export * from "./graph.js";
+export * from "./builder.js";
+export * from "./graphology.js";

@@ -1,0 +1,6 @@
+// The public API: each folder's index re-exports its modules, so this file is the map.
+export * from "./errors.js";
+export * from "./random/index.js";
+export * from "./graph/index.js";
+export * from "./families/index.js";
+export * from "./cut/index.js";
