@@ -49,7 +49,7 @@ function buildResolved(def: FamilyDefinition, params: Params, defaulted: string[
   const seed = def.random ? (params.seed as number) : null;
   const notes: string[] = [];
   if (def.random && defaulted.includes("seed")) notes.push("no seed given: using seed 0");
-  const graph = def.build(params, new Rng(seed ?? 0));
+  const graph = def.build(params, { rng: new Rng(seed ?? 0), resolve: family });
   return { graph, spec: formatSpec(def, params), family: def.name, params, seed, notes };
 }
 

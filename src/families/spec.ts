@@ -18,6 +18,34 @@ export function looksLikeSpec(s: string): boolean {
   return NAME_RE.test(name) && !s.includes("/") && !/\.[a-z0-9]+$/i.test(name);
 }
 
+/** Split on `sep` outside square brackets; unbalanced brackets are an error. */
+export function splitTopLevel(whole: string, body: string, sep: string): string[] {
+  const parts: string[] = [];
+  let depth = 0;
+  let start = 0;
+  for (let i = 0; i < body.length; i++) {
+    const c = body[i];
+    if (c === "[") depth++;
+    else if (c === "]") {
+      depth--;
+      if (depth < 0) throw new InputError(`family spec ${JSON.stringify(whole)}: unmatched ]`);
+    } else if (c === sep && depth === 0) {
+      parts.push(body.slice(start, i));
+      start = i + 1;
+    }
+  }
+  if (depth !== 0) throw new InputError(`family spec ${JSON.stringify(whole)}: unmatched [`);
+  parts.push(body.slice(start));
+  return parts;
+}
+
+/** `[spec]` → `spec`; for parameters of type "spec" and "spec-list". */
+function unbracket(owner: string, name: string, item: string): string {
+  const t = item.trim();
+  if (!t.startsWith("[") || !t.endsWith("]")) throw invalidParameter(owner, name, "should be a family spec in brackets, e.g. [petersen]", item);
+  return t.slice(1, -1);
+}
+
 export function parseRawSpec(spec: string): RawSpec {
   const colon = spec.indexOf(":");
   const name = (colon < 0 ? spec : spec.slice(0, colon)).trim();
@@ -25,8 +53,9 @@ export function parseRawSpec(spec: string): RawSpec {
   const values = new Map<string, string>();
   if (colon >= 0) {
     const body = spec.slice(colon + 1);
-    // Lists use `;` or `+` inside a value (e.g. `circulant:n=13,s=1+5`), so `,` always separates parameters.
-    for (const part of body.split(",")) {
+    // Lists use `+` inside a value (e.g. `circulant:n=13,s=1+5`); a nested spec is wrapped in
+    // brackets (`blowup:of=[kneser:n=8,k=3],t=2`), so only top-level commas separate parameters.
+    for (const part of splitTopLevel(spec, body, ",")) {
       if (part.trim() === "") continue;
       const eq = part.indexOf("=");
       if (eq <= 0) throw new InputError(`family spec ${JSON.stringify(spec)}: expected key=value, got ${JSON.stringify(part)}`);
@@ -47,6 +76,10 @@ function convert(owner: string, p: ParamSpec, raw: string): ParamValue {
       if (raw === "true" || raw === "1") return true;
       if (raw === "false" || raw === "0") return false;
       throw invalidParameter(owner, p.name, "should be true or false", raw);
+    case "spec":
+      return unbracket(owner, p.name, raw);
+    case "spec-list":
+      return splitTopLevel(raw, raw, "+").map((x) => unbracket(owner, p.name, x));
     case "integer-list": {
       const items = raw.split(/[+;]/).filter((x) => x !== "");
       const out = items.map((x) => Number(x));
@@ -81,6 +114,10 @@ export function checkParam(owner: string, p: ParamSpec, v: ParamValue): void {
     }
   } else if (p.type === "integer-list") {
     if (!Array.isArray(v) || v.some((x) => !Number.isInteger(x))) throw invalidParameter(owner, p.name, "should be a list of integers", v);
+  } else if (p.type === "spec") {
+    if (typeof v !== "string" || v === "") throw invalidParameter(owner, p.name, "should be a family spec", v);
+  } else if (p.type === "spec-list") {
+    if (!Array.isArray(v) || v.length === 0 || v.some((x) => typeof x !== "string")) throw invalidParameter(owner, p.name, "should be a list of family specs", v);
   } else if (p.type === "string") {
     if (typeof v !== "string" || (p.choices && !p.choices.includes(v))) {
       throw invalidParameter(owner, p.name, p.choices ? `should be one of ${p.choices.join(", ")}` : "should be a string", v);
@@ -125,8 +162,8 @@ export function resolveParams(def: FamilyDefinition, given: Map<string, string> 
       if (p.default === undefined) throw new InputError(`${owner}: missing parameter \`${p.name}\` (${p.description})`);
       v = p.default;
       defaulted.push(p.name);
-    } else v = typeof raw === "string" && p.type !== "string" ? convert(owner, p, raw) : (raw as ParamValue);
-    if (typeof raw === "string" && p.type === "string") v = convert(owner, p, raw);
+    } else if (given instanceof Map) v = convert(owner, p, raw as string);
+    else v = raw as ParamValue;
     checkParam(owner, p, v);
     params[p.name] = v;
   }
@@ -138,6 +175,8 @@ export function resolveParams(def: FamilyDefinition, given: Map<string, string> 
 export function formatSpec(def: FamilyDefinition, params: Params): string {
   const parts = allParams(def).map((p) => {
     const v = params[p.name];
+    if (p.type === "spec") return `${p.name}=[${String(v)}]`;
+    if (p.type === "spec-list") return `${p.name}=${(v as string[]).map((x) => `[${x}]`).join("+")}`;
     return `${p.name}=${Array.isArray(v) ? v.join("+") : String(v)}`;
   });
   return parts.length === 0 ? def.name : `${def.name}:${parts.join(",")}`;

@@ -5,8 +5,9 @@
 import type { Graph } from "../graph/graph.js";
 import type { Rng } from "../random/prng.js";
 
-export type ParamType = "integer" | "number" | "string" | "boolean" | "integer-list";
-export type ParamValue = number | string | boolean | number[];
+/** "spec" / "spec-list": nested family specs, written in brackets: `of=[petersen]`, `of=[cycle:n=5]+[petersen]`. */
+export type ParamType = "integer" | "number" | "string" | "boolean" | "integer-list" | "spec" | "spec-list";
+export type ParamValue = number | string | boolean | number[] | string[];
 
 export interface ParamSpec {
   name: string;
@@ -31,6 +32,12 @@ export interface ExpectedShape {
   maxDegree?: number;
 }
 
+/** What a builder gets: its PRNG and a way to build nested specs (for operations like blow-up). */
+export interface BuildContext {
+  rng: Rng;
+  resolve: (spec: string) => Graph;
+}
+
 export interface FamilyDefinition {
   /** The spec name, e.g. "kneser". Lower case, hyphenated. */
   name: string;
@@ -44,7 +51,7 @@ export interface FamilyDefinition {
   expected: (params: Params) => ExpectedShape;
   /** Cross-parameter checks beyond the per-parameter ranges (e.g. k ≤ n/2); throw InputError via `invalidParameter`. */
   validate?: (params: Params) => void;
-  build: (params: Params, rng: Rng) => Graph;
+  build: (params: Params, ctx: BuildContext) => Graph;
   /** Facts about the family and its source, shown by `halfplus families`. */
   notes?: string;
 }

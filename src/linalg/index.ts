@@ -1,0 +1,1 @@
+// Re-exports of this folder's modules (append one line per module).
