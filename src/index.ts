@@ -8,3 +8,4 @@ export * from "./linalg/index.js";
 export * from "./families/index.js";
 export * from "./cut/index.js";
 export * from "./bounds/index.js";
+export * from "./sources/index.js";

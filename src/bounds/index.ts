@@ -1,1 +1,7 @@
 // Re-exports of this folder's modules (append one line per module).
+export * from "./types.js";
+export * from "./edwards.js";
+export * from "./triangle-free.js";
+export { resolveVectorSets, type VectorSetOptions, type VectorSets } from "./vector-sets.js";
+export * from "./vector-method.js";
+export * from "./report.js";

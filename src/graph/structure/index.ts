@@ -1,1 +1,17 @@
 // Re-exports of this folder's modules (append one line per module).
+export * from "./degrees.js";
+export * from "./components.js";
+export * from "./bipartite.js";
+export * from "./degeneracy.js";
+export * from "./orientation.js";
+export * from "./triangles.js";
+export * from "./four-cycles.js";
+export * from "./cliques.js";
+export * from "./cycles.js";
+export * from "./girth.js";
+export * from "./subgraph.js";
+export * from "./patterns.js";
+export * from "./describe.js";
+export * from "./symmetry.js";
+export * from "./complete-bipartite.js";
+export * from "./pattern-shape.js";

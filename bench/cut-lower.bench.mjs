@@ -1,0 +1,139 @@
+// Max-cut lower-bound heuristics on the classic benchmark graphs (../shared/reference/gset):
+// best cut as a percentage of the best known after 1, 10 and 60 s on one core, and the speed of
+// the explicit vector method's rounding (O(m) per trial) on a graph with 10^6 edges.
+//
+// usage: node bench/cut-lower.bench.mjs [G1 G14 ...] [--max-seconds 10] [--seeds K] [--skip-vector] [--only-vector]
+import { readFileSync, existsSync } from "node:fs";
+import { join } from "node:path";
+import { buildGraph } from "../dist/graph/builder.js";
+import { Rng } from "../dist/random/prng.js";
+import { BreakoutSearcher } from "../dist/cut/breakout.js";
+import { Rank2Searcher } from "../dist/cut/rank2.js";
+import { MultiStartSearcher } from "../dist/cut/local-search.js";
+import { vectorMethodRound } from "../dist/cut/vector-method.js";
+import { vectorMethodGuarantee } from "../dist/bounds/vector-method.js";
+import { SHARED_REFERENCE, hasShared, report } from "./util.mjs";
+
+const argv = process.argv.slice(2);
+const flag = (name) => argv.includes(name);
+const option = (name, dflt) => {
+  const i = argv.indexOf(name);
+  return i >= 0 ? Number(argv[i + 1]) : dflt;
+};
+const maxSeconds = option("--max-seconds", 60);
+const seeds = option("--seeds", 1);
+const optionValues = new Set(["--max-seconds", "--seeds"].flatMap((o) => (argv.indexOf(o) >= 0 ? [argv[argv.indexOf(o) + 1]] : [])));
+const names = argv.filter((a) => !a.startsWith("--") && !optionValues.has(a));
+const ALL = ["G1", "G11", "G14", "G22", "G43", "G48"];
+
+/** The benchmark's text format: `n m`, then `u v w` lines with 1-based ids. */
+function readGset(path) {
+  const lines = readFileSync(path, "utf8").split("\n");
+  const [n, m] = lines[0].trim().split(/\s+/).map(Number);
+  const us = new Int32Array(m), vs = new Int32Array(m), ws = new Float64Array(m);
+  for (let k = 0; k < m; k++) {
+    const [u, v, w] = lines[k + 1].trim().split(/\s+/).map(Number);
+    us[k] = u - 1;
+    vs[k] = v - 1;
+    ws[k] = w;
+  }
+  return buildGraph(n, us, vs, ws).graph;
+}
+
+function heuristicRows() {
+  const gset = join(SHARED_REFERENCE, "gset");
+  const known = new Map(
+    readFileSync(join(gset, "best-known.csv"), "utf8")
+      .trim()
+      .split("\n")
+      .slice(1)
+      .map((l) => l.split(","))
+      .map(([k, v]) => [k, Number(v)]),
+  );
+  const rows = [];
+  for (const name of names.length > 0 ? names : ALL) {
+    const file = join(gset, `${name}.txt`);
+    if (!existsSync(file)) {
+      console.log(`skip ${name}: no ${file}`);
+      continue;
+    }
+    const g = readGset(file);
+    const ref = known.get(name);
+    const pct = (v) => Number(((100 * v) / ref).toFixed(3));
+    for (let seed = 1; seed <= seeds; seed++) {
+      // Breakout: one searcher resumed, so the 10 s column includes the first second.
+      const s = new BreakoutSearcher(g, { seed });
+      const row = { graph: name, n: g.n, m: g.m, bestKnown: ref, seed };
+      let spent = 0;
+      for (const mark of [1, 10, 60].filter((t) => t <= maxSeconds)) {
+        s.run({ seconds: mark - spent });
+        spent = mark;
+        const rec = s.best();
+        row[`breakout@${mark}s`] = rec.value;
+        row[`%@${mark}s`] = pct(rec.value);
+      }
+      row.secondsToBest = Number(s.best().details.secondsToBest.toFixed(2));
+      const r2 = new Rank2Searcher(g, { seed });
+      r2.run({ seconds: 1 });
+      row["rank2@1s%"] = pct(r2.best().value);
+      const ls = new MultiStartSearcher(g, { seed });
+      ls.run({ seconds: 1 });
+      row["multistart@1s%"] = pct(ls.best().value);
+      rows.push(row);
+      console.log(JSON.stringify(row));
+    }
+  }
+  return rows;
+}
+
+/** G(n, m)-style random graph: m distinct edges drawn uniformly (rejection on repeats). */
+function randomGraph(n, m, rng) {
+  const seen = new Set();
+  const us = new Int32Array(m), vs = new Int32Array(m);
+  let k = 0;
+  while (k < m) {
+    const u = rng.nextInt(n), v = rng.nextInt(n);
+    if (u === v) continue;
+    const key = u < v ? u * n + v : v * n + u;
+    if (seen.has(key)) continue;
+    seen.add(key);
+    us[k] = u;
+    vs[k] = v;
+    k++;
+  }
+  return buildGraph(n, us, vs).graph;
+}
+
+function vectorRows() {
+  const rows = [];
+  for (const [n, m] of [[100_000, 1_000_000], [20_000, 1_000_000]]) {
+    const g = randomGraph(n, m, new Rng(7));
+    const t0 = performance.now();
+    const gu = vectorMethodGuarantee(g);
+    const tGuarantee = performance.now() - t0;
+    const trials = 20;
+    const t1 = performance.now();
+    const rec = vectorMethodRound(g, { trials, seed: 1 });
+    const tRound = performance.now() - t1;
+    rows.push({
+      graph: `random n=${n} m=${m}`,
+      guaranteeMs: Number(tGuarantee.toFixed(1)),
+      msPerTrial: Number((tRound / trials).toFixed(2)),
+      nsPerEdgePerTrial: Number(((tRound / trials / m) * 1e6).toFixed(1)),
+      guaranteeSurplus: Number(gu.surplus.toFixed(1)),
+      meanSurplus: Number(rec.details.meanSurplus.toFixed(1)),
+      expectedSurplus: Number(rec.details.expectedSurplus.toFixed(1)),
+    });
+    console.log(JSON.stringify(rows.at(-1)));
+  }
+  return rows;
+}
+
+const out = {};
+if (!flag("--only-vector")) {
+  if (hasShared()) out.gset = heuristicRows();
+  else console.log(`skip gset: ${SHARED_REFERENCE} is absent`);
+}
+if (!flag("--skip-vector")) out.vectorMethod = vectorRows();
+if (out.gset) report("cut-lower", out.gset);
+if (out.vectorMethod) console.table(out.vectorMethod);

@@ -1,0 +1,27 @@
+// Random families at scale: G(n, p) with about 10^7 edges (target < 5 s), the triangle-free
+// process on 2000 vertices (target a few seconds), random 10-regular on 10^5 vertices, and a
+// few companions (G(n, m), the other H-free processes, blow-up, complement). One core.
+import { family } from "../dist/families/registry.js";
+import { report, timeBest } from "./util.mjs";
+
+const rows = [];
+const run = (spec, targetMs, reps = 3) => {
+  const t = timeBest(() => family(spec), reps);
+  const g = t.result;
+  rows.push({ spec, ms: Math.round(t.ms), targetMs: targetMs ?? "", ok: targetMs === null ? "" : t.ms < targetMs, n: g.n, m: g.m });
+};
+
+// n = 10^5, p = 2·10^7 / (n(n−1)) gives 10^7 expected edges.
+const n = 100_000;
+run(`gnp:n=${n},p=${(2e7 / (n * (n - 1))).toPrecision(8)},seed=1`, 5000, 2);
+run(`gnm:n=${n},m=10000000,seed=1`, null, 2);
+run("hfree-process:n=2000,h=K3,seed=1", 5000);
+run("regular:n=100000,d=10,seed=1", null);
+run("regular:n=100000,d=3,seed=1", null);
+run("regular:n=2000,d=1500,seed=1", null);
+run("hfree-process:n=2000,h=C4,seed=1", null, 1);
+run("hfree-process:n=2000,h=C5,seed=1", null, 1);
+run("hfree-process:n=2000,h=K4,seed=1", null, 1);
+run("blowup:of=[gnp:n=1000,p=0.01,seed=1],t=20", null);
+run("complement:of=[gnp:n=3000,p=0.5,seed=1]", null);
+report("families-random", rows);

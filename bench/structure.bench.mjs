@@ -1,0 +1,66 @@
+// Structure checks on a uniform random graph with n = 10^5, m = 10^6 (distinct pairs drawn
+// with Rng): CSR build, triangles, degeneracy, 4-cycles, girth, searches and describeGraph.
+// Targets: build < 1 s, countTriangles < 1 s, degeneracy < 0.5 s (one core).
+import { buildGraph } from "../dist/graph/builder.js";
+import {
+  countFourCycles,
+  countTriangles,
+  degeneracy,
+  describeGraph,
+  findClique,
+  findCycle,
+  girth,
+} from "../dist/graph/structure/index.js";
+import { Rng } from "../dist/random/prng.js";
+import { report, timeBest } from "./util.mjs";
+
+const N = 100_000;
+const M = 1_000_000;
+const SEED = 1;
+
+function randomPairs(n, m, seed) {
+  const rng = new Rng(seed);
+  const us = new Int32Array(m);
+  const vs = new Int32Array(m);
+  const seen = new Set();
+  let k = 0;
+  while (k < m) {
+    const u = rng.nextInt(n);
+    const v = rng.nextInt(n);
+    if (u === v) continue;
+    const key = u < v ? u * n + v : v * n + u;
+    if (seen.has(key)) continue;
+    seen.add(key);
+    us[k] = u;
+    vs[k] = v;
+    k++;
+  }
+  return { us, vs };
+}
+
+const { us, vs } = randomPairs(N, M, SEED);
+const rows = [];
+const row = (name, target, t, result) => {
+  rows.push({ step: name, ms: Math.round(t.ms * 10) / 10, targetMs: target ?? "", ok: target === null ? "" : t.ms < target, result });
+};
+
+const b = timeBest(() => buildGraph(N, us, vs).graph, 3);
+const g = b.result;
+row("buildGraph (CSR)", 1000, b, `n=${g.n} m=${g.m}`);
+const tri = timeBest(() => countTriangles(g), 3);
+row("countTriangles", 1000, tri, `${tri.result.total} triangles`);
+const dg = timeBest(() => degeneracy(g), 3);
+row("degeneracy", 500, dg, `degeneracy ${dg.result.degeneracy}`);
+const c4 = timeBest(() => countFourCycles(g), 3);
+row("countFourCycles", null, c4, `${c4.result.total} 4-cycles`);
+const gi = timeBest(() => girth(g), 3);
+row("girth", null, gi, `girth ${gi.result.girth}`);
+const k4 = timeBest(() => findClique(g, 4), 3);
+row("findClique(K4)", null, k4, `found ${k4.result.found} after ${k4.result.nodesExplored} nodes`);
+const c5 = timeBest(() => findCycle(g, 5), 3);
+row("findCycle(C5)", null, c5, `found ${c5.result.found} after ${c5.result.nodesExplored} nodes`);
+const d = timeBest(() => describeGraph(g), 2);
+row("describeGraph", null, d, JSON.stringify(d.result.free));
+
+report("structure", rows);
+if (rows.some((r) => r.ok === false)) process.exitCode = 1;

@@ -1,0 +1,363 @@
+// The max-cut bracket: runs several methods under one time budget and keeps the best cut (lower)
+// and the best certified upper bound, in a plain JSON-ready record that `verify` can re-check
+// from the graph alone (partition for the lower bound, certificate for the upper bound).
+
+import { InputError } from "../errors.js";
+import type { Graph } from "../graph/graph.js";
+import type { SourceRef } from "../sources/index.js";
+import { BreakoutSearcher } from "./breakout.js";
+import { PROOF_SHIFT_METHODS, certifyDual } from "./certificate.js";
+import { eigenvalueUpperBound } from "./eigen-bound.js";
+import { cutValue } from "./evaluate.js";
+import { exactMaxCut } from "./exact.js";
+import { checkSeedOption, improvementMargin, integerWeights, nowSeconds, positiveWeightSum, type ExactCutRecord } from "./exact-common.js";
+import { localSearch } from "./local-search.js";
+import { hyperplaneRound } from "./rounding.js";
+import { solveSdp } from "./sdp.js";
+import type { CutRecord, DualCertificate, UpperBoundRecord } from "./types.js";
+import { vectorMethodRound } from "./vector-method.js";
+import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, graphHash } from "./verify.js";
+
+/**
+ * auto: exact search when the graph is small, heuristics and certified bounds otherwise;
+ * exact: exact search only (plus the eigenvalue bound if it stops early);
+ * heuristic: never exact search; quick: cheap methods only, for large batches of graphs.
+ */
+export type BracketMethod = "auto" | "exact" | "heuristic" | "quick";
+export const BRACKET_METHODS: readonly BracketMethod[] = ["auto", "exact", "heuristic", "quick"];
+
+export const DEFAULT_BRACKET_SECONDS = 10;
+
+/** Largest n that "auto" always hands to exact search first (measured: < 2 s worst case at n = 30). */
+export const AUTO_EXACT_VERTICES = 30;
+
+export interface BracketProgress {
+  method: string;
+  lower: number;
+  upper: number;
+  elapsed: number;
+}
+
+export interface BracketOptions {
+  /** Time budget in seconds (default 10). Certification steps may run a little past it. */
+  seconds?: number;
+  seed?: number;
+  method?: BracketMethod;
+  /** Called after each method, and every half second during long searches. */
+  onProgress?: (p: BracketProgress) => void;
+  /** Where the graph came from, copied into the record so `verify` can rebuild it. */
+  source?: SourceRef | null;
+}
+
+/** How `upper` is proven. `floored`: integer weights, so the bound was rounded down to an integer. */
+export type BracketCertificate =
+  | { kind: "psd-dual"; y: number[]; shift: number; shiftMethod: string; floored: boolean; tolerance: number }
+  | { kind: "exhaustive"; search: string; nodes: number; floored: boolean; tolerance: number }
+  | { kind: "search-bound"; search: string; nodes: number; floored: boolean; tolerance: number }
+  | { kind: "positive-weights"; floored: boolean; tolerance: number };
+
+/** One method's contribution, summarised. */
+export interface BracketRun {
+  method: string;
+  /** lower: produced a cut; upper: produced a bound; exact: both; relaxation: an SDP objective. */
+  role: "lower" | "upper" | "exact" | "relaxation";
+  value: number;
+  /** For exact searches: their proven upper bound. */
+  upper?: number;
+  status: string;
+  seconds: number;
+  seed: number | null;
+  details?: Record<string, number | string | boolean | null>;
+}
+
+export interface BracketRecord {
+  kind: typeof BRACKET_RECORD_KIND;
+  version: typeof BRACKET_RECORD_VERSION;
+  n: number;
+  m: number;
+  totalWeight: number;
+  lower: number;
+  upper: number;
+  /** True when the bracket is closed by proof (for non-integer weights: within certificate.tolerance). */
+  exact: boolean;
+  /**
+   * False when `upper` rests on a Lanczos estimate of the shift (large n) rather than a proof
+   * (exhaustive search, Cholesky, Gershgorin, the positive-weight sum).
+   */
+  upperProven: boolean;
+  surplusLower: number;
+  surplusUpper: number;
+  lowerMethod: string;
+  upperMethod: string;
+  seconds: number;
+  seed: number;
+  method: BracketMethod;
+  partition: number[];
+  certificate: BracketCertificate;
+  runs: BracketRun[];
+  graphHash: string;
+  source: SourceRef | null;
+}
+
+/** A seed per method, derived from the bracket's seed so every run is reproducible. */
+function methodSeed(seed: number, k: number): number {
+  return (seed + Math.imul(k + 1, 0x9e3779b9)) >>> 0;
+}
+
+function plainDetails(d: CutRecord["details"]): BracketRun["details"] {
+  if (d === undefined) return undefined;
+  const out: Record<string, number | string | boolean | null> = {};
+  for (const [k, v] of Object.entries(d)) if (v === null || ["number", "string", "boolean"].includes(typeof v)) out[k] = v;
+  return out;
+}
+
+/** Mutable state of one bracket run: best cut, best certified bound, the run log. */
+class BracketState {
+  readonly graph: Graph;
+  readonly integral: boolean;
+  readonly tolerance: number;
+  readonly t0: number;
+  readonly deadline: number;
+  lower = -Infinity;
+  lowerMethod = "none";
+  partition: Uint8Array;
+  upper: number;
+  upperMethod = "positive-weights";
+  upperProven = true;
+  certificate: BracketCertificate;
+  exact = false;
+  readonly runs: BracketRun[] = [];
+  private readonly onProgress?: (p: BracketProgress) => void;
+
+  constructor(graph: Graph, seconds: number, onProgress?: (p: BracketProgress) => void) {
+    this.graph = graph;
+    this.integral = integerWeights(graph);
+    this.tolerance = this.integral ? 0 : improvementMargin(graph);
+    this.t0 = nowSeconds();
+    this.deadline = this.t0 + seconds;
+    this.onProgress = onProgress;
+    this.partition = new Uint8Array(graph.n);
+    this.lower = cutValue(graph, this.partition);
+    this.lowerMethod = "all-on-one-side";
+    this.upper = this.round(positiveWeightSum(graph));
+    this.certificate = { kind: "positive-weights", floored: this.integral, tolerance: this.tolerance };
+  }
+
+  left(): number {
+    return this.deadline - nowSeconds();
+  }
+
+  elapsed(): number {
+    return nowSeconds() - this.t0;
+  }
+
+  /** Integer weights: every cut is an integer, so a bound may be rounded down. */
+  round(bound: number): number {
+    return this.integral ? Math.floor(bound + 1e-9) : bound;
+  }
+
+  closed(): boolean {
+    return this.exact || (this.integral && this.lower >= this.upper);
+  }
+
+  progress(method: string): void {
+    this.onProgress?.({ method, lower: this.lower, upper: this.upper, elapsed: this.elapsed() });
+  }
+
+  offerCut(r: CutRecord, role: BracketRun["role"] = "lower"): void {
+    this.runs.push({ method: r.method, role, value: r.value, status: r.status, seconds: r.seconds, seed: r.seed, details: plainDetails(r.details) });
+    if (r.value > this.lower) {
+      // The record's value is the solver's claim; the bracket keeps only what cutValue confirms.
+      const v = cutValue(this.graph, r.partition);
+      if (v > this.lower) {
+        this.lower = v;
+        this.lowerMethod = r.method;
+        this.partition = Uint8Array.from(r.partition);
+      }
+    }
+    this.progress(r.method);
+  }
+
+  offerDual(r: UpperBoundRecord): void {
+    this.runs.push({ method: r.method, role: "upper", value: r.value, status: r.status, seconds: r.seconds, seed: null, details: plainDetails(r.details) });
+    const cert = r.certificate;
+    if (cert !== null && Number.isFinite(r.value)) {
+      const bound = this.round(r.value);
+      if (bound < this.upper) {
+        this.upper = bound;
+        this.upperMethod = r.method;
+        this.upperProven = PROOF_SHIFT_METHODS.includes(cert.shiftMethod);
+        this.certificate = toPlainDual(cert, this.integral, this.tolerance);
+      }
+    }
+    this.progress(r.method);
+  }
+
+  offerExact(r: ExactCutRecord): void {
+    this.runs.push({ method: r.method, role: "exact", value: r.value, upper: r.upper, status: r.status, seconds: r.seconds, seed: r.seed, details: plainDetails(r.details) });
+    this.takeCut(r);
+    if (r.status === "optimal") {
+      this.upper = r.upper;
+      this.upperMethod = r.method;
+      this.upperProven = true;
+      this.exact = true;
+      this.certificate = { kind: "exhaustive", search: r.method, nodes: r.nodes, floored: false, tolerance: this.tolerance };
+    } else {
+      const bound = this.round(r.upper);
+      if (bound < this.upper) {
+        this.upper = bound;
+        this.upperMethod = r.method;
+        this.upperProven = true;
+        this.certificate = { kind: "search-bound", search: r.method, nodes: r.nodes, floored: this.integral, tolerance: this.tolerance };
+      }
+    }
+    this.progress(r.method);
+  }
+
+  /** Keep r's partition if it beats the best cut (re-evaluated with cutValue), without logging a run. */
+  takeCut(r: CutRecord): void {
+    const v = cutValue(this.graph, r.partition);
+    if (v > this.lower) {
+      this.lower = v;
+      this.lowerMethod = r.method;
+      this.partition = Uint8Array.from(r.partition);
+    }
+  }
+}
+
+function toPlainDual(c: DualCertificate, floored: boolean, tolerance: number): BracketCertificate {
+  return { kind: "psd-dual", y: Array.from(c.y), shift: c.shift, shiftMethod: c.shiftMethod, floored, tolerance };
+}
+
+/** Run breakout search in slices, reporting progress, until `seconds` or `rounds` run out or the bracket closes. */
+function runBreakout(state: BracketState, seconds: number, rounds: number, seed: number): void {
+  if (seconds <= 0 || state.closed()) return;
+  const searcher = new BreakoutSearcher(state.graph, {
+    seed,
+    initial: state.partition,
+    upperBound: state.upper,
+  });
+  const stop = nowSeconds() + seconds;
+  let done = 0;
+  for (;;) {
+    const left = stop - nowSeconds();
+    if (left <= 0 || done >= rounds) break;
+    // Half-second slices keep the progress display alive on long runs.
+    const status = searcher.run({ seconds: Math.min(left, 0.5), iterations: rounds - done });
+    const best = searcher.best();
+    done = Number(best.details?.rounds ?? rounds);
+    if (best.value > state.lower) {
+      state.takeCut(best);
+      state.progress("breakout");
+    }
+    if (status !== "timeout") break; // "optimal": reached the upper bound; "budget": rounds used up
+  }
+  const best = searcher.best();
+  state.runs.push({ method: best.method, role: "lower", value: best.value, status: best.status, seconds: best.seconds, seed: best.seed, details: plainDetails(best.details) });
+  state.takeCut(best);
+}
+
+/** Heuristic lower bounds plus certified upper bounds, within the state's budget. */
+function heuristicPhase(state: BracketState, seed: number, quick: boolean, budgetShare: number): void {
+  const g = state.graph;
+  const n = g.n;
+  const total = Math.max(0, state.left()) * budgetShare;
+  const phaseEnd = nowSeconds() + total;
+  const phaseLeft = (): number => phaseEnd - nowSeconds();
+
+  // A first cut in a few milliseconds: multi-start 1-flip local search.
+  state.offerCut(localSearch(g, { seconds: Math.max(1e-3, Math.min(0.05 * total, 1)), iterations: quick ? 4 : 16, seed: methodSeed(seed, 1) }));
+
+  // The eigenvalue bound: cheap, always certified (y = 0).
+  state.offerDual(eigenvalueUpperBound(g));
+  if (state.closed()) return;
+
+  // The SDP: its vectors feed hyperplane rounding, its dual estimate feeds the certificate.
+  const sdp = solveSdp(g, {
+    seed: methodSeed(seed, 2),
+    seconds: Math.max(1e-3, (quick ? 0.3 : 0.4) * phaseLeft()),
+    maxSweeps: quick ? 300 : undefined,
+  });
+  state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, seed: sdp.seed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
+  state.offerDual(certifyDual(g, sdp.y));
+  if (state.closed()) return;
+
+  const roundingTrials = quick ? 8 : n <= 5000 ? 64 : 16;
+  state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials: roundingTrials, seed: methodSeed(seed, 3), polish: true }));
+  if (state.closed()) return;
+  if (!quick) {
+    state.offerCut(vectorMethodRound(g, { trials: n <= 5000 ? 32 : 8, seed: methodSeed(seed, 4), polish: true }));
+    if (state.closed()) return;
+    // Breakout gets what is left of the phase; the round cap (≈ 50 n² rounds, a few µs each at
+    // n = 200) keeps small graphs, whose bound may never meet the cut, from idling to the deadline.
+    runBreakout(state, phaseLeft(), 1000 + 50 * n * n, methodSeed(seed, 5));
+  }
+}
+
+/** Is branch and bound worth part of the budget? A practical rule from bench/cut-exact: small or sparse graphs. */
+function exactLooksFeasible(g: Graph): boolean {
+  return g.n <= 50 || (g.n <= 150 && g.m <= 3 * g.n);
+}
+
+export function bracket(graph: Graph, options: BracketOptions = {}): BracketRecord {
+  const owner = "bracket";
+  const seconds = options.seconds ?? DEFAULT_BRACKET_SECONDS;
+  if (typeof seconds !== "number" || !(seconds > 0) || !Number.isFinite(seconds)) {
+    throw new InputError(`${owner}: invalid \`seconds\`: should be a positive finite number (got ${JSON.stringify(options.seconds)})`);
+  }
+  const seed = checkSeedOption(owner, options.seed);
+  const method = options.method ?? "auto";
+  if (!BRACKET_METHODS.includes(method)) {
+    throw new InputError(`${owner}: invalid \`method\`: should be one of ${BRACKET_METHODS.join(", ")} (got ${JSON.stringify(method)})`);
+  }
+  const state = new BracketState(graph, seconds, options.onProgress);
+  state.progress("start");
+
+  if (graph.m > 0) {
+    if (method === "exact") {
+      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed }));
+      if (!state.closed()) state.offerDual(eigenvalueUpperBound(graph));
+    } else if (method === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
+      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed }));
+      if (!state.closed()) heuristicPhase(state, seed, false, 1);
+    } else if (method === "auto" && exactLooksFeasible(graph)) {
+      // Heuristics first (a good incumbent prunes far more), then exact search on the rest.
+      heuristicPhase(state, seed, false, 0.3);
+      if (!state.closed()) {
+        state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, initial: state.partition }));
+      }
+    } else {
+      heuristicPhase(state, seed, method === "quick", 1);
+    }
+  } else {
+    state.exact = true; // no edges: every cut is 0
+    state.upper = 0;
+    state.upperMethod = "positive-weights";
+  }
+
+  const W = graph.totalWeight;
+  const exact = state.closed();
+  return {
+    kind: BRACKET_RECORD_KIND,
+    version: BRACKET_RECORD_VERSION,
+    n: graph.n,
+    m: graph.m,
+    totalWeight: W,
+    lower: state.lower,
+    upper: state.upper,
+    exact,
+    upperProven: state.upperProven,
+    surplusLower: state.lower - W / 2,
+    surplusUpper: state.upper - W / 2,
+    lowerMethod: state.lowerMethod,
+    upperMethod: state.upperMethod,
+    seconds: state.elapsed(),
+    seed,
+    method,
+    partition: Array.from(state.partition),
+    certificate: state.certificate,
+    runs: state.runs,
+    graphHash: graphHash(graph),
+    source: options.source ?? null,
+  };
+}

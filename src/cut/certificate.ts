@@ -1,0 +1,343 @@
+// Certified max-cut upper bounds from a dual vector y: find a shift λ̄ ≥ λmax(L − Diag(y)), so that
+// Diag(y + λ̄) − L ⪰ 0 and ¼(Σy + n·λ̄) ≥ SDP ≥ max cut whatever solver produced y; and re-check one.
+//
+// Why it is a bound: for a cut x ∈ {±1}ⁿ, cut = ¼xᵀLx = ¼Σy_i + ¼xᵀ(L − Diag(y))x ≤ ¼Σy_i + ¼n·λmax(L − Diag(y)).
+// How λ̄ is established (certificate.shiftMethod):
+//   "cholesky-verified"      proof: a Lanczos estimate θ + ρ + margin, then a floating-point Cholesky
+//                            factorisation of Diag(y) + λ̄·I − L with a rounding-error margin
+//                            (src/linalg/cholesky.ts states the bound). Dense, O(n³): n ≤ denseLimit.
+//   "gershgorin"             proof: λmax ≤ max_i (d_i − y_i + Σ_j |w_ij|) (Gershgorin's circle theorem), rounded up. Loose.
+//   "lanczos-ritz-residual"  estimate, not a proof: a Ritz pair (θ, u) with ρ = ‖Au − θu‖ guarantees an
+//                            eigenvalue in [θ − ρ, θ + ρ] but not that none lies above; we take θ + 2ρ
+//                            (+ a relative margin) from the better of two seeded runs. Used above denseLimit.
+// A "dense-eig-error-bound" method is not offered: ml-matrix's eigensolver states no backward-error
+// constant, so its eigenvalues cannot be turned into a proof without one.
+
+import { InputError, invalidParameter } from "../errors.js";
+import type { Graph } from "../graph/graph.js";
+import { provePsdByCholesky, type PsdProof } from "../linalg/cholesky.js";
+import { lanczosExtreme } from "../linalg/lanczos.js";
+import { shiftedLaplacianOperator } from "../linalg/operator.js";
+import { UNIT_ROUNDOFF, gamma, roundUp } from "../linalg/rounding.js";
+import { assertSeed } from "../random/prng.js";
+import { solveSdp, type SdpOptions, type SdpRecord } from "./sdp.js";
+import type { DualCertificate, SolverStatus, UpperBoundRecord } from "./types.js";
+
+export type ShiftMethod = "cholesky-verified" | "gershgorin" | "lanczos-ritz-residual";
+
+/** Shift methods whose shift is a theorem rather than an estimate. */
+export const PROOF_SHIFT_METHODS: readonly string[] = ["cholesky-verified", "gershgorin"];
+
+export interface CertifyOptions {
+  /** auto (default): Cholesky when n ≤ denseLimit, else Lanczos; or force one method. */
+  method?: "auto" | "cholesky" | "gershgorin" | "lanczos";
+  /** Largest n for the dense Cholesky proof (default 3000: n² doubles of memory, n³/6 multiply-adds). */
+  denseLimit?: number;
+  /** Seed of the Lanczos start vector (default 1; the "lanczos" method also runs seed + 1). */
+  seed?: number;
+  /** Lanczos residual tolerance relative to ‖L − Diag(y)‖ (default 1e-10). */
+  tolerance?: number;
+  /** Record name (default "dual-certificate"). */
+  name?: string;
+}
+
+const OWNER = "certifyDual";
+const DEFAULT_DENSE_LIMIT = 3000;
+
+function checkY(graph: Graph, y: ArrayLike<number>, owner: string): void {
+  if (y.length !== graph.n) throw new InputError(`${owner}: \`y\` has ${y.length} entries but the graph has ${graph.n} vertices`);
+  for (let i = 0; i < y.length; i++) {
+    if (!Number.isFinite(y[i])) throw new InputError(`${owner}: \`y\`[${i}] is ${y[i]}, expected a finite number`);
+  }
+}
+
+function checkCertifyOptions(o: CertifyOptions): void {
+  if (o.method !== undefined && !["auto", "cholesky", "gershgorin", "lanczos"].includes(o.method)) {
+    throw invalidParameter(OWNER, "method", "should be one of auto, cholesky, gershgorin, lanczos", o.method);
+  }
+  if (o.denseLimit !== undefined && !(Number.isInteger(o.denseLimit) && o.denseLimit >= 0)) {
+    throw invalidParameter(OWNER, "denseLimit", "should be a non-negative integer", o.denseLimit);
+  }
+  if (o.seed !== undefined) {
+    try {
+      assertSeed(o.seed);
+      assertSeed(o.seed + 1);
+    } catch {
+      throw invalidParameter(OWNER, "seed", "should be an integer between 0 and 4294967294", o.seed);
+    }
+  }
+  if (o.tolerance !== undefined && !(o.tolerance > 0 && o.tolerance < 1)) throw invalidParameter(OWNER, "tolerance", "should be a number in (0, 1)", o.tolerance);
+}
+
+/**
+ * The bound ¼(Σy + n·shift), rounded up past every rounding error of its own evaluation
+ * (a sum of n + 1 terms: error ≤ γ_{n+1}·(Σ|y_i| + n·|shift|)). The one place this formula lives.
+ */
+export function dualBoundValue(y: ArrayLike<number>, shift: number): number {
+  const n = y.length;
+  let s = 0, abs = 0;
+  for (let i = 0; i < n; i++) {
+    s += y[i];
+    abs += Math.abs(y[i]);
+  }
+  const total = s + n * shift;
+  const err = gamma(n + 2) * (abs + n * Math.abs(shift));
+  return roundUp((total + err) / 4, 2);
+}
+
+/** Per-row data the rigorous methods need: rounded degrees and Σ_j |w_ij|. */
+function rowSums(graph: Graph): { d: Float64Array; abs: Float64Array } {
+  const { n, offsets, weights } = graph;
+  const d = new Float64Array(n);
+  const abs = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    let s = 0, a = 0;
+    for (let k = offsets[i]; k < offsets[i + 1]; k++) {
+      const w = weights === null ? 1 : weights[k];
+      s += w;
+      a += Math.abs(w);
+    }
+    d[i] = s;
+    abs[i] = a;
+  }
+  return { d, abs };
+}
+
+/** A rigorous upper bound on λmax(L − Diag(y)) by Gershgorin's theorem: max_i (d_i − y_i + Σ_j |w_ij|), rounded up. */
+export function gershgorinShift(graph: Graph, y: ArrayLike<number>): number {
+  checkY(graph, y, "gershgorinShift");
+  const { d, abs } = rowSums(graph);
+  let best = -Infinity;
+  for (let i = 0; i < graph.n; i++) {
+    const deg = graph.offsets[i + 1] - graph.offsets[i];
+    // d_i is a deg-term sum and abs_i another; with the two outer operations the row bound
+    // carries at most γ_{2·deg+3}·(|y_i| + 2·abs_i) of rounding.
+    const c = d[i] - y[i] + abs[i];
+    const bound = c + gamma(2 * deg + 3) * (Math.abs(y[i]) + 2 * abs[i]);
+    if (bound > best) best = bound;
+  }
+  return graph.n === 0 ? 0 : roundUp(best, 2);
+}
+
+/**
+ * Cholesky test that Diag(y) + shift·I − L ⪰ 0, i.e. shift ≥ λmax(L − Diag(y)), for the exact
+ * weights and y. Off-diagonal entries w_ij are copied exactly; each diagonal entry is computed as
+ * fl(fl(y_i + shift) − d̃_i) and carries at most γ_{deg+3}·(|y_i| + |shift| + Σ_j|w_ij|) of error.
+ */
+export function proveShift(graph: Graph, y: ArrayLike<number>, shift: number): PsdProof {
+  checkY(graph, y, "proveShift");
+  if (!Number.isFinite(shift)) throw new InputError(`proveShift: \`shift\` is ${shift}, expected a finite number`);
+  const { n, offsets, neighbors, weights } = graph;
+  if (n > 46000) throw new InputError(`proveShift: n = ${n} is too large for a dense Cholesky proof (at most 46000)`);
+  const a = new Float64Array(n * n);
+  const { d, abs } = rowSums(graph);
+  let diagError = 0;
+  for (let i = 0; i < n; i++) {
+    const row = i * n;
+    for (let k = offsets[i]; k < offsets[i + 1]; k++) {
+      const j = neighbors[k];
+      if (j < i) a[row + j] = weights === null ? 1 : weights[k];
+    }
+    a[row + i] = y[i] + shift - d[i];
+    const deg = offsets[i + 1] - offsets[i];
+    const e = gamma(deg + 3) * (Math.abs(y[i]) + Math.abs(shift) + abs[i]);
+    if (e > diagError) diagError = e;
+  }
+  return provePsdByCholesky(a, n, diagError * (1 + 4 * UNIT_ROUNDOFF));
+}
+
+interface ShiftEstimate {
+  theta: number;
+  residual: number;
+  normEstimate: number;
+  converged: boolean;
+  iterations: number;
+}
+
+function estimateTop(graph: Graph, y: ArrayLike<number>, seed: number, tolerance: number): ShiftEstimate {
+  const l = lanczosExtreme(shiftedLaplacianOperator(graph, y), { which: "largest", k: 1, tolerance, seed });
+  return { theta: l.values[0], residual: l.residuals[0], normEstimate: l.normEstimate, converged: l.converged, iterations: l.iterations };
+}
+
+interface EstablishedShift {
+  shift: number;
+  method: ShiftMethod;
+  proven: boolean;
+  converged: boolean;
+  details: Record<string, number | string | boolean | null>;
+}
+
+function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOptions): EstablishedShift {
+  const n = graph.n;
+  const seed = options.seed ?? 1;
+  const tol = options.tolerance ?? 1e-10;
+  const denseLimit = options.denseLimit ?? DEFAULT_DENSE_LIMIT;
+  const method = options.method ?? "auto";
+  if (n === 0) return { shift: 0, method: "gershgorin", proven: true, converged: true, details: {} };
+  if (method === "gershgorin") {
+    return { shift: gershgorinShift(graph, y), method: "gershgorin", proven: true, converged: true, details: {} };
+  }
+  const est = estimateTop(graph, y, seed, tol);
+  const scale = Math.max(est.normEstimate, 1e-300);
+  const useCholesky = method === "cholesky" || (method === "auto" && n <= denseLimit);
+  if (!useCholesky) {
+    const second = estimateTop(graph, y, seed + 1, tol);
+    const a = est.theta + 2 * est.residual;
+    const b = second.theta + 2 * second.residual;
+    const best = a >= b ? est : second;
+    const shift = roundUp(Math.max(a, b) + 1e-12 * scale, 2);
+    return {
+      shift,
+      method: "lanczos-ritz-residual",
+      proven: false,
+      converged: est.converged && second.converged,
+      details: { ritzValue: best.theta, ritzResidual: best.residual, lanczosIterations: est.iterations + second.iterations, proof: false },
+    };
+  }
+  // Margins grow tenfold per failed attempt; a failure usually means Lanczos missed the top of the spectrum.
+  let margin = Math.max(2 * est.residual, 1e-10 * scale);
+  let last: PsdProof | null = null;
+  for (let attempt = 1; attempt <= 6; attempt++) {
+    const shift = roundUp(est.theta + est.residual + margin, 2);
+    last = proveShift(graph, y, shift);
+    if (last.proven) {
+      return {
+        shift,
+        method: "cholesky-verified",
+        proven: true,
+        converged: true,
+        details: { ritzValue: est.theta, ritzResidual: est.residual, margin, choleskyShift: last.shift, attempts: attempt, lanczosIterations: est.iterations, proof: true },
+      };
+    }
+    margin *= attempt < 3 ? 10 : 1000;
+  }
+  // Fall back to the loose but unconditional bound rather than report nothing.
+  return {
+    shift: gershgorinShift(graph, y),
+    method: "gershgorin",
+    proven: true,
+    converged: true,
+    details: { ritzValue: est.theta, ritzResidual: est.residual, choleskyFailure: last?.message ?? null, proof: true },
+  };
+}
+
+/**
+ * A certified upper bound from any dual vector y: the record's value is
+ * `dualBoundValue(y, shift)`, with the shift established as described in the file header.
+ */
+export function certifyDual(graph: Graph, y: ArrayLike<number>, options: CertifyOptions = {}): UpperBoundRecord {
+  checkY(graph, y, OWNER);
+  checkCertifyOptions(options);
+  const t0 = performance.now();
+  const yy = Float64Array.from(y);
+  const s = establishShift(graph, yy, options);
+  const certificate: DualCertificate = { kind: "psd-dual", y: yy, shift: s.shift, shiftMethod: s.method };
+  const status: SolverStatus = s.converged ? "converged" : "budget";
+  return {
+    method: options.name ?? "dual-certificate",
+    value: dualBoundValue(yy, s.shift),
+    certificate,
+    status,
+    seconds: (performance.now() - t0) / 1000,
+    details: { ...s.details, shiftMethod: s.method },
+  };
+}
+
+export interface CertificateCheck {
+  /** The certificate is well formed and its shift was re-established from y. */
+  ok: boolean;
+  /** True when the check is a proof (Cholesky or Gershgorin), false for the Lanczos estimate. */
+  proven: boolean;
+  /** ¼(Σy + n·shift) rounded up, or NaN when malformed. */
+  value: number;
+  /** Independent upper estimate θ + ρ of λmax(L − Diag(y)) from a fresh Lanczos run (NaN when malformed). */
+  recomputedShift: number;
+  method: string;
+  message: string;
+}
+
+export interface VerifyOptions {
+  /** Seed of the independent Lanczos run (default 7, unlike the certifier's 1). */
+  seed?: number;
+  /** Largest n for re-running a Cholesky proof (default 6000). */
+  denseLimit?: number;
+}
+
+function rejected(method: string, message: string): CertificateCheck {
+  return { ok: false, proven: false, value: NaN, recomputedShift: NaN, method, message };
+}
+
+/**
+ * Re-check a dual certificate from y and the graph alone (no solver state): the claimed shift must
+ * be at least the Ritz value of a fresh Lanczos run (Ritz values never exceed λmax, so failing this
+ * refutes the certificate), and, for proof methods, the proof is redone at the claimed shift.
+ */
+export function verifyCertificate(graph: Graph, certificate: DualCertificate, options: VerifyOptions = {}): CertificateCheck {
+  const method = typeof certificate?.shiftMethod === "string" ? certificate.shiftMethod : "unknown";
+  if (certificate === null || typeof certificate !== "object" || certificate.kind !== "psd-dual") return rejected(method, "not a psd-dual certificate");
+  const { y, shift } = certificate;
+  if (y === null || typeof y !== "object" || typeof (y as ArrayLike<number>).length !== "number") return rejected(method, "`y` is not an array");
+  if (y.length !== graph.n) return rejected(method, `\`y\` has ${y.length} entries but the graph has ${graph.n} vertices`);
+  for (let i = 0; i < y.length; i++) {
+    if (typeof y[i] !== "number" || !Number.isFinite(y[i])) return rejected(method, `\`y\`[${i}] is ${String(y[i])}, expected a finite number`);
+  }
+  if (typeof shift !== "number" || !Number.isFinite(shift)) return rejected(method, `shift is ${String(shift)}, expected a finite number`);
+  const value = dualBoundValue(y, shift);
+  if (graph.n === 0) return { ok: true, proven: true, value, recomputedShift: 0, method, message: "empty graph" };
+
+  const est = estimateTop(graph, y, options.seed ?? 7, 1e-10);
+  const recomputedShift = est.theta + est.residual;
+  // Ritz values lie below λmax, so a shift under one (beyond rounding) is certainly too small.
+  const slack = 64 * UNIT_ROUNDOFF * Math.max(1, est.normEstimate);
+  if (shift < est.theta - slack) {
+    return { ok: false, proven: false, value, recomputedShift, method, message: `shift ${shift} is below the Ritz value ${est.theta} of L − Diag(y): Diag(y + shift) − L is not PSD` };
+  }
+  if (method === "gershgorin") {
+    const g = gershgorinShift(graph, y);
+    const ok = shift >= g;
+    return { ok, proven: ok, value, recomputedShift, method, message: ok ? "shift ≥ the Gershgorin bound recomputed from y" : `shift ${shift} is below the Gershgorin bound ${g}` };
+  }
+  if (method === "cholesky-verified") {
+    const limit = options.denseLimit ?? 6000;
+    if (graph.n > limit) return { ok: false, proven: false, value, recomputedShift, method, message: `n = ${graph.n} exceeds denseLimit = ${limit}: the Cholesky proof was not redone` };
+    const proof = proveShift(graph, y, shift);
+    return { ok: proof.proven, proven: proof.proven, value, recomputedShift, method, message: proof.proven ? `re-proved: ${proof.message}` : `Cholesky check failed: ${proof.message}` };
+  }
+  if (method === "lanczos-ritz-residual") {
+    const ok = shift >= recomputedShift - slack;
+    return {
+      ok,
+      proven: false,
+      value,
+      recomputedShift,
+      method,
+      message: ok ? "shift ≥ the recomputed Ritz value + residual (an estimate, not a proof)" : `shift ${shift} is below the recomputed estimate ${recomputedShift}`,
+    };
+  }
+  return { ok: false, proven: false, value, recomputedShift, method, message: `unknown shift method ${JSON.stringify(method)}` };
+}
+
+export interface SdpBoundOptions {
+  sdp?: SdpOptions;
+  certify?: CertifyOptions;
+}
+
+/** Solve the SDP by the mixing method and certify its dual: the vectors (for rounding) and the bound together. */
+export function solveAndCertifySdp(graph: Graph, options: SdpBoundOptions = {}): { sdp: SdpRecord; bound: UpperBoundRecord } {
+  const t0 = performance.now();
+  const sdp = solveSdp(graph, options.sdp);
+  const rec = certifyDual(graph, sdp.y, { name: "sdp-certified", ...options.certify });
+  const bound: UpperBoundRecord = {
+    ...rec,
+    status: sdp.status === "converged" ? rec.status : sdp.status,
+    seconds: (performance.now() - t0) / 1000,
+    relaxationValue: sdp.value,
+    details: { ...rec.details, sweeps: sdp.sweeps, rank: sdp.rank, seed: sdp.seed, sdpStatus: sdp.status, sdpSeconds: sdp.seconds, certifySeconds: rec.seconds },
+  };
+  return { sdp, bound };
+}
+
+/** The certified Goemans–Williamson bound ¼(Σy + n·λ̄) ≥ SDP ≥ max cut; `relaxationValue` is the primal value reached. */
+export function sdpUpperBound(graph: Graph, options: SdpBoundOptions = {}): UpperBoundRecord {
+  return solveAndCertifySdp(graph, options).bound;
+}

@@ -1,0 +1,184 @@
+// Re-checks a max-cut bracket record against its graph without trusting the solvers that made it:
+// the lower bound by re-evaluating the partition with `cutValue`, the upper bound by re-deriving
+// it from the certificate (dual certificate, exhaustive search, or the positive-weight sum).
+
+import { createHash } from "node:crypto";
+import { InputError } from "../errors.js";
+import type { Graph } from "../graph/graph.js";
+import type { BracketCertificate, BracketRecord } from "./bracket.js";
+import { verifyCertificate } from "./certificate.js";
+import { cutValue } from "./evaluate.js";
+import { integerWeights, positiveWeightSum } from "./exact-common.js";
+import { exactMaxCut } from "./exact.js";
+
+/** Format tag written into every bracket record, so verify can refuse other JSON. */
+export const BRACKET_RECORD_KIND = "halfplus-maxcut-bracket";
+export const BRACKET_RECORD_VERSION = 1;
+
+/**
+ * SHA-256 over n, m and the sorted edge list (u < v, u32 little-endian each, weight as f64
+ * little-endian; unweighted edges hash with weight 1), hex-encoded with a "sha256:" prefix.
+ * Vertex labels matter: a relabelled graph is a different input to a partition.
+ */
+export function graphHash(graph: Graph): string {
+  const h = createHash("sha256");
+  const head = Buffer.alloc(24);
+  head.write("hpg1", 0, "latin1");
+  head.writeUInt32LE(0, 4);
+  head.writeDoubleLE(graph.n, 8);
+  head.writeDoubleLE(graph.m, 16);
+  h.update(head);
+  const CHUNK = Math.max(1, Math.min(4096, graph.m));
+  const buf = Buffer.allocUnsafe(CHUNK * 16);
+  let k = 0;
+  const { offsets, neighbors, weights } = graph;
+  for (let u = 0; u < graph.n; u++) {
+    for (let i = offsets[u]; i < offsets[u + 1]; i++) {
+      const v = neighbors[i];
+      if (v <= u) continue;
+      const o = k * 16;
+      buf.writeUInt32LE(u, o);
+      buf.writeUInt32LE(v, o + 4);
+      buf.writeDoubleLE(weights === null ? 1 : weights[i], o + 8);
+      if (++k === CHUNK) {
+        h.update(buf);
+        k = 0;
+      }
+    }
+  }
+  if (k > 0) h.update(buf.subarray(0, k * 16));
+  return `sha256:${h.digest("hex")}`;
+}
+
+export interface BracketCheck {
+  name: string;
+  ok: boolean;
+  message: string;
+}
+
+export interface BracketVerdict {
+  ok: boolean;
+  checks: BracketCheck[];
+}
+
+export interface BracketVerifyOptions {
+  /** Budget for re-running an exact search when the certificate is exhaustive (default 60 s). */
+  seconds?: number;
+}
+
+function isNumber(x: unknown): x is number {
+  return typeof x === "number" && Number.isFinite(x);
+}
+
+/**
+ * Check a parsed JSON value has the shape of a bracket record (types only, not truth);
+ * a malformed record is bad input (InputError), a record whose claims fail is a verdict.
+ */
+export function parseBracketRecord(value: unknown, where: string): BracketRecord {
+  const bad = (what: string): never => {
+    throw new InputError(`${where}: not a max-cut bracket record: ${what}`);
+  };
+  if (typeof value !== "object" || value === null || Array.isArray(value)) bad("expected a JSON object");
+  const r = value as Record<string, unknown>;
+  if (r.kind !== BRACKET_RECORD_KIND) bad(`field \`kind\` should be ${JSON.stringify(BRACKET_RECORD_KIND)}`);
+  if (r.version !== BRACKET_RECORD_VERSION) bad(`unsupported \`version\` ${JSON.stringify(r.version)} (this build reads ${BRACKET_RECORD_VERSION})`);
+  for (const f of ["n", "m", "totalWeight", "lower", "upper", "surplusLower", "surplusUpper"]) {
+    if (!isNumber(r[f])) bad(`field \`${f}\` should be a finite number`);
+  }
+  if (typeof r.exact !== "boolean") bad("field `exact` should be true or false");
+  if (typeof r.upperProven !== "boolean") bad("field `upperProven` should be true or false");
+  if (typeof r.graphHash !== "string") bad("field `graphHash` should be a string");
+  if (!Array.isArray(r.partition)) bad("field `partition` should be an array of 0/1");
+  const c = r.certificate as Record<string, unknown> | undefined;
+  if (typeof c !== "object" || c === null) bad("field `certificate` should be an object");
+  const kind = c!.kind;
+  if (kind === "psd-dual") {
+    if (!Array.isArray(c!.y) || !isNumber(c!.shift) || typeof c!.shiftMethod !== "string") bad("psd-dual certificate needs `y` (array), `shift` and `shiftMethod`");
+  } else if (kind === "exhaustive" || kind === "search-bound") {
+    if (typeof c!.search !== "string") bad(`${kind} certificate needs \`search\``);
+  } else if (kind !== "positive-weights") {
+    bad(`unknown certificate kind ${JSON.stringify(kind)}`);
+  }
+  if (typeof c!.floored !== "boolean" || !isNumber(c!.tolerance)) bad("certificate needs `floored` (boolean) and `tolerance` (number)");
+  return value as BracketRecord;
+}
+
+/** The bound a certificate proves, after the integer rounding it declares. */
+function applyRounding(graph: Graph, cert: BracketCertificate, bound: number): { bound: number; problem: string | null } {
+  if (!cert.floored) return { bound, problem: null };
+  if (!integerWeights(graph)) return { bound, problem: "certificate rounds down to an integer but the graph has non-integer weights" };
+  return { bound: Math.floor(bound + 1e-9), problem: null };
+}
+
+/** Every check of a record against its graph. `ok` is true only when all pass. */
+export function verifyBracket(graph: Graph, record: BracketRecord, options: BracketVerifyOptions = {}): BracketVerdict {
+  const checks: BracketCheck[] = [];
+  const add = (name: string, ok: boolean, message: string): void => {
+    checks.push({ name, ok, message });
+  };
+
+  const hash = graphHash(graph);
+  add("graph", hash === record.graphHash && graph.n === record.n && graph.m === record.m,
+    hash === record.graphHash ? `same graph (n = ${graph.n}, m = ${graph.m})` : `graph hash differs: record ${record.graphHash}, graph ${hash} (n = ${graph.n}, m = ${graph.m})`);
+  add("total weight", graph.totalWeight === record.totalWeight, `W = ${graph.totalWeight}${graph.totalWeight === record.totalWeight ? "" : `, record says ${record.totalWeight}`}`);
+
+  // Lower bound: the partition must be a 0/1 vector whose cut is exactly `lower`.
+  const p = record.partition;
+  const wellFormed = Array.isArray(p) && p.length === graph.n && p.every((s) => s === 0 || s === 1);
+  if (!wellFormed) {
+    add("lower", false, `partition should hold ${graph.n} entries of 0 or 1`);
+  } else {
+    const value = cutValue(graph, p);
+    add("lower", value === record.lower, value === record.lower ? `cut of the partition = ${value}` : `cut of the partition is ${value}, record claims ${record.lower}`);
+  }
+
+  // Upper bound: re-derived from the certificate alone.
+  const cert = record.certificate;
+  const tol = cert.tolerance;
+  switch (cert.kind) {
+    case "psd-dual": {
+      if (cert.y.length !== graph.n || !cert.y.every(isNumber)) {
+        add("upper", false, `dual vector y should hold ${graph.n} finite numbers`);
+        break;
+      }
+      const v = verifyCertificate(graph, { kind: "psd-dual", y: Float64Array.from(cert.y), shift: cert.shift, shiftMethod: cert.shiftMethod });
+      if (!v.ok) {
+        add("upper", false, `dual certificate rejected: ${v.message}`);
+        break;
+      }
+      const r = applyRounding(graph, cert, v.value);
+      if (record.upperProven && !v.proven) add("proof", false, `record claims a proven bound but shift method ${cert.shiftMethod} is an estimate`);
+      if (r.problem !== null) add("upper", false, r.problem);
+      else add("upper", r.bound <= record.upper, `dual certificate (${cert.shiftMethod}${v.proven ? "" : ": an estimate, not a proof"}) gives max cut ≤ ${r.bound}${r.bound <= record.upper ? "" : `, more than the claimed upper ${record.upper}`}`);
+      break;
+    }
+    case "positive-weights": {
+      const s = positiveWeightSum(graph);
+      add("upper", s <= record.upper, `sum of positive weights = ${s}${s <= record.upper ? "" : ` exceeds the claimed ${record.upper}`}`);
+      break;
+    }
+    case "exhaustive":
+    case "search-bound": {
+      const seconds = options.seconds ?? 60;
+      const r = exactMaxCut(graph, { seconds });
+      if (r.status === "optimal") {
+        add("upper", r.value <= record.upper + tol, `exact search (${r.method}, ${r.seconds.toFixed(2)} s) finds max cut ${r.value}${r.value <= record.upper + tol ? "" : `, above the claimed upper ${record.upper}`}`);
+      } else {
+        add("upper", r.upper <= record.upper + tol, r.upper <= record.upper + tol
+          ? `exact search stopped after ${seconds} s with bound ${r.upper} ≤ claimed ${record.upper}`
+          : `exact search did not finish within ${seconds} s (bound ${r.upper} > claimed ${record.upper}); rerun with more --seconds`);
+      }
+      break;
+    }
+  }
+
+  // The derived fields must agree with lower, upper and W.
+  const W = graph.totalWeight;
+  const consistent = record.lower <= record.upper + tol && record.surplusLower === record.lower - W / 2 && record.surplusUpper === record.upper - W / 2;
+  add("consistency", consistent, consistent ? "lower ≤ upper, surpluses = bounds − W/2" : "lower > upper or surplus fields do not match the bounds");
+  if (record.exact) {
+    const closed = record.upper - record.lower <= tol;
+    add("exact", closed, closed ? "bracket closed: the cut is optimal" : `record claims exact but upper − lower = ${record.upper - record.lower}`);
+  }
+  return { ok: checks.every((c) => c.ok), checks };
+}

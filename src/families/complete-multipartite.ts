@@ -1,0 +1,80 @@
+// Complete multipartite graphs K_{a1,…,ar}: vertices split into consecutive parts, every pair in
+// different parts adjacent. Complete bipartite K_{a,b} is the two-part case.
+
+import { invalidParameter } from "../errors.js";
+import { EdgeBuffer } from "../graph/builder.js";
+import type { Graph } from "../graph/graph.js";
+import { bipartiteFreeOf } from "./free-of.js";
+import { resolveParams } from "./spec.js";
+import type { ExpectedShape, FamilyDefinition, Params } from "./types.js";
+
+/** Builds K_{parts}; part i holds the next parts[i] vertex ids. Trusts its arguments. */
+export function buildCompleteMultipartite(parts: readonly number[]): Graph {
+  const n = parts.reduce((a, b) => a + b, 0);
+  const shape = multipartiteShape(parts);
+  const buf = new EdgeBuffer({ capacity: Math.max(16, shape.m) });
+  let start = 0;
+  for (const size of parts) {
+    const end = start + size;
+    for (let u = start; u < end; u++) for (let v = end; v < n; v++) buf.add(u, v);
+    start = end;
+  }
+  return buf.build(n).graph;
+}
+
+function multipartiteShape(parts: readonly number[]): ExpectedShape {
+  const n = parts.reduce((a, b) => a + b, 0);
+  const sq = parts.reduce((a, b) => a + b * b, 0);
+  const big = Math.max(...parts), small = Math.min(...parts);
+  return { n, m: (n * n - sq) / 2, mExact: true, minDegree: n - big, maxDegree: n - small };
+}
+
+export function completeMultipartiteGraph(parts: readonly number[]): Graph {
+  const p = resolveParams(completeMultipartite, { parts: [...parts] }).params;
+  return buildCompleteMultipartite(p.parts as number[]);
+}
+
+export const completeMultipartite: FamilyDefinition = {
+  name: "complete-multipartite",
+  summary: "complete multipartite graph: parts of the given sizes, all pairs across parts adjacent",
+  params: [{ name: "parts", type: "integer-list", description: "part sizes joined by +, each at least 1", default: [2, 2, 2] }],
+  random: false,
+  validate: (p: Params) => {
+    const parts = p.parts as number[];
+    for (const a of parts) if (a < 1 || a > 100_000_000) throw invalidParameter("complete-multipartite", "parts", "should list sizes between 1 and 100000000", a);
+  },
+  freeOf: (p) => {
+    const r = (p.parts as number[]).length;
+    if (r === 2) return bipartiteFreeOf("two independent parts");
+    // A clique meets each independent part at most once (pigeonhole).
+    return r + 1 <= 6 ? [{ pattern: `K${r + 1}`, source: `a clique takes at most one vertex from each of the ${r} parts (pigeonhole)` }] : [];
+  },
+  expected: (p) => multipartiteShape(p.parts as number[]),
+  build: (p) => buildCompleteMultipartite(p.parts as number[]),
+};
+
+/** K_{a,b}. */
+export function completeBipartiteGraph(a: number, b: number): Graph {
+  const p = resolveParams(completeBipartite, { a, b }).params;
+  return buildCompleteMultipartite([p.a as number, p.b as number]);
+}
+
+export const completeBipartite: FamilyDefinition = {
+  name: "complete-bipartite",
+  summary: "complete bipartite graph K_{a,b}",
+  params: [
+    { name: "a", type: "integer", description: "size of the first side", default: 3, min: 1, max: 100_000_000 },
+    { name: "b", type: "integer", description: "size of the second side", default: 3, min: 1, max: 100_000_000 },
+  ],
+  random: false,
+  freeOf: (p) => {
+    const a = p.a as number, b = p.b as number;
+    const out = bipartiteFreeOf("two independent sides");
+    // K_{s,t} ⊆ K_{a,b} needs s ≤ a, t ≤ b or the other way round.
+    if (Math.min(a, b) < 2) out.push({ pattern: "C4", source: "a side with one vertex: K_{1,b} is a star" });
+    else if (Math.max(a, b) < 3) out.push({ pattern: "K2,3", source: "both sides have at most 2 vertices" });
+    return out;
+  },
+  expected: (p) => multipartiteShape([p.a as number, p.b as number]),
+  build: (p) => buildCompleteMultipartite([p.a as number, p.b as number]),
+};

@@ -1,0 +1,20 @@
+// The Grötzsch graph μ(C5) = μ²(K2): 11 vertices, 20 edges, triangle-free, chromatic number 4.
+
+import type { Graph } from "../../graph/graph.js";
+import { mycielskiGraph } from "../mycielski.js";
+import { namedFamily } from "./define.js";
+
+export function grotzschGraph(): Graph {
+  return mycielskiGraph(2);
+}
+
+export const grotzsch = namedFamily({
+  name: "grotzsch",
+  summary: "Grötzsch graph: the Mycielskian of C5, smallest triangle-free 4-chromatic graph",
+  n: 11,
+  m: 20,
+  minDegree: 3,
+  maxDegree: 5,
+  freeOf: [{ pattern: "K3", source: "Mycielski 1955; smallest triangle-free 4-chromatic graph (Chvátal 1974)" }],
+  build: grotzschGraph,
+});

@@ -1,0 +1,50 @@
+// Blow-up G(t): each vertex v becomes t independent copies v·t .. v·t+t−1, and copies of
+// adjacent vertices are all joined (each copy edge keeps the original edge's weight).
+
+import { invalidParameter } from "../../errors.js";
+import { EdgeBuffer } from "../../graph/builder.js";
+import type { Graph } from "../../graph/graph.js";
+import { checkEdgeLimit, checkTypedParam } from "../typed-build.js";
+import type { FamilyDefinition } from "../types.js";
+import { unknownShape, type ShapeContext } from "./nested-shape.js";
+
+const MAX_VERTICES = 0x7fffffff;
+
+export function blowUp(g: Graph, t: number): Graph {
+  checkTypedParam(blowupFamily, "t", t);
+  if (g.n * t > MAX_VERTICES) throw invalidParameter("blowup", "t", `n·t should be below 2^31 (n = ${g.n})`, t);
+  checkEdgeLimit("blowup", g.m * t * t);
+  const buf = new EdgeBuffer({ weighted: g.weighted, capacity: g.m * t * t });
+  const { us, vs, ws } = g.edgeArrays();
+  for (let e = 0; e < us.length; e++) {
+    const a = us[e] * t;
+    const b = vs[e] * t;
+    const w = ws === null ? 1 : ws[e];
+    for (let i = 0; i < t; i++) for (let j = 0; j < t; j++) buf.add(a + i, b + j, w);
+  }
+  return buf.build(g.n * t).graph;
+}
+
+export const blowupFamily: FamilyDefinition = {
+  name: "blowup",
+  summary: "blow-up: every vertex replaced by t independent copies, copies of adjacent vertices joined",
+  params: [
+    { name: "of", type: "spec", description: "the graph to blow up, e.g. [petersen]" },
+    { name: "t", type: "integer", description: "copies per vertex", min: 1, max: 100000 },
+  ],
+  random: false,
+  freeOf: () => [],
+  expected: (params, ctx?: ShapeContext) => {
+    const s = ctx?.expectedOf(params.of as string);
+    if (s === undefined) return unknownShape();
+    const t = params.t as number;
+    return {
+      n: s.n * t,
+      m: s.m * t * t,
+      mExact: s.mExact,
+      ...(s.minDegree !== undefined && s.maxDegree !== undefined ? { minDegree: s.minDegree * t, maxDegree: s.maxDegree * t } : {}),
+    };
+  },
+  build: (params, ctx) => blowUp(ctx.resolve(params.of as string), params.t as number),
+  notes: "A clique meets each set of copies at most once, so the blow-up of a K_r-free graph is K_r-free; for t ≥ 2 any edge gives a C4.",
+};

@@ -1,0 +1,65 @@
+// Erdős–Rényi orthogonal-polarity graph ER_q: the points of PG(2, q), x ~ y iff x·y = 0 (x ≠ y).
+// The q+1 absolute points (x·x = 0) would carry loops; the simple graph drops them and reports them separately.
+
+import { EdgeBuffer } from "../graph/builder.js";
+import type { Graph } from "../graph/graph.js";
+import { checkPrimePower, finiteField } from "./finite-field.js";
+import { pg2Coordinates, pg2PointCount, pg2PolarLine } from "./pg2.js";
+import { resolveParams } from "./spec.js";
+import type { FamilyDefinition, Params } from "./types.js";
+
+export interface PolarityGraph {
+  q: number;
+  /** The simple graph (absolute points keep their other q neighbours, no loop). */
+  graph: Graph;
+  /** The q+1 absolute points, ascending: where the adjacency matrix with loops has a 1 on the diagonal. */
+  absolutePoints: Int32Array;
+}
+
+function buildPolarity(q: number): PolarityGraph {
+  const F = finiteField(q, "polarity");
+  const n = pg2PointCount(q);
+  const buf = new EdgeBuffer({ capacity: (q * (q + 1) * (q + 1)) / 2 });
+  const x = new Int32Array(3);
+  const line = new Int32Array(q + 1);
+  const absolute = new Int32Array(q + 1);
+  let a = 0;
+  for (let i = 0; i < n; i++) {
+    pg2Coordinates(q, i, x);
+    const len = pg2PolarLine(F, x[0], x[1], x[2], line);
+    for (let j = 0; j < len; j++) {
+      const y = line[j];
+      if (y > i) buf.add(i, y); // each edge is met from both ends; keep it once
+      else if (y === i) absolute[a++] = i;
+    }
+  }
+  return { q, graph: buf.build(n).graph, absolutePoints: a === q + 1 ? absolute : absolute.slice(0, a) };
+}
+
+/** ER_q with its absolute points (a typed call validated like the spec `polarity:q=…`). */
+export function polarityGraphWithLoops(q: number): PolarityGraph {
+  const p = resolveParams(polarity, { q }).params;
+  return buildPolarity(p.q as number);
+}
+
+/** ER_q as a simple graph (loops at the absolute points dropped). */
+export function polarityGraph(q: number): Graph {
+  return polarityGraphWithLoops(q).graph;
+}
+
+export const polarity: FamilyDefinition = {
+  name: "polarity",
+  summary: "Erdős–Rényi orthogonal-polarity graph ER_q on the points of PG(2,q), x ~ y iff x·y = 0",
+  params: [{ name: "q", type: "integer", description: "field order, a prime power", default: 5, min: 2, max: 1000 }],
+  random: false,
+  validate: (p: Params) => {
+    checkPrimePower("polarity", "q", p.q as number);
+  },
+  freeOf: () => [{ pattern: "C4", source: "two points have one common neighbour at most: Erdős–Rényi 1962; Brown 1966" }],
+  expected: (p) => {
+    const q = p.q as number;
+    return { n: q * q + q + 1, m: (q * (q + 1) * (q + 1)) / 2, mExact: true, minDegree: q, maxDegree: q + 1 };
+  },
+  build: (p) => buildPolarity(p.q as number).graph,
+  notes: "q+1 absolute points have degree q (their loop is dropped), the rest q+1; with loops the adjacency spectrum is q+1 once and ±√q.",
+};

@@ -1,0 +1,52 @@
+// One line of a nauty stream: blank lines and a lone `>>graph6<<`/`>>sparse6<<` header carry no
+// graph; otherwise ':' starts sparse6, anything else is graph6 (nauty's tools mix both freely).
+// Incremental sparse6 (';') and digraph6 ('&') are refused with a clear message.
+
+import { inputErrorAt } from "../../errors.js";
+import type { BuildOptions, BuildReport } from "../builder.js";
+import type { Graph } from "../graph.js";
+import { decodeGraph6, GRAPH6_HEADER, hasPrefix } from "./graph6.js";
+import { isBlank } from "./scan.js";
+import { decodeSparse6, SPARSE6_HEADER } from "./sparse6.js";
+import { DEFAULT_SOURCE, type Where } from "./types.js";
+
+export interface NautyLineGraph {
+  graph: Graph;
+  report: BuildReport;
+  format: "graph6" | "sparse6";
+}
+
+const NO_REPORT: Readonly<BuildReport> = Object.freeze({ mergedDuplicates: 0, droppedLoops: 0 });
+
+/** Decode buf[start, end) (no "\n"); null when the line holds no graph. */
+export function decodeNautyLine(buf: Uint8Array, start: number, end: number, where: Where, build: BuildOptions | undefined): NautyLineGraph | null {
+  if (end > start && buf[end - 1] === 13) end--; // CRLF files
+  let p = start;
+  while (p < end && isBlank(buf[p])) p++;
+  if (p === end) return null;
+  p = start;
+  let header: "graph6" | "sparse6" | null = null;
+  if (buf[p] === 62) {
+    if (hasPrefix(buf, p, end, GRAPH6_HEADER)) {
+      header = "graph6";
+      p += GRAPH6_HEADER.length;
+    } else if (hasPrefix(buf, p, end, SPARSE6_HEADER)) {
+      header = "sparse6";
+      p += SPARSE6_HEADER.length;
+    } else if (hasPrefix(buf, p, end, ">>digraph6<<")) {
+      throw inputErrorAt(where.source ?? DEFAULT_SOURCE, where.line, "digraph6 is not supported: halfplus reads undirected graphs");
+    }
+    if (p === end) return null;
+  }
+  const c = buf[p];
+  const fail = (problem: string) => inputErrorAt(where.source ?? DEFAULT_SOURCE, where.line, problem);
+  if (c === 59) throw fail("incremental sparse6 (a line starting with ';') is not supported");
+  if (c === 38) throw fail("digraph6 (a line starting with '&') is not supported: halfplus reads undirected graphs");
+  if (c === 58) {
+    if (header === "graph6") throw fail("a sparse6 line follows a >>graph6<< header");
+    const r = decodeSparse6(buf, start, p, end, where, build);
+    return { graph: r.graph, report: r.report, format: "sparse6" };
+  }
+  if (header === "sparse6") throw fail("a graph6 line follows a >>sparse6<< header");
+  return { graph: decodeGraph6(buf, start, p, end, where), report: { ...NO_REPORT }, format: "graph6" };
+}

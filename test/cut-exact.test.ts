@@ -1,0 +1,256 @@
+// Exact max cut (Gray code, branch and bound, the component-splitting front end) checked against
+// known values, brute force, and the max-cut MILP solved by a Debian solver (cbc or glpsol).
+
+import { execFileSync, spawnSync } from "node:child_process";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { buildGraph } from "../src/graph/builder.js";
+import type { Graph } from "../src/graph/graph.js";
+import { family } from "../src/families/registry.js";
+import { cutValue } from "../src/cut/evaluate.js";
+import { exactMaxCut } from "../src/cut/exact.js";
+import { branchAndBoundMaxCut } from "../src/cut/exact-bnb.js";
+import { grayCodeMaxCut } from "../src/cut/exact-gray.js";
+import { InputError } from "../src/errors.js";
+import { Rng } from "../src/random/prng.js";
+
+const has = (tool: string): boolean => spawnSync("which", [tool]).status === 0;
+
+/** G(n, p) with optional weights drawn by `weight` (test-local, seeded). */
+function randomGraph(n: number, p: number, rng: Rng, weight?: (r: Rng) => number): Graph {
+  const us: number[] = [], vs: number[] = [], ws: number[] = [];
+  for (let i = 0; i < n; i++) {
+    for (let j = i + 1; j < n; j++) {
+      if (rng.nextFloat() < p) {
+        us.push(i);
+        vs.push(j);
+        ws.push(weight ? weight(rng) : 1);
+      }
+    }
+  }
+  return buildGraph(n, us, vs, weight ? ws : null).graph;
+}
+
+/** Every bipartition with vertex 0 on side 0, each valued by cutValue: the plainest possible oracle. */
+function bruteForce(g: Graph): number {
+  if (g.n <= 1) return 0;
+  const side = new Uint8Array(g.n);
+  let best = -Infinity;
+  for (let mask = 0; mask < 2 ** (g.n - 1); mask++) {
+    for (let i = 1; i < g.n; i++) side[i] = (mask >>> (i - 1)) & 1;
+    best = Math.max(best, cutValue(g, side));
+  }
+  return best;
+}
+
+function expectConsistent(g: Graph, r: ReturnType<typeof exactMaxCut>): void {
+  expect(r.value).toBe(cutValue(g, r.partition));
+  expect(r.upper).toBeGreaterThanOrEqual(r.value);
+}
+
+describe("exact max cut: known values", () => {
+  it("Petersen graph: 12", () => {
+    // The Petersen graph has max cut 12 of its 15 edges (from memory; it has odd girth 5 and needs 3 uncut edges).
+    const g = family("petersen");
+    for (const r of [grayCodeMaxCut(g), branchAndBoundMaxCut(g), exactMaxCut(g)]) {
+      expectConsistent(g, r);
+      expect(r.status).toBe("optimal");
+      expect(r.value).toBe(12);
+      expect(r.upper).toBe(12);
+    }
+  });
+
+  it("complete graphs K_n: ⌊n²/4⌋", () => {
+    // Max cut of K_n is ⌊n/2⌋·⌈n/2⌉ = ⌊n²/4⌋ (common knowledge, from memory).
+    for (let n = 1; n <= 26; n++) {
+      const g = family(`complete:n=${n}`);
+      const want = Math.floor((n * n) / 4);
+      const gray = grayCodeMaxCut(g);
+      expect(gray.value).toBe(want);
+      if (n <= 22) expect(branchAndBoundMaxCut(g).value).toBe(want);
+    }
+  });
+
+  it("odd cycles C_{2k+1}: 2k; even cycles: all edges", () => {
+    // An odd cycle is not bipartite, so one edge stays uncut; even cycles are bipartite (common knowledge).
+    for (let n = 3; n <= 41; n++) {
+      const g = family(`cycle:n=${n}`);
+      const want = n % 2 === 1 ? n - 1 : n;
+      expect(exactMaxCut(g).value).toBe(want);
+      expect(branchAndBoundMaxCut(g).upper).toBe(want);
+    }
+  });
+
+  it("hypercubes Q_d: every edge (bipartite)", () => {
+    // Q_d is bipartite by parity of weight, so all d·2^(d−1) edges are cut (common knowledge).
+    for (let d = 1; d <= 6; d++) {
+      const g = family(`hypercube:d=${d}`);
+      const r = exactMaxCut(g);
+      expect(r.value).toBe(d * 2 ** (d - 1));
+      expect(r.upper).toBe(r.value);
+    }
+  });
+
+  it("trivial graphs and disconnected unions", () => {
+    expect(exactMaxCut(buildGraph(0, [], []).graph).value).toBe(0);
+    expect(exactMaxCut(buildGraph(5, [], []).graph).upper).toBe(0);
+    // K_5 ∪ C_7 ∪ K_1: 6 + 6 + 0 (values above).
+    const us = [], vs = [];
+    for (let i = 0; i < 5; i++) for (let j = i + 1; j < 5; j++) us.push(i), vs.push(j);
+    for (let i = 0; i < 7; i++) us.push(5 + i), vs.push(5 + ((i + 1) % 7));
+    const g = buildGraph(13, us, vs).graph;
+    const r = exactMaxCut(g);
+    expectConsistent(g, r);
+    expect(r.value).toBe(12);
+    expect(r.details?.components).toBe(3);
+  });
+});
+
+describe("exact max cut: methods agree", () => {
+  it("Gray code, branch and bound and brute force agree on random graphs, weighted and not", () => {
+    // Oracle: exhaustive enumeration through cutValue (common practice, no source).
+    const rng = new Rng(20240611);
+    for (let t = 0; t < 300; t++) {
+      const n = 1 + rng.nextInt(12);
+      const kind = t % 3;
+      const weight = kind === 0 ? undefined : kind === 1 ? (r: Rng) => r.nextInt(9) - 4 || 1 : (r: Rng) => Math.round(r.nextNormal() * 1000) / 100;
+      const g = randomGraph(n, rng.nextFloat(), rng, weight);
+      const want = bruteForce(g);
+      const gray = grayCodeMaxCut(g, { blockSize: rng.nextInt(n) });
+      const bnb = branchAndBoundMaxCut(g, { blockSize: rng.nextInt(n), order: t % 2 === 0 ? "degree" : "tail-greedy" });
+      const front = exactMaxCut(g, { method: t % 2 === 0 ? "auto" : "bnb" });
+      for (const r of [gray, bnb, front]) {
+        expectConsistent(g, r);
+        expect(r.status).toBe("optimal");
+        expect(r.value).toBeCloseTo(want, 9);
+        expect(r.upper).toBeLessThanOrEqual(want + 1e-6);
+      }
+    }
+  });
+
+  it("Gray code and branch and bound agree for n = 18..26", () => {
+    // Cross-check of two independent searches (common practice, no source).
+    const rng = new Rng(77);
+    for (let t = 0; t < 12; t++) {
+      const n = 18 + rng.nextInt(9);
+      const g = randomGraph(n, 0.15 + 0.7 * rng.nextFloat(), rng, t % 3 === 2 ? (r) => (r.nextInt(2) ? 1 : -1) : undefined);
+      const a = grayCodeMaxCut(g);
+      const b = branchAndBoundMaxCut(g);
+      expect(b.value).toBe(a.value);
+      expect(b.upper).toBe(a.value);
+    }
+  });
+});
+
+describe("exact max cut: timeouts give valid brackets", () => {
+  it("branch and bound on K_44 stopped early brackets ⌊44²/4⌋ = 484", () => {
+    // K_n max cut ⌊n²/4⌋ (from memory); the search cannot finish in 0.2 s, so it must report a bracket.
+    const g = family("complete:n=44");
+    const r = branchAndBoundMaxCut(g, { seconds: 0.2 });
+    expect(r.status).toBe("timeout");
+    expectConsistent(g, r);
+    expect(r.value).toBeLessThanOrEqual(484);
+    expect(r.upper).toBeGreaterThanOrEqual(484);
+    expect(r.upper).toBeLessThanOrEqual(g.m);
+  });
+
+  it("Gray code on K_34 stopped early brackets 289", () => {
+    const g = family("complete:n=34");
+    const r = grayCodeMaxCut(g, { seconds: 0.1 });
+    expect(r.status).toBe("timeout");
+    expectConsistent(g, r);
+    expect(r.value).toBeLessThanOrEqual(289);
+    expect(r.upper).toBeGreaterThanOrEqual(289);
+  });
+
+  it("a late component after the budget runs out still yields a valid sum bracket", () => {
+    // Two copies of K_40 (max cut 400 each, from memory): the budget ends inside the first.
+    const us: number[] = [], vs: number[] = [];
+    for (let c = 0; c < 2; c++) for (let i = 0; i < 40; i++) for (let j = i + 1; j < 40; j++) us.push(40 * c + i), vs.push(40 * c + j);
+    const g = buildGraph(80, us, vs).graph;
+    const r = exactMaxCut(g, { seconds: 0.2 });
+    expect(r.status).toBe("timeout");
+    expectConsistent(g, r);
+    expect(r.value).toBeLessThanOrEqual(800);
+    expect(r.upper).toBeGreaterThanOrEqual(800);
+  });
+});
+
+describe("exact max cut: bad input", () => {
+  it("throws InputError naming the parameter", () => {
+    const g = family("petersen");
+    expect(() => exactMaxCut(g, { seconds: 0 })).toThrow(InputError);
+    expect(() => exactMaxCut(g, { seconds: -1 })).toThrow(/seconds/);
+    expect(() => exactMaxCut(g, { seed: 1.5 })).toThrow(/seed/);
+    expect(() => grayCodeMaxCut(g, { blockSize: 10 })).toThrow(/blockSize/);
+    expect(() => branchAndBoundMaxCut(g, { blockSize: -1 })).toThrow(/blockSize/);
+    expect(() => grayCodeMaxCut(family("complete:n=35"))).toThrow(/at most 34/);
+    expect(() => exactMaxCut(g, { initial: [0, 1] })).toThrow(/initial/);
+  });
+});
+
+// ---- MILP cross-check -------------------------------------------------------------------
+
+const milpSolver = has("cbc") ? "cbc" : has("glpsol") ? "glpsol" : null;
+const workDir = mkdtempSync(join(tmpdir(), "halfplus-milp-"));
+afterAll(() => rmSync(workDir, { recursive: true, force: true }));
+
+/**
+ * The standard max-cut MILP in CPLEX LP format: binary x_i (side), y_ij ≤ x_i + x_j and
+ * y_ij ≤ 2 − x_i − x_j for edges of positive weight; y_ij ≥ x_i − x_j and y_ij ≥ x_j − x_i for
+ * negative weights; maximise Σ w_ij y_ij. x_0 = 0 removes the mirror symmetry.
+ */
+function maxCutLp(g: Graph): string {
+  const { us, vs, ws } = g.edgeArrays();
+  const obj: string[] = [];
+  const rows: string[] = [];
+  for (let e = 0; e < g.m; e++) {
+    const w = ws === null ? 1 : ws[e];
+    const [i, j] = [us[e], vs[e]];
+    obj.push(`${w >= 0 ? "+" : "-"} ${Math.abs(w)} y${e}`);
+    if (w >= 0) {
+      rows.push(` a${e}: y${e} - x${i} - x${j} <= 0`, ` b${e}: y${e} + x${i} + x${j} <= 2`);
+    } else {
+      rows.push(` c${e}: y${e} - x${i} + x${j} >= 0`, ` d${e}: y${e} + x${i} - x${j} >= 0`);
+    }
+  }
+  const lines = ["Maximize", ` obj: ${obj.join(" ") || "0 x0"}`, "Subject To", ...rows, " fix: x0 = 0", "Bounds"];
+  for (let e = 0; e < g.m; e++) lines.push(` 0 <= y${e} <= 1`);
+  lines.push("Binary", " " + Array.from({ length: g.n }, (_, i) => `x${i}`).join(" "), "End", "");
+  return lines.join("\n");
+}
+
+function solveMilp(g: Graph, name: string): number {
+  const lp = join(workDir, `${name}.lp`);
+  const out = join(workDir, `${name}.out`);
+  writeFileSync(lp, maxCutLp(g));
+  if (milpSolver === "cbc") {
+    execFileSync("cbc", [lp, "solve", "solu", out], { stdio: "ignore" });
+    const first = readFileSync(out, "utf8").split("\n")[0];
+    const m = /^Optimal - objective value\s+(-?[0-9.eE+-]+)/.exec(first);
+    if (m === null) throw new Error(`cbc: unexpected solution header ${JSON.stringify(first)}`);
+    return Number(m[1]);
+  }
+  execFileSync("glpsol", ["--lp", lp, "-o", out], { stdio: "ignore" });
+  const m = /Objective:\s+obj = (-?[0-9.eE+-]+) \(MAXimum\)/.exec(readFileSync(out, "utf8"));
+  if (m === null) throw new Error("glpsol: no objective in the report");
+  return Number(m[1]);
+}
+
+describe("exact max cut agrees with a MILP solver", () => {
+  it.skipIf(milpSolver === null)("50 random graphs with n ≤ 30 (cbc, else glpsol, from the Debian archive)", () => {
+    // Source: the MILP optimum from an independent solver (coinor-cbc / glpk-utils).
+    const rng = new Rng(5150);
+    for (let t = 0; t < 50; t++) {
+      const n = t < 44 ? 6 + rng.nextInt(15) : 24 + rng.nextInt(7);
+      const avgDegree = 2 + 2 * rng.nextFloat();
+      const weight = t % 4 === 1 ? (r: Rng) => r.nextInt(7) - 3 || 2 : t % 4 === 3 ? (r: Rng) => 1 + r.nextInt(5) : undefined;
+      const g = randomGraph(n, avgDegree / (n - 1), rng, weight);
+      const r = exactMaxCut(g);
+      expect(r.status).toBe("optimal");
+      expect(r.value).toBeCloseTo(solveMilp(g, `g${t}`), 6);
+    }
+  });
+});

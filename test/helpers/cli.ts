@@ -1,0 +1,29 @@
+// Runs the built `halfplus` bin (dist/cli/main.js; `npm test` builds first) as a user would.
+import { spawnSync, execSync } from "node:child_process";
+import { existsSync } from "node:fs";
+import { dirname, join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+
+export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..");
+export const BIN = join(ROOT, "dist", "cli", "main.js");
+export const SHARED_REFERENCE = resolve(ROOT, "..", "shared", "reference");
+export const hasShared = existsSync(SHARED_REFERENCE);
+
+export function ensureBuilt(): void {
+  if (!existsSync(BIN)) execSync("npx tsc -p tsconfig.build.json", { cwd: ROOT, stdio: "inherit" });
+}
+
+export function hasTool(name: string): boolean {
+  return spawnSync("sh", ["-c", `command -v ${name}`]).status === 0;
+}
+
+export interface CliResult {
+  code: number;
+  stdout: string;
+  stderr: string;
+}
+
+export function halfplus(args: string[], input?: string | Buffer, timeoutMs = 120_000): CliResult {
+  const r = spawnSync(process.execPath, [BIN, ...args], { cwd: ROOT, input, timeout: timeoutMs, maxBuffer: 1 << 28 });
+  return { code: r.status ?? -1, stdout: r.stdout.toString(), stderr: r.stderr.toString() };
+}
