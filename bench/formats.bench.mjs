@@ -91,6 +91,7 @@ rows.push({
   ms: Math.round(secs * 1000),
   cpuMs: Math.round((cpu.user + cpu.system) / 1000),
   graphsPerSec: Math.round(count / secs),
+  graphsPerCpuSec: Math.round(count / ((cpu.user + cpu.system) / 1e6)),
   edges,
   heapBeforeMB: mb(before.heapUsed),
   heapAfterMB: mb(after.heapUsed),

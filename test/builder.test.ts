@@ -40,6 +40,22 @@ describe("CSR builder", () => {
     }
   });
 
+  it("gives the same graph whether edges arrive sorted (direct placement) or shuffled", () => {
+    // Oracle: the general two-pass path on a shuffled copy (common practice, no source).
+    const r = new Rng(3);
+    const n = 60;
+    const pairs: [number, number][] = [];
+    for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) if (r.nextFloat() < 0.2) pairs.push([u, v]);
+    const byMax = [...pairs].sort((a, b) => a[1] - b[1] || a[0] - b[0]);
+    const shuffled = r.shuffle([...pairs]);
+    const g1 = graphFromEdges(n, pairs), g2 = graphFromEdges(n, byMax), g3 = graphFromEdges(n, shuffled);
+    expect([...g1.neighbors]).toEqual([...g3.neighbors]);
+    expect([...g2.neighbors]).toEqual([...g3.neighbors]);
+    expect([...g1.offsets]).toEqual([...g3.offsets]);
+    // A repeat at the end of an otherwise sorted list is still caught.
+    expect(() => graphFromEdges(n, [...pairs, pairs[pairs.length - 1]])).toThrow(/duplicate edge/);
+  });
+
   it("rejects loops, duplicates, bad ids and weights by default, naming the edge", () => {
     expect(() => graphFromEdges(3, [[0, 0]])).toThrow(/edge #0: self-loop at vertex 0/);
     expect(() => graphFromEdges(3, [[0, 1], [1, 0]])).toThrow(/edge #1: duplicate edge \{0, 1\}/);

@@ -7,7 +7,8 @@ import type { Graph } from "../src/graph/graph.js";
 import { Rng } from "../src/random/prng.js";
 import { cutValue } from "../src/cut/evaluate.js";
 import { hyperplaneExpectedCut, hyperplaneRound } from "../src/cut/rounding.js";
-import { vectorMethodExpectedCut, vectorMethodRound } from "../src/cut/vector-method.js";
+import { vectorMethodCosine, vectorMethodExpectedCut, vectorMethodRound } from "../src/cut/vector-method.js";
+import { resolveVectorSets } from "../src/bounds/vector-sets.js";
 import { vectorMethodGuarantee } from "../src/bounds/vector-method.js";
 import { InputError } from "../src/errors.js";
 
@@ -158,16 +159,21 @@ function directGuarantee(g: Graph, sets: number[][], eps: number[]): number {
   return lin / (2 * Math.PI) - ov / 2;
 }
 
-/** Dense evaluation of the rounding's expectation: build x_i ∈ R^n explicitly and use arccos/π. */
-function denseExpectedCut(g: Graph, sets: number[][], eps: number[]): number {
-  const n = g.n;
-  const x = sets.map((s, i) => {
-    const v = new Float64Array(n);
+/** The normalised vectors x_i/‖x_i‖, x_i = e_i − ε_i·Σ_{k∈V_i} e_k, written out densely in R^n. */
+function denseVectors(g: Graph, sets: number[][], eps: number[]): Float64Array[] {
+  return sets.map((s, i) => {
+    const v = new Float64Array(g.n);
     v[i] = 1;
     for (const k of s) v[k] -= eps[i];
     const norm = Math.hypot(...v);
     return v.map((t) => t / norm);
   });
+}
+
+/** Dense evaluation of the rounding's expectation: explicit vectors and arccos/π per edge. */
+function denseExpectedCut(g: Graph, sets: number[][], eps: number[]): number {
+  const n = g.n;
+  const x = denseVectors(g, sets, eps);
   let e = 0;
   g.forEachEdge((u, v, w) => {
     let d = 0;
@@ -238,6 +244,16 @@ describe("the explicit vector method", () => {
       const exp2 = vectorMethodExpectedCut(g, { sets: sub, eps: e2 });
       expect(exp2).toBeCloseTo(denseExpectedCut(g, sub, e2), 10);
       expect(exp2 - g.m / 2).toBeGreaterThanOrEqual((gu2.surplus as number) - 1e-12);
+      // The single-pair cosine, for pairs that need not be edges, against the dense vectors.
+      const resolved = resolveVectorSets(g, { sets: sub, eps: e2 });
+      const dense = denseVectors(g, sub, e2);
+      for (let t = 0; t < 20; t++) {
+        const i = r.nextInt(g.n);
+        const j = (i + 1 + r.nextInt(g.n - 1)) % g.n;
+        let d = 0;
+        for (let k = 0; k < g.n; k++) d += dense[i][k] * dense[j][k];
+        expect(vectorMethodCosine(resolved, i, j)).toBeCloseTo(d, 12);
+      }
       const rec = vectorMethodRound(g, { sets: sub, eps: e2, trials: 3000, seed: 4 });
       expect(Math.abs((rec.details!.meanSurplus as number) - (exp2 - g.m / 2))).toBeLessThan(4 * (rec.details!.stdErr as number));
     });

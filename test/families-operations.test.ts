@@ -5,11 +5,13 @@ import { execFileSync, spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { InputError } from "../src/errors.js";
 import { gnp } from "../src/families/gnp.js";
-import { blowUp } from "../src/families/operations/blow-up.js";
-import { complement } from "../src/families/operations/complement.js";
-import { deleteRandomEdges } from "../src/families/operations/delete-edges.js";
-import { disjointUnion } from "../src/families/operations/disjoint-union.js";
-import { inducedSubgraph } from "../src/families/operations/induced-subgraph.js";
+import { blowUp, blowupFamily } from "../src/families/operations/blow-up.js";
+import { complement, complementFamily } from "../src/families/operations/complement.js";
+import { deleteEdgesFamily, deleteRandomEdges } from "../src/families/operations/delete-edges.js";
+import { disjointUnion, unionFamily } from "../src/families/operations/disjoint-union.js";
+import { inducedFamily, inducedSubgraph } from "../src/families/operations/induced-subgraph.js";
+import type { ShapeContext } from "../src/families/operations/nested-shape.js";
+import type { ExpectedShape, FamilyDefinition, Params } from "../src/families/types.js";
 import { family, familyWithInfo } from "../src/families/registry.js";
 import { completeGraph } from "../src/families/complete.js";
 import { graphFromEdges } from "../src/graph/builder.js";
@@ -213,5 +215,29 @@ describe("random edge deletion", () => {
     expectInputError(() => deleteRandomEdges(petersen, 1.2, 0), "`p`");
     expectInputError(() => family("delete-edges:of=[complete:n=4],p=-0.5"), "`p`");
     expectInputError(() => deleteRandomEdges(petersen, 0.5, -1), "`seed`");
+  });
+});
+
+describe("expected sizes of operations", () => {
+  // Sizes follow from the definitions (common practice, no source): blow-up n·t, m·t², degrees ·t;
+  // union sums; complement C(n,2) − m with degrees n − 1 − d; deletion m(1 − p).
+  const shapes: Record<string, ExpectedShape> = {
+    petersen: { n: 10, m: 15, mExact: true, minDegree: 3, maxDegree: 3 },
+    "gnp:n=100,p=0.1": { n: 100, m: 495, mExact: false },
+  };
+  const ctx: ShapeContext = { expectedOf: (spec) => shapes[spec] };
+  // Operations take the context as an optional second argument of `expected`.
+  const shapeOf = (def: FamilyDefinition, params: Params): ExpectedShape => (def.expected as (p: Params, c: ShapeContext) => ExpectedShape)(params, ctx);
+
+  it("follow the nested shape when a ShapeContext is given", () => {
+    expect(shapeOf(blowupFamily, { of: "petersen", t: 3 })).toEqual({ n: 30, m: 135, mExact: true, minDegree: 9, maxDegree: 9 });
+    expect(shapeOf(unionFamily, { of: ["petersen", "gnp:n=100,p=0.1"] })).toEqual({ n: 110, m: 510, mExact: false });
+    expect(shapeOf(complementFamily, { of: "petersen" })).toEqual({ n: 10, m: 30, mExact: true, minDegree: 6, maxDegree: 6 });
+    expect(shapeOf(deleteEdgesFamily, { of: "petersen", p: 0.2, seed: 0 })).toEqual({ n: 10, m: 12, mExact: false });
+    expect(shapeOf(inducedFamily, { of: "petersen", vertices: [0, 1, 2] }).n).toBe(3);
+  });
+
+  it("are unknown (NaN) without one, and the exact size is checked when building", () => {
+    expect(Number.isNaN(blowupFamily.expected({ of: "petersen", t: 3 }).m)).toBe(true);
   });
 });

@@ -172,10 +172,28 @@ describe("G(n, m)", () => {
     }
   });
 
+  it("uses every pair equally often", () => {
+    // Pair frequencies over S samples on n = 8 (N = 28 pairs). For a uniform m-subset the pair
+    // indicators have variance q(1−q), q = m/N, and covariance −q(1−q)/(N−1) (sampling without
+    // replacement, standard), so (N−1)/(N−m) · Σ (O−E)²/E is asymptotically chi-square with
+    // N − 1 = 27 df; upper 0.1% point 55.476 (NIST/SEMATECH e-Handbook §1.3.6.7.4;
+    // scipy.stats.chi2.ppf(0.999, 27)). m = 5 is the sparse method, m = 20 the dense one.
+    const n = 8, N = 28, S = 3000;
+    for (const [m, seed0] of [[5, 7], [20, 70007]] as const) {
+      const freq = new Array<number>(N).fill(0);
+      for (let s = 0; s < S; s++) {
+        const g = gnm(n, m, seed0 + s);
+        for (let u = 0, k = 0; u < n; u++) for (let v = u + 1; v < n; v++, k++) if (g.hasEdge(u, v)) freq[k]++;
+      }
+      const stat = (chiSquare(freq, freq.map(() => (S * m) / N)) * (N - 1)) / (N - m);
+      expect(stat).toBeLessThan(55.476);
+    }
+  });
+
   it("rejects m above n(n−1)/2 naming `m`", () => {
     expectInputError(() => gnm(10, 46, 0), "`m`");
     expectInputError(() => family("gnm:n=10,m=-1"), "`m`");
-    expectInputError(() => gnm(50_000_000, 300_000_000, 0), "would not fit in memory");
+    expectInputError(() => gnm(50_000_000, 600_000_000, 0), "would not fit in memory");
   });
 });
 

@@ -165,11 +165,11 @@ describe("round trips with nauty", () => {
     });
   });
 
-  it.skipIf(!NETWORKX)("sparse6 with the 8-byte N(n) form (n = 258048, 300000) agrees with networkx both ways", () => {
+  it.skipIf(!NETWORKX)("sparse6 with the 8-byte N(n) form (n = 258048) agrees with networkx both ways", () => {
     // Source: networkx from_sparse6_bytes / to_sparse6_bytes (python3-networkx), an independent
     // implementation of formats.txt. (nauty-copyg needs a dense matrix, far too slow at this n.)
     const ours: Graph[] = [];
-    for (const [n, seed] of [[258048, 7], [300000, 8]]) {
+    for (const [n, seed] of [[258048, 7]]) {
       const rng = new Rng(seed);
       const seen = new Set<string>();
       const edges: [number, number][] = [];
@@ -185,7 +185,7 @@ describe("round trips with nauty", () => {
     const s6 = ours.map((g) => encodeSparse6(g));
     for (const line of s6) expect(line.slice(1, 3)).toBe("~~");
     const theirs = lines(run("python3", ["-c", NX_SPARSE6], s6.join("\n") + "\n")).map((l) => JSON.parse(l));
-    expect(theirs.length).toBe(2);
+    expect(theirs.length).toBe(1);
     theirs.forEach((t: { n: number; edges: string[]; s6: string }, i) => {
       expect(t.n).toBe(ours[i].n);
       expect([...t.edges].sort()).toEqual(edgesOf(ours[i]).sort());

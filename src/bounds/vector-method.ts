@@ -4,7 +4,7 @@
 
 import type { Graph } from "../graph/graph.js";
 import { boundApplies, boundDoesNotApply, type LowerBoundRecord } from "./types.js";
-import { intersectionSize, resolveVectorSets, type VectorSetOptions, type VectorSets } from "./vector-sets.js";
+import { resolveVectorSets, vectorEdgeTerms, type VectorEdgeTerms, type VectorSetOptions, type VectorSets } from "./vector-sets.js";
 
 export interface VectorGuaranteeRecord extends LowerBoundRecord {
   /** (1/2π)·Σ_i ε_i|V_i|. */
@@ -15,8 +15,8 @@ export interface VectorGuaranteeRecord extends LowerBoundRecord {
   overlapEdges: number;
 }
 
-/** The guarantee for already-resolved sets (shared with the rounding, which resolves them once). */
-export function vectorMethodGuaranteeFor(graph: Graph, sets: VectorSets): VectorGuaranteeRecord {
+/** The guarantee for already-resolved sets and edge terms (shared with the rounding, which computes them once). */
+export function vectorMethodGuaranteeFor(graph: Graph, sets: VectorSets, terms: VectorEdgeTerms = vectorEdgeTerms(graph, sets)): VectorGuaranteeRecord {
   const name = "vector-method";
   const { offsets, eps } = sets;
   let linear = 0;
@@ -28,9 +28,8 @@ export function vectorMethodGuaranteeFor(graph: Graph, sets: VectorSets): Vector
   for (let i = 0; i < graph.n; i++) {
     for (let a = graph.offsets[i]; a < graph.offsets[i + 1]; a++) {
       const j = nb[a];
-      if (j <= i) continue;
-      const k = intersectionSize(sets, i, j);
-      if (k > 0) {
+      const k = terms.overlap[a];
+      if (j > i && k > 0) {
         overlap += eps[i] * eps[j] * k;
         overlapEdges++;
       }

@@ -10,7 +10,7 @@ import { PROOF_SHIFT_METHODS, certifyDual } from "./certificate.js";
 import { eigenvalueUpperBound } from "./eigen-bound.js";
 import { cutValue } from "./evaluate.js";
 import { exactMaxCut } from "./exact.js";
-import { checkSeedOption, improvementMargin, integerWeights, nowSeconds, positiveWeightSum, type ExactCutRecord } from "./exact-common.js";
+import { checkSeedOption, improvementMargin, integerWeights, nowSeconds, positiveWeightSum, type ExactCutRecord, type ExactProgress } from "./exact-common.js";
 import { localSearch } from "./local-search.js";
 import { hyperplaneRound } from "./rounding.js";
 import { solveSdp } from "./sdp.js";
@@ -193,6 +193,11 @@ class BracketState {
     this.progress(r.method);
   }
 
+  /** Progress callback for an exact search: shows it is alive, and its incumbent when that is better. */
+  exactProgress(method: string): (p: ExactProgress) => void {
+    return (p) => this.onProgress?.({ method, lower: Math.max(this.lower, p.lower), upper: this.upper, elapsed: this.elapsed() });
+  }
+
   offerExact(r: ExactCutRecord): void {
     this.runs.push({ method: r.method, role: "exact", value: r.value, upper: r.upper, status: r.status, seconds: r.seconds, seed: r.seed, details: plainDetails(r.details) });
     this.takeCut(r);
@@ -257,41 +262,70 @@ function runBreakout(state: BracketState, seconds: number, rounds: number, seed:
   state.takeCut(best);
 }
 
-/** Heuristic lower bounds plus certified upper bounds, within the state's budget. */
+/**
+ * Seconds for the dense Cholesky proof of a shift at n vertices: ≈ 1.1e-9·n³ (measured in
+ * bench/bracket on the development machine: 0.7 s at n = 800, 11 s at 2000, 29 s at 3000).
+ */
+function denseProofSeconds(n: number): number {
+  return 1.1e-9 * n * n * n;
+}
+
+/** Largest n the certificate module proves densely by default (src/cut/certificate.ts). */
+const CERTIFY_DENSE_LIMIT = 3000;
+
+/** Heuristic lower bounds plus certified upper bounds, within `budgetShare` of what is left. */
 function heuristicPhase(state: BracketState, seed: number, quick: boolean, budgetShare: number): void {
   const g = state.graph;
   const n = g.n;
   const total = Math.max(0, state.left()) * budgetShare;
   const phaseEnd = nowSeconds() + total;
-  const phaseLeft = (): number => phaseEnd - nowSeconds();
+  const phaseLeft = (): number => Math.max(0, phaseEnd - nowSeconds());
+  // A dense proof is used only when it fits in the given share of the time left; otherwise the
+  // shift is a Lanczos estimate and the record says so (upperProven = false).
+  const denseLimitFor = (share: number): number => (n <= CERTIFY_DENSE_LIMIT && denseProofSeconds(n) <= share * phaseLeft() ? CERTIFY_DENSE_LIMIT : 0);
+  // Residual tolerance for Lanczos shifts: 1e-7 relative moves the bound by ~1e-7·n·‖L‖/4, far
+  // below the gaps of interest, and converges in about half the iterations of the default.
+  const tolerance = 1e-7;
 
   // A first cut in a few milliseconds: multi-start 1-flip local search.
   state.offerCut(localSearch(g, { seconds: Math.max(1e-3, Math.min(0.05 * total, 1)), iterations: quick ? 4 : 16, seed: methodSeed(seed, 1) }));
 
-  // The eigenvalue bound: cheap, always certified (y = 0).
-  state.offerDual(eigenvalueUpperBound(g));
+  // The eigenvalue bound (the dual certificate with y = 0): one Lanczos run, or a small dense proof.
+  const tEigen0 = nowSeconds();
+  state.offerDual(eigenvalueUpperBound(g, { tolerance, denseLimit: denseLimitFor(0.05) }));
+  const eigenSeconds = nowSeconds() - tEigen0;
   if (state.closed()) return;
 
   // The SDP: its vectors feed hyperplane rounding, its dual estimate feeds the certificate.
-  const sdp = solveSdp(g, {
-    seed: methodSeed(seed, 2),
-    seconds: Math.max(1e-3, (quick ? 0.3 : 0.4) * phaseLeft()),
-    maxSweeps: quick ? 300 : undefined,
-  });
-  state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, seed: sdp.seed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
-  state.offerDual(certifyDual(g, sdp.y));
-  if (state.closed()) return;
-
-  const roundingTrials = quick ? 8 : n <= 5000 ? 64 : 16;
-  state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials: roundingTrials, seed: methodSeed(seed, 3), polish: true }));
-  if (state.closed()) return;
-  if (!quick) {
+  // Certifying costs about two Lanczos runs (≈ 2.5× the eigenvalue bound) or a dense proof.
+  const dense = denseLimitFor(0.3);
+  const certifyCost = dense > 0 ? denseProofSeconds(n) + eigenSeconds : 2.5 * eigenSeconds;
+  const forSdp = (quick ? 0.3 : 0.45) * phaseLeft() - certifyCost;
+  if (forSdp > Math.min(0.5, 0.05 * total) || n <= 64) {
+    const sdp = solveSdp(g, {
+      seed: methodSeed(seed, 2),
+      seconds: Math.max(1e-3, forSdp),
+      maxSweeps: quick ? 300 : undefined,
+      // Large graphs: a low rank affords many more sweeps in the same time, which matters more
+      // than the rank (bench/bracket: rank 24 beats the default rank 201 at 10^6 edges).
+      rank: g.m > 100_000 ? Math.min(24, n) : undefined,
+    });
+    state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, seed: sdp.seed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
+    state.offerDual(certifyDual(g, sdp.y, { tolerance, denseLimit: dense, name: "sdp-dual" }));
+    if (state.closed()) return;
+    const trials = quick ? 8 : n <= 5000 ? 64 : 16;
+    state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, seed: methodSeed(seed, 3), polish: true }));
+    if (state.closed()) return;
+  }
+  if (quick) return;
+  // Sparse vector rounding: its set-up (the exact guarantee) costs about one Lanczos run.
+  if (phaseLeft() > 3 * eigenSeconds) {
     state.offerCut(vectorMethodRound(g, { trials: n <= 5000 ? 32 : 8, seed: methodSeed(seed, 4), polish: true }));
     if (state.closed()) return;
-    // Breakout gets what is left of the phase; the round cap (≈ 50 n² rounds, a few µs each at
-    // n = 200) keeps small graphs, whose bound may never meet the cut, from idling to the deadline.
-    runBreakout(state, phaseLeft(), 1000 + 50 * n * n, methodSeed(seed, 5));
   }
+  // Breakout gets what is left of the phase; the round cap (≈ 50 n² rounds, a few µs each at
+  // n = 200) keeps small graphs, whose bound may never meet the cut, from idling to the deadline.
+  runBreakout(state, phaseLeft(), 1000 + 50 * n * n, methodSeed(seed, 5));
 }
 
 /** Is branch and bound worth part of the budget? A practical rule from bench/cut-exact: small or sparse graphs. */
@@ -315,16 +349,16 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
 
   if (graph.m > 0) {
     if (method === "exact") {
-      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed }));
-      if (!state.closed()) state.offerDual(eigenvalueUpperBound(graph));
+      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, onProgress: state.exactProgress("exact search") }));
+      if (!state.closed()) state.offerDual(eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 }));
     } else if (method === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
-      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed }));
+      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, onProgress: state.exactProgress("exact search") }));
       if (!state.closed()) heuristicPhase(state, seed, false, 1);
     } else if (method === "auto" && exactLooksFeasible(graph)) {
       // Heuristics first (a good incumbent prunes far more), then exact search on the rest.
       heuristicPhase(state, seed, false, 0.3);
       if (!state.closed()) {
-        state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, initial: state.partition }));
+        state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, initial: state.partition, onProgress: state.exactProgress("exact search") }));
       }
     } else {
       heuristicPhase(state, seed, method === "quick", 1);

@@ -1,6 +1,8 @@
 // Breakout search for max cut, after the breakout local search of Benlic & Hao (2013): steepest
 // ascent to a 1-flip local optimum, then an adaptive jump (tabu-directed or random moves) whose
 // length grows while the search keeps falling back into the same local optimum.
+// Defaults differ from the paper's (jumps from n/250, tenure up to n/5, directed jumps ≥ 95%):
+// tuned on G1, G14, G22 and G43 at equal move counts, where they were never worse and often better.
 
 import { invalidParameter } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
@@ -23,15 +25,15 @@ import type { CutRecord, SolverStatus } from "./types.js";
 const OWNER = "breakout search";
 
 export interface BreakoutOptions extends AnytimeOptions {
-  /** Jump length after reaching a new local optimum (default max(1, round(n/100))). */
+  /** Jump length after reaching a new local optimum (default max(1, round(n/250))). */
   jumpMin?: number;
   /** Longest jump, also the length of the strong jump on stagnation (default max(jumpMin, round(n/10), min(⌊n/2⌋, 8))). */
   jumpMax?: number;
-  /** Local optima without improvement before a strong random jump (default 1000). */
+  /** Local optima without improvement before a strong (longest, directed) jump (default 1000). */
   stagnation?: number;
-  /** Lower limit of the probability of a tabu-directed rather than random jump (default 0.8). */
+  /** Lower limit of the probability of a tabu-directed rather than random jump (default 0.95). */
   directedFloor?: number;
-  /** Tabu tenure is drawn uniformly from [tenureMin, tenureMax] per move (defaults 3 and max(3, round(n/10), min(⌊n/2⌋, 8))). */
+  /** Tabu tenure is drawn uniformly from [tenureMin, tenureMax] per move (defaults 3 and max(3, round(n/5), min(⌊n/2⌋, 8))). */
   tenureMin?: number;
   tenureMax?: number;
   /** Start from this partition instead of a random one. */
@@ -84,29 +86,29 @@ export class BreakoutSearcher implements AnytimeSearch {
   private elapsed = 0;
   private secondsToBest = 0;
   private lastStatus: SolverStatus = "budget";
-  private initial: ArrayLike<number> | undefined;
+  private initial: Uint8Array | undefined;
 
   constructor(graph: Graph, options: BreakoutSearchOptions = {}) {
     const n = graph.n;
     this.graph = graph;
     this.seed = checkSeed(OWNER, options.seed);
     this.rng = new Rng(this.seed);
-    this.jumpMin = intOption("jumpMin", options.jumpMin, Math.max(1, Math.round(n / 100)), 1, Math.max(1, n));
+    this.jumpMin = intOption("jumpMin", options.jumpMin, Math.max(1, Math.round(n / 250)), 1, Math.max(1, n));
     // n/10 as in the published method; small graphs need a floor, or a jump of one move is
     // simply undone by the next ascent.
     const floor = Math.min(n >> 1, 8);
     this.jumpMax = intOption("jumpMax", options.jumpMax, Math.max(this.jumpMin, Math.round(n / 10), floor), this.jumpMin, Math.max(this.jumpMin, n));
     this.stagnation = intOption("stagnation", options.stagnation, 1000, 1, 2 ** 31);
-    const pf = options.directedFloor ?? 0.8;
+    const pf = options.directedFloor ?? 0.95;
     if (!(pf >= 0 && pf <= 1)) throw invalidParameter(OWNER, "directedFloor", "should be a number between 0 and 1", pf);
     this.directedFloor = pf;
     this.tenureMin = intOption("tenureMin", options.tenureMin, 3, 0, 2 ** 31);
-    const tmax = intOption("tenureMax", options.tenureMax, Math.max(this.tenureMin, Math.round(n / 10), floor), this.tenureMin, 2 ** 31);
+    const tmax = intOption("tenureMax", options.tenureMax, Math.max(this.tenureMin, Math.round(n / 5), floor), this.tenureMin, 2 ** 31);
     this.tenureSpan = tmax - this.tenureMin + 1;
     this.optimalAt = optimalityThreshold(OWNER, graph, options.upperBound);
     this.onImprove = options.onImprove;
     if (options.initial !== undefined) checkPartition(graph, options.initial, `${OWNER}: initial`);
-    this.initial = options.initial;
+    this.initial = options.initial === undefined ? undefined : Uint8Array.from(options.initial);
     this.jump = this.jumpMin;
 
     this.state = new FlipState(graph);

@@ -12,6 +12,7 @@ import { checkPartition, cutValue } from "./evaluate.js";
 import {
   CutBlock,
   DEFAULT_EXACT_SECONDS,
+  PROGRESS_INTERVAL,
   checkSeconds,
   checkSeedOption,
   improvementMargin,
@@ -244,6 +245,8 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   let work = 0;
   let nextCheck = 4096;
   const deadline = t0 + seconds;
+  const onProgress = options.onProgress;
+  let nextReport = t0 + PROGRESS_INTERVAL;
   let stopped = false;
   let openUpper = -Infinity; // max bound over subtrees left unexplored by a timeout
   let k = first - 1; // the tail problem being solved
@@ -307,7 +310,12 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
     nodes++;
     if (++work >= nextCheck) {
       nextCheck = work + 4096;
-      if (nowSeconds() > deadline) stopped = true;
+      const now = nowSeconds();
+      if (now > deadline) stopped = true;
+      else if (onProgress !== undefined && now >= nextReport) {
+        nextReport = now + PROGRESS_INTERVAL;
+        onProgress({ lower: k === 0 ? Math.max(best, globalBest) : globalBest, nodes, seconds: now - t0 });
+      }
     }
     if (stopped) {
       if (bound > openUpper) openUpper = bound;

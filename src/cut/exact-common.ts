@@ -15,12 +15,24 @@ export interface ExactCutRecord extends CutRecord {
   nodes: number;
 }
 
+export interface ExactProgress {
+  /** Best cut of the whole graph known so far (-Infinity before the first). */
+  lower: number;
+  nodes: number;
+  seconds: number;
+}
+
 export interface ExactOptions {
   /** Time budget in seconds (default 60). On expiry the record has status "timeout" and a valid bracket. */
   seconds?: number;
   /** Seed for the randomised incumbent heuristic (default 0); recorded in the result. */
   seed?: number;
+  /** Called about every half second during a long search. */
+  onProgress?: (p: ExactProgress) => void;
 }
+
+/** Seconds between `onProgress` calls. */
+export const PROGRESS_INTERVAL = 0.5;
 
 export const DEFAULT_EXACT_SECONDS = 60;
 

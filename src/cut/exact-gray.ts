@@ -8,6 +8,7 @@ import { cutValue } from "./evaluate.js";
 import {
   CutBlock,
   DEFAULT_EXACT_SECONDS,
+  PROGRESS_INTERVAL,
   checkSeconds,
   checkSeedOption,
   improvementMargin,
@@ -101,6 +102,8 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
   let status: "optimal" | "timeout" = "optimal";
   let done = 0;
   const checkEvery = Math.max(1, Math.floor(2 ** 16 / (1 << b)));
+  const onProgress = options.onProgress;
+  let nextReport = t0 + PROGRESS_INTERVAL;
   for (let s = 0; s < steps; s++) {
     if (s > 0) {
       // Gray step s flips the outer vertex at the position of s's lowest set bit.
@@ -136,9 +139,16 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
     }
     done = s + 1;
     if (!exactSums && (s & 1023) === 1023) resync();
-    if (s % checkEvery === 0 && nowSeconds() > deadline && s + 1 < steps) {
-      status = "timeout";
-      break;
+    if (s % checkEvery === 0) {
+      const now = nowSeconds();
+      if (now > deadline && s + 1 < steps) {
+        status = "timeout";
+        break;
+      }
+      if (onProgress !== undefined && now >= nextReport) {
+        nextReport = now + PROGRESS_INTERVAL;
+        onProgress({ lower: best, nodes: s + 1, seconds: now - t0 });
+      }
     }
   }
 

@@ -14,6 +14,7 @@ import {
   nowSeconds,
   type ExactCutRecord,
   type ExactOptions,
+  type ExactProgress,
 } from "./exact-common.js";
 import { GRAY_MAX_VERTICES, grayCodeMaxCut } from "./exact-gray.js";
 
@@ -75,6 +76,7 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   const partition = new Uint8Array(graph.n);
   let upper = 0;
   let nodes = 0;
+  let finishedValue = 0;
   let status: "optimal" | "timeout" = "optimal";
   let largest = 0;
   let tolerance = 0;
@@ -97,11 +99,15 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
       initial = new Uint8Array(sub.n);
       for (let i = 0; i < sub.n; i++) initial[i] = options.initial[verts[i]];
     }
-    const r = useGray ? grayCodeMaxCut(sub, { seconds: left, seed }) : branchAndBoundMaxCut(sub, { seconds: left, seed, initial });
+    // Progress of a component search, reported as a cut of the whole graph: finished components' values plus its own.
+    const done = finishedValue;
+    const onProgress = options.onProgress === undefined ? undefined : (p: ExactProgress) => options.onProgress!({ ...p, lower: done + p.lower, nodes: nodes + p.nodes, seconds: nowSeconds() - t0 });
+    const r = useGray ? grayCodeMaxCut(sub, { seconds: left, seed, onProgress }) : branchAndBoundMaxCut(sub, { seconds: left, seed, initial, onProgress });
     used.add(r.method);
     for (let i = 0; i < sub.n; i++) partition[verts[i]] = r.partition[i];
     upper += r.upper;
     nodes += r.nodes;
+    finishedValue += r.value;
     tolerance += Number(r.details?.tolerance ?? 0);
     if (r.status === "timeout") status = "timeout";
   }

@@ -177,7 +177,8 @@ export function verifyBracket(graph: Graph, record: BracketRecord, options: Brac
   const consistent = record.lower <= record.upper + tol && record.surplusLower === record.lower - W / 2 && record.surplusUpper === record.upper - W / 2;
   add("consistency", consistent, consistent ? "lower ≤ upper, surpluses = bounds − W/2" : "lower > upper or surplus fields do not match the bounds");
   if (record.exact) {
-    const closed = record.upper - record.lower <= tol;
+    // upper = lower + tolerance was itself rounded: allow a few ulps on top.
+    const closed = record.upper - record.lower <= tol + 8 * Number.EPSILON * Math.max(1, Math.abs(record.upper));
     add("exact", closed, closed ? "bracket closed: the cut is optimal" : `record claims exact but upper − lower = ${record.upper - record.lower}`);
   }
   return { ok: checks.every((c) => c.ok), checks };

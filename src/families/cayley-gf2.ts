@@ -5,7 +5,7 @@ import { invalidParameter } from "../errors.js";
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { bipartiteFreeOf } from "./free-of.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { FamilyDefinition, Params } from "./types.js";
 
 function popcount(x: number): number {
@@ -46,7 +46,7 @@ export function cayleyGf2FreeOf(s: readonly number[]): { pattern: string; source
 }
 
 export function cayleyGf2Graph(k: number, s: readonly number[]): Graph {
-  const p = resolveParams(cayleyGf2, { k, s: [...s] }).params;
+  const p = resolveTyped(cayleyGf2, { k, s: [...s] });
   return buildCayleyGf2(p.k as number, p.s as number[]);
 }
 
@@ -75,7 +75,7 @@ function unitVectors(d: number): number[] {
 
 /** Q_d: 2^d vertices, x ~ y iff they differ in one bit. */
 export function hypercubeGraph(d: number): Graph {
-  const p = resolveParams(hypercube, { d }).params;
+  const p = resolveTyped(hypercube, { d });
   return buildCayleyGf2(p.d as number, unitVectors(p.d as number));
 }
 

@@ -5,7 +5,7 @@ import { invalidParameter } from "../errors.js";
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { bipartiteFreeOf } from "./free-of.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { FamilyDefinition, Params } from "./types.js";
 
 /** Every s in 1..n−1 and listed once; s and n − s may both appear (they give the same edges). */
@@ -60,7 +60,7 @@ function circulantFreeOf(n: number, s: readonly number[]): { pattern: string; so
 
 /** Circulant graph on Z_n with connection set s (closed under negation automatically). */
 export function circulantGraph(n: number, s: readonly number[]): Graph {
-  const p = resolveParams(circulant, { n, s: [...s] }).params;
+  const p = resolveTyped(circulant, { n, s: [...s] });
   return buildCirculant(p.n as number, p.s as number[]);
 }
 
@@ -92,7 +92,7 @@ export const cayleyZn: FamilyDefinition = {
 // ---- cycles ----
 
 export function cycleGraph(n: number): Graph {
-  const p = resolveParams(cycle, { n }).params;
+  const p = resolveTyped(cycle, { n });
   return buildCirculant(p.n as number, [1]);
 }
 
@@ -121,7 +121,7 @@ function andrasfaiSet(k: number): number[] {
 
 /** And(k): the circulant on 3k − 1 vertices with connection set {x ≡ 1 (mod 3)}; k-regular, triangle-free. */
 export function andrasfaiGraph(k: number): Graph {
-  const p = resolveParams(andrasfai, { k }).params;
+  const p = resolveTyped(andrasfai, { k });
   return buildCirculant(3 * (p.k as number) - 1, andrasfaiSet(p.k as number));
 }
 
@@ -130,7 +130,7 @@ export const andrasfai: FamilyDefinition = {
   summary: "Andrásfai graph And(k): circulant on 3k−1 vertices joining x, y when x − y ≡ 1 (mod 3)",
   params: [{ name: "k", type: "integer", description: "degree", default: 3, min: 1, max: 10000 }],
   random: false,
-  freeOf: () => [{ pattern: "K3", source: "Andrásfai 1964 (the sum of two elements ≡ 1 mod 3 is ≡ 2)" }],
+  freeOf: () => [{ pattern: "K3", source: "Andrásfai 1964: two residues ≡ 1 (mod 3) sum to ≡ 2, or to ≡ 0 once reduced mod 3k−1" }],
   expected: (p) => {
     const k = p.k as number;
     return { n: 3 * k - 1, m: (k * (3 * k - 1)) / 2, mExact: true, minDegree: k, maxDegree: k };

@@ -5,7 +5,7 @@ import { invalidParameter } from "../errors.js";
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { bipartiteFreeOf } from "./free-of.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { ExpectedShape, FamilyDefinition, Params } from "./types.js";
 
 /** Builds K_{parts}; part i holds the next parts[i] vertex ids. Trusts its arguments. */
@@ -30,7 +30,7 @@ function multipartiteShape(parts: readonly number[]): ExpectedShape {
 }
 
 export function completeMultipartiteGraph(parts: readonly number[]): Graph {
-  const p = resolveParams(completeMultipartite, { parts: [...parts] }).params;
+  const p = resolveTyped(completeMultipartite, { parts: [...parts] });
   return buildCompleteMultipartite(p.parts as number[]);
 }
 
@@ -55,7 +55,7 @@ export const completeMultipartite: FamilyDefinition = {
 
 /** K_{a,b}. */
 export function completeBipartiteGraph(a: number, b: number): Graph {
-  const p = resolveParams(completeBipartite, { a, b }).params;
+  const p = resolveTyped(completeBipartite, { a, b });
   return buildCompleteMultipartite([p.a as number, p.b as number]);
 }
 

@@ -4,7 +4,7 @@
 import { invalidParameter } from "../errors.js";
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { FamilyDefinition, Params } from "./types.js";
 
 function gcd(a: number, b: number): number {
@@ -24,7 +24,7 @@ export function buildGeneralizedPetersen(n: number, k: number): Graph {
 }
 
 export function generalizedPetersenGraph(n: number, k: number): Graph {
-  const p = resolveParams(generalizedPetersen, { n, k }).params;
+  const p = resolveTyped(generalizedPetersen, { n, k });
   return buildGeneralizedPetersen(p.n as number, p.k as number);
 }
 

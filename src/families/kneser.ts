@@ -4,7 +4,7 @@
 import { invalidParameter } from "../errors.js";
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { FamilyDefinition, Params } from "./types.js";
 
 /** Binomial coefficient C(a, b) as a double (exact below 2^53). */
@@ -67,7 +67,7 @@ function buildKneser(n: number, k: number): Graph {
 
 /** KG(n, k), validated like the spec `kneser:n=…,k=…`. KG(5, 2) is the Petersen graph. */
 export function kneserGraph(n: number, k: number): Graph {
-  const p = resolveParams(kneser, { n, k }).params;
+  const p = resolveTyped(kneser, { n, k });
   return buildKneser(p.n as number, p.k as number);
 }
 

@@ -3,7 +3,7 @@
 
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { ExpectedShape, FamilyDefinition } from "./types.js";
 
 /**
@@ -25,36 +25,52 @@ export function mycielskian(g: Graph): Graph {
   return buf.build(2 * n + 1).graph;
 }
 
-function iterateFromK2(iterations: number): Graph {
-  const k2 = new EdgeBuffer({ capacity: 1 });
-  k2.add(0, 1);
-  let g = k2.build(2).graph;
+const K2_SPEC = "complete:n=2";
+
+function iterate(start: Graph, iterations: number): Graph {
+  let g = start;
   for (let i = 0; i < iterations; i++) g = mycielskian(g);
   return g;
 }
 
+function k2(): Graph {
+  const b = new EdgeBuffer({ capacity: 1 });
+  b.add(0, 1);
+  return b.build(2).graph;
+}
+
 /** μ^t(K2): t = 1 gives C5, t = 2 the Grötzsch graph; chromatic number t + 2. */
 export function mycielskiGraph(iterations: number): Graph {
-  const p = resolveParams(mycielski, { iterations }).params;
-  return iterateFromK2(p.iterations as number);
+  const p = resolveTyped(mycielski, { iterations, of: K2_SPEC });
+  return iterate(k2(), p.iterations as number);
 }
 
 /** n' = 2n + 1, m' = 3m + n, δ' = δ + 1 (a shadow of a minimum-degree vertex), Δ' = max(2Δ, n) (the apex). */
-function mycielskiShape(iterations: number): ExpectedShape {
-  let n = 2, m = 1, lo = 1, hi = 1;
+function mycielskiShape(start: ExpectedShape, iterations: number): ExpectedShape {
+  let { n, m } = start;
+  let lo = start.minDegree ?? 0, hi = start.maxDegree ?? n - 1;
   for (let i = 0; i < iterations; i++) {
     [n, m, lo, hi] = [2 * n + 1, 3 * m + n, Math.min(lo + 1, n), Math.max(2 * hi, n)];
   }
-  return { n, m, mExact: true, minDegree: lo, maxDegree: hi };
+  return { n, m, mExact: start.mExact, minDegree: lo, maxDegree: hi };
 }
 
 export const mycielski: FamilyDefinition = {
   name: "mycielski",
-  summary: "Mycielski iterates of K2: 1 step gives C5, 2 steps the Grötzsch graph",
-  params: [{ name: "iterations", type: "integer", description: "number of Mycielski steps applied to K2", default: 2, min: 0, max: 20 }],
+  summary: "Mycielski iterates (of K2 by default: 1 step gives C5, 2 steps the Grötzsch graph)",
+  params: [
+    { name: "iterations", type: "integer", description: "number of Mycielski steps", default: 2, min: 0, max: 20 },
+    { name: "of", type: "spec", description: "the graph the steps start from", default: K2_SPEC },
+  ],
   random: false,
-  freeOf: () => [{ pattern: "K3", source: "Mycielski 1955: the construction keeps triangle-freeness (K2 is triangle-free)" }],
-  expected: (p) => mycielskiShape(p.iterations as number),
-  build: (p) => iterateFromK2(p.iterations as number),
+  // Only the start K2 is known to be triangle-free here; other starts make no claim.
+  freeOf: (p) =>
+    p.of === K2_SPEC ? [{ pattern: "K3", source: "Mycielski 1955: the construction keeps triangle-freeness, starting from K2" }] : [],
+  expected: (p, ctx) => {
+    const start: ExpectedShape =
+      p.of === K2_SPEC ? { n: 2, m: 1, mExact: true, minDegree: 1, maxDegree: 1 } : (ctx?.expectedOf(p.of as string) ?? { n: NaN, m: NaN, mExact: false });
+    return mycielskiShape(start, p.iterations as number);
+  },
+  build: (p, ctx) => iterate(ctx.resolve(p.of as string), p.iterations as number),
   notes: "Chromatic number iterations + 2 (Mycielski 1955).",
 };

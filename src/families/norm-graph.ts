@@ -5,7 +5,7 @@ import { invalidParameter } from "../errors.js";
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { checkPrimePower, finiteFieldOf, MAX_FIELD_ORDER } from "./finite-field.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { FamilyDefinition, Params } from "./types.js";
 
 function factorial(x: number): number {
@@ -44,7 +44,7 @@ function buildNormGraph(q: number, t: number): Graph {
 
 /** H(q, t) validated like the spec `norm-graph:q=…,t=…`. */
 export function normGraph(q: number, t: number): Graph {
-  const p = resolveParams(normGraphFamily, { q, t }).params;
+  const p = resolveTyped(normGraphFamily, { q, t });
   return buildNormGraph(p.q as number, p.t as number);
 }
 

@@ -5,7 +5,7 @@ import { invalidParameter } from "../errors.js";
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { checkPrimePower, finiteField } from "./finite-field.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { FamilyDefinition, Params } from "./types.js";
 
 function buildPaley(q: number): Graph {
@@ -24,7 +24,7 @@ function buildPaley(q: number): Graph {
 
 /** P(q), validated like the spec `paley:q=…`. */
 export function paleyGraph(q: number): Graph {
-  const p = resolveParams(paley, { q }).params;
+  const p = resolveTyped(paley, { q });
   return buildPaley(p.q as number);
 }
 

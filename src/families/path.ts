@@ -3,7 +3,7 @@
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { girthFreeOf } from "./free-of.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { FamilyDefinition } from "./types.js";
 
 function buildPath(n: number): Graph {
@@ -13,7 +13,7 @@ function buildPath(n: number): Graph {
 }
 
 export function pathGraph(n: number): Graph {
-  const p = resolveParams(path, { n }).params;
+  const p = resolveTyped(path, { n });
   return buildPath(p.n as number);
 }
 

@@ -5,7 +5,7 @@ import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { checkPrimePower, finiteField } from "./finite-field.js";
 import { pg2Coordinates, pg2PointCount, pg2PolarLine } from "./pg2.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { FamilyDefinition, Params } from "./types.js";
 
 export interface PolarityGraph {
@@ -38,7 +38,7 @@ function buildPolarity(q: number): PolarityGraph {
 
 /** ER_q with its absolute points (a typed call validated like the spec `polarity:q=…`). */
 export function polarityGraphWithLoops(q: number): PolarityGraph {
-  const p = resolveParams(polarity, { q }).params;
+  const p = resolveTyped(polarity, { q, loops: "drop" });
   return buildPolarity(p.q as number);
 }
 
@@ -50,7 +50,16 @@ export function polarityGraph(q: number): Graph {
 export const polarity: FamilyDefinition = {
   name: "polarity",
   summary: "Erdős–Rényi orthogonal-polarity graph ER_q on the points of PG(2,q), x ~ y iff x·y = 0",
-  params: [{ name: "q", type: "integer", description: "field order, a prime power", default: 5, min: 2, max: 1000 }],
+  params: [
+    { name: "q", type: "integer", description: "field order, a prime power", default: 5, min: 2, max: 1000 },
+    {
+      name: "loops",
+      type: "string",
+      description: "loops at the q+1 absolute points: drop them silently from the simple graph, or drop and report which points they were",
+      default: "drop",
+      choices: ["drop", "report"],
+    },
+  ],
   random: false,
   validate: (p: Params) => {
     checkPrimePower("polarity", "q", p.q as number);
@@ -60,6 +69,12 @@ export const polarity: FamilyDefinition = {
     const q = p.q as number;
     return { n: q * q + q + 1, m: (q * (q + 1) * (q + 1)) / 2, mExact: true, minDegree: q, maxDegree: q + 1 };
   },
-  build: (p) => buildPolarity(p.q as number).graph,
+  build: (p, ctx) => {
+    const r = buildPolarity(p.q as number);
+    if (p.loops === "report") {
+      ctx.note(`${r.absolutePoints.length} absolute points (loops dropped): ${Array.from(r.absolutePoints).join(" ")}`);
+    }
+    return r.graph;
+  },
   notes: "q+1 absolute points have degree q (their loop is dropped), the rest q+1; with loops the adjacency spectrum is q+1 once and ±√q.",
 };

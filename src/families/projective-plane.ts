@@ -6,7 +6,7 @@ import type { Graph } from "../graph/graph.js";
 import { checkPrimePower, finiteField } from "./finite-field.js";
 import { bipartiteFreeOf } from "./free-of.js";
 import { pg2Coordinates, pg2PointCount, pg2PolarLine } from "./pg2.js";
-import { resolveParams } from "./spec.js";
+import { resolveTyped } from "./typed-build.js";
 import type { FamilyDefinition, Params } from "./types.js";
 
 function buildIncidence(q: number): Graph {
@@ -26,7 +26,7 @@ function buildIncidence(q: number): Graph {
 
 /** Points-versus-lines incidence graph of PG(2, q); PG(2,2) gives the Heawood graph. */
 export function projectivePlaneIncidenceGraph(q: number): Graph {
-  const p = resolveParams(projectivePlane, { q }).params;
+  const p = resolveTyped(projectivePlane, { q });
   return buildIncidence(p.q as number);
 }
 

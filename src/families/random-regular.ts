@@ -142,6 +142,10 @@ function listingStep(ws: Workspace, len: number, budget: number, rng: Rng): numb
     let acc = 0;
     for (let a = 0; a < r; a++) {
       const x = verts[a];
+      if (ws.stamp === 0x7fffffff) {
+        mark.fill(0); // stamps must stay distinct Int32 values
+        ws.stamp = 0;
+      }
       const stamp = ++ws.stamp;
       for (let i = x * d; i < x * d + deg[x]; i++) mark[adj[i]] = stamp;
       for (let b = a + 1; b < r; b++) {

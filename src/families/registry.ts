@@ -6,11 +6,11 @@ import type { Graph } from "../graph/graph.js";
 import { Rng } from "../random/prng.js";
 import { RANDOM_FAMILIES } from "./catalog-random.js";
 import { STRUCTURED_FAMILIES } from "./catalog-structured.js";
+import { checkEdgeLimit } from "./limits.js";
 import { formatSpec, parseRawSpec, resolveParams } from "./spec.js";
-import type { FamilyDefinition, FamilyGraph, Params } from "./types.js";
+import type { ExpectedShape, FamilyDefinition, FamilyGraph, Params, ShapeContext } from "./types.js";
 
-/** Above this many edges a family graph would need more than a few GB to build; refuse up front. */
-export const MAX_FAMILY_EDGES = 200_000_000;
+export { MAX_FAMILY_EDGES } from "./limits.js";
 
 const ALL: FamilyDefinition[] = [...STRUCTURED_FAMILIES, ...RANDOM_FAMILIES];
 const BY_NAME = new Map<string, FamilyDefinition>();
@@ -18,6 +18,15 @@ for (const def of ALL) {
   if (BY_NAME.has(def.name)) throw new Error(`family ${def.name} registered twice`);
   BY_NAME.set(def.name, def);
 }
+
+/** Predicted shape of a spec without building it (operations ask this of their nested specs). */
+export function expectedShape(spec: string): ExpectedShape {
+  const raw = parseRawSpec(spec);
+  const def = lookup(raw.name);
+  return def.expected(resolveParams(def, raw.values).params, SHAPES);
+}
+
+const SHAPES: ShapeContext = { expectedOf: expectedShape };
 
 export function listFamilies(): readonly FamilyDefinition[] {
   return ALL;
@@ -40,16 +49,12 @@ function lookup(name: string): FamilyDefinition {
 }
 
 function buildResolved(def: FamilyDefinition, params: Params, defaulted: string[]): FamilyGraph {
-  const shape = def.expected(params);
-  if (shape.m > MAX_FAMILY_EDGES) {
-    throw new InputError(
-      `${formatSpec(def, params)}: about ${shape.m.toExponential(2)} edges would not fit in memory (limit ${MAX_FAMILY_EDGES.toExponential(0)})`,
-    );
-  }
+  const shape = def.expected(params, SHAPES);
+  checkEdgeLimit(formatSpec(def, params), shape.m, shape.n);
   const seed = def.random ? (params.seed as number) : null;
   const notes: string[] = [];
   if (def.random && defaulted.includes("seed")) notes.push("no seed given: using seed 0");
-  const graph = def.build(params, { rng: new Rng(seed ?? 0), resolve: family });
+  const graph = def.build(params, { rng: new Rng(seed ?? 0), resolve: family, note: (msg) => notes.push(msg) });
   return { graph, spec: formatSpec(def, params), family: def.name, params, seed, notes };
 }
 

@@ -55,13 +55,20 @@ export function parseRawSpec(spec: string): RawSpec {
     const body = spec.slice(colon + 1);
     // Lists use `+` inside a value (e.g. `circulant:n=13,s=1+5`); a nested spec is wrapped in
     // brackets (`blowup:of=[kneser:n=8,k=3],t=2`), so only top-level commas separate parameters.
+    let last: string | undefined;
     for (const part of splitTopLevel(spec, body, ",")) {
       if (part.trim() === "") continue;
       const eq = part.indexOf("=");
+      // Pattern names such as K2,3 contain a comma: a bare number continues the previous value.
+      if (eq < 0 && last !== undefined && /^\s*\d+\s*$/.test(part)) {
+        values.set(last, `${values.get(last)},${part.trim()}`);
+        continue;
+      }
       if (eq <= 0) throw new InputError(`family spec ${JSON.stringify(spec)}: expected key=value, got ${JSON.stringify(part)}`);
       const key = part.slice(0, eq).trim();
       if (values.has(key)) throw new InputError(`family spec ${JSON.stringify(spec)}: parameter \`${key}\` given twice`);
       values.set(key, part.slice(eq + 1).trim());
+      last = key;
     }
   }
   return { name, values };

@@ -32,10 +32,17 @@ export interface ExpectedShape {
   maxDegree?: number;
 }
 
+/** Lets an operation's `expected` ask for the predicted shape of a nested spec (passed by the registry). */
+export interface ShapeContext {
+  expectedOf: (spec: string) => ExpectedShape;
+}
+
 /** What a builder gets: its PRNG and a way to build nested specs (for operations like blow-up). */
 export interface BuildContext {
   rng: Rng;
   resolve: (spec: string) => Graph;
+  /** Tell the user something about this graph (shown with it, stored with its results). */
+  note: (message: string) => void;
 }
 
 export interface FamilyDefinition {
@@ -48,7 +55,7 @@ export interface FamilyDefinition {
   /** Subgraphs it is proven free of, in the names used by `halfplus graph` (K3, C4, C5, K4, K2,3, ...), with the citation. */
   freeOf: (params: Params) => { pattern: string; source: string }[];
   /** Predicted size, used for `halfplus families` and to refuse graphs that would not fit in memory. */
-  expected: (params: Params) => ExpectedShape;
+  expected: (params: Params, ctx?: ShapeContext) => ExpectedShape;
   /** Cross-parameter checks beyond the per-parameter ranges (e.g. k ≤ n/2); throw InputError via `invalidParameter`. */
   validate?: (params: Params) => void;
   build: (params: Params, ctx: BuildContext) => Graph;

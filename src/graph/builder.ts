@@ -90,10 +90,20 @@ export function buildGraph(
 
   const offsets = new Int32Array(n + 1);
   for (let v = 0; v < n; v++) offsets[v + 1] = offsets[v] + deg[v];
-
-  // Pass 2: order arcs by target. Arc 2e is u→v, arc 2e+1 is v→u.
-  const byTarget = new Int32Array(arcs);
+  const neighbors = new Int32Array(arcs);
+  const w = weights === null ? null : new Float64Array(arcs);
   const fill = offsets.slice(0, n);
+
+  // Fast path: generators and graph6 emit edges in an order that already leaves every list
+  // sorted (by (min, max) or by (max, min)); place arcs directly and fall back at the first
+  // arc that would break the order (or repeat an edge).
+  if (placeInOrder(count, us, vs, weights, keep, offsets, fill, neighbors, w)) {
+    return { graph: new Graph(n, offsets, neighbors, w), report: { mergedDuplicates: 0, droppedLoops } };
+  }
+
+  // General path. Pass 2: order arcs by target. Arc 2e is u→v, arc 2e+1 is v→u.
+  const byTarget = new Int32Array(arcs);
+  fill.set(offsets.subarray(0, n));
   for (let e = 0; e < count; e++) {
     if (keep !== null && keep[e] === 0) continue;
     byTarget[fill[vs[e]]++] = 2 * e;
@@ -101,8 +111,6 @@ export function buildGraph(
   }
 
   // Pass 3: stable placement by source keeps each list sorted by target; duplicates are adjacent.
-  const neighbors = new Int32Array(arcs);
-  const w = weights === null ? null : new Float64Array(arcs);
   fill.set(offsets.subarray(0, n));
   let duplicateArcs = 0;
   for (let i = 0; i < arcs; i++) {
@@ -145,6 +153,35 @@ export function buildGraph(
     graph: new Graph(n, newOffsets, newNb, newW),
     report: { mergedDuplicates: duplicateArcs / 2, droppedLoops },
   };
+}
+
+/** Direct placement in input order; false (leaving garbage to be overwritten) when a list would go unsorted. */
+function placeInOrder(
+  count: number,
+  us: ArrayLike<number>,
+  vs: ArrayLike<number>,
+  weights: ArrayLike<number> | null,
+  keep: Uint8Array | null,
+  offsets: Int32Array,
+  fill: Int32Array,
+  neighbors: Int32Array,
+  w: Float64Array | null,
+): boolean {
+  for (let e = 0; e < count; e++) {
+    if (keep !== null && keep[e] === 0) continue;
+    const u = us[e], v = vs[e];
+    const pu = fill[u], pv = fill[v];
+    if ((pu > offsets[u] && neighbors[pu - 1] >= v) || (pv > offsets[v] && neighbors[pv - 1] >= u)) return false;
+    neighbors[pu] = v;
+    neighbors[pv] = u;
+    if (w !== null) {
+      w[pu] = weights![e];
+      w[pv] = weights![e];
+    }
+    fill[u] = pu + 1;
+    fill[v] = pv + 1;
+  }
+  return true;
 }
 
 /**

@@ -27,6 +27,8 @@ export interface LanczosOptions {
   start?: Float64Array;
   /** The basis may use at most this many bytes (default 1 GiB); the basis shrinks to fit, down to k + 10 vectors. */
   maxMemoryBytes?: number;
+  /** For k > 1, search the deflated operator for copies of repeated eigenvalues (default true). */
+  checkMultiplicity?: boolean;
   /** Up to this n the operator is made dense and decomposed exactly (default 2·maxBasis). */
   denseBelow?: number;
 }
@@ -266,5 +268,65 @@ export function lanczosExtreme(op: SymmetricOperator, options: LanczosOptions = 
     // Orthogonality loss can make the explicit residual exceed the estimate; judge by the explicit one.
     if (r.residual > tol * normEstimate) converged = false;
   }
-  return { values, vectors, residuals, iterations: matvecs, restarts, converged, normEstimate, basisSize: p, method: "lanczos", seed };
+  const result: LanczosResult = { values, vectors, residuals, iterations: matvecs, restarts, converged, normEstimate, basisSize: p, method: "lanczos", seed };
+  if (k > 1 && converged && options.checkMultiplicity !== false) completeMultiplicities(op, result, which, tol, options, rng);
+  return result;
+}
+
+/**
+ * A single start vector meets each eigenspace in one direction only, so a repeated eigenvalue
+ * among the k wanted appears once. Look for what is missing with Lanczos on the deflated operator
+ * x ↦ P A P x + c·(I − P)x (P projects out the found vectors; c pushes their span to the far end)
+ * and insert every eigenpair that beats the current k-th value, until none does.
+ */
+function completeMultiplicities(op: SymmetricOperator, res: LanczosResult, which: EigenEnd, tol: number, options: LanczosOptions, rng: Rng): void {
+  const n = op.n;
+  const k = res.values.length;
+  const sign = which === "largest" ? 1 : -1;
+  for (let round = 0; round < k; round++) {
+    const U = res.vectors;
+    const far = -sign * (4 * res.normEstimate + 1);
+    const tmp = new Float64Array(n);
+    const deflated: SymmetricOperator = {
+      n,
+      apply(x: Float64Array, out: Float64Array): void {
+        tmp.set(x);
+        for (const u of U) axpy(-dot(u, tmp), u, tmp);
+        op.apply(tmp, out);
+        for (const u of U) {
+          axpy(-dot(u, out), u, out);
+          axpy(far * dot(u, x), u, out);
+        }
+      },
+    };
+    const extra = lanczosExtreme(deflated, {
+      k: 1,
+      which,
+      // Deflation perturbs the residual slightly; aim lower so the re-measured one meets `tol`.
+      tolerance: Math.max(tol / 10, 1e-15),
+      maxBasis: options.maxBasis,
+      maxRestarts: options.maxRestarts,
+      maxMemoryBytes: options.maxMemoryBytes,
+      seed: rng.nextU32(),
+      denseBelow: 0,
+    });
+    res.iterations += extra.iterations;
+    const mu = extra.values[0];
+    if (!(sign * (mu - res.values[k - 1]) > tol * res.normEstimate) || !extra.converged) return;
+    // Re-measure the new vector against the original operator, then insert it in order.
+    const u = extra.vectors[0];
+    const au = new Float64Array(n);
+    const r = rayleighResidual(op, u, au);
+    let at = k - 1;
+    while (at > 0 && sign * (r.theta - res.values[at - 1]) > 0) at--;
+    for (let t = k - 1; t > at; t--) {
+      res.values[t] = res.values[t - 1];
+      res.residuals[t] = res.residuals[t - 1];
+      res.vectors[t] = res.vectors[t - 1];
+    }
+    res.values[at] = r.theta;
+    res.residuals[at] = r.residual;
+    res.vectors[at] = u;
+    if (r.residual > tol * res.normEstimate) res.converged = false;
+  }
 }

@@ -45,37 +45,37 @@ export class Rng {
       z = (z + 0x9e3779b9) >>> 0;
       return mix32(z);
     };
-    this.s0 = next();
-    this.s1 = next();
-    this.s2 = next();
-    this.s3 = next();
+    this.s0 = next() | 0;
+    this.s1 = next() | 0;
+    this.s2 = next() | 0;
+    this.s3 = next() | 0;
     if ((this.s0 | this.s1 | this.s2 | this.s3) === 0) this.s0 = 1; // all-zero state is a fixed point
   }
 
   /** Explicit-state constructor, used by tests that compare with the reference C code. */
   static fromState(s0: number, s1: number, s2: number, s3: number): Rng {
     const r = new Rng(0);
-    r.s0 = s0 >>> 0;
-    r.s1 = s1 >>> 0;
-    r.s2 = s2 >>> 0;
-    r.s3 = s3 >>> 0;
+    r.s0 = s0 | 0;
+    r.s1 = s1 | 0;
+    r.s2 = s2 | 0;
+    r.s3 = s3 | 0;
     return r;
   }
 
   /** Next 32-bit unsigned integer. */
   nextU32(): number {
+    // State words are kept as signed int32 (`| 0`) so V8 stays on small-integer fast paths;
+    // the bits, and hence the stream, are those of the unsigned reference code.
     const s0 = this.s0, s1 = this.s1, s2 = this.s2, s3 = this.s3;
     const t = Math.imul(s1, 5);
-    const rot = ((t << 7) | (t >>> 25)) >>> 0;
-    const result = Math.imul(rot, 9) >>> 0;
-    const sh = (s1 << 9) >>> 0;
-    const n2 = (s2 ^ s0) >>> 0;
-    const n3 = (s3 ^ s1) >>> 0;
-    this.s1 = (s1 ^ n2) >>> 0;
-    this.s0 = (s0 ^ n3) >>> 0;
-    this.s2 = (n2 ^ sh) >>> 0;
-    this.s3 = ((n3 << 11) | (n3 >>> 21)) >>> 0;
-    return result;
+    const result = Math.imul((t << 7) | (t >>> 25), 9);
+    const n2 = s2 ^ s0;
+    const n3 = s3 ^ s1;
+    this.s1 = s1 ^ n2;
+    this.s0 = s0 ^ n3;
+    this.s2 = n2 ^ (s1 << 9);
+    this.s3 = (n3 << 11) | (n3 >>> 21);
+    return result >>> 0;
   }
 
   /** Uniform double in [0, 1) with 53 random bits. */

@@ -107,7 +107,7 @@ export function formatFamilyReport(r: FamilyReport, detailed: boolean): string {
       for (const f of free) lines.push(`    ${f.pattern}  (${f.source})`);
     } else lines.push(`  proven free of: ${free.map((f) => f.pattern).join(", ")}`);
   } else if (r.problem !== null) {
-    lines.push(`  size: not evaluated (${r.problem})`);
+    lines.push(`  size: depends on the parameters without defaults (${r.problem})`);
   }
   if (detailed && r.notes !== null) lines.push(`  notes: ${r.notes}`);
   if (detailed && r.evaluatedAt !== null) lines.push(`  try: halfplus graph ${r.evaluatedAt}`);

@@ -4,7 +4,8 @@
 import { invalidParameter } from "../../errors.js";
 import { EdgeBuffer } from "../../graph/builder.js";
 import type { Graph } from "../../graph/graph.js";
-import { checkEdgeLimit, checkTypedParam } from "../typed-build.js";
+import { checkEdgeLimit } from "../limits.js";
+import { checkTypedParam } from "../typed-build.js";
 import type { FamilyDefinition } from "../types.js";
 import { unknownShape, type ShapeContext } from "./nested-shape.js";
 

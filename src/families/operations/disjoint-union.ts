@@ -4,7 +4,7 @@
 import { InputError } from "../../errors.js";
 import { EdgeBuffer } from "../../graph/builder.js";
 import type { Graph } from "../../graph/graph.js";
-import { checkEdgeLimit } from "../typed-build.js";
+import { checkEdgeLimit } from "../limits.js";
 import type { ExpectedShape, FamilyDefinition } from "../types.js";
 import { unknownShape, type ShapeContext } from "./nested-shape.js";
 

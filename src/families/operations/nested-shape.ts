@@ -2,15 +2,7 @@
 // nested spec comes from the registry through a `ShapeContext`, when the caller passes one.
 
 import type { ExpectedShape } from "../types.js";
-
-/**
- * Lets an operation's `expected` ask for the predicted shape of a nested spec. The registry
- * cannot be imported here (registry → catalog → operation is an import cycle), so it has to
- * pass this as a second argument of `expected` (requested from the lead).
- */
-export interface ShapeContext {
-  expectedOf: (spec: string) => ExpectedShape;
-}
+export type { ShapeContext } from "../types.js";
 
 /**
  * Returned when no context is available: sizes unknown (NaN) until the nested graph is

@@ -22,13 +22,6 @@ export function encodeGraphSize(n: number): string {
   return String.fromCharCode(...codes);
 }
 
-/** Write N(n) into `out` at `pos`; returns the position after it. */
-export function writeGraphSize(n: number, out: Uint8Array, pos: number): number {
-  const s = encodeGraphSize(n);
-  for (let i = 0; i < s.length; i++) out[pos + i] = s.charCodeAt(i);
-  return pos + s.length;
-}
-
 /** Length of the N(n) field starting at pos (1, 4 or 8, from its leading bytes), or 0 if the line ends first. */
 export function graphSizeFieldLength(buf: Uint8Array, pos: number, end: number): number {
   if (pos >= end) return 0;

@@ -15,6 +15,7 @@ export const GRAPH6_HEADER = ">>graph6<<";
 const MAX_N = 0x7fffffff;
 /** V8's longest string is about 2^29 characters; refuse clearly before trying. */
 const MAX_TEXT = 2 ** 29 - 64;
+const SMALL_EDGES = 256;
 
 function charName(c: number): string {
   return c >= 32 && c < 127 ? JSON.stringify(String.fromCharCode(c)) : `byte 0x${c.toString(16).padStart(2, "0")}`;
@@ -48,10 +49,19 @@ export function decodeGraph6(buf: Uint8Array, lineStart: number, dataStart: numb
   if (padBits > 0 && ((buf[end - 1] - 63) & ((1 << padBits) - 1)) !== 0) {
     throw fail("corrupt graph6 line: the padding bits of the last character are not zero");
   }
-  // Plain arrays, not an EdgeBuffer: for the many tiny graphs of a stream, small JS arrays are
-  // far cheaper to allocate than typed arrays with their own backing stores.
-  const us: number[] = [];
-  const vs: number[] = [];
+  let m = 0;
+  for (let p = p0; p < end; p++) {
+    let x = buf[p] - 63;
+    while (x !== 0) {
+      x &= x - 1;
+      m++;
+    }
+  }
+  // Small graphs (the bulk of a nauty stream) get plain arrays: far cheaper to allocate than
+  // typed arrays with their own backing stores. Large ones get compact typed arrays.
+  const us: number[] | Int32Array = m <= SMALL_EDGES ? new Array<number>(m) : new Int32Array(m);
+  const vs: number[] | Int32Array = m <= SMALL_EDGES ? new Array<number>(m) : new Int32Array(m);
+  let k = 0;
   // Walk the bits in column order: (i, j) runs (0,1) (0,2) (1,2) (0,3) ...
   let i = 0;
   let j = 1;
@@ -68,8 +78,9 @@ export function decodeGraph6(buf: Uint8Array, lineStart: number, dataStart: numb
     }
     for (let mask = 32; mask !== 0; mask >>>= 1) {
       if ((x & mask) !== 0) {
-        us.push(i);
-        vs.push(j);
+        us[k] = i;
+        vs[k] = j;
+        k++;
       }
       if (++i === j) {
         j++;

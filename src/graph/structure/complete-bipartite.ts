@@ -1,6 +1,8 @@
-// K_{s,t} containment (not necessarily induced) with a witness, by codegrees: for each
-// vertex a1, count 2-paths a1–b–a2 to find the partners with ≥ t common neighbours, then grow
-// the s-side among those partners by intersecting sorted neighbourhoods. The counting costs Σ_v deg(v)².
+// K_{s,t} containment (not necessarily induced) with a witness, by codegree counting: the
+// smaller side a1 < a2 < … is grown one vertex at a time, and the candidates for the next
+// one are found by counting, over the current common neighbourhood C, the paths c–x with x
+// above the last chosen vertex; x qualifies when it sees ≥ t vertices of C. The first level
+// is the classic 2-path count, costing Σ_v deg(v)² in all.
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../graph.js";
@@ -29,7 +31,7 @@ export function findCompleteBipartite(g: Graph, s: number, t: number, options: S
     throw invalidParameter("findCompleteBipartite", s <= t ? "s" : "t", `the smaller side should be at most ${MAX_ENUMERATED_SIDE}`, Math.min(s, t));
   }
   const maxNodes = checkBudget("findCompleteBipartite", options);
-  // Enumerate the smaller side; the larger one is read off as common neighbours.
+  // Enumerate the smaller side (size a); the larger one (size b) is read off as common neighbours.
   const swap = s > t;
   const a = swap ? t : s;
   const b = swap ? s : t;
@@ -50,77 +52,71 @@ export function findCompleteBipartite(g: Graph, s: number, t: number, options: S
     return result(null, null, true, 0);
   }
   // Every vertex of a K_{a,b} copy has degree ≥ a inside it, so the copy lies in the a-core;
-  // the a-side vertices need degree ≥ b.
+  // the a-side vertices also need degree ≥ b.
   const core = degeneracy(g).coreNumber;
-  const okB = (v: number) => core[v] >= a;
-  const okA = (v: number) => core[v] >= a && offsets[v + 1] - offsets[v] >= b;
-  const paths = new Int32Array(n);
-  const touched = new Int32Array(n);
-  const partners = new Int32Array(n); // a2 > a1 with codegree ≥ b, ascending
-  const chosen = new Int32Array(a);
-  // common[l] = common neighbours of chosen[0..l] (filtered by okB), sorted.
-  const common: Int32Array[] = [];
-  const commonLen = new Int32Array(a);
   let maxDeg = 0;
   for (let v = 0; v < n; v++) maxDeg = Math.max(maxDeg, offsets[v + 1] - offsets[v]);
-  for (let l = 0; l < a; l++) common.push(new Int32Array(maxDeg));
+  const seen = new Int32Array(n); // neighbours of C counted at the current level
+  const touched = new Int32Array(n);
+  // Per level: candidates for the next a-side vertex, and C = common neighbours of the chosen ones.
+  const cands: Int32Array[] = [];
+  const common: Int32Array[] = [];
+  for (let l = 0; l < a; l++) {
+    cands.push(new Int32Array(l === 0 ? 0 : n));
+    common.push(new Int32Array(maxDeg));
+  }
+  const commonLen = new Int32Array(a);
+  const chosen = new Int32Array(a);
   let nodes = 0;
   let outOfBudget = false;
 
-  // chosen[0..level-1] fixed with common[level-1] of size ≥ b; pick chosen[level] among partners[from..].
-  const extend = (level: number, np: number, from: number): boolean => {
-    const prev = common[level - 1];
-    const prevLen = commonLen[level - 1];
-    const out = common[level];
-    for (let p = from; p + (a - level) <= np; p++) {
-      if (++nodes > maxNodes) { outOfBudget = true; return false; }
-      const x = partners[p];
-      let k = 0, i = 0, j = offsets[x];
-      const jEnd = offsets[x + 1];
-      while (i < prevLen && j < jEnd) {
-        const u = prev[i], w = neighbors[j];
-        if (u === w) { out[k++] = u; i++; j++; }
-        else if (u < w) i++;
-        else j++;
+  // chosen[0..level-1] fixed, common[level-1] (size ≥ b) their common neighbours: choose chosen[level].
+  const extend = (level: number): boolean => {
+    const c = common[level - 1];
+    const cLen = commonLen[level - 1];
+    const last = chosen[level - 1];
+    let nt = 0;
+    for (let i = 0; i < cLen; i++) {
+      const y = c[i];
+      for (let j = offsets[y + 1] - 1; j >= offsets[y]; j--) {
+        const x = neighbors[j];
+        if (x <= last) break; // sorted lists: the a-side is chosen in increasing order
+        if (seen[x]++ === 0) touched[nt++] = x;
       }
-      if (k < b) continue;
+    }
+    const cand = cands[level];
+    let nc = 0;
+    for (let i = 0; i < nt; i++) {
+      const x = touched[i];
+      if (seen[x] >= b && core[x] >= a && offsets[x + 1] - offsets[x] >= b) cand[nc++] = x;
+      seen[x] = 0;
+    }
+    if (nc < a - level) return false;
+    cand.subarray(0, nc).sort();
+    const out = common[level];
+    for (let p = 0; p + (a - level) <= nc; p++) {
+      if (++nodes > maxNodes) { outOfBudget = true; return false; }
+      const x = cand[p];
       chosen[level] = x;
+      // C ∩ N(x): C is short here, so binary searches in N(x) beat a merge.
+      let k = 0;
+      for (let i = 0; i < cLen; i++) if (g.hasEdge(x, c[i])) out[k++] = c[i];
       commonLen[level] = k;
-      if (level === a - 1 || extend(level + 1, np, p + 1)) return true;
+      if (level === a - 1 || extend(level + 1)) return true;
       if (outOfBudget) return false;
     }
     return false;
   };
 
   for (let a1 = 0; a1 < n; a1++) {
-    if (!okA(a1)) continue;
-    let nt = 0;
-    for (let i = offsets[a1]; i < offsets[a1 + 1]; i++) {
-      const mid = neighbors[i];
-      if (!okB(mid)) continue;
-      for (let j = offsets[mid + 1] - 1; j >= offsets[mid]; j--) {
-        const a2 = neighbors[j];
-        if (a2 <= a1) break; // sorted lists: only partners above a1 (a1 is the smallest of the a-side)
-        if (paths[a2]++ === 0) touched[nt++] = a2;
-      }
-    }
-    let np = 0;
-    for (let i = 0; i < nt; i++) {
-      const x = touched[i];
-      if (paths[x] >= b && okA(x)) partners[np++] = x;
-      paths[x] = 0;
-    }
-    if (np < a - 1) continue;
-    partners.subarray(0, np).sort();
+    if (core[a1] < a || offsets[a1 + 1] - offsets[a1] < b) continue;
     const c0 = common[0];
     let k = 0;
-    for (let i = offsets[a1]; i < offsets[a1 + 1]; i++) if (okB(neighbors[i])) c0[k++] = neighbors[i];
+    for (let i = offsets[a1]; i < offsets[a1 + 1]; i++) if (core[neighbors[i]] >= a) c0[k++] = neighbors[i];
+    if (k < b) continue;
     commonLen[0] = k;
     chosen[0] = a1;
-    if (extend(1, np, 0)) {
-      const right = Array.from(common[a - 1].subarray(0, b));
-      return result(Array.from(chosen), right, true, nodes);
-    }
+    if (extend(1)) return result(Array.from(chosen), Array.from(common[a - 1].subarray(0, b)), true, nodes);
     if (outOfBudget) return result(null, null, false, maxNodes);
   }
   return result(null, null, true, nodes);

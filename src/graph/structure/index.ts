@@ -15,3 +15,4 @@ export * from "./describe.js";
 export * from "./symmetry.js";
 export * from "./complete-bipartite.js";
 export * from "./pattern-shape.js";
+export * from "./spectrum.js";

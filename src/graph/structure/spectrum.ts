@@ -1,0 +1,123 @@
+// Extreme eigenvalues of a graph's adjacency, Laplacian or signless Laplacian matrix: a dense
+// decomposition for small n, Lanczos above, each value with its residual ‖Mu − θu‖ as evidence.
+
+import { invalidParameter } from "../../errors.js";
+import { symmetricEigen } from "../../linalg/dense-eigen.js";
+import { lanczosExtreme, type EigenEnd } from "../../linalg/lanczos.js";
+import {
+  adjacencyOperator,
+  laplacianOperator,
+  operatorToDense,
+  signlessLaplacianOperator,
+  type SymmetricOperator,
+} from "../../linalg/operator.js";
+import { normalize } from "../../linalg/vector.js";
+import type { Graph } from "../graph.js";
+
+export type GraphMatrix = "adjacency" | "laplacian" | "signless-laplacian";
+
+export interface SpectrumOptions {
+  /** Which matrix (default "adjacency"). */
+  matrix?: GraphMatrix;
+  /** Which end of the spectrum (default "largest"). */
+  which?: EigenEnd;
+  /** How many eigenvalues (default 1, at most n). */
+  k?: number;
+  /**
+   * Dense decomposition up to this n, Lanczos above (default 400: ml-matrix's dense solver takes
+   * about a second at n = 300 and grows as n³ on the reference machine, see bench/sdp.bench.mjs).
+   */
+  denseThreshold?: number;
+  /** Lanczos tolerance on ‖Mu − θu‖ relative to ‖M‖ (default 1e-10). */
+  tolerance?: number;
+  /** Lanczos start-vector seed (default 1). */
+  seed?: number;
+  /** Also return the eigenvectors (default false). */
+  vectors?: boolean;
+}
+
+export interface SpectrumRecord {
+  matrix: GraphMatrix;
+  which: EigenEnd;
+  /** From the requested end inwards: largest first for "largest", smallest first for "smallest". */
+  values: Float64Array;
+  /** ‖Mu − θu‖ for each unit eigenvector estimate u: [θ − r, θ + r] contains an eigenvalue. */
+  residuals: Float64Array;
+  method: "dense" | "lanczos";
+  /** Matrix–vector products (Lanczos) or n (dense). */
+  iterations: number;
+  converged: boolean;
+  seed: number;
+  vectors?: Float64Array[];
+}
+
+const OWNER = "extremeEigenvalues";
+const MATRICES: readonly GraphMatrix[] = ["adjacency", "laplacian", "signless-laplacian"];
+
+export function graphOperator(graph: Graph, matrix: GraphMatrix): SymmetricOperator {
+  switch (matrix) {
+    case "adjacency":
+      return adjacencyOperator(graph);
+    case "laplacian":
+      return laplacianOperator(graph);
+    case "signless-laplacian":
+      return signlessLaplacianOperator(graph);
+  }
+}
+
+/** The k extreme eigenvalues of the chosen matrix of `graph`, with residuals. */
+export function extremeEigenvalues(graph: Graph, options: SpectrumOptions = {}): SpectrumRecord {
+  const matrix = options.matrix ?? "adjacency";
+  const which = options.which ?? "largest";
+  const k = options.k ?? 1;
+  const n = graph.n;
+  if (!MATRICES.includes(matrix)) throw invalidParameter(OWNER, "matrix", `should be one of ${MATRICES.join(", ")}`, matrix);
+  if (which !== "largest" && which !== "smallest") throw invalidParameter(OWNER, "which", "should be largest or smallest", which);
+  if (!Number.isInteger(k) || k < 1 || k > n) throw invalidParameter(OWNER, "k", `should be an integer between 1 and n = ${n}`, k);
+  const threshold = options.denseThreshold ?? 400;
+  if (!Number.isInteger(threshold) || threshold < 0) throw invalidParameter(OWNER, "denseThreshold", "should be a non-negative integer", threshold);
+  const tolerance = options.tolerance ?? 1e-10;
+  const seed = options.seed ?? 1;
+  const op = graphOperator(graph, matrix);
+
+  if (n <= threshold) {
+    const eig = symmetricEigen(operatorToDense(op), n);
+    const values = new Float64Array(k);
+    const residuals = new Float64Array(k);
+    const vectors: Float64Array[] = [];
+    const au = new Float64Array(n);
+    let scale = 0;
+    for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(eig.values[i]));
+    let converged = true;
+    for (let t = 0; t < k; t++) {
+      const idx = which === "largest" ? n - 1 - t : t;
+      const u = eig.vectors.slice(idx * n, (idx + 1) * n);
+      normalize(u);
+      // Keep the solver's eigenvalue; the residual is measured against it.
+      op.apply(u, au);
+      let r2 = 0;
+      for (let i = 0; i < n; i++) {
+        const e = au[i] - eig.values[idx] * u[i];
+        r2 += e * e;
+      }
+      values[t] = eig.values[idx];
+      residuals[t] = Math.sqrt(r2);
+      // A dense solver is accurate to about n·u·‖M‖, which may exceed a tight tolerance.
+      if (residuals[t] > Math.max(tolerance, 1e-15 * n) * scale) converged = false;
+      vectors.push(u);
+    }
+    return { matrix, which, values, residuals, method: "dense", iterations: n, converged, seed, ...(options.vectors ? { vectors } : {}) };
+  }
+  const l = lanczosExtreme(op, { k, which, tolerance, seed, denseBelow: 0 });
+  return {
+    matrix,
+    which,
+    values: l.values,
+    residuals: l.residuals,
+    method: "lanczos",
+    iterations: l.iterations,
+    converged: l.converged,
+    seed,
+    ...(options.vectors ? { vectors: l.vectors } : {}),
+  };
+}

@@ -1,0 +1,133 @@
+// End-to-end: `halfplus cut` writes bracket records and `halfplus verify` re-checks them, through
+// the built bin, as a user would run them.
+
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { ensureBuilt, halfplus, hasTool } from "./helpers/cli.js";
+
+beforeAll(ensureBuilt);
+const dir = mkdtempSync(join(tmpdir(), "halfplus-cli-cut-"));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+describe("halfplus cut", () => {
+  it("petersen --json: one record, max cut 12 proven (from memory), nothing on stderr", () => {
+    const r = halfplus(["cut", "petersen", "--json"]);
+    expect(r.code).toBe(0);
+    expect(r.stderr).toBe("");
+    const lines = r.stdout.trim().split("\n");
+    expect(lines).toHaveLength(1);
+    const rec = JSON.parse(lines[0]);
+    expect(rec).toMatchObject({ n: 10, m: 15, lower: 12, upper: 12, exact: true, surplusLower: 4.5, source: { spec: "petersen" } });
+    expect(rec.partition).toHaveLength(10);
+  });
+
+  it("prints a readable summary by default, and --out still writes the JSON record", () => {
+    const out = join(dir, "c7.json");
+    const r = halfplus(["cut", "cycle:n=7", "--out", out]);
+    expect(r.code).toBe(0);
+    // C7 is an odd cycle: max cut 6 (common knowledge).
+    expect(r.stdout).toMatch(/max cut\s+6\s+\(optimal\)/);
+    expect(JSON.parse(readFileSync(out, "utf8")).lower).toBe(6);
+  });
+
+  it("--progress reports on stderr only; stdout stays one JSON line", () => {
+    const r = halfplus(["cut", "gnp:n=70,p=0.1,seed=2", "--json", "--progress", "--seconds", "1", "--method", "heuristic"]);
+    expect(r.code).toBe(0);
+    expect(r.stderr).toMatch(/gnp:n=70/);
+    const lines = r.stdout.trim().split("\n");
+    expect(lines).toHaveLength(1);
+    expect(JSON.parse(lines[0]).lower).toBeLessThanOrEqual(JSON.parse(lines[0]).upper);
+  });
+
+  it("bad options and sources exit 2 with one line", () => {
+    for (const args of [
+      ["cut", "petersen", "--seconds", "0"],
+      ["cut", "petersen", "--method", "fastest"],
+      ["cut", "petersen", "--seed", "-3"],
+      ["cut", "no-such-graph-file.g6"],
+      ["cut"],
+    ]) {
+      const r = halfplus(args);
+      expect(r.code, args.join(" ")).toBe(2);
+      expect(r.stderr.trim().split("\n"), args.join(" ")).toHaveLength(1);
+      expect(r.stdout).toBe("");
+    }
+  });
+
+  it.skipIf(!hasTool("nauty-geng"))("reads a graph6 stream: one record per graph; verify matches them to --graph by index", () => {
+    // nauty-geng -c 5 emits the 21 connected graphs on 5 vertices (OEIS A001349).
+    const g6 = spawnSync("nauty-geng", ["-cq", "5"]).stdout;
+    const file = join(dir, "c5.g6");
+    writeFileSync(file, g6);
+    const r = halfplus(["cut", "-", "--json", "--seconds", "1"], g6);
+    expect(r.code).toBe(0);
+    const recs = r.stdout.trim().split("\n").map((l) => JSON.parse(l));
+    expect(recs).toHaveLength(21);
+    expect(recs.every((x) => x.exact && x.source.path === "-")).toBe(true);
+    expect(recs.map((x) => x.source.index)).toEqual([...Array(21).keys()]);
+    const recFile = join(dir, "c5.json");
+    writeFileSync(recFile, r.stdout);
+    const v = halfplus(["verify", recFile, "--graph", file]);
+    expect(v.code).toBe(0);
+    expect(v.stdout).toMatch(/21 of 21 records verified/);
+  });
+});
+
+describe("halfplus verify", () => {
+  const recFile = join(dir, "petersen.json");
+
+  it("accepts the record `cut --json` wrote (exit 0)", () => {
+    const r = halfplus(["cut", "petersen", "--json"]);
+    writeFileSync(recFile, r.stdout);
+    const v = halfplus(["verify", recFile]);
+    expect(v.stderr).toBe("");
+    expect(v.code).toBe(0);
+    expect(v.stdout).toMatch(/verified: max cut = 12/);
+  });
+
+  it("rejects tampered copies (exit 1) and names the failing check", () => {
+    const rec = JSON.parse(readFileSync(recFile, "utf8"));
+    const raised = { ...rec, lower: 13, upper: 13, surplusLower: 5.5, surplusUpper: 5.5 };
+    const flipped = { ...rec, partition: rec.partition.map((s: number, i: number) => (i === 0 ? 1 - s : s)) };
+    for (const [name, bad, check] of [["raised", raised, /lower/], ["flipped", flipped, /lower/]] as const) {
+      const f = join(dir, `tampered-${name}.json`);
+      writeFileSync(f, JSON.stringify(bad) + "\n");
+      const v = halfplus(["verify", f]);
+      expect(v.code, name).toBe(1);
+      expect(v.stdout).toMatch(/REJECTED/);
+      expect(v.stdout).toMatch(check);
+    }
+  });
+
+  it("a heuristic record with a dual certificate verifies, and a lowered shift is caught", () => {
+    const r = halfplus(["cut", "gnp:n=80,p=0.2,seed=5", "--json", "--method", "heuristic", "--seconds", "1"]);
+    expect(r.code).toBe(0);
+    const rec = JSON.parse(r.stdout);
+    expect(rec.certificate.kind).toBe("psd-dual");
+    const f = join(dir, "gnp.json");
+    writeFileSync(f, r.stdout);
+    expect(halfplus(["verify", f]).code).toBe(0);
+    rec.certificate.shift -= 1;
+    writeFileSync(f, JSON.stringify(rec));
+    const v = halfplus(["verify", f, "--json"]);
+    expect(v.code).toBe(1);
+    const verdict = JSON.parse(v.stdout);
+    expect(verdict.ok).toBe(false);
+    expect(verdict.checks.find((c: { name: string }) => c.name === "upper").ok).toBe(false);
+  });
+
+  it("unreadable input exits 2 with one line", () => {
+    const notRecord = join(dir, "not-record.json");
+    writeFileSync(notRecord, JSON.stringify({ hello: 1 }));
+    const garbage = join(dir, "garbage.json");
+    writeFileSync(garbage, "{\n not json\n");
+    for (const args of [["verify", join(dir, "missing.json")], ["verify", notRecord], ["verify", garbage], ["verify", recFile, "--seconds", "-1"]]) {
+      const v = halfplus(args);
+      expect(v.code, args.join(" ")).toBe(2);
+      expect(v.stderr.trim().split("\n")).toHaveLength(1);
+    }
+  });
+});

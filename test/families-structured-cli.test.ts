@@ -1,0 +1,68 @@
+// `halfplus families`: the catalogue as printed by the built command, checked against the registry
+// it reads (listFamilies) and against sizes computed here from the textbook formulas.
+import { beforeAll, describe, expect, it } from "vitest";
+import { listFamilies } from "../src/families/registry.js";
+import { resolveParams } from "../src/families/spec.js";
+import { ensureBuilt, halfplus } from "./helpers/cli.js";
+
+beforeAll(ensureBuilt);
+
+describe("halfplus families", () => {
+  it("--json prints one object per registered family, in registry order, with params, freeOf and size", () => {
+    const r = halfplus(["families", "--json"]);
+    expect(r.stderr).toBe("");
+    expect(r.code).toBe(0);
+    const rows = r.stdout.trim().split("\n").map((l) => JSON.parse(l));
+    const defs = listFamilies();
+    expect(rows.map((x) => x.name)).toEqual(defs.map((d) => d.name));
+    for (const [i, row] of rows.entries()) {
+      const def = defs[i];
+      expect(row.params.map((p: { name: string }) => p.name)).toEqual([...def.params.map((p) => p.name), ...(def.random ? ["seed"] : [])]);
+      if (def.params.every((p) => p.default !== undefined)) {
+        const params = resolveParams(def, {}).params;
+        expect(row.expected).toEqual(def.expected(params));
+        expect(row.freeOf).toEqual(def.freeOf(params));
+        expect(row.problem).toBeNull();
+      } else {
+        expect(row.expected).toBeNull();
+        expect(row.problem).toMatch(/missing parameter/);
+      }
+    }
+  });
+
+  it("evaluates a spec: KG(9,4) has C(9,4) = 126 vertices of degree C(5,4) = 5", () => {
+    // Kneser graph sizes from the definition (Lovász 1978).
+    const r = halfplus(["families", "kneser:n=9,k=4", "--json"]);
+    expect(r.code).toBe(0);
+    const row = JSON.parse(r.stdout);
+    expect(row.evaluatedAt).toBe("kneser:n=9,k=4");
+    expect(row.expected).toMatchObject({ n: 126, m: 315, minDegree: 5, maxDegree: 5 });
+    expect(row.freeOf.map((f: { pattern: string }) => f.pattern)).toEqual(["K3"]);
+  });
+
+  it("shows one family in detail with its sources, and the list as readable text", () => {
+    const one = halfplus(["families", "polarity"]);
+    expect(one.code).toBe(0);
+    // ER_5: 5² + 5 + 1 = 31 points, 5·6²/2 = 90 edges (Erdős–Rényi 1962).
+    expect(one.stdout).toMatch(/31 vertices, 90 edges, degrees 5 to 6/);
+    expect(one.stdout).toMatch(/C4 {2}\(.*Erdős–Rényi 1962/);
+    const all = halfplus(["families"]);
+    expect(all.code).toBe(0);
+    for (const d of listFamilies()) expect(all.stdout).toMatch(new RegExp(`^${d.name}( \\(random\\))? — `, "m"));
+  });
+
+  it("reports unknown families and invalid specs in one line with exit 2", () => {
+    for (const [args, re] of [
+      [["families", "nosuch"], /no family called "nosuch"/],
+      [["families", "paley:q=7"], /paley: invalid `q`: should be ≡ 1 \(mod 4\)/],
+      [["families", "kneser:n=9,k=5"], /kneser: invalid `k`/],
+      [["families", "a", "b"], /too many arguments/],
+    ] as const) {
+      const r = halfplus([...args]);
+      expect(r.code).toBe(2);
+      expect(r.stdout).toBe("");
+      expect(r.stderr.trim().split("\n")).toHaveLength(1);
+      expect(r.stderr).toMatch(re);
+    }
+  });
+});

@@ -1,0 +1,308 @@
+// The mixing-method SDP, its certified dual bound and the eigenvalue bound against published
+// values, against dsdp5 on our own SDPA export, and against the G-set reference table.
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync, existsSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { dirname, join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import { afterAll, describe, expect, it } from "vitest";
+import { certifyDual, dualBoundValue, gershgorinShift, sdpUpperBound, solveAndCertifySdp, verifyCertificate } from "../src/cut/certificate.js";
+import { eigenvalueUpperBound } from "../src/cut/eigen-bound.js";
+import { cutValue } from "../src/cut/evaluate.js";
+import { defaultSdpRank, sdpObjective, solveSdp } from "../src/cut/sdp.js";
+import { toSdpa } from "../src/cut/sdpa.js";
+import type { DualCertificate } from "../src/cut/types.js";
+import { family } from "../src/families/registry.js";
+import { graphFromEdges } from "../src/graph/builder.js";
+import { parseGset } from "../src/graph/formats/gset.js";
+import type { Graph } from "../src/graph/graph.js";
+import { Rng } from "../src/random/prng.js";
+import { ensureBuilt, halfplus, hasTool } from "./helpers/cli.js";
+
+const REFERENCE = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..", "shared", "reference", "gset");
+const hasGset = existsSync(join(REFERENCE, "sdp-upper-bound.csv"));
+const hasDsdp = hasTool("dsdp5");
+const work = mkdtempSync(join(tmpdir(), "halfplus-sdp-"));
+afterAll(() => rmSync(work, { recursive: true, force: true }));
+
+function cycle(n: number): Graph {
+  return graphFromEdges(n, Array.from({ length: n }, (_, i) => [i, (i + 1) % n] as [number, number]));
+}
+function complete(n: number): Graph {
+  const e: [number, number][] = [];
+  for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) e.push([u, v]);
+  return graphFromEdges(n, e);
+}
+function petersen(): Graph {
+  const e: [number, number][] = [];
+  for (let i = 0; i < 5; i++) e.push([i, (i + 1) % 5], [i, i + 5], [5 + i, 5 + ((i + 2) % 5)]);
+  return graphFromEdges(10, e);
+}
+type WeightKind = "none" | "signed" | "real";
+function randomGraph(n: number, p: number, seed: number, kind: WeightKind): Graph {
+  const rng = new Rng(seed);
+  const e: [number, number, number][] = [];
+  for (let u = 0; u < n; u++) {
+    for (let v = u + 1; v < n; v++) {
+      if (rng.nextFloat() >= p) continue;
+      e.push([u, v, kind === "signed" ? (rng.nextFloat() < 0.5 ? -1 : 1) : kind === "real" ? Math.round((3 * rng.nextFloat() - 1) * 1000) / 1000 : 1]);
+    }
+  }
+  return kind === "none" ? graphFromEdges(n, e.map(([u, v]) => [u, v] as const)) : graphFromEdges(n, e);
+}
+/** Max cut by enumeration through cutValue (n ≤ 14). */
+function bruteMaxCut(g: Graph): number {
+  const side = new Uint8Array(g.n);
+  let best = -Infinity;
+  for (let mask = 0; mask < 1 << (g.n - 1); mask++) {
+    for (let i = 0; i < g.n; i++) side[i] = (mask >> i) & 1;
+    best = Math.max(best, cutValue(g, side));
+  }
+  return best;
+}
+const relErr = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math.abs(b), 1e-12);
+
+/** dsdp5 on our SDPA file: [primal objective, dual objective] of the GW relaxation (DSDP prints them negated). */
+function dsdp(g: Graph, name: string): { primal: number; dual: number } {
+  const file = join(work, `${name}.dat-s`);
+  writeFileSync(file, toSdpa(g));
+  const r = spawnSync("dsdp5", [file, "-gaptol", "1e-9"], { timeout: 60_000 });
+  const out = r.stdout.toString();
+  const dual = /DSDP Solution:\s*(\S+)/.exec(out);
+  const primal = /P Objective\s*:\s*(\S+)/.exec(out);
+  if (dual === null || primal === null) throw new Error(`dsdp5 output not understood:\n${out}`);
+  return { dual: -Number(dual[1]), primal: -Number(primal[1]) };
+}
+
+describe("SDP values with published closed forms", () => {
+  it("C5: (25 + 5√5)/8 (Goemans & Williamson, J. ACM 42 (1995), the 5-cycle example)", () => {
+    const truth = (25 + 5 * Math.sqrt(5)) / 8;
+    const { sdp, bound } = solveAndCertifySdp(cycle(5), { sdp: { gapTolerance: 1e-10, seed: 3 } });
+    expect(sdp.value).toBeLessThanOrEqual(truth + 1e-12);
+    expect(relErr(sdp.value, truth)).toBeLessThan(1e-8);
+    expect(bound.value).toBeGreaterThanOrEqual(truth);
+    expect(relErr(bound.value, truth)).toBeLessThan(1e-6);
+    expect(bound.certificate?.shiftMethod).toBe("cholesky-verified");
+    expect(bruteMaxCut(cycle(5))).toBe(4);
+  });
+
+  it("Petersen 12.5 and K_n n²/4: vertex-transitive graphs meet n·λmax(L)/4 (Delorme & Poljak, Math. Programming 62 (1993))", () => {
+    for (const [g, truth] of [[petersen(), 12.5], [complete(7), 49 / 4], [complete(10), 25]] as const) {
+      const b = sdpUpperBound(g, { sdp: { gapTolerance: 1e-9 } });
+      expect(b.value).toBeGreaterThanOrEqual(truth);
+      expect(relErr(b.value, truth)).toBeLessThan(1e-4);
+      expect(relErr(b.relaxationValue!, truth)).toBeLessThan(1e-4);
+      const e = eigenvalueUpperBound(g);
+      expect(e.value).toBeGreaterThanOrEqual(truth);
+      expect(relErr(e.value, truth)).toBeLessThan(1e-9);
+      expect(e.certificate?.y.every((x) => x === 0)).toBe(true);
+    }
+    // Max cut of Petersen is 12 and of K_n is ⌊n²/4⌋ (common practice, no source; checked by enumeration here).
+    expect(bruteMaxCut(petersen())).toBe(12);
+    expect(bruteMaxCut(complete(7))).toBe(12);
+  });
+});
+
+describe.skipIf(!hasDsdp)("agreement with dsdp5 (Debian dsdp) on our SDPA export", () => {
+  it("a dozen random graphs, n 30–80, unweighted, ±1 and real weights: certified bound within 1e-4", () => {
+    const kinds: WeightKind[] = ["none", "signed", "real"];
+    for (let t = 0; t < 12; t++) {
+      const n = 30 + ((t * 17) % 51);
+      const g = randomGraph(n, [0.1, 0.3, 0.6][t % 3], 100 + t, kinds[t % 3]);
+      const ref = dsdp(g, `rand${t}`);
+      const { sdp, bound } = solveAndCertifySdp(g, { sdp: { gapTolerance: 1e-8, seed: t } });
+      const ok = verifyCertificate(g, bound.certificate!);
+      expect(ok.ok, ok.message).toBe(true);
+      expect(relErr(bound.value, ref.dual), `graph ${t}: ours ${bound.value}, dsdp ${ref.dual}`).toBeLessThan(1e-4);
+      expect(relErr(sdp.value, ref.primal)).toBeLessThan(1e-4);
+      // Ours is a proof: it may not fall below DSDP's (feasible) primal objective beyond its accuracy.
+      expect(bound.value).toBeGreaterThanOrEqual(ref.primal * (1 - 1e-7));
+      expect(bound.value).toBeGreaterThanOrEqual(sdp.value);
+    }
+  });
+});
+
+describe.skipIf(!hasGset)("G-set reference bounds (../shared/reference/gset/sdp-upper-bound.csv)", () => {
+  const table = hasGset
+    ? new Map(
+        readFileSync(join(REFERENCE, "sdp-upper-bound.csv"), "utf8")
+          .trim()
+          .split("\n")
+          .slice(1)
+          .map((l) => l.split(","))
+          .map(([k, v]) => [k, Number(v)] as const),
+      )
+    : new Map<string, number>();
+  for (const name of ["G1", "G14", "G11"]) {
+    it(`${name}: certified bound within 0.05% of the table (DSDP 5.8 dual objective)`, () => {
+      const g = parseGset(readFileSync(join(REFERENCE, `${name}.txt`))).graph;
+      const ref = table.get(name)!;
+      const b = sdpUpperBound(g, { sdp: { gapTolerance: 1e-4 } });
+      expect(b.certificate?.shiftMethod).toBe("cholesky-verified");
+      // The table rounds to 4–6 significant digits; a proof may sit below it by that rounding only.
+      expect(b.value).toBeGreaterThanOrEqual(ref * (1 - 1e-5));
+      expect((b.value - ref) / ref).toBeLessThan(5e-4);
+    });
+  }
+});
+
+describe("certificates", () => {
+  const graphs: [string, Graph][] = [
+    ["C5", cycle(5)],
+    ["petersen", petersen()],
+    ["gnp", randomGraph(60, 0.2, 1, "none")],
+    ["signed", randomGraph(50, 0.3, 2, "signed")],
+    ["real", randomGraph(40, 0.5, 3, "real")],
+  ];
+
+  it("verifyCertificate accepts every certificate we produce, for each shift method", () => {
+    for (const [name, g] of graphs) {
+      const sdp = solveSdp(g, { gapTolerance: 1e-6 });
+      for (const method of ["auto", "cholesky", "gershgorin", "lanczos"] as const) {
+        const rec = certifyDual(g, sdp.y, { method });
+        const check = verifyCertificate(g, rec.certificate!);
+        expect(check.ok, `${name}/${method}: ${check.message}`).toBe(true);
+        expect(check.value).toBe(rec.value);
+        expect(check.proven).toBe(method !== "lanczos");
+        expect(rec.value).toBeGreaterThanOrEqual(sdp.value);
+      }
+      const e = eigenvalueUpperBound(g);
+      expect(verifyCertificate(g, e.certificate!).ok).toBe(true);
+    }
+  });
+
+  it("rejects tampered certificates: y lowered, shift lowered, wrong length, NaN, unknown kind or method", () => {
+    for (const [name, g] of graphs) {
+      const b = sdpUpperBound(g, { sdp: { gapTolerance: 1e-6 } });
+      const c = b.certificate!;
+      const tampered: [string, DualCertificate][] = [];
+      const y1 = c.y.slice();
+      y1[0] -= 1;
+      tampered.push(["y lowered", { ...c, y: y1 }]);
+      tampered.push(["shift lowered", { ...c, shift: c.shift - 1e-3 }]);
+      tampered.push(["short y", { ...c, y: c.y.slice(1) }]);
+      const y2 = c.y.slice();
+      y2[1] = NaN;
+      tampered.push(["NaN in y", { ...c, y: y2 }]);
+      tampered.push(["NaN shift", { ...c, shift: NaN }]);
+      tampered.push(["unknown method", { ...c, shiftMethod: "trust-me" }]);
+      tampered.push(["wrong kind", { ...c, kind: "other" as "psd-dual" }]);
+      tampered.push(["Gershgorin claim", { ...c, shiftMethod: "gershgorin" }]);
+      for (const method of ["lanczos-ritz-residual"]) {
+        tampered.push([`lowered ${method}`, { ...c, shiftMethod: method, shift: c.shift - 1e-2 }]);
+      }
+      for (const [what, t] of tampered) expect(verifyCertificate(g, t).ok, `${name}: ${what}`).toBe(false);
+    }
+  });
+
+  it("bounds hold: max cut ≤ primal SDP ≤ certified bound ≤ eigenvalue bound (signed weights too)", () => {
+    for (let t = 0; t < 6; t++) {
+      const g = randomGraph(12, 0.5, 40 + t, (["none", "signed", "real"] as const)[t % 3]);
+      const b = sdpUpperBound(g, { sdp: { gapTolerance: 1e-7 } });
+      const e = eigenvalueUpperBound(g);
+      const mc = bruteMaxCut(g);
+      expect(b.relaxationValue!).toBeGreaterThanOrEqual(mc - 1e-9);
+      expect(b.value).toBeGreaterThanOrEqual(b.relaxationValue!);
+      // The eigenvalue bound is the dual point y = 0, so it cannot beat the SDP optimum.
+      expect(e.value).toBeGreaterThanOrEqual(b.relaxationValue!);
+      expect(e.value).toBeGreaterThanOrEqual(b.value * (1 - 1e-6));
+      expect(gershgorinShift(g, b.certificate!.y)).toBeGreaterThanOrEqual(b.certificate!.shift - 1e-9);
+    }
+  });
+
+  it("certifies any y, even a poor one, and the value is ¼(Σy + n·shift) rounded up", () => {
+    const g = randomGraph(30, 0.3, 9, "signed");
+    const y = Float64Array.from({ length: g.n }, (_, i) => (i % 3) - 1);
+    const rec = certifyDual(g, y);
+    expect(verifyCertificate(g, rec.certificate!).ok).toBe(true);
+    const plain = (y.reduce((a, b) => a + b, 0) + g.n * rec.certificate!.shift) / 4;
+    expect(rec.value).toBeGreaterThanOrEqual(plain);
+    expect(rec.value - plain).toBeLessThan(1e-9 * Math.max(1, Math.abs(plain)));
+    expect(dualBoundValue(y, rec.certificate!.shift)).toBe(rec.value);
+    expect(rec.value).toBeGreaterThanOrEqual(sdpUpperBound(g).relaxationValue!);
+    expect(() => certifyDual(g, y.slice(1))).toThrow(/`y` has 29 entries but the graph has 30 vertices/);
+    expect(() => certifyDual(g, Float64Array.from(y, (x, i) => (i === 4 ? Infinity : x)))).toThrow(/`y`\[4\] is Infinity/);
+    expect(() => certifyDual(g, y, { method: "magic" as never })).toThrow(/invalid `method`/);
+  });
+});
+
+describe("solveSdp", () => {
+  it("records its seed and rank, repeats itself from the seed, and keeps unit rows", () => {
+    const g = randomGraph(50, 0.2, 5, "real");
+    const a = solveSdp(g, { seed: 17, maxSweeps: 30 });
+    const b = solveSdp(g, { seed: 17, maxSweeps: 30 });
+    expect(a.seed).toBe(17);
+    expect(a.rank).toBe(defaultSdpRank(50));
+    expect(defaultSdpRank(50)).toBe(11); // ⌈√100⌉ + 1
+    expect(Array.from(a.vectors)).toEqual(Array.from(b.vectors));
+    for (let i = 0; i < g.n; i++) {
+      let s = 0;
+      for (let t = 0; t < a.rank; t++) s += a.vectors[i * a.rank + t] ** 2;
+      expect(s).toBeCloseTo(1, 12);
+    }
+    expect(a.value).toBeCloseTo(sdpObjective(g, a.vectors, a.rank), 10);
+    // ¼Σy equals the primal value (y_i = ⟨(LV)_i, v_i⟩ sums to ⟨L, VVᵀ⟩).
+    expect(a.y.reduce((x, y) => x + y, 0) / 4).toBeCloseTo(a.value, 9);
+  });
+
+  it("stops on its budgets and validates options", () => {
+    const g = randomGraph(80, 0.2, 6, "none");
+    expect(solveSdp(g, { maxSweeps: 3, gapTolerance: 0 }).status).toBe("budget");
+    expect(solveSdp(g, { seconds: 1e-6, gapTolerance: 0 }).status).toBe("timeout");
+    expect(solveSdp(graphFromEdges(4, []), {}).status).toBe("converged");
+    expect(() => solveSdp(g, { rank: 0 })).toThrow(/invalid `rank`/);
+    expect(() => solveSdp(g, { seed: -1 })).toThrow(/invalid `seed`/);
+    expect(() => solveSdp(g, { gapTolerance: 2 })).toThrow(/invalid `gapTolerance`/);
+    expect(() => solveSdp(g, { initial: new Float64Array(3) })).toThrow(/invalid `initial`/);
+  });
+});
+
+describe("SDPA export", () => {
+  it("writes F_0 = L/4, F_i = e_i e_iᵀ, c = 1 in SDPA sparse format (SDPA manual: dat-s layout)", () => {
+    const g = graphFromEdges(4, [[0, 1, 2], [1, 2, -1], [2, 3, 0.5]]);
+    const lines = toSdpa(g, { comment: "test" }).trim().split("\n");
+    expect(lines[0]).toBe('"test');
+    expect(lines.slice(1, 5)).toEqual(["4 = mDIM", "1 = nBLOCK", "4 = bLOCKsTRUCT", "1 1 1 1"]);
+    const entries = lines.slice(5).map((l) => l.split(" ").map(Number));
+    const F0 = new Map(entries.filter((e) => e[0] === 0).map((e) => [`${e[2]},${e[3]}`, e[4]]));
+    // L/4 upper triangle: degrees 2, 1, −0.5, 0.5; off-diagonal −w/4.
+    expect(Object.fromEntries(F0)).toEqual({ "1,1": 0.5, "1,2": -0.5, "2,2": 0.25, "2,3": 0.25, "3,3": -0.125, "3,4": -0.125, "4,4": 0.125 });
+    expect(entries.filter((e) => e[0] > 0)).toEqual([1, 2, 3, 4].map((i) => [i, 1, i, i, 1]));
+    expect(() => toSdpa(graphFromEdges(0, []))).toThrow(/no vertices/);
+    expect(() => toSdpa(g, { comment: "a\nb" })).toThrow(/single line/);
+    // An isolated vertex has no F_0 entry but keeps its constraint.
+    expect(toSdpa(graphFromEdges(3, [[0, 1]]))).not.toMatch(/^0 1 3 3/m);
+  });
+
+  describe("the sdp-export command", () => {
+    ensureBuilt();
+    it("writes the same file as toSdpa for a family spec, to -o FILE or standard output", () => {
+      const out = join(work, "p.dat-s");
+      const r = halfplus(["sdp-export", "petersen", "-o", out]);
+      expect(r.code, r.stderr).toBe(0);
+      const body = (s: string) => s.split("\n").slice(1).join("\n");
+      const text = readFileSync(out, "utf8");
+      expect(text.split("\n")[0]).toMatch(/^"max-cut SDP relaxation of petersen/);
+      // The command adds only the comment line to what toSdpa writes for the same family graph.
+      expect(body(text)).toBe(body(toSdpa(family("petersen"))));
+      expect(body(text).split("\n").length).toBe(body(toSdpa(petersen())).split("\n").length);
+      const s = halfplus(["sdp-export", "petersen"]);
+      expect(s.code).toBe(0);
+      expect(s.stdout).toBe(text);
+    });
+    it("fails with exit code 2 and a one-line message on a bad source", () => {
+      const r = halfplus(["sdp-export", "no-such-file.txt"]);
+      expect(r.code).toBe(2);
+      expect(r.stderr.trim().split("\n")).toHaveLength(1);
+      expect(r.stderr).toMatch(/no-such-file\.txt/);
+    });
+    it.skipIf(!hasDsdp)("dsdp5 reads the exported Petersen file and finds 12.5", () => {
+      const out = join(work, "q.dat-s");
+      expect(halfplus(["sdp-export", "petersen", "--output", out]).code).toBe(0);
+      const r = spawnSync("dsdp5", [out], { timeout: 60_000 });
+      const m = /DSDP Solution:\s*(\S+)/.exec(r.stdout.toString());
+      expect(m).not.toBeNull();
+      expect(-Number(m![1])).toBeCloseTo(12.5, 5);
+    });
+  });
+});
