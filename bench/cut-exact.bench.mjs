@@ -1,6 +1,7 @@
 // Exact max-cut timings: Gray-code enumeration at n = 30 and branch and bound on sparse n = 60 and
 // dense n = 35 random graphs (target < 60 s each), plus a few harder instances for context.
 import { family } from "../dist/families/registry.js";
+import { randomRegularFamily } from "../dist/families/random-regular.js";
 import { grayCodeMaxCut } from "../dist/cut/exact-gray.js";
 import { branchAndBoundMaxCut } from "../dist/cut/exact-bnb.js";
 import { exactMaxCut } from "../dist/cut/exact.js";
@@ -33,7 +34,7 @@ run("gray n=30 (sparse)", "gnp:n=30,p=0.15,seed=1", (g) => grayCodeMaxCut(g, bud
 run("bnb n=30 (dense)", "gnp:n=30,p=0.5,seed=1", (g) => branchAndBoundMaxCut(g, budget), 3);
 for (const seed of [1, 2, 3]) {
   run(`bnb sparse n=60 avg deg 6`, `gnp:n=60,p=0.1,seed=${seed}`, (g) => branchAndBoundMaxCut(g, budget));
-  run(`bnb sparse n=60 3-regular`, `random-regular:n=60,d=3,seed=${seed}`, (g) => branchAndBoundMaxCut(g, budget));
+  run(`bnb sparse n=60 3-regular`, `${randomRegularFamily.name}:n=60,d=3,seed=${seed}`, (g) => branchAndBoundMaxCut(g, budget));
   run(`bnb dense n=35 p=0.5`, `gnp:n=35,p=0.5,seed=${seed}`, (g) => branchAndBoundMaxCut(g, budget));
 }
 run("bnb sparse n=60 avg deg 9", "gnp:n=60,p=0.15,seed=1", (g) => branchAndBoundMaxCut(g, budget));

@@ -89,6 +89,9 @@ if (!hasShared() || !existsSync(join(dir, "sdp-upper-bound.csv"))) {
   const { sdp, bound } = solveAndCertifySdp(g, { sdp: { seconds } });
   const total = Number(process.hrtime.bigint() - t0) / 1e9;
   const after = process.memoryUsage();
+  const t1 = process.hrtime.bigint();
+  const check = verifyCertificate(g, bound.certificate);
+  const verifySeconds = Number(process.hrtime.bigint() - t1) / 1e9;
   rows.push({
     graph: `random n=${n}`,
     n,
@@ -103,6 +106,8 @@ if (!hasShared() || !existsSync(join(dir, "sdp-upper-bound.csv"))) {
     "sdp s": Number(sdp.seconds.toFixed(1)),
     "ours s": Number(total.toFixed(1)),
     "certify s": Number(bound.details.certifySeconds.toFixed(1)),
+    verified: check.ok,
+    "verify s": Number(verifySeconds.toFixed(1)),
     "vectors MB": Number(((sdp.vectors.byteLength) / 2 ** 20).toFixed(1)),
     "array buffers MB": Number(((after.arrayBuffers - before.arrayBuffers) / 2 ** 20).toFixed(1)),
     "peak RSS MB": Number((process.resourceUsage().maxRSS / 1024).toFixed(0)),

@@ -1,6 +1,5 @@
-// Structure checks on a uniform random graph with n = 10^5, m = 10^6 (distinct pairs drawn
-// with Rng): CSR build, triangles, degeneracy, 4-cycles, girth, searches and describeGraph.
-// Targets: build < 1 s, countTriangles < 1 s, degeneracy < 0.5 s (one core).
+// Structure checks on a uniform random graph, n = 10^5, m = 10^6 (distinct pairs from Rng).
+// Targets: buildGraph < 1 s, countTriangles < 1 s, degeneracy < 0.5 s (one core).
 import { buildGraph } from "../dist/graph/builder.js";
 import {
   countFourCycles,
@@ -9,7 +8,9 @@ import {
   describeGraph,
   findClique,
   findCycle,
+  findSubgraph,
   girth,
+  patternGraph,
 } from "../dist/graph/structure/index.js";
 import { Rng } from "../dist/random/prng.js";
 import { report, timeBest } from "./util.mjs";
@@ -59,6 +60,10 @@ const k4 = timeBest(() => findClique(g, 4), 3);
 row("findClique(K4)", null, k4, `found ${k4.result.found} after ${k4.result.nodesExplored} nodes`);
 const c5 = timeBest(() => findCycle(g, 5), 3);
 row("findCycle(C5)", null, c5, `found ${c5.result.found} after ${c5.result.nodesExplored} nodes`);
+const k23 = timeBest(() => findSubgraph(g, patternGraph("K2,3")), 3);
+row("findSubgraph(K2,3)", null, k23, `found ${k23.result.found} (${k23.result.method})`);
+const p5 = timeBest(() => findSubgraph(g, patternGraph("P5"), { strategy: "backtracking" }), 3);
+row("findSubgraph(P5, backtracking)", null, p5, `found ${p5.result.found} after ${p5.result.nodesExplored} nodes`);
 const d = timeBest(() => describeGraph(g), 2);
 row("describeGraph", null, d, JSON.stringify(d.result.free));
 

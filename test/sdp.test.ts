@@ -6,10 +6,10 @@ import { tmpdir } from "node:os";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { afterAll, describe, expect, it } from "vitest";
-import { certifyDual, dualBoundValue, gershgorinShift, sdpUpperBound, solveAndCertifySdp, verifyCertificate } from "../src/cut/certificate.js";
+import { certifyDual, gershgorinShift, sdpUpperBound, solveAndCertifySdp, verifyCertificate } from "../src/cut/certificate.js";
 import { eigenvalueUpperBound } from "../src/cut/eigen-bound.js";
 import { cutValue } from "../src/cut/evaluate.js";
-import { defaultSdpRank, sdpObjective, solveSdp } from "../src/cut/sdp.js";
+import { defaultSdpRank, dualBoundValue, sdpObjective, solveSdp } from "../src/cut/sdp.js";
 import { toSdpa } from "../src/cut/sdpa.js";
 import type { DualCertificate } from "../src/cut/types.js";
 import { family } from "../src/families/registry.js";
@@ -144,6 +144,30 @@ describe.skipIf(!hasGset)("G-set reference bounds (../shared/reference/gset/sdp-
       expect((b.value - ref) / ref).toBeLessThan(5e-4);
     });
   }
+});
+
+describe("eigenvalue bound", () => {
+  it("even cycles: λmax(L) = 4 (Brouwer & Haemers, §1.4.3), so n·4/4 = n = m, proved by Gershgorin at any size", () => {
+    for (const n of [10, 1200]) {
+      const e = eigenvalueUpperBound(cycle(n));
+      expect(e.certificate?.shiftMethod).toBe("gershgorin");
+      expect(e.value).toBeGreaterThanOrEqual(n);
+      expect(relErr(e.value, n)).toBeLessThan(1e-12);
+      expect(verifyCertificate(cycle(n), e.certificate!).proven).toBe(true);
+    }
+  });
+
+  it("above denseLimit it is an honest estimate, labelled as such", () => {
+    const g = randomGraph(300, 0.05, 77, "none");
+    const e = eigenvalueUpperBound(g, { denseLimit: 100 });
+    expect(e.certificate?.shiftMethod).toBe("lanczos-ritz-residual");
+    const proved = eigenvalueUpperBound(g);
+    expect(proved.certificate?.shiftMethod).toBe("cholesky-verified");
+    expect(relErr(e.value, proved.value)).toBeLessThan(1e-8);
+    const v = verifyCertificate(g, e.certificate!);
+    expect(v.ok).toBe(true);
+    expect(v.proven).toBe(false);
+  });
 });
 
 describe("certificates", () => {

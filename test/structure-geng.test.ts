@@ -1,6 +1,5 @@
-// Classifies every graph on n ≤ 8 vertices the way nauty's geng filters do: the lines geng
-// writes with -t (triangle-free), -f (4-cycle-free), -tf, -k (K4-free), -b (bipartite),
-// -c (connected), -d2 (min degree ≥ 2) must be exactly the lines of plain `geng n` we accept.
+// Every graph on n ≤ 8 vertices, classified against nauty's geng filters: the lines of
+// `geng -t/-f/-tf/-k/-b/-c/-d2 n` must be exactly the lines of `geng n` that we accept.
 import { execFileSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import type { Graph } from "../src/graph/graph.js";

@@ -202,11 +202,14 @@ class BracketState {
     this.runs.push({ method: r.method, role: "exact", value: r.value, upper: r.upper, status: r.status, seconds: r.seconds, seed: r.seed, details: plainDetails(r.details) });
     this.takeCut(r);
     if (r.status === "optimal") {
-      this.upper = r.upper;
-      this.upperMethod = r.method;
-      this.upperProven = true;
       this.exact = true;
-      this.certificate = { kind: "exhaustive", search: r.method, nodes: r.nodes, floored: false, tolerance: this.tolerance };
+      // Non-integer weights: the search proves value + tolerance, which an earlier certificate may beat.
+      if (r.upper <= this.upper || !this.upperProven) {
+        this.upper = r.upper;
+        this.upperMethod = r.method;
+        this.upperProven = true;
+        this.certificate = { kind: "exhaustive", search: r.method, nodes: r.nodes, floored: false, tolerance: this.tolerance };
+      }
     } else {
       const bound = this.round(r.upper);
       if (bound < this.upper) {

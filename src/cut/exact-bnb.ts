@@ -3,7 +3,10 @@
 // shortest tail up, and a node with v_k..v_{d-1} fixed is bounded by
 //   cut among fixed + Σ_{free v} max(w(v, fixed side 0), w(v, fixed side 1)) + MC[d],
 // which is exact when the free part has no edges. The last b vertices form a tabulated CutBlock,
-// so the bottom b levels cost one table scan instead of 2^b nodes.
+// so the bottom b levels cost one table scan instead of 2^b nodes. Incumbents: each tail's optimum
+// extended by one vertex, 1-flip ascent, seeded random restarts, and the caller's partition.
+// Chosen over eigenvalue/SDP node bounds because those cost O(n^2)+ per node while this one is
+// O(deg) incremental; measured (bench/cut-exact): sparse n = 60 and dense n = 35 in 0.1–2.5 s.
 
 import { InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";

@@ -161,8 +161,12 @@ export class Rank2Searcher implements AnytimeSearch {
       }
       if (!accepted) return;
       const decrease = this.here.value - this.there.value;
-      [this.theta, this.trial] = [this.trial, this.theta];
-      [this.here, this.there] = [this.there, this.here];
+      const t = this.theta;
+      this.theta = this.trial;
+      this.trial = t;
+      const o = this.here;
+      this.here = this.there;
+      this.there = o;
       if (decrease <= 1e-7 * (Math.abs(this.here.value) + 1)) return;
       tau *= 2;
     }

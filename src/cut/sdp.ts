@@ -6,6 +6,7 @@ import { invalidParameter } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { lanczosExtreme } from "../linalg/lanczos.js";
 import { shiftedLaplacianOperator, weightedDegrees } from "../linalg/operator.js";
+import { gamma, roundUp } from "../linalg/rounding.js";
 import { Rng, assertSeed } from "../random/prng.js";
 import type { SolverStatus } from "./types.js";
 
@@ -56,6 +57,22 @@ export interface SdpRecord {
 }
 
 const OWNER = "solveSdp";
+
+/**
+ * The bound ¼(Σy + n·shift), rounded up past every rounding error of its own evaluation
+ * (a sum of n + 1 terms: error ≤ γ_{n+1}·(Σ|y_i| + n·|shift|)). The one place this formula lives.
+ */
+export function dualBoundValue(y: ArrayLike<number>, shift: number): number {
+  const n = y.length;
+  let s = 0, abs = 0;
+  for (let i = 0; i < n; i++) {
+    s += y[i];
+    abs += Math.abs(y[i]);
+  }
+  const total = s + n * shift;
+  const err = gamma(n + 2) * (abs + n * Math.abs(shift));
+  return roundUp((total + err) / 4, 2);
+}
 
 /** Default rank ⌈√(2n)⌉ + 1, at most n. */
 export function defaultSdpRank(n: number): number {
@@ -196,9 +213,7 @@ function gapEstimate(graph: Graph, y: Float64Array, value: number, warm: Float64
     seed: 1,
     ...(warm === null ? {} : { start: warm }),
   });
-  let sy = 0;
-  for (let i = 0; i < y.length; i++) sy += y[i];
-  const dual = (sy + graph.n * Math.max(0, top.values[0])) / 4;
+  const dual = dualBoundValue(y, Math.max(0, top.values[0]));
   return { gap: dual - value, dual, top: top.vectors[0] };
 }
 

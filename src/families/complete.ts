@@ -14,7 +14,7 @@ export function completeGraph(n: number): Graph {
 export const complete: FamilyDefinition = {
   name: "complete",
   summary: "complete graph K_n",
-  params: [{ name: "n", type: "integer", description: "number of vertices", min: 1, max: 30000 }],
+  params: [{ name: "n", type: "integer", description: "number of vertices", default: 5, min: 1, max: 30000 }],
   random: false,
   freeOf: (p) => ((p.n as number) < 3 ? [{ pattern: "K3", source: "fewer than 3 vertices" }] : []),
   expected: (p) => {

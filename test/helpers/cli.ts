@@ -1,6 +1,6 @@
 // Runs the built `halfplus` bin (dist/cli/main.js; `npm test` builds first) as a user would.
 import { spawnSync, execSync } from "node:child_process";
-import { existsSync } from "node:fs";
+import { existsSync, readdirSync, statSync } from "node:fs";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -9,8 +9,19 @@ export const BIN = join(ROOT, "dist", "cli", "main.js");
 export const SHARED_REFERENCE = resolve(ROOT, "..", "shared", "reference");
 export const hasShared = existsSync(SHARED_REFERENCE);
 
+function newestSourceMtime(dir: string): number {
+  let t = 0;
+  for (const e of readdirSync(dir, { withFileTypes: true })) {
+    const p = join(dir, e.name);
+    t = Math.max(t, e.isDirectory() ? newestSourceMtime(p) : e.name.endsWith(".ts") ? statSync(p).mtimeMs : 0);
+  }
+  return t;
+}
+
+/** `npm test` builds first; when a suite runs on its own, rebuild a missing or stale dist. */
 export function ensureBuilt(): void {
-  if (!existsSync(BIN)) execSync("npx tsc -p tsconfig.build.json", { cwd: ROOT, stdio: "inherit" });
+  if (existsSync(BIN) && statSync(BIN).mtimeMs >= newestSourceMtime(join(ROOT, "src"))) return;
+  execSync("npx tsc -p tsconfig.build.json", { cwd: ROOT, stdio: "inherit" });
 }
 
 export function hasTool(name: string): boolean {

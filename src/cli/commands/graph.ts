@@ -22,12 +22,13 @@ export function formatSummary(label: string, s: GraphSummary, notes: string[]): 
     ["degeneracy", fmt(s.degeneracy)],
     ["components", fmt(s.components)],
     ["bipartite", fmt(s.bipartite)],
-    ["girth", s.girth === null ? "∞ (forest)" : fmt(s.girth)],
+    ["girth", s.girth !== null ? fmt(s.girth) : s.undecided.includes("girth") ? "—" : "∞ (forest)"],
     ["triangles, 4-cycles", `${fmt(s.triangles)}, ${fmt(s.fourCycles)}`],
     ["forbidden subgraphs", free],
   ];
   const w = Math.max(...rows.map((r) => r[0].length));
   const out = [`${label}`, ...rows.map(([k, v]) => `  ${k.padEnd(w)}  ${v}`)];
+  if (s.undecided.length > 0) out.push(`  not decided: ${s.undecided.join(", ")}`);
   for (const n of notes) out.push(`  note: ${n}`);
   return out.join("\n") + "\n";
 }
@@ -51,7 +52,7 @@ export const graphCommand: CommandSpec = {
     for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
       const summary = describeGraph(item.graph);
       if (json) {
-        await writeLine(io.stdout, JSON.stringify({ source: item.label, ...summary, notes: item.notes.length ? item.notes : undefined }));
+        await writeLine(io.stdout, JSON.stringify({ source: item.label, ...summary, notes: item.notes.length > 0 ? item.notes : undefined }));
       } else {
         await writeLine(io.stdout, (first ? "" : "\n") + formatSummary(item.label, summary, item.notes).trimEnd());
       }

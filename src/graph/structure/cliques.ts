@@ -1,6 +1,5 @@
-// K_r containment with a witness clique. Orients edges along a degeneracy ordering, so
-// every forward neighbourhood has at most d vertices, and grows cliques by intersecting
-// sorted forward neighbourhoods (the scheme of Chiba & Nishizeki 1985; Eppstein et al. 2010).
+// K_r containment with a witness clique: cliques grown by intersecting sorted forward
+// neighbourhoods along a degeneracy ordering, each of size ≤ d (Chiba & Nishizeki 1985).
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../graph.js";

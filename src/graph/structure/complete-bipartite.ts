@@ -1,8 +1,5 @@
 // K_{s,t} containment (not necessarily induced) with a witness, by codegree counting: the
-// smaller side a1 < a2 < … is grown one vertex at a time, and the candidates for the next
-// one are found by counting, over the current common neighbourhood C, the paths c–x with x
-// above the last chosen vertex; x qualifies when it sees ≥ t vertices of C. The first level
-// is the classic 2-path count, costing Σ_v deg(v)² in all.
+// smaller side grows one vertex at a time among vertices seeing ≥ t of the common neighbours.
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../graph.js";
@@ -23,6 +20,12 @@ export interface CompleteBipartiteResult {
   nodesExplored: number;
 }
 
+/**
+ * Is there a K_{s,t} (s vertices all adjacent to t others)? The smaller side a1 < a2 < … is
+ * grown one vertex at a time; candidates for the next are counted over the current common
+ * neighbourhood C (paths c–x, x above the last chosen vertex) and need ≥ t hits. The first
+ * level is the classic 2-path count, Σ_v deg(v)² work in all.
+ */
 export function findCompleteBipartite(g: Graph, s: number, t: number, options: SearchBudget = {}): CompleteBipartiteResult {
   for (const [name, v] of [["s", s], ["t", t]] as const) {
     if (!Number.isInteger(v) || v < 1) throw invalidParameter("findCompleteBipartite", name, "should be a positive integer", v);

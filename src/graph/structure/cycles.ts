@@ -1,6 +1,5 @@
-// C_k containment (a cycle of length exactly k, not necessarily induced) with a witness.
-// k = 3 and 4 reuse the O(m·√m) triangle/4-cycle scans; k ≥ 5 runs a depth-bounded DFS
-// from each vertex s as the cycle's lowest (degree, id) vertex, pruned by BFS distance to s.
+// C_k containment (a cycle of length exactly k, not necessarily induced) with a witness:
+// O(m·√m) scans for k = 3, 4; a distance-pruned, depth-bounded DFS for k ≥ 5.
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../graph.js";
@@ -21,6 +20,11 @@ export interface CycleSearchResult {
   nodesExplored: number;
 }
 
+/**
+ * Is there a cycle of length exactly k? k = 3 and 4 reuse the O(m·√m) triangle/4-cycle scans.
+ * k ≥ 5: from each vertex s as the cycle's lowest (degree, id) vertex, a DFS over simple paths
+ * above s, pruned by BFS distance back to s.
+ */
 export function findCycle(g: Graph, k: number, options: SearchBudget = {}): CycleSearchResult {
   if (!Number.isInteger(k) || k < 3 || k > MAX_CYCLE_LENGTH) {
     throw invalidParameter("findCycle", "k", `should be an integer between 3 and ${MAX_CYCLE_LENGTH}`, k);

@@ -7,8 +7,9 @@ export interface DegeneracyResult {
   /** max_v coreNumber[v]: the least d such that every subgraph has a vertex of degree ≤ d (0 when n = 0). */
   degeneracy: number;
   /**
-   * Removal order: order[i] is the i-th vertex peeled off. Every vertex has at most
-   * `degeneracy` neighbours later in the order (the evidence for the upper bound).
+   * Removal order: order[i] is the i-th vertex peeled off (read backwards, it is Matula and
+   * Beck's smallest-last ordering). Every vertex has at most `degeneracy` neighbours later in
+   * the order (the evidence for the upper bound).
    */
   order: Int32Array;
   /** position[v] = index of v in `order`. */

@@ -1,6 +1,5 @@
 // The summary record behind `halfplus graph --json`: size, degrees, degeneracy, triangle and
-// 4-cycle counts, girth, bipartiteness, components, and which small subgraphs are absent.
-// Each quantity is computed once; cheap facts (bipartite, degeneracy, girth) settle the rest where they can.
+// 4-cycle counts, girth, bipartiteness, components, and which of K3, K4, C4, C5 are absent.
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../graph.js";
@@ -50,6 +49,7 @@ export interface GraphSummary {
   undecided: string[];
 }
 
+/** Each quantity is computed once; cheap facts (bipartite, degeneracy, girth) settle the rest where they can. */
 export function describeGraph(g: Graph, options: DescribeOptions = {}): GraphSummary {
   const skip = new Set<string>(options.skip ?? []);
   for (const s of skip) {

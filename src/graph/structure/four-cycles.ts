@@ -1,6 +1,5 @@
-// Number of 4-cycles (C4 subgraphs, not necessarily induced) in O(m·√m): each 4-cycle is
-// counted once from its vertex u of largest (degree, id), by pairing the 2-paths u–v–w that
-// stay below u in that order (Chiba & Nishizeki 1985). Counts are doubles: exact below 2^53.
+// Number of 4-cycles (C4 subgraphs, not necessarily induced) in O(m·√m), by pairing 2-paths
+// below each cycle's top vertex in (degree, id) order (Chiba & Nishizeki 1985).
 
 import type { Graph } from "../graph.js";
 import { degreeOrder, firstAbove, rankedAdjacency } from "./orientation.js";
@@ -12,6 +11,10 @@ export interface FourCycleCount {
   witness: number[] | null;
 }
 
+/**
+ * Each 4-cycle is counted once, from its vertex u of largest (degree, id), by pairing the
+ * 2-paths u–v–w that stay below u in that order. Counts are doubles: exact below 2^53.
+ */
 export function countFourCycles(g: Graph): FourCycleCount {
   return scanFourCycles(g, false);
 }

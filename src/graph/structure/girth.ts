@@ -1,6 +1,5 @@
-// Girth (length of a shortest cycle) with a shortest cycle as witness. Cycles live in the
-// 2-core; a component of the 2-core that is itself a cycle is read off directly, and the
-// rest runs one BFS per root s over vertices ≥ s, stopped once it cannot beat the best so far.
+// Girth (length of a shortest cycle) with a shortest cycle as witness: BFS from each 2-core
+// vertex over larger vertices, stopped once it cannot beat the best cycle so far.
 
 import type { Graph } from "../graph.js";
 
@@ -11,6 +10,11 @@ export interface GirthResult {
   cycle: number[] | null;
 }
 
+/**
+ * Cycles live in the 2-core. A 2-core component that is itself a cycle is read off directly;
+ * elsewhere one BFS per root s runs over vertices ≥ s (a shortest cycle is found from its
+ * smallest vertex) and stops once it cannot beat the best so far. Worst case O(n·m).
+ */
 export function girth(g: Graph): GirthResult {
   const { n, offsets, neighbors } = g;
   const inCore = twoCore(g);

@@ -1,6 +1,5 @@
-// Shared preprocessing for the counting and search routines: relabel vertices by
-// (degree, id) so "later in the order" is "larger id", and keep each list sorted.
-// Orienting edges towards later vertices bounds out-degrees by √(2m) (Chiba & Nishizeki 1985).
+// Shared preprocessing for the counting and search routines: CSR relabelled by a vertex
+// order (e.g. (degree, id)) so "later in the order" is "larger id", lists kept sorted.
 
 import type { Graph } from "../graph.js";
 

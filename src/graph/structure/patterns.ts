@@ -1,6 +1,5 @@
 // Small pattern graphs named the way the project writes "free of H": K_r (complete),
-// C_k (cycle), K_{s,t} (complete bipartite), P_k (path on k vertices). One parser for the
-// CLI, family `freeOf` lists and tests.
+// C_k (cycle), K_{s,t} (complete bipartite), P_k (path on k vertices).
 
 import { InputError } from "../../errors.js";
 import { EdgeBuffer } from "../builder.js";

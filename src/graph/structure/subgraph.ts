@@ -1,8 +1,5 @@
-// General subgraph containment (not necessarily induced): is there an injective map of the
-// pattern's vertices into the host carrying every pattern edge to a host edge? Complete,
-// cycle and complete bipartite patterns go to their dedicated searches; any other pattern is
-// found by backtracking over a connectivity-first pattern order, with degree and core-number
-// pruning and symmetry-breaking order conditions (automorphic copies are not all tried).
+// General subgraph containment (not necessarily induced): an injective map of the pattern's
+// vertices into the host that carries every pattern edge to a host edge, or proof there is none.
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../graph.js";
@@ -82,6 +79,12 @@ function componentMinDegree(p: Graph): Int32Array {
   return Int32Array.from(comp, (c) => minDeg[c]);
 }
 
+/**
+ * Complete, cycle and complete bipartite patterns go to their dedicated searches (unless
+ * `strategy: "backtracking"`); any other pattern is found by backtracking over a
+ * connectivity-first pattern order, with degree and core-number pruning and symmetry-breaking
+ * order conditions, so automorphic copies of one occurrence are not all tried.
+ */
 export function findSubgraph(g: Graph, pattern: Graph, options: SubgraphSearchOptions = {}): SubgraphSearchResult {
   const k = pattern.n;
   if (k > MAX_PATTERN_VERTICES) {
@@ -171,8 +174,9 @@ function backtrack(g: Graph, pattern: Graph, maxNodes: number): SubgraphSearchRe
     anchor[i] = best;
     // Candidates must lie strictly between lo and hi (symmetry conditions).
     let lo = -1, hi = n;
-    for (const j of above[i]) lo = Math.max(lo, map[j]);
-    for (const j of below[i]) hi = Math.min(hi, map[j]);
+    const ab = above[i], be = below[i];
+    for (let t = 0; t < ab.length; t++) lo = Math.max(lo, map[ab[t]]);
+    for (let t = 0; t < be.length; t++) hi = Math.min(hi, map[be[t]]);
     if (best < 0) {
       cur[i] = lo + 1;
       end[i] = hi;

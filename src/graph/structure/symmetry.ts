@@ -1,6 +1,5 @@
-// Symmetry-breaking conditions for subgraph search: pairs (a, b) meaning "image of a < image
-// of b", chosen so every occurrence of the pattern still has an embedding meeting them
-// (orbits along a stabiliser chain of the pattern's automorphisms, as in Grochow & Kellis 2007).
+// Symmetry-breaking conditions for subgraph search: "image of a < image of b" pairs from a
+// stabiliser chain of the pattern's automorphisms (Grochow & Kellis 2007).
 
 import type { Graph } from "../graph.js";
 

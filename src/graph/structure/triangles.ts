@@ -1,6 +1,5 @@
-// Triangle counting in O(m·√m): orient each edge towards the endpoint of larger
-// (degree, id), mark a vertex's forward neighbours, scan their forward neighbours
-// (Chiba & Nishizeki 1985; the "forward" algorithm of Schank & Wagner 2005).
+// Triangle counting in O(m·√m): edges oriented by (degree, id), forward neighbours marked
+// and scanned (Chiba & Nishizeki 1985; the "forward" algorithm of Schank & Wagner 2005).
 
 import type { Graph } from "../graph.js";
 import { degreeOrder, firstAbove, rankedAdjacency } from "./orientation.js";
@@ -14,6 +13,7 @@ export interface TriangleCount {
   witness: number[] | null;
 }
 
+/** Orienting each edge towards the larger (degree, id) endpoint bounds out-degrees by √(2m). */
 export function countTriangles(g: Graph): TriangleCount {
   const { n } = g;
   const ra = rankedAdjacency(g, degreeOrder(g));
