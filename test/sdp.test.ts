@@ -322,7 +322,7 @@ describe("SDPA export", () => {
     });
     it.skipIf(!hasDsdp)("dsdp5 reads the exported Petersen file and finds 12.5", () => {
       const out = join(work, "q.dat-s");
-      expect(halfplus(["sdp-export", "petersen", "--output", out]).code).toBe(0);
+      expect(halfplus(["sdp-export", "petersen", "--out", out]).code).toBe(0);
       const r = spawnSync("dsdp5", [out], { timeout: 60_000 });
       const m = /DSDP Solution:\s*(\S+)/.exec(r.stdout.toString());
       expect(m).not.toBeNull();

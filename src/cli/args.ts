@@ -17,6 +17,8 @@ export interface OptionSpec {
   max?: number;
   /** Placeholder shown in help, e.g. "S". */
   placeholder?: string;
+  /** One-letter alias, e.g. "o" for `-o FILE`. */
+  short?: string;
 }
 
 export interface CommandSpec {
@@ -66,6 +68,7 @@ function parseValue(cmd: string, spec: OptionSpec, raw: string): string | number
 
 export function parseArgs(cmd: CommandSpec, argv: readonly string[]): ParsedArgs {
   const byName = new Map(cmd.options.map((o) => [o.name, o]));
+  const byShort = new Map(cmd.options.filter((o) => o.short !== undefined).map((o) => [o.short!, o]));
   const options: ParsedArgs["options"] = {};
   for (const o of cmd.options) options[o.name] = o.default;
   const positionals: string[] = [];
@@ -75,6 +78,16 @@ export function parseArgs(cmd: CommandSpec, argv: readonly string[]): ParsedArgs
     if (a === "--") {
       positionals.push(...argv.slice(i + 1));
       break;
+    }
+    if (/^-[A-Za-z]$/.test(a)) {
+      const spec = byShort.get(a.slice(1));
+      if (spec === undefined) throw new InputError(`${where}: unknown option ${a} (see halfplus ${cmd.name} --help)`);
+      if (spec.type === "boolean") options[spec.name] = true;
+      else {
+        if (i + 1 >= argv.length) throw new InputError(`${where}: ${a} needs a value`);
+        options[spec.name] = parseValue(where, spec, argv[++i]);
+      }
+      continue;
     }
     if (a.startsWith("--")) {
       const eq = a.indexOf("=");
@@ -118,7 +131,8 @@ export function commandHelp(cmd: CommandSpec): string {
   if (cmd.options.length > 0) {
     lines.push("options:");
     const rows = cmd.options.map((o) => {
-      const flag = o.type === "boolean" ? `--${o.name}` : `--${o.name} ${o.placeholder ?? o.type.toUpperCase()}`;
+      const long = o.type === "boolean" ? `--${o.name}` : `--${o.name} ${o.placeholder ?? o.type.toUpperCase()}`;
+      const flag = o.short === undefined ? long : `-${o.short}, ${long}`;
       const extra = [
         o.choices ? `one of ${o.choices.join("|")}` : "",
         o.default !== undefined && o.type !== "boolean" ? `default ${o.default}` : "",

@@ -167,7 +167,8 @@ export class Rank2Searcher implements AnytimeSearch {
       const o = this.here;
       this.here = this.there;
       this.there = o;
-      if (decrease <= 1e-7 * (Math.abs(this.here.value) + 1)) return;
+      // A loose tolerance: the sweep only needs the angles roughly settled, and restarts pay more than precision.
+      if (decrease <= 1e-5 * (Math.abs(this.here.value) + 1)) return;
       tau *= 2;
     }
   }

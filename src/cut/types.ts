@@ -32,7 +32,10 @@ export interface DualCertificate {
   y: Float64Array;
   /** Rigorous upper estimate of λmax(L − Diag(y)), rounded up. */
   shift: number;
-  /** How `shift` was established, e.g. "lanczos-residual" or "dense-eig". */
+  /**
+   * How `shift` was established: "cholesky-verified" and "gershgorin" are proofs;
+   * "lanczos-ritz-residual" is a high-confidence estimate (see src/cut/certificate.ts).
+   */
   shiftMethod: string;
 }
 

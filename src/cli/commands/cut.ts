@@ -80,7 +80,7 @@ export const cutCommand: CommandSpec = {
     { name: "seed", type: "integer", description: "seed of every randomised method", default: 0, min: 0, max: 0xffffffff, placeholder: "N" },
     { name: "method", type: "string", description: "auto, exact search only, heuristics with certified bounds, or quick cheap methods", default: "auto", choices: BRACKET_METHODS, placeholder: "M" },
     { name: "json", type: "boolean", description: "one JSON record per graph, one per line (what `halfplus verify` reads)" },
-    { name: "out", type: "string", description: "also write the JSON records to FILE", placeholder: "FILE" },
+    { name: "out", short: "o", type: "string", description: "also write the JSON records to FILE", placeholder: "FILE" },
     { name: "progress", type: "boolean", description: "report progress on stderr (default: only when stderr is a terminal)" },
     ...SOURCE_OPTIONS,
   ],
