@@ -5,7 +5,7 @@
 import { spawnSync } from "node:child_process";
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
-import { join } from "node:path";
+import { dirname, join } from "node:path";
 import { solveAndCertifySdp, eigenvalueUpperBound, verifyCertificate, toSdpa } from "../dist/cut/index.js";
 import { parseGset } from "../dist/graph/formats/gset.js";
 import { EdgeBuffer } from "../dist/graph/builder.js";
@@ -21,7 +21,7 @@ function dsdpSeconds(graph, name) {
   const file = join(work, `${name}.dat-s`);
   writeFileSync(file, toSdpa(graph));
   const t0 = process.hrtime.bigint();
-  const r = spawnSync("dsdp5", [file], { maxBuffer: 1 << 26 });
+  const r = spawnSync("dsdp5", [file], { maxBuffer: 1 << 26, cwd: dirname(file) }); // dsdp5 writes a results file into its cwd
   const seconds = Number(process.hrtime.bigint() - t0) / 1e9;
   const m = /DSDP Solution:\s*(\S+)/.exec(r.stdout.toString());
   return { seconds, value: m === null ? NaN : -Number(m[1]) };

@@ -66,7 +66,7 @@ const relErr = (a: number, b: number): number => Math.abs(a - b) / Math.max(Math
 function dsdp(g: Graph, name: string): { primal: number; dual: number } {
   const file = join(work, `${name}.dat-s`);
   writeFileSync(file, toSdpa(g));
-  const r = spawnSync("dsdp5", [file, "-gaptol", "1e-9"], { timeout: 60_000 });
+  const r = spawnSync("dsdp5", [file, "-gaptol", "1e-9"], { timeout: 60_000, cwd: dirname(file) }); // dsdp5 writes a results file into its cwd
   const out = r.stdout.toString();
   const dual = /DSDP Solution:\s*(\S+)/.exec(out);
   const primal = /P Objective\s*:\s*(\S+)/.exec(out);
@@ -323,7 +323,7 @@ describe("SDPA export", () => {
     it.skipIf(!hasDsdp)("dsdp5 reads the exported Petersen file and finds 12.5", () => {
       const out = join(work, "q.dat-s");
       expect(halfplus(["sdp-export", "petersen", "--out", out]).code).toBe(0);
-      const r = spawnSync("dsdp5", [out], { timeout: 60_000 });
+      const r = spawnSync("dsdp5", [out], { timeout: 60_000, cwd: dirname(out) });
       const m = /DSDP Solution:\s*(\S+)/.exec(r.stdout.toString());
       expect(m).not.toBeNull();
       expect(-Number(m![1])).toBeCloseTo(12.5, 5);
