@@ -7,16 +7,11 @@ import { family } from "../dist/families/registry.js";
 import { parseGset } from "../dist/graph/formats/gset.js";
 import { bracket } from "../dist/cut/bracket.js";
 import { verifyBracket } from "../dist/cut/verify.js";
-import { SHARED_REFERENCE, hasShared, report } from "./util.mjs";
+import { SHARED_REFERENCE, hasShared, readGsetTable, report } from "./util.mjs";
 
 const args = process.argv.slice(2);
 const gsetSeconds = Number(args.find((a) => /^[0-9.]+$/.test(a)) ?? 10);
 const rows = [];
-
-function csv(name) {
-  const lines = readFileSync(join(SHARED_REFERENCE, "gset", name), "utf8").trim().split("\n").slice(1);
-  return new Map(lines.map((l) => l.split(",")).map(([k, v]) => [k, Number(v)]));
-}
 
 function measure(label, graph, seconds, extra = {}) {
   globalThis.gc?.();
@@ -58,8 +53,8 @@ if (!args.includes("--no-large")) {
 }
 
 if (hasShared()) {
-  const best = csv("best-known.csv");
-  const sdp = csv("sdp-upper-bound.csv");
+  const best = readGsetTable("best-known.csv");
+  const sdp = readGsetTable("sdp-upper-bound.csv");
   for (const name of ["G1", "G11", "G14", "G22", "G43", "G48"]) {
     const g = parseGset(readFileSync(join(SHARED_REFERENCE, "gset", `${name}.txt`))).graph;
     measure(name, g, gsetSeconds, (r) => ({

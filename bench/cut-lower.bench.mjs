@@ -15,7 +15,7 @@ import { Rank2Searcher } from "../dist/cut/rank2.js";
 import { MultiStartSearcher } from "../dist/cut/local-search.js";
 import { vectorMethodRound, vectorMethodExpectedCut } from "../dist/cut/vector-method.js";
 import { vectorMethodGuarantee } from "../dist/bounds/vector-method.js";
-import { SHARED_REFERENCE, hasShared, report, timeBest } from "./util.mjs";
+import { SHARED_REFERENCE, hasShared, randomDistinctPairs, readGsetTable, report, timeBest } from "./util.mjs";
 
 const argv = process.argv.slice(2);
 const flag = (name) => argv.includes(name);
@@ -31,14 +31,7 @@ const ALL = ["G1", "G11", "G14", "G22", "G43", "G48"];
 
 function heuristicRows() {
   const gset = join(SHARED_REFERENCE, "gset");
-  const known = new Map(
-    readFileSync(join(gset, "best-known.csv"), "utf8")
-      .trim()
-      .split("\n")
-      .slice(1)
-      .map((l) => l.split(","))
-      .map(([k, v]) => [k, Number(v)]),
-  );
+  const known = readGsetTable("best-known.csv");
   const rows = [];
   for (const name of names.length > 0 ? names : ALL) {
     const file = join(gset, `${name}.txt`);
@@ -83,19 +76,7 @@ function heuristicRows() {
 
 /** G(n, m)-style random graph: m distinct edges drawn uniformly (rejection on repeats). */
 function randomGraph(n, m, rng) {
-  const seen = new Set();
-  const us = new Int32Array(m), vs = new Int32Array(m);
-  let k = 0;
-  while (k < m) {
-    const u = rng.nextInt(n), v = rng.nextInt(n);
-    if (u === v) continue;
-    const key = u < v ? u * n + v : v * n + u;
-    if (seen.has(key)) continue;
-    seen.add(key);
-    us[k] = u;
-    vs[k] = v;
-    k++;
-  }
+  const { us, vs } = randomDistinctPairs(n, m, rng);
   return buildGraph(n, us, vs).graph;
 }
 

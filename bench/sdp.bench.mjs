@@ -10,7 +10,7 @@ import { solveAndCertifySdp, eigenvalueUpperBound, verifyCertificate, toSdpa } f
 import { parseGset } from "../dist/graph/formats/gset.js";
 import { EdgeBuffer } from "../dist/graph/builder.js";
 import { Rng } from "../dist/random/prng.js";
-import { SHARED_REFERENCE, hasShared, report } from "./util.mjs";
+import { SHARED_REFERENCE, hasShared, readGsetTable, report } from "./util.mjs";
 
 const hasDsdp = spawnSync("sh", ["-c", "command -v dsdp5"]).status === 0;
 const dsdpAll = process.env.SDP_BENCH_DSDP === "all";
@@ -31,9 +31,7 @@ const dir = join(SHARED_REFERENCE, "gset");
 if (!hasShared() || !existsSync(join(dir, "sdp-upper-bound.csv"))) {
   console.log("../shared/reference/gset is absent: G-set rows skipped");
 } else {
-  const table = new Map(
-    readFileSync(join(dir, "sdp-upper-bound.csv"), "utf8").trim().split("\n").slice(1).map((l) => l.split(",")).map(([k, v]) => [k, Number(v)]),
-  );
+  const table = readGsetTable("sdp-upper-bound.csv");
   for (const name of ["G1", "G11", "G14", "G22", "G43", "G48"]) {
     const path = join(dir, `${name}.txt`);
     if (!existsSync(path)) continue;

@@ -13,33 +13,13 @@ import {
   patternGraph,
 } from "../dist/graph/structure/index.js";
 import { Rng } from "../dist/random/prng.js";
-import { report, timeBest } from "./util.mjs";
+import { randomDistinctPairs, report, timeBest } from "./util.mjs";
 
 const N = 100_000;
 const M = 1_000_000;
 const SEED = 1;
 
-function randomPairs(n, m, seed) {
-  const rng = new Rng(seed);
-  const us = new Int32Array(m);
-  const vs = new Int32Array(m);
-  const seen = new Set();
-  let k = 0;
-  while (k < m) {
-    const u = rng.nextInt(n);
-    const v = rng.nextInt(n);
-    if (u === v) continue;
-    const key = u < v ? u * n + v : v * n + u;
-    if (seen.has(key)) continue;
-    seen.add(key);
-    us[k] = u;
-    vs[k] = v;
-    k++;
-  }
-  return { us, vs };
-}
-
-const { us, vs } = randomPairs(N, M, SEED);
+const { us, vs } = randomDistinctPairs(N, M, new Rng(SEED));
 const rows = [];
 const row = (name, target, t, result) => {
   rows.push({ step: name, ms: Math.round(t.ms * 10) / 10, targetMs: target ?? "", ok: target === null ? "" : t.ms < target, result });

@@ -9,35 +9,13 @@ import { edwardsEdgeBound, edwardsVertexBound } from "../src/bounds/edwards.js";
 import { triangleFreeBound } from "../src/bounds/triangle-free.js";
 import { vectorMethodGuarantee } from "../src/bounds/vector-method.js";
 import { lowerBoundReport, lowerBounds } from "../src/bounds/report.js";
+import { bruteForceMaxCut } from "./helpers/maxcut.js";
+import { gengLines } from "./helpers/nauty.js";
 
 const hasTool = (name: string) => spawnSync("which", [name]).status === 0;
 const hasGeng = hasTool("nauty-geng");
 
-function geng(args: string[]): Graph[] {
-  const r = spawnSync("nauty-geng", ["-q", ...args], { encoding: "utf8", maxBuffer: 1 << 26 });
-  if (r.status !== 0) throw new Error(`nauty-geng ${args.join(" ")} failed: ${r.stderr}`);
-  return r.stdout.split("\n").filter((l) => l !== "").map((l) => parseGraph6(l));
-}
-
-/** Brute-force max cut (common practice, no source): all 2^(n−1) sides with vertex n−1 fixed, Gray-code order. */
-function bruteForceMaxCut(g: Graph): number {
-  const n = g.n;
-  if (n <= 1) return 0;
-  const adj: number[][] = Array.from({ length: n }, () => []);
-  g.forEachEdge((u, v) => {
-    adj[u].push(v);
-    adj[v].push(u);
-  });
-  const side = new Uint8Array(n);
-  let cut = 0, best = 0;
-  for (let k = 1; k < 1 << (n - 1); k++) {
-    const v = 31 - Math.clz32(k & -k);
-    for (const u of adj[v]) cut += side[u] === side[v] ? 1 : -1;
-    side[v] ^= 1;
-    if (cut > best) best = cut;
-  }
-  return best;
-}
+const geng = (args: string[]): Graph[] => gengLines(args).map((l) => parseGraph6(l));
 
 /** Components by union–find, independent of src/graph/structure. */
 function componentCount(g: Graph): number {

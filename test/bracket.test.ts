@@ -11,20 +11,7 @@ import { exactMaxCut } from "../src/cut/exact.js";
 import { cutValue } from "../src/cut/evaluate.js";
 import { InputError } from "../src/errors.js";
 import { Rng } from "../src/random/prng.js";
-
-function randomGraph(n: number, p: number, rng: Rng, weight?: (r: Rng) => number): Graph {
-  const us: number[] = [], vs: number[] = [], ws: number[] = [];
-  for (let i = 0; i < n; i++) {
-    for (let j = i + 1; j < n; j++) {
-      if (rng.nextFloat() < p) {
-        us.push(i);
-        vs.push(j);
-        ws.push(weight ? weight(rng) : 1);
-      }
-    }
-  }
-  return buildGraph(n, us, vs, weight ? ws : null).graph;
-}
+import { randomGraph } from "./helpers/graphs.js";
 
 /** A record as `verify` would read it back from disk. */
 const roundTrip = (r: BracketRecord): BracketRecord => parseBracketRecord(JSON.parse(JSON.stringify(r)), "test");
@@ -78,7 +65,7 @@ describe("bracket: never crosses the optimum", () => {
     for (let t = 0; t < 10_000; t++) {
       const n = 2 + rng.nextInt(9);
       const weight = t % 5 === 3 ? (r: Rng) => (r.nextInt(2) ? 1 : -1) : t % 5 === 4 ? (r: Rng) => r.nextInt(5) + 1 : undefined;
-      const g = randomGraph(n, rng.nextFloat(), rng, weight);
+      const g = randomGraph(n, rng.nextFloat(), rng, { weight });
       const r = bracket(g, { method: t % 50 === 0 ? "auto" : "quick", seed: t });
       const opt = exactMaxCut(g).value;
       expect(r.lower).toBeLessThanOrEqual(opt);
@@ -100,8 +87,8 @@ describe("bracket: never crosses the optimum", () => {
   it("weighted graphs with negative and fractional weights, and medium graphs taking each path of `auto`", () => {
     const rng = new Rng(99);
     const cases: Graph[] = [
-      randomGraph(12, 0.5, rng, (r) => Math.round(r.nextNormal() * 100) / 10),
-      randomGraph(14, 0.6, rng, (r) => (r.nextInt(2) ? 1 : -1)),
+      randomGraph(12, 0.5, rng, { weight: (r) => Math.round(r.nextNormal() * 100) / 10 }),
+      randomGraph(14, 0.6, rng, { weight: (r) => (r.nextInt(2) ? 1 : -1) }),
       randomGraph(40, 0.15, rng), // 30 < n ≤ 50: heuristics, then branch and bound
       randomGraph(28, 0.3, rng), // n ≤ 30: exact search first
     ];

@@ -7,21 +7,16 @@ import { parseGraph6 } from "../src/graph/formats/graph6.js";
 import { exactMaxCut } from "../src/cut/exact.js";
 import { cutValue } from "../src/cut/evaluate.js";
 import { edwardsEdgeBound, edwardsVertexBound } from "../src/bounds/edwards.js";
+import { gengLines } from "./helpers/nauty.js";
 
 const hasGeng = spawnSync("which", ["nauty-geng"]).status === 0;
-
-function geng(n: number): string[] {
-  const r = spawnSync("nauty-geng", ["-cq", String(n)], { encoding: "utf8", maxBuffer: 1 << 26 });
-  if (r.status !== 0) throw new Error(`nauty-geng failed: ${r.stderr}`);
-  return r.stdout.split("\n").filter((l) => l.length > 0);
-}
 
 describe("exact max cut on all small connected graphs (nauty-geng -c)", () => {
   it.skipIf(!hasGeng)("meets both Edwards bounds, with √(8m+1) equality exactly for odd complete graphs", () => {
     // Counts of connected graphs on n = 1..8 vertices: OEIS A001349 (1, 1, 2, 6, 21, 112, 853, 11117).
     const connectedCounts = [1, 1, 2, 6, 21, 112, 853, 11117];
     for (let n = 1; n <= 8; n++) {
-      const lines = geng(n);
+      const lines = gengLines(["-c", String(n)]);
       expect(lines.length).toBe(connectedCounts[n - 1]);
       let equalityCases = 0;
       for (const line of lines) {

@@ -15,23 +15,9 @@ import { branchAndBoundMaxCut } from "../src/cut/exact-bnb.js";
 import { grayCodeMaxCut } from "../src/cut/exact-gray.js";
 import { InputError } from "../src/errors.js";
 import { Rng } from "../src/random/prng.js";
+import { randomGraph } from "./helpers/graphs.js";
 
 const has = (tool: string): boolean => spawnSync("which", [tool]).status === 0;
-
-/** G(n, p) with optional weights drawn by `weight` (test-local, seeded). */
-function randomGraph(n: number, p: number, rng: Rng, weight?: (r: Rng) => number): Graph {
-  const us: number[] = [], vs: number[] = [], ws: number[] = [];
-  for (let i = 0; i < n; i++) {
-    for (let j = i + 1; j < n; j++) {
-      if (rng.nextFloat() < p) {
-        us.push(i);
-        vs.push(j);
-        ws.push(weight ? weight(rng) : 1);
-      }
-    }
-  }
-  return buildGraph(n, us, vs, weight ? ws : null).graph;
-}
 
 /** Every bipartition with vertex 0 on side 0, each valued by cutValue: the plainest possible oracle. */
 function bruteForce(g: Graph): number {
@@ -116,7 +102,7 @@ describe("exact max cut: methods agree", () => {
       const n = 1 + rng.nextInt(12);
       const kind = t % 3;
       const weight = kind === 0 ? undefined : kind === 1 ? (r: Rng) => r.nextInt(9) - 4 || 1 : (r: Rng) => Math.round(r.nextNormal() * 1000) / 100;
-      const g = randomGraph(n, rng.nextFloat(), rng, weight);
+      const g = randomGraph(n, rng.nextFloat(), rng, { weight });
       const want = bruteForce(g);
       const gray = grayCodeMaxCut(g, { blockSize: rng.nextInt(n) });
       const bnb = branchAndBoundMaxCut(g, { blockSize: rng.nextInt(n), order: t % 2 === 0 ? "degree" : "tail-greedy" });
@@ -135,7 +121,7 @@ describe("exact max cut: methods agree", () => {
     const rng = new Rng(77);
     for (let t = 0; t < 12; t++) {
       const n = 18 + rng.nextInt(9);
-      const g = randomGraph(n, 0.15 + 0.7 * rng.nextFloat(), rng, t % 3 === 2 ? (r) => (r.nextInt(2) ? 1 : -1) : undefined);
+      const g = randomGraph(n, 0.15 + 0.7 * rng.nextFloat(), rng, { weight: t % 3 === 2 ? (r) => (r.nextInt(2) ? 1 : -1) : undefined });
       const a = grayCodeMaxCut(g);
       const b = branchAndBoundMaxCut(g);
       expect(b.value).toBe(a.value);
@@ -247,7 +233,7 @@ describe("exact max cut agrees with a MILP solver", () => {
       const n = t < 44 ? 6 + rng.nextInt(15) : 24 + rng.nextInt(7);
       const avgDegree = 2 + 2 * rng.nextFloat();
       const weight = t % 4 === 1 ? (r: Rng) => r.nextInt(7) - 3 || 2 : t % 4 === 3 ? (r: Rng) => 1 + r.nextInt(5) : undefined;
-      const g = randomGraph(n, avgDegree / (n - 1), rng, weight);
+      const g = randomGraph(n, avgDegree / (n - 1), rng, { weight });
       const r = exactMaxCut(g);
       expect(r.status).toBe("optimal");
       expect(r.value).toBeCloseTo(solveMilp(g, `g${t}`), 6);

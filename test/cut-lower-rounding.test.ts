@@ -11,39 +11,12 @@ import { vectorMethodCosine, vectorMethodExpectedCut, vectorMethodRound } from "
 import { resolveVectorSets } from "../src/bounds/vector-sets.js";
 import { vectorMethodGuarantee } from "../src/bounds/vector-method.js";
 import { InputError } from "../src/errors.js";
+import { complete, cycle, hypercube, petersen, randomBipartite, randomEdges } from "./helpers/graphs.js";
 
-function cycle(n: number): Graph {
-  return graphFromEdges(n, Array.from({ length: n }, (_, i) => [i, (i + 1) % n] as [number, number]));
-}
-function complete(n: number): Graph {
-  const e: [number, number][] = [];
-  for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) e.push([i, j]);
-  return graphFromEdges(n, e);
-}
-function petersen(): Graph {
-  const e: [number, number][] = [];
-  for (let i = 0; i < 5; i++) e.push([i, (i + 1) % 5], [i, i + 5], [5 + i, 5 + ((i + 2) % 5)]);
-  return graphFromEdges(10, e);
-}
-function hypercube(d: number): Graph {
-  const e: [number, number][] = [];
-  for (let v = 0; v < 1 << d; v++) for (let b = 0; b < d; b++) if ((v ^ (1 << b)) > v) e.push([v, v ^ (1 << b)]);
-  return graphFromEdges(1 << d, e);
-}
-function gnp(rng: Rng, n: number, p: number): [number, number][] {
-  const e: [number, number][] = [];
-  for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (rng.nextFloat() < p) e.push([i, j]);
-  return e;
-}
-function randomBipartite(rng: Rng, a: number, b: number, p: number): Graph {
-  const e: [number, number][] = [];
-  for (let i = 0; i < a; i++) for (let j = 0; j < b; j++) if (rng.nextFloat() < p) e.push([i, a + j]);
-  return graphFromEdges(a + b, e);
-}
 /** G(n, p), then edges deleted until no triangle remains (each deletion checked by brute force). */
 function triangleFreeRandom(rng: Rng, n: number, p: number): Graph {
   const adj = Array.from({ length: n }, () => new Uint8Array(n));
-  for (const [u, v] of gnp(rng, n, p)) adj[u][v] = adj[v][u] = 1;
+  for (const [u, v] of randomEdges(n, p, rng)) adj[u][v] = adj[v][u] = 1;
   for (let u = 0; u < n; u++)
     for (let v = u + 1; v < n; v++)
       if (adj[u][v]) for (let w = 0; w < n; w++) if (adj[u][w] && adj[v][w]) { adj[u][v] = adj[v][u] = 0; break; }
@@ -83,7 +56,7 @@ describe("hyperplane rounding (Goemans–Williamson)", () => {
     // GW 1995 Lemma 3.2: a random hyperplane separates unit vectors at angle θ with probability θ/π.
     // Tolerance: 4 standard errors of the sample mean (estimated in the test).
     const rng = new Rng(5);
-    const e = gnp(rng, 25, 0.3).map(([u, v]) => [u, v, 1 + rng.nextInt(4)] as [number, number, number]);
+    const e = randomEdges(25, 0.3, rng).map(([u, v]) => [u, v, 1 + rng.nextInt(4)] as [number, number, number]);
     const g = graphFromEdges(25, e);
     const vectors = new Float64Array(25 * 3);
     for (let i = 0; i < vectors.length; i++) vectors[i] = rng.nextNormal();
@@ -109,7 +82,7 @@ describe("hyperplane rounding (Goemans–Williamson)", () => {
 
   it("polishing never lowers the best cut, and the same seed gives the same partition", () => {
     const rng = new Rng(8);
-    const g = graphFromEdges(40, gnp(rng, 40, 0.2));
+    const g = graphFromEdges(40, randomEdges(40, 0.2, rng));
     const vectors = new Float64Array(40 * 4);
     for (let i = 0; i < vectors.length; i++) vectors[i] = rng.nextNormal();
     const raw = hyperplaneRound(g, vectors, 4, { trials: 30, seed: 1, polish: false });
@@ -189,7 +162,7 @@ describe("the explicit vector method", () => {
     ["C5", cycle(5)],
     ["Petersen", petersen()],
     ["Q3", hypercube(3)],
-    ["random bipartite 12+14", randomBipartite(rng, 12, 14, 0.3)],
+    ["random bipartite 12+14", randomBipartite(12, 14, 0.3, rng)],
     ["G(30, 0.3) minus triangle edges", triangleFreeRandom(rng, 30, 0.3)],
   ];
 
@@ -221,8 +194,8 @@ describe("the explicit vector method", () => {
   const dense: [string, Graph][] = [
     ["K4", complete(4)],
     ["K7", complete(7)],
-    ["G(24, 0.5)", graphFromEdges(24, gnp(rng, 24, 0.5))],
-    ["G(30, 0.25)", graphFromEdges(30, gnp(rng, 30, 0.25))],
+    ["G(24, 0.5)", graphFromEdges(24, randomEdges(24, 0.5, rng))],
+    ["G(30, 0.25)", graphFromEdges(30, randomEdges(30, 0.25, rng))],
   ];
   for (const [name, g] of dense) {
     it(`${name} (with triangles): guarantee matches a direct O(n³) evaluation, expectation matches dense vectors and exceeds the guarantee`, () => {
@@ -261,7 +234,7 @@ describe("the explicit vector method", () => {
 
   it("weighted graphs: rounding and expectation work, the guarantee does not apply", () => {
     const r = new Rng(77);
-    const e = gnp(r, 20, 0.3).map(([u, v]) => [u, v, r.nextInt(7) - 3 || 1] as [number, number, number]);
+    const e = randomEdges(20, 0.3, r).map(([u, v]) => [u, v, r.nextInt(7) - 3 || 1] as [number, number, number]);
     const g = graphFromEdges(20, e);
     const gu = vectorMethodGuarantee(g);
     expect(gu.applies).toBe(false);

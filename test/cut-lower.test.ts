@@ -12,62 +12,16 @@ import { localSearch, MultiStartSearcher } from "../src/cut/local-search.js";
 import { breakoutSearch, BreakoutSearcher } from "../src/cut/breakout.js";
 import { rank2Search, Rank2Searcher } from "../src/cut/rank2.js";
 import { InputError } from "../src/errors.js";
+import { complete, cycle, hypercube, petersen, randomGraph } from "./helpers/graphs.js";
+import { bruteForceMaxCut } from "./helpers/maxcut.js";
 
-// ---- small graphs, built by hand (constructions are textbook definitions, from memory) ----
-function cycle(n: number): Graph {
-  return graphFromEdges(n, Array.from({ length: n }, (_, i) => [i, (i + 1) % n] as [number, number]));
-}
-function complete(n: number): Graph {
-  const e: [number, number][] = [];
-  for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) e.push([i, j]);
-  return graphFromEdges(n, e);
-}
-function petersen(): Graph {
-  const e: [number, number][] = [];
-  for (let i = 0; i < 5; i++) e.push([i, (i + 1) % 5], [i, i + 5], [5 + i, 5 + ((i + 2) % 5)]);
-  return graphFromEdges(10, e);
-}
-function hypercube(d: number): Graph {
-  const e: [number, number][] = [];
-  for (let v = 0; v < 1 << d; v++) for (let b = 0; b < d; b++) if ((v ^ (1 << b)) > v) e.push([v, v ^ (1 << b)]);
-  return graphFromEdges(1 << d, e);
-}
-/** Random graph with edge probability p; weights uniform integers in [lo, hi] \ {0} when weighted. */
-function randomGraph(rng: Rng, n: number, p: number, weights?: [number, number]): Graph {
-  const e: [number, number, number][] = [];
-  for (let i = 0; i < n; i++)
-    for (let j = i + 1; j < n; j++)
-      if (rng.nextFloat() < p) {
-        let w = 1;
-        if (weights) do w = weights[0] + rng.nextInt(weights[1] - weights[0] + 1); while (w === 0);
-        e.push([i, j, w]);
-      }
-  return weights ? graphFromEdges(n, e) : graphFromEdges(n, e.map(([a, b]) => [a, b] as [number, number]));
-}
-
-/**
- * Brute-force max cut for n ≤ 16 (common practice, no source): vertex n−1 fixed on side 0, the
- * other 2^(n−1) assignments visited in Gray-code order, the cut updated edge by edge. Written
- * independently of src/cut so it can serve as the oracle.
- */
-function bruteForceMaxCut(g: Graph): number {
-  const n = g.n;
-  if (n <= 1) return 0;
-  const side = new Uint8Array(n);
-  const adj: [number, number][][] = Array.from({ length: n }, () => []);
-  g.forEachEdge((u, v, w) => {
-    adj[u].push([v, w]);
-    adj[v].push([u, w]);
-  });
-  let cut = 0;
-  let best = 0;
-  for (let k = 1; k < 1 << (n - 1); k++) {
-    const v = 31 - Math.clz32(k & -k);
-    for (const [u, w] of adj[v]) cut += side[u] === side[v] ? w : -w;
-    side[v] ^= 1;
-    if (cut > best) best = cut;
-  }
-  return best;
+/** Weights uniform integers in [lo, hi] \ {0}, for randomGraph's `weight`. */
+function nonzeroInt(lo: number, hi: number): (r: Rng) => number {
+  return (r) => {
+    let w: number;
+    do w = lo + r.nextInt(hi - lo + 1); while (w === 0);
+    return w;
+  };
 }
 
 function expectSound(g: Graph, r: CutRecord): void {
@@ -87,7 +41,7 @@ describe("brute-force oracle", () => {
 describe("FlipState and polishCut", () => {
   it("keeps gains and the running value equal to a recomputation after random flips (weighted, negative weights)", () => {
     const rng = new Rng(3);
-    const g = randomGraph(rng, 30, 0.3, [-3, 4]);
+    const g = randomGraph(30, 0.3, rng, { weight: nonzeroInt(-3, 4) });
     const s = new FlipState(g, new Uint8Array(30));
     for (let t = 0; t < 500; t++) s.flip(rng.nextInt(30));
     const fresh = new FlipState(g, s.side);
@@ -103,7 +57,7 @@ describe("FlipState and polishCut", () => {
 
   it("polishCut climbs in place to a 1-flip local optimum", () => {
     const rng = new Rng(4);
-    const g = randomGraph(rng, 40, 0.2);
+    const g = randomGraph(40, 0.2, rng);
     const p = new Uint8Array(40);
     const r = polishCut(g, p);
     expect(r.value).toBe(cutValue(g, p));
@@ -155,7 +109,7 @@ describe("against brute force on random small graphs", () => {
   for (let t = 0; t < 40; t++) {
     const n = 6 + rng.nextInt(11); // 6..16
     const p = 0.2 + 0.6 * rng.nextFloat();
-    graphs.push(t % 2 === 0 ? randomGraph(rng, n, p) : randomGraph(rng, n, p, [-5, 9]));
+    graphs.push(t % 2 === 0 ? randomGraph(n, p, rng) : randomGraph(n, p, rng, { weight: nonzeroInt(-5, 9) }));
   }
   const optima = graphs.map(bruteForceMaxCut);
 
@@ -197,7 +151,7 @@ describe("against brute force on random small graphs", () => {
 });
 
 describe("anytime searchers", () => {
-  const g = randomGraph(new Rng(11), 120, 0.08, [-1, 1]);
+  const g = randomGraph(120, 0.08, new Rng(11), { weight: nonzeroInt(-1, 1) });
 
   it("report improvements through onImprove and keep best() consistent between runs", () => {
     const seen: number[] = [];

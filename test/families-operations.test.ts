@@ -3,7 +3,6 @@
 // nauty (genspecialg, complg, labelg) where it has the same construction.
 import { execFileSync, spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
-import { InputError } from "../src/errors.js";
 import { gnp } from "../src/families/gnp.js";
 import { blowUp, blowupFamily } from "../src/families/operations/blow-up.js";
 import { complement, complementFamily } from "../src/families/operations/complement.js";
@@ -19,17 +18,14 @@ import { encodeGraph6 } from "../src/graph/formats/graph6.js";
 import type { Graph } from "../src/graph/graph.js";
 import { bipartition, connectedComponents, countTriangles } from "../src/graph/structure/index.js";
 import { Rng } from "../src/random/prng.js";
+import { expectInputError } from "./helpers/errors.js";
+import { genspecialLines, labelgLines } from "./helpers/nauty.js";
 
 const has = (tool: string): boolean => spawnSync("which", [tool]).status === 0;
 const haveNauty = has("nauty-labelg") && has("nauty-genspecialg") && has("nauty-complg");
 
-function canonical(graph6: string): string {
-  return execFileSync("nauty-labelg", ["-q", "-g"], { input: graph6.trim() + "\n", encoding: "utf8" }).trim();
-}
-
-function genspecial(...args: string[]): string {
-  return execFileSync("nauty-genspecialg", ["-q", "-g", ...args], { encoding: "utf8" }).trim();
-}
+const canonical = (graph6: string): string => labelgLines([graph6.trim()]).join("\n");
+const genspecial = (...args: string[]): string => genspecialLines(args).join("\n");
 
 function sameGraph(a: Graph, b: Graph): boolean {
   return a.n === b.n && Array.from(a.offsets).join() === Array.from(b.offsets).join() && Array.from(a.neighbors).join() === Array.from(b.neighbors).join();
@@ -40,17 +36,6 @@ const petersenEdges: [number, number][] = [
   [0, 1], [1, 2], [2, 3], [3, 4], [4, 0], [0, 5], [1, 6], [2, 7], [3, 8], [4, 9], [5, 7], [7, 9], [9, 6], [6, 8], [8, 5],
 ];
 const petersen = graphFromEdges(10, petersenEdges);
-
-function expectInputError(f: () => unknown, mentions: string): void {
-  let caught: unknown = null;
-  try {
-    f();
-  } catch (e) {
-    caught = e;
-  }
-  expect(caught).toBeInstanceOf(InputError);
-  expect((caught as Error).message).toContain(mentions);
-}
 
 describe("blow-up", () => {
   it.skipIf(!haveNauty)("of K2 by t is K_{t,t} (nauty genspecialg -b)", () => {

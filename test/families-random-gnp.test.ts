@@ -6,24 +6,19 @@ import { dirname, resolve } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
 import { describe, expect, it } from "vitest";
-import { InputError } from "../src/errors.js";
 import type { Graph } from "../src/graph/graph.js";
 import { bipartiteGnp } from "../src/families/bipartite-gnp.js";
 import { gnm } from "../src/families/gnm.js";
 import { gnp } from "../src/families/gnp.js";
 import { buildFamily, family, familyWithInfo } from "../src/families/registry.js";
 import { Rng } from "../src/random/prng.js";
+import { expectInputError } from "./helpers/errors.js";
+import { chiSquare } from "./helpers/stats.js";
 
 // Upper 0.1% points of the chi-square distribution with k degrees of freedom: NIST/SEMATECH
 // e-Handbook of Statistical Methods, §1.3.6.7.4 (table of upper critical values of the
 // chi-square distribution); the values were recomputed with scipy.stats.chi2.ppf(0.999, k).
 const CHI2_999: Record<number, number> = { 44: 78.75, 63: 103.442 };
-
-function chiSquare(observed: number[], expected: number[]): number {
-  let s = 0;
-  for (let i = 0; i < observed.length; i++) s += (observed[i] - expected[i]) ** 2 / expected[i];
-  return s;
-}
 
 /** Index of a graph on ≤ 6 vertices among all labelled graphs: bit k = pair k in (u, v) order. */
 function labelledIndex(g: Graph): number {
@@ -44,17 +39,6 @@ function bytesOf(a: Int32Array): Buffer {
 
 function sameBytes(a: { n: number; offsets: Int32Array; neighbors: Int32Array }, b: { n: number; offsets: Int32Array; neighbors: Int32Array }): boolean {
   return a.n === b.n && bytesOf(a.offsets).equals(bytesOf(b.offsets)) && bytesOf(a.neighbors).equals(bytesOf(b.neighbors));
-}
-
-function expectInputError(f: () => unknown, mentions: string): void {
-  let caught: unknown = null;
-  try {
-    f();
-  } catch (e) {
-    caught = e;
-  }
-  expect(caught).toBeInstanceOf(InputError);
-  expect((caught as Error).message).toContain(mentions);
 }
 
 describe("G(n, p)", () => {

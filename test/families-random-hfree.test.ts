@@ -3,12 +3,12 @@
 // against the definition of closing K3 / C4; the `edges` limit gives a prefix of the process.
 import { execFileSync, spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
-import { InputError } from "../src/errors.js";
 import { HFREE_PATTERNS, hFreeProcess, type HFreePattern } from "../src/families/hfree-process.js";
 import { buildFamily, family } from "../src/families/registry.js";
 import { graphFromEdges } from "../src/graph/builder.js";
 import type { Graph } from "../src/graph/graph.js";
 import { countFourCycles, countTriangles, findClique, findCycle, findSubgraph, patternGraph } from "../src/graph/structure/index.js";
+import { expectInputError } from "./helpers/errors.js";
 
 /** Does g contain H? The structure module's dedicated search for each pattern. */
 function contains(g: Graph, h: HFreePattern): boolean {
@@ -69,17 +69,6 @@ for case in json.load(sys.stdin):
     out.append({"free": free, "maximal": maximal})
 print(json.dumps(out))
 `;
-
-function expectInputError(f: () => unknown, mentions: string): void {
-  let caught: unknown = null;
-  try {
-    f();
-  } catch (e) {
-    caught = e;
-  }
-  expect(caught).toBeInstanceOf(InputError);
-  expect((caught as Error).message).toContain(mentions);
-}
 
 describe("random H-free process", () => {
   it("gives H-free graphs to which no non-edge can be added (structure checks)", () => {

@@ -3,11 +3,13 @@
 // against nauty's list of cubic graphs weighted by automorphism group sizes.
 import { execFileSync, spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
-import { InputError } from "../src/errors.js";
 import { randomRegular, type RegularMethod } from "../src/families/random-regular.js";
 import { family } from "../src/families/registry.js";
 import { encodeGraph6 } from "../src/graph/formats/graph6.js";
 import type { Graph } from "../src/graph/graph.js";
+import { expectInputError } from "./helpers/errors.js";
+import { gengLines, labelgLines } from "./helpers/nauty.js";
+import { chiSquare } from "./helpers/stats.js";
 
 const has = (tool: string): boolean => spawnSync("which", [tool]).status === 0;
 const haveNauty = has("nauty-geng") && has("nauty-labelg") && has("nauty-countg");
@@ -25,28 +27,6 @@ function regularityDefects(g: Graph, d: number): number {
     }
   }
   return bad;
-}
-
-function chiSquare(observed: number[], expected: number[]): number {
-  let s = 0;
-  for (let i = 0; i < observed.length; i++) s += (observed[i] - expected[i]) ** 2 / expected[i];
-  return s;
-}
-
-function canonical(lines: string[]): string[] {
-  const out = execFileSync("nauty-labelg", ["-q", "-g"], { input: lines.join("\n") + "\n", encoding: "utf8", maxBuffer: 1 << 28 });
-  return out.trim().split("\n");
-}
-
-function expectInputError(f: () => unknown, mentions: string): void {
-  let caught: unknown = null;
-  try {
-    f();
-  } catch (e) {
-    caught = e;
-  }
-  expect(caught).toBeInstanceOf(InputError);
-  expect((caught as Error).message).toContain(mentions);
 }
 
 describe("random regular graphs", () => {
@@ -96,9 +76,9 @@ describe("random regular graphs", () => {
     // same law for 4-regular graphs (geng -d4 -D4 8). Chi-square over the 6 types, 5 df, upper
     // 0.1% point 20.515 (NIST/SEMATECH e-Handbook §1.3.6.7.4; scipy.stats.chi2.ppf(0.999, 5)).
     for (const d of [3, 4]) {
-      const types = execFileSync("nauty-geng", ["-q", `-d${d}`, `-D${d}`, "8"], { encoding: "utf8" }).trim().split("\n");
+      const types = gengLines([`-d${d}`, `-D${d}`, "8"]);
       expect(types.length).toBe(6);
-      const canon = canonical(types);
+      const canon = labelgLines(types);
       const weight = types.map((t) => {
         const out = execFileSync("nauty-countg", ["-q", "--a", "-1"], { input: t + "\n", encoding: "utf8" }).trim();
         return 40320 / Number(out.split(/\s+/)[0]);
@@ -111,7 +91,7 @@ describe("random regular graphs", () => {
         const samples: string[] = [];
         for (let s = 0; s < S; s++) samples.push(encodeGraph6(randomRegular(8, d, seed0 + s, method)));
         const counts = new Map<string, number>();
-        for (const c of canonical(samples)) counts.set(c, (counts.get(c) ?? 0) + 1);
+        for (const c of labelgLines(samples)) counts.set(c, (counts.get(c) ?? 0) + 1);
         expect([...counts.keys()].every((k) => canon.includes(k))).toBe(true);
         const observed = canon.map((c) => counts.get(c) ?? 0);
         const expected = weight.map((w) => (S * w) / total);
@@ -123,10 +103,10 @@ describe("random regular graphs", () => {
   it.skipIf(!haveNauty)("Steger–Wormald reaches every cubic graph type on 8 vertices", () => {
     // Only asymptotically uniform (Steger & Wormald 1999), so only its support is checked here
     // against nauty's list (geng -d3 -D3 8).
-    const types = canonical(execFileSync("nauty-geng", ["-q", "-d3", "-D3", "8"], { encoding: "utf8" }).trim().split("\n"));
+    const types = labelgLines(gengLines(["-d3", "-D3", "8"]));
     const samples: string[] = [];
     for (let s = 0; s < 2000; s++) samples.push(encodeGraph6(randomRegular(8, 3, s, "steger-wormald")));
-    expect(new Set(canonical(samples))).toEqual(new Set(types));
+    expect(new Set(labelgLines(samples))).toEqual(new Set(types));
   });
 
   it("is reproducible and agrees with the spec string", () => {

@@ -22,6 +22,7 @@ import { paleyGraph } from "../src/families/paley.js";
 import { pathGraph } from "../src/families/path.js";
 import { polarityGraph } from "../src/families/polarity.js";
 import { family } from "../src/families/registry.js";
+import { genspecialLines, labelgLines } from "./helpers/nauty.js";
 
 function hasTool(name: string): boolean {
   return spawnSync("which", [name]).status === 0;
@@ -32,18 +33,9 @@ const HAVE_NETWORKX = hasTool("python3") && spawnSync("python3", ["-c", "import 
 
 /** Canonical graph6 of each input line (graph6 or sparse6), via nauty-labelg. */
 function canonical(lines: string[]): string[] {
-  const r = spawnSync("nauty-labelg", ["-q", "-g"], { input: lines.join("\n") + "\n" });
-  if (r.status !== 0) throw new Error(`nauty-labelg failed: ${r.stderr.toString()}`);
-  const out = r.stdout.toString().trim().split("\n");
+  const out = labelgLines(lines);
   expect(out.length).toBe(lines.length);
   return out;
-}
-
-/** One graph per genspecialg switch, e.g. "-P5,2", in graph6. */
-function genspecial(switches: string[]): string[] {
-  const r = spawnSync("nauty-genspecialg", ["-g", "-q", ...switches]);
-  if (r.status !== 0) throw new Error(`nauty-genspecialg failed: ${r.stderr.toString()}`);
-  return r.stdout.toString().trim().split("\n");
 }
 
 /** Pairs [ours, theirs(graph6)] → indices of pairs whose canonical forms differ (empty when all isomorphic). */
@@ -61,19 +53,19 @@ function edgeGraph(n: number, adjacent: (u: number, v: number) => boolean): Grap
 describe.skipIf(!HAVE_NAUTY)("against nauty-genspecialg", () => {
   it("hypercube Q_d equals genspecialg -Q d for d = 1..7", () => {
     const ds = [1, 2, 3, 4, 5, 6, 7];
-    const theirs = genspecial(ds.map((d) => `-Q${d}`));
+    const theirs = genspecialLines(ds.map((d) => `-Q${d}`));
     expect(mismatches(ds.map((d, i) => ({ label: `Q${d}`, ours: hypercubeGraph(d), theirs: theirs[i] })))).toEqual([]);
   });
 
   it("generalized Petersen GP(n,k) equals genspecialg -P n,k", () => {
     const cases = [[3, 1], [4, 1], [5, 1], [5, 2], [7, 2], [7, 3], [8, 3], [10, 2], [10, 3], [12, 5], [13, 5], [24, 5]];
-    const theirs = genspecial(cases.map(([n, k]) => `-P${n},${k}`));
+    const theirs = genspecialLines(cases.map(([n, k]) => `-P${n},${k}`));
     expect(mismatches(cases.map(([n, k], i) => ({ label: `GP(${n},${k})`, ours: generalizedPetersenGraph(n, k), theirs: theirs[i] })))).toEqual([]);
   });
 
   it("Petersen graph, KG(5,2) and the dodecahedron equal genspecialg -P5,2 and -P10,2", () => {
     // The Petersen graph is GP(5,2) and KG(5,2); the dodecahedral graph is GP(10,2) (common knowledge, from memory).
-    const [p52, p102] = genspecial(["-P5,2", "-P10,2"]);
+    const [p52, p102] = genspecialLines(["-P5,2", "-P10,2"]);
     expect(
       mismatches([
         { label: "petersen", ours: petersenGraph(), theirs: p52 },
@@ -85,12 +77,12 @@ describe.skipIf(!HAVE_NAUTY)("against nauty-genspecialg", () => {
 
   it("cycles, paths and complete bipartite graphs equal genspecialg -c, -p and -b", () => {
     const pairs: { label: string; ours: Graph; theirs: string }[] = [];
-    const cyc = genspecial([3, 4, 5, 6, 7, 12, 30].map((n) => `-c${n}`));
+    const cyc = genspecialLines([3, 4, 5, 6, 7, 12, 30].map((n) => `-c${n}`));
     [3, 4, 5, 6, 7, 12, 30].forEach((n, i) => pairs.push({ label: `C${n}`, ours: cycleGraph(n), theirs: cyc[i] }));
-    const pth = genspecial([1, 2, 3, 4, 9].map((n) => `-p${n}`));
+    const pth = genspecialLines([1, 2, 3, 4, 9].map((n) => `-p${n}`));
     [1, 2, 3, 4, 9].forEach((n, i) => pairs.push({ label: `P${n}`, ours: pathGraph(n), theirs: pth[i] }));
     const bip = [[1, 1], [1, 4], [2, 3], [3, 3], [4, 6]];
-    const b = genspecial(bip.map(([x, y]) => `-b${x},${y}`));
+    const b = genspecialLines(bip.map(([x, y]) => `-b${x},${y}`));
     bip.forEach(([x, y], i) => pairs.push({ label: `K${x},${y}`, ours: completeBipartiteGraph(x, y), theirs: b[i] }));
     expect(mismatches(pairs)).toEqual([]);
   });
@@ -99,20 +91,20 @@ describe.skipIf(!HAVE_NAUTY)("against nauty-genspecialg", () => {
     const cases: [number, number[]][] = [[7, [1, 2]], [8, [1, 4]], [10, [1, 5]], [12, [1, 5]], [13, [1, 5]], [13, [1, 3, 4]], [16, [1, 2, 8]], [20, [3, 7, 10]], [11, [1, 10]], [9, [2, 7, 3]]];
     // genspecialg wants connections in 1..n/2: s and n − s give the same edges.
     const folded = (n: number, s: number[]) => [...new Set(s.map((x) => Math.min(x, n - x)))].join(",");
-    const theirs = genspecial(cases.map(([n, s]) => `-C${n},${folded(n, s)}`));
+    const theirs = genspecialLines(cases.map(([n, s]) => `-C${n},${folded(n, s)}`));
     const pairs = cases.flatMap(([n, s], i) => [
       { label: `circulant ${n} ${s}`, ours: circulantGraph(n, s), theirs: theirs[i] },
       { label: `cayley-zn ${n} ${s}`, ours: family(`cayley-zn:n=${n},s=${s.join("+")}`), theirs: theirs[i] },
     ]);
     // And(k) is the circulant on 3k−1 vertices with the residues ≡ 1 (mod 3) (Andrásfai 1964).
     const ks = [2, 3, 4, 5, 6];
-    const and = genspecial(ks.map((k) => `-C${3 * k - 1},${folded(3 * k - 1, Array.from({ length: k }, (_, i) => 3 * i + 1))}`));
+    const and = genspecialLines(ks.map((k) => `-C${3 * k - 1},${folded(3 * k - 1, Array.from({ length: k }, (_, i) => 3 * i + 1))}`));
     ks.forEach((k, i) => pairs.push({ label: `And(${k})`, ours: andrasfaiGraph(k), theirs: and[i] }));
     expect(mismatches(pairs)).toEqual([]);
   });
 
   it("cayley-gf2 with the unit vectors is the hypercube, and C5 = And(2) = mycielski of K2", () => {
-    const [q5, c5] = genspecial(["-Q5", "-c5"]);
+    const [q5, c5] = genspecialLines(["-Q5", "-c5"]);
     expect(
       mismatches([
         { label: "cayley-gf2 units", ours: cayleyGf2Graph(5, [1, 2, 4, 8, 16]), theirs: q5 },

@@ -22,6 +22,7 @@ import {
   writeGset,
 } from "../src/graph/formats/index.js";
 import { Rng } from "../src/random/prng.js";
+import { edgeStrings, randomGraph as gnp } from "./helpers/graphs.js";
 
 const here = dirname(fileURLToPath(import.meta.url));
 const GSET = resolve(here, "..", "..", "shared", "reference", "gset");
@@ -33,17 +34,8 @@ const DIMACS2G = has("nauty-dimacs2g");
 const tmp = mkdtempSync(join(tmpdir(), "halfplus-formats-text-"));
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
 
-function edgesOf(g: Graph): string[] {
-  const { us, vs } = g.edgeArrays();
-  return Array.from(us, (u, i) => `${u}-${vs[i]}`);
-}
-
-function randomGraph(n: number, p: number, seed: number): Graph {
-  const rng = new Rng(seed);
-  const edges: [number, number][] = [];
-  for (let v = 1; v < n; v++) for (let u = 0; u < v; u++) if (rng.nextFloat() < p) edges.push([u, v]);
-  return graphFromEdges(n, edges);
-}
+/** Seeded G(n, p), pairs visited column by column (v outer). */
+const randomGraph = (n: number, p: number, seed: number): Graph => gnp(n, p, seed, { order: "columns" });
 
 /** A deliberately simple reader of `n m` / `u v w` files, independent of the byte scanner. */
 function splitReadGset(text: string) {
@@ -128,7 +120,7 @@ describe("edge lists", () => {
       const { graph } = parseEdgeList(c.text, { base: c.base, source: "nx.edges" });
       const plain = parseGraph6(c.g6);
       expect(graph.n).toBe(plain.n);
-      expect(edgesOf(graph)).toEqual(edgesOf(plain));
+      expect(edgeStrings(graph)).toEqual(edgeStrings(plain));
       let wrong = 0;
       graph.forEachEdge((u, v, w) => {
         if (c.weights[`${u}-${v}`] !== w) wrong++;
@@ -142,9 +134,9 @@ describe("edge lists", () => {
     const a = parseEdgeList("# a comment\n0 1\n\n% another\n1 2  # trailing comment\n2 3\n").graph;
     expect([a.n, a.m]).toEqual([4, 3]);
     const b = parseEdgeList("1 2\n2 3\n", { base: 1 }).graph;
-    expect([b.n, edgesOf(b)]).toEqual([3, ["0-1", "1-2"]]);
+    expect([b.n, edgeStrings(b)]).toEqual([3, ["0-1", "1-2"]]);
     const c = parseEdgeList("# edgelist n=10 m=2 base=1\n1 2\n2 3\n").graph;
-    expect([c.n, edgesOf(c)]).toEqual([10, ["0-1", "1-2"]]);
+    expect([c.n, edgeStrings(c)]).toEqual([10, ["0-1", "1-2"]]);
     const d = parseEdgeList("0 1 1\n1 2 1.0\n").graph;
     expect(d.weighted).toBe(false); // a weight column of all ones is the unweighted graph
     const e = parseEdgeList("0 1 2\n1 2 -0.5\n").graph;
@@ -159,11 +151,11 @@ describe("edge lists", () => {
     for (const base of [0, 1] as const) {
       const back = parseEdgeList(writeEdgeList(g, { base })).graph;
       expect(back.n).toBe(9);
-      expect(edgesOf(back)).toEqual(edgesOf(g));
+      expect(edgeStrings(back)).toEqual(edgeStrings(g));
       expect(Array.from(back.weights!)).toEqual(Array.from(g.weights!));
     }
     const h = randomGraph(50, 0.1, 3);
-    expect(edgesOf(parseEdgeList(writeEdgeList(h)).graph)).toEqual(edgesOf(h));
+    expect(edgeStrings(parseEdgeList(writeEdgeList(h)).graph)).toEqual(edgeStrings(h));
   });
 
   it("read decimal weights exactly as ECMAScript Number() does", () => {
@@ -195,12 +187,12 @@ describe("gset", () => {
     // Format as described in ../shared/reference/gset/README.md: "n m", then m lines "u v w", 1-based.
     const r = parseGset("4 3\n1 2 1\n2 3 -1\n4 1 2.5\n");
     expect(r.graph.n).toBe(4);
-    expect(edgesOf(r.graph)).toEqual(["0-1", "0-3", "1-2"]);
+    expect(edgeStrings(r.graph)).toEqual(["0-1", "0-3", "1-2"]);
     expect(r.graph.edgeWeight(0, 3)).toBe(2.5);
     const g = randomGraph(40, 0.2, 5);
     const back = parseGset(writeGset(g)).graph;
     expect(back.weighted).toBe(false);
-    expect(edgesOf(back)).toEqual(edgesOf(g));
+    expect(edgeStrings(back)).toEqual(edgeStrings(g));
     expect(parseGset("5 0\n").graph.n).toBe(5);
   });
 });
@@ -219,14 +211,14 @@ describe("DIMACS", () => {
       const theirs = parseSparse6(s6);
       const ours = parseDimacs(text, { source: name }).graph;
       expect(ours.n).toBe(theirs.n);
-      expect(edgesOf(ours)).toEqual(edgesOf(theirs));
+      expect(edgeStrings(ours)).toEqual(edgeStrings(theirs));
     }
   });
 
   it("accepts `p col`, comments anywhere and blank lines", () => {
     // DIMACS colouring format ("p col n m" as used by the colouring benchmarks; from memory).
     const g = parseDimacs("c x\np col 4 2\nc mid\ne 1 2\n\ne 4 3\n").graph;
-    expect([g.n, edgesOf(g)]).toEqual([4, ["0-1", "2-3"]]);
+    expect([g.n, edgeStrings(g)]).toEqual([4, ["0-1", "2-3"]]);
     expect(() => writeDimacs(graphFromEdges(2, [[0, 1, 3]]))).toThrow(/weights/);
   });
 });

@@ -18,6 +18,7 @@ import {
 import { gamma, nextUp, UNIT_ROUNDOFF } from "../src/linalg/rounding.js";
 import { Rng } from "../src/random/prng.js";
 import { hasTool } from "./helpers/cli.js";
+import { randomGraph as gnp } from "./helpers/graphs.js";
 
 const hasNumpy = hasTool("python3") && spawnSync("python3", ["-c", "import numpy"]).status === 0;
 
@@ -33,18 +34,12 @@ function randomSymmetric(n: number, rng: Rng): Float64Array {
   return a;
 }
 
-function randomGraph(n: number, p: number, rng: Rng, weights: "none" | "signed" | "real"): Graph {
-  const edges: [number, number, number][] = [];
-  for (let u = 0; u < n; u++) {
-    for (let v = u + 1; v < n; v++) {
-      if (rng.nextFloat() >= p) continue;
-      const w = weights === "none" ? 1 : weights === "signed" ? (rng.nextFloat() < 0.5 ? -1 : 1) : 3 * rng.nextFloat() - 1;
-      edges.push([u, v, w]);
-    }
-  }
-  const g = graphFromEdges(n, weights === "none" ? edges.map(([u, v]) => [u, v] as const) : edges);
-  return g;
-}
+const WEIGHTS = {
+  none: undefined,
+  signed: (rng: Rng) => (rng.nextFloat() < 0.5 ? -1 : 1),
+  real: (rng: Rng) => 3 * rng.nextFloat() - 1,
+};
+const randomGraph = (n: number, p: number, rng: Rng, weights: keyof typeof WEIGHTS): Graph => gnp(n, p, rng, { weight: WEIGHTS[weights] });
 
 /** ‖Au − θu‖ computed here, independently of the solver. */
 function residual(op: SymmetricOperator, u: Float64Array, theta: number): number {

@@ -18,6 +18,7 @@ import { parseGset } from "../src/graph/formats/gset.js";
 import type { Graph } from "../src/graph/graph.js";
 import { Rng } from "../src/random/prng.js";
 import { ensureBuilt, halfplus, hasTool } from "./helpers/cli.js";
+import { complete, cycle, petersen, randomGraph as gnp } from "./helpers/graphs.js";
 
 const REFERENCE = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..", "shared", "reference", "gset");
 const hasGset = existsSync(join(REFERENCE, "sdp-upper-bound.csv"));
@@ -25,31 +26,13 @@ const hasDsdp = hasTool("dsdp5");
 const work = mkdtempSync(join(tmpdir(), "halfplus-sdp-"));
 afterAll(() => rmSync(work, { recursive: true, force: true }));
 
-function cycle(n: number): Graph {
-  return graphFromEdges(n, Array.from({ length: n }, (_, i) => [i, (i + 1) % n] as [number, number]));
-}
-function complete(n: number): Graph {
-  const e: [number, number][] = [];
-  for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) e.push([u, v]);
-  return graphFromEdges(n, e);
-}
-function petersen(): Graph {
-  const e: [number, number][] = [];
-  for (let i = 0; i < 5; i++) e.push([i, (i + 1) % 5], [i, i + 5], [5 + i, 5 + ((i + 2) % 5)]);
-  return graphFromEdges(10, e);
-}
 type WeightKind = "none" | "signed" | "real";
-function randomGraph(n: number, p: number, seed: number, kind: WeightKind): Graph {
-  const rng = new Rng(seed);
-  const e: [number, number, number][] = [];
-  for (let u = 0; u < n; u++) {
-    for (let v = u + 1; v < n; v++) {
-      if (rng.nextFloat() >= p) continue;
-      e.push([u, v, kind === "signed" ? (rng.nextFloat() < 0.5 ? -1 : 1) : kind === "real" ? Math.round((3 * rng.nextFloat() - 1) * 1000) / 1000 : 1]);
-    }
-  }
-  return kind === "none" ? graphFromEdges(n, e.map(([u, v]) => [u, v] as const)) : graphFromEdges(n, e);
-}
+const WEIGHTS: Record<WeightKind, ((rng: Rng) => number) | undefined> = {
+  none: undefined,
+  signed: (rng) => (rng.nextFloat() < 0.5 ? -1 : 1),
+  real: (rng) => Math.round((3 * rng.nextFloat() - 1) * 1000) / 1000,
+};
+const randomGraph = (n: number, p: number, seed: number, kind: WeightKind): Graph => gnp(n, p, seed, { weight: WEIGHTS[kind] });
 /** Max cut by enumeration through cutValue (n ≤ 14). */
 function bruteMaxCut(g: Graph): number {
   const side = new Uint8Array(g.n);

@@ -3,39 +3,11 @@
 import { spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { graphFromEdges } from "../src/graph/builder.js";
-import type { Graph } from "../src/graph/graph.js";
 import { extremeEigenvalues } from "../src/graph/structure/spectrum.js";
-import { Rng } from "../src/random/prng.js";
 import { hasTool } from "./helpers/cli.js";
+import { complete, cycle, petersen, randomBipartite, randomGraph } from "./helpers/graphs.js";
 
 const hasNetworkx = hasTool("python3") && spawnSync("python3", ["-c", "import networkx, numpy, scipy"]).status === 0;
-
-function complete(n: number): Graph {
-  const e: [number, number][] = [];
-  for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) e.push([u, v]);
-  return graphFromEdges(n, e);
-}
-function cycle(n: number): Graph {
-  return graphFromEdges(n, Array.from({ length: n }, (_, i) => [i, (i + 1) % n] as [number, number]));
-}
-function petersen(): Graph {
-  const e: [number, number][] = [];
-  for (let i = 0; i < 5; i++) e.push([i, (i + 1) % 5], [i, i + 5], [5 + i, 5 + ((i + 2) % 5)]);
-  return graphFromEdges(10, e);
-}
-function gnp(n: number, p: number, seed: number): Graph {
-  const rng = new Rng(seed);
-  const e: [number, number][] = [];
-  for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) if (rng.nextFloat() < p) e.push([u, v]);
-  return graphFromEdges(n, e);
-}
-/** Random bipartite graph on parts {0..a−1}, {a..a+b−1}. */
-function randomBipartite(a: number, b: number, p: number, seed: number): Graph {
-  const rng = new Rng(seed);
-  const e: [number, number][] = [];
-  for (let u = 0; u < a; u++) for (let v = a; v < a + b; v++) if (rng.nextFloat() < p) e.push([u, v]);
-  return graphFromEdges(a + b, e);
-}
 
 describe("extremeEigenvalues: standard spectra", () => {
   it("K_n adjacency: n − 1 once and −1 (Brouwer & Haemers, Spectra of Graphs, §1.4.1)", () => {
@@ -112,7 +84,7 @@ describe("options", () => {
 
 describe.skipIf(!hasNetworkx)("against networkx", () => {
   it("Laplacian and adjacency extremes of G(420, 0.03) match nx.laplacian_spectrum / eigvalsh of nx.to_numpy_array", () => {
-    const g = gnp(420, 0.03, 5);
+    const g = randomGraph(420, 0.03, 5);
     const edges: [number, number][] = [];
     g.forEachEdge((u, v) => edges.push([u, v]));
     const script = [

@@ -22,38 +22,14 @@ import {
   symmetryConditions,
 } from "../src/graph/structure/index.js";
 import { Rng } from "../src/random/prng.js";
+import { complete, cycle, petersen, randomGraph } from "./helpers/graphs.js";
 
 // ---- helpers: graphs, witnesses, brute force -------------------------------------------
-
-function randomGraph(rng: Rng, n: number, p: number): Graph {
-  const edges: [number, number][] = [];
-  for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) if (rng.nextFloat() < p) edges.push([u, v]);
-  return graphFromEdges(n, edges);
-}
-
-function complete(n: number): Graph {
-  const e: [number, number][] = [];
-  for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) e.push([u, v]);
-  return graphFromEdges(n, e);
-}
-
-function cycleGraph(n: number): Graph {
-  return graphFromEdges(n, Array.from({ length: n }, (_, i) => [i, (i + 1) % n] as [number, number]));
-}
 
 function completeBipartite(s: number, t: number): Graph {
   const e: [number, number][] = [];
   for (let u = 0; u < s; u++) for (let v = s; v < s + t; v++) e.push([u, v]);
   return graphFromEdges(s + t, e);
-}
-
-/** Petersen graph: outer 5-cycle, spokes, inner pentagram. */
-function petersen(): Graph {
-  const e: [number, number][] = [];
-  for (let i = 0; i < 5; i++) {
-    e.push([i, (i + 1) % 5], [i, i + 5], [i + 5, ((i + 2) % 5) + 5]);
-  }
-  return graphFromEdges(10, e);
 }
 
 function expectCycle(g: Graph, c: readonly number[] | null, k?: number): void {
@@ -245,7 +221,7 @@ describe("complete, complete bipartite and cycle graphs", () => {
   });
   it("C_n and long paths (no recursion limits)", () => {
     for (const n of [3, 4, 5, 9, 1000]) {
-      const g = cycleGraph(n);
+      const g = cycle(n);
       const gi = girth(g);
       expect(gi.girth).toBe(n);
       expectCycle(g, gi.cycle, n);
@@ -285,7 +261,7 @@ describe("random small graphs vs brute force (common practice, no source)", () =
   const graphs: Graph[] = [];
   for (let t = 0; t < 120; t++) {
     const n = 3 + rng.nextInt(7); // 3..9 vertices
-    graphs.push(randomGraph(rng, n, 0.15 + 0.7 * rng.nextFloat()));
+    graphs.push(randomGraph(n, 0.15 + 0.7 * rng.nextFloat(), rng));
   }
 
   it("triangle and 4-cycle counts, per-vertex triangles", () => {
@@ -398,7 +374,7 @@ describe("random small graphs vs brute force (common practice, no source)", () =
     const prng = new Rng(4242);
     for (const g of graphs.filter((h) => h.n <= 7).slice(0, 40)) {
       for (let t = 0; t < 6; t++) {
-        const p = randomGraph(prng, 2 + prng.nextInt(5), 0.2 + 0.6 * prng.nextFloat());
+        const p = randomGraph(2 + prng.nextInt(5), 0.2 + 0.6 * prng.nextFloat(), prng);
         const r = findSubgraph(g, p);
         expect(r.found).toBe(bruteEmbeds(g, p));
         if (r.found) expectEmbedding(g, p, r.embedding);
@@ -433,7 +409,7 @@ describe("larger random graphs: witnesses and consistency", () => {
     const rng = new Rng(7);
     for (let t = 0; t < 6; t++) {
       const n = 200 + rng.nextInt(200);
-      const g = randomGraph(rng, n, (1.5 + rng.nextFloat() * 2) / n);
+      const g = randomGraph(n, (1.5 + rng.nextFloat() * 2) / n, rng);
       const tri = countTriangles(g);
       expect(findClique(g, 3).found).toBe(tri.total > 0);
       expect(findCycle(g, 4).found).toBe(countFourCycles(g).total > 0);
@@ -492,7 +468,7 @@ describe("symmetry conditions used by findSubgraph", () => {
     expect(orbitProduct(petersen())).toBe(120);
     const rng = new Rng(99);
     for (let t = 0; t < 40; t++) {
-      const p = randomGraph(rng, 2 + rng.nextInt(6), rng.nextFloat());
+      const p = randomGraph(2 + rng.nextInt(6), rng.nextFloat(), rng);
       expect(orbitProduct(p)).toBe(bruteAut(p));
     }
   });

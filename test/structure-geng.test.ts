@@ -16,6 +16,7 @@ import {
   findSubgraph,
   patternGraph,
 } from "../src/graph/structure/index.js";
+import { gengLines } from "./helpers/nauty.js";
 
 function has(tool: string): boolean {
   try {
@@ -28,10 +29,7 @@ function has(tool: string): boolean {
 const GENG = "nauty-geng";
 const haveGeng = has(GENG);
 
-function geng(flags: string[], n: number): string[] {
-  const out = execFileSync(GENG, ["-q", ...flags, String(n)], { encoding: "utf8", maxBuffer: 1 << 26 });
-  return out.split("\n").filter((l) => l !== "");
-}
+const geng = (flags: string[], n: number): string[] => gengLines([...flags, String(n)]);
 
 interface Classified {
   line: string;

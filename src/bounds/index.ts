@@ -1,4 +1,4 @@
-// Re-exports of this folder's modules (append one line per module).
+// Closed-form max-cut lower bounds (Edwards, the explicit vector method) and their report.
 export * from "./types.js";
 export * from "./edwards.js";
 export * from "./triangle-free.js";

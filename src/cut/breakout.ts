@@ -7,7 +7,7 @@
 import { invalidParameter } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { Rng } from "../random/prng.js";
-import { checkPartition, cutValue } from "./evaluate.js";
+import { checkPartition } from "./evaluate.js";
 import { FlipState } from "./flip-state.js";
 import { GainBuckets } from "./gain-buckets.js";
 import {
@@ -19,6 +19,7 @@ import {
   type AnytimeOptions,
   type AnytimeSearch,
   type HeuristicBudget,
+  searcherRecord,
 } from "./search-budget.js";
 import type { CutRecord, SolverStatus } from "./types.js";
 
@@ -276,23 +277,14 @@ export class BreakoutSearcher implements AnytimeSearch {
   }
 
   best(): CutRecord {
-    const partition = this.bestSide.slice();
-    return {
-      method: "breakout",
-      value: cutValue(this.graph, partition),
-      partition,
-      status: this.lastStatus,
-      seconds: this.elapsed,
-      seed: this.seed,
-      details: {
-        rounds: this.rounds,
-        moves: this.moveNo,
-        directedJumps: this.directedJumps,
-        randomJumps: this.randomJumps,
-        strongJumps: this.strongJumps,
-        secondsToBest: this.secondsToBest,
-      },
-    };
+    return searcherRecord("breakout", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.seed, {
+      rounds: this.rounds,
+      moves: this.moveNo,
+      directedJumps: this.directedJumps,
+      randomJumps: this.randomJumps,
+      strongJumps: this.strongJumps,
+      secondsToBest: this.secondsToBest,
+    });
   }
 }
 

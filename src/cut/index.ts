@@ -1,3 +1,4 @@
+// Max cut: evaluation, exact search, heuristics, rounding, the SDP bound and its certificate, the bracket.
 export * from "./evaluate.js";
 export * from "./types.js";
 export { exactMaxCut, type ExactMaxCutOptions, type ExactMethod } from "./exact.js";

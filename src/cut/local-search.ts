@@ -3,7 +3,6 @@
 
 import type { Graph } from "../graph/graph.js";
 import { Rng } from "../random/prng.js";
-import { cutValue } from "./evaluate.js";
 import { FlipState } from "./flip-state.js";
 import {
   checkHeuristicBudget,
@@ -13,6 +12,7 @@ import {
   type AnytimeOptions,
   type AnytimeSearch,
   type HeuristicBudget,
+  searcherRecord,
 } from "./search-budget.js";
 import type { CutRecord, SolverStatus } from "./types.js";
 
@@ -76,16 +76,7 @@ export class MultiStartSearcher implements AnytimeSearch {
   }
 
   best(): CutRecord {
-    const partition = this.bestSide.slice();
-    return {
-      method: "local-search",
-      value: cutValue(this.graph, partition),
-      partition,
-      status: this.lastStatus,
-      seconds: this.elapsed,
-      seed: this.seed,
-      details: { starts: this.starts },
-    };
+    return searcherRecord("local-search", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.seed, { starts: this.starts });
   }
 }
 

@@ -5,7 +5,6 @@
 import { invalidParameter } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { Rng } from "../random/prng.js";
-import { cutValue } from "./evaluate.js";
 import { FlipState } from "./flip-state.js";
 import {
   checkHeuristicBudget,
@@ -16,6 +15,7 @@ import {
   type AnytimeOptions,
   type AnytimeSearch,
   type HeuristicBudget,
+  searcherRecord,
 } from "./search-budget.js";
 import type { CutRecord, SolverStatus } from "./types.js";
 
@@ -246,16 +246,7 @@ export class Rank2Searcher implements AnytimeSearch {
   }
 
   best(): CutRecord {
-    const partition = this.bestSide.slice();
-    return {
-      method: "rank2",
-      value: cutValue(this.graph, partition),
-      partition,
-      status: this.lastStatus,
-      seconds: this.elapsed,
-      seed: this.seed,
-      details: { cycles: this.cycles, gradientSteps: this.gradientSteps },
-    };
+    return searcherRecord("rank2", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.seed, { cycles: this.cycles, gradientSteps: this.gradientSteps });
   }
 }
 

@@ -4,6 +4,7 @@
 import { invalidParameter } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { assertSeed } from "../random/prng.js";
+import { cutValue, type Partition } from "./evaluate.js";
 import type { CutRecord, SolverStatus } from "./types.js";
 
 /** How much more work a `run` call may do. Either or both; omitting both means one second. */
@@ -119,4 +120,18 @@ export class RunLimit {
   get status(): SolverStatus {
     return this.timedOut ? "timeout" : "budget";
   }
+}
+
+/** The record an anytime searcher reports: a copy of its best partition, value confirmed by `cutValue`. */
+export function searcherRecord(
+  method: string,
+  graph: Graph,
+  bestSide: Partition,
+  status: SolverStatus,
+  seconds: number,
+  seed: number,
+  details: CutRecord["details"],
+): CutRecord {
+  const partition = bestSide.slice();
+  return { method, value: cutValue(graph, partition), partition, status, seconds, seed, details };
 }

@@ -1,3 +1,4 @@
+// Graph families: spec strings, the registry, and one typed builder per family.
 export * from "./types.js";
 export * from "./spec.js";
 export * from "./registry.js";

@@ -1,4 +1,4 @@
-// Re-exports of this folder's modules (append one line per module).
+// Linear algebra for certified bounds: operators, vector kernels, eigen-solvers, a PSD proof.
 export * from "./rounding.js";
 export * from "./vector.js";
 export * from "./operator.js";

@@ -1,4 +1,4 @@
-// Re-exports of this folder's modules (append one line per module).
+// Graph file formats: graph6, sparse6, edge lists, the benchmark `n m` format, DIMACS; readers and writers.
 export * from "./types.js";
 export * from "./graph-size.js";
 export * from "./graph6.js";

@@ -1,4 +1,4 @@
-// Re-exports of this folder's modules (append one line per module).
+// Structure checks: degrees, components, bipartiteness, degeneracy, counts, subgraph search, spectra.
 export * from "./degrees.js";
 export * from "./components.js";
 export * from "./bipartite.js";
