@@ -59,7 +59,7 @@ describe("halfplus graph", () => {
     }
     const bad = halfplus(["graph", "petersen", "--format", "xml"]);
     expect(bad.code).toBe(2);
-    expect(bad.stderr).toMatch(/--format must be one of/);
+    expect(bad.stderr).toMatch(/^halfplus graph: --format must be one of/);
   });
 
   it("names file and line for a duplicate edge in an edge list", () => {

@@ -45,23 +45,23 @@ export interface CommandIO {
   stdin: NodeJS.ReadableStream;
 }
 
-function parseValue(cmd: string, spec: OptionSpec, raw: string): string | number {
+function parseValue(spec: OptionSpec, raw: string): string | number {
   if (spec.type === "string") {
     if (spec.choices && !spec.choices.includes(raw)) {
-      throw new InputError(`${cmd}: --${spec.name} must be one of ${spec.choices.join(", ")} (got ${JSON.stringify(raw)})`);
+      throw new InputError(`--${spec.name} must be one of ${spec.choices.join(", ")} (got ${JSON.stringify(raw)})`);
     }
     return raw;
   }
   const x = Number(raw);
   if (raw.trim() === "" || !Number.isFinite(x)) {
-    throw new InputError(`${cmd}: --${spec.name} must be a number (got ${JSON.stringify(raw)})`);
+    throw new InputError(`--${spec.name} must be a number (got ${JSON.stringify(raw)})`);
   }
   if (spec.type === "integer" && !Number.isInteger(x)) {
-    throw new InputError(`${cmd}: --${spec.name} must be an integer (got ${JSON.stringify(raw)})`);
+    throw new InputError(`--${spec.name} must be an integer (got ${JSON.stringify(raw)})`);
   }
   if ((spec.min !== undefined && x < spec.min) || (spec.max !== undefined && x > spec.max)) {
     const range = `[${spec.min ?? "-∞"}, ${spec.max ?? "∞"}]`;
-    throw new InputError(`${cmd}: --${spec.name} must lie in ${range} (got ${raw})`);
+    throw new InputError(`--${spec.name} must lie in ${range} (got ${raw})`);
   }
   return x;
 }
@@ -72,7 +72,6 @@ export function parseArgs(cmd: CommandSpec, argv: readonly string[]): ParsedArgs
   const options: ParsedArgs["options"] = {};
   for (const o of cmd.options) options[o.name] = o.default;
   const positionals: string[] = [];
-  const where = `halfplus ${cmd.name}`;
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i];
     if (a === "--") {
@@ -81,11 +80,11 @@ export function parseArgs(cmd: CommandSpec, argv: readonly string[]): ParsedArgs
     }
     if (/^-[A-Za-z]$/.test(a)) {
       const spec = byShort.get(a.slice(1));
-      if (spec === undefined) throw new InputError(`${where}: unknown option ${a} (see halfplus ${cmd.name} --help)`);
+      if (spec === undefined) throw new InputError(`unknown option ${a} (see halfplus ${cmd.name} --help)`);
       if (spec.type === "boolean") options[spec.name] = true;
       else {
-        if (i + 1 >= argv.length) throw new InputError(`${where}: ${a} needs a value`);
-        options[spec.name] = parseValue(where, spec, argv[++i]);
+        if (i + 1 >= argv.length) throw new InputError(`${a} needs a value`);
+        options[spec.name] = parseValue(spec, argv[++i]);
       }
       continue;
     }
@@ -94,34 +93,34 @@ export function parseArgs(cmd: CommandSpec, argv: readonly string[]): ParsedArgs
       const name = eq < 0 ? a.slice(2) : a.slice(2, eq);
       let spec = byName.get(name);
       if (spec === undefined && name.startsWith("no-") && byName.get(name.slice(3))?.type === "boolean") {
-        if (eq >= 0) throw new InputError(`${where}: --${name} takes no value`);
+        if (eq >= 0) throw new InputError(`--${name} takes no value`);
         options[name.slice(3)] = false;
         continue;
       }
       if (spec === undefined) {
-        throw new InputError(`${where}: unknown option --${name} (see halfplus ${cmd.name} --help)`);
+        throw new InputError(`unknown option --${name} (see halfplus ${cmd.name} --help)`);
       }
       if (spec.type === "boolean") {
-        if (eq >= 0) throw new InputError(`${where}: --${name} takes no value`);
+        if (eq >= 0) throw new InputError(`--${name} takes no value`);
         options[name] = true;
         continue;
       }
       let raw: string;
       if (eq >= 0) raw = a.slice(eq + 1);
       else {
-        if (i + 1 >= argv.length) throw new InputError(`${where}: --${name} needs a value`);
+        if (i + 1 >= argv.length) throw new InputError(`--${name} needs a value`);
         raw = argv[++i];
       }
-      options[name] = parseValue(where, spec, raw);
+      options[name] = parseValue(spec, raw);
       continue;
     }
     positionals.push(a);
   }
   if (positionals.length < cmd.minPositionals) {
-    throw new InputError(`${where}: missing ${cmd.positionals} (see halfplus ${cmd.name} --help)`);
+    throw new InputError(`missing ${cmd.positionals} (see halfplus ${cmd.name} --help)`);
   }
   if (positionals.length > cmd.maxPositionals) {
-    throw new InputError(`${where}: too many arguments: ${positionals.slice(cmd.maxPositionals).join(" ")}`);
+    throw new InputError(`too many arguments: ${positionals.slice(cmd.maxPositionals).join(" ")}`);
   }
   return { positionals, options };
 }
