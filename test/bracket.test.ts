@@ -181,3 +181,64 @@ describe("bracket: record and verifier details", () => {
     expect(() => bracket(family("petersen"), { seed: -1 })).toThrow(/seed/);
   });
 });
+
+describe("bracket: review fixes", () => {
+  it("tolerance: a record cannot buy a low upper bound with a large tolerance", () => {
+    // Petersen max cut 12 (from memory; also the exact search). A record claiming upper 11 must fail.
+    const g = family("petersen");
+    const r = roundTrip(bracket(g, { seconds: 2 }));
+    expect(r.certificate.kind).toBe("exhaustive");
+    const bad: BracketRecord = JSON.parse(JSON.stringify(r));
+    bad.upper = 11;
+    bad.surplusUpper = bad.upper - g.totalWeight / 2;
+    bad.certificate.tolerance = 2;
+    expect(failed(g, bad)).not.toEqual([]);
+    const weighted = buildGraph(3, [0, 1, 0], [1, 2, 2], [0.5, 0.5, 0.5]).graph; // triangle: max cut 1 (common practice, no source)
+    const w = roundTrip(bracket(weighted, { seconds: 2 }));
+    expect(verifyBracket(weighted, w).ok).toBe(true);
+    const wb: BracketRecord = JSON.parse(JSON.stringify(w));
+    wb.upper = 0.9;
+    wb.surplusUpper = wb.upper - weighted.totalWeight / 2;
+    wb.certificate.tolerance = 1;
+    expect(failed(weighted, wb)).not.toEqual([]);
+  });
+
+  it("ten triangles of weight 0.001: the closed bracket of a disconnected graph verifies", () => {
+    // Max cut of a triangle is 2 of its 3 edges (common practice, no source): 10 × 0.002.
+    const us: number[] = [], vs: number[] = [], ws: number[] = [];
+    for (let i = 0; i < 10; i++) {
+      const a = 3 * i;
+      us.push(a, a + 1, a);
+      vs.push(a + 1, a + 2, a + 2);
+      ws.push(0.001, 0.001, 0.001);
+    }
+    const g = buildGraph(30, us, vs, ws).graph;
+    const r = roundTrip(bracket(g, { seconds: 2 }));
+    expect(r.exact).toBe(true);
+    expect(r.lower).toBeCloseTo(0.02, 12);
+    const verdict = verifyBracket(g, r);
+    expect(verdict.checks.filter((c) => !c.ok)).toEqual([]);
+  });
+
+  it("an unproven bound never closes the bracket: K_400 with a Lanczos eigenvalue bound", () => {
+    // Max cut of K_n, n even, is n²/4 (common practice, no source). With 0.5 s the eigenvalue
+    // bound is a Lanczos estimate (the dense proof does not fit 5 % of the budget).
+    const g = family("complete:n=400");
+    const r = bracket(g, { method: "quick", seconds: 0.5 });
+    expect(r.lower).toBeLessThanOrEqual(40000);
+    expect(r.upper).toBeGreaterThanOrEqual(r.lower);
+    if (r.exact) expect(r.upperProven).toBe(true);
+    expect(verifyBracket(g, roundTrip(r)).ok).toBe(true);
+  });
+
+  it("unproven: verify rejects an exact claim resting on an estimated shift", () => {
+    const g = family("petersen");
+    const r = roundTrip(bracket(g, { method: "heuristic", seconds: 2 }));
+    expect(r.certificate.kind).toBe("psd-dual");
+    expect(r.exact).toBe(true);
+    const bad: BracketRecord = JSON.parse(JSON.stringify(r));
+    if (bad.certificate.kind === "psd-dual") bad.certificate.shiftMethod = "lanczos-ritz-residual";
+    bad.upperProven = false;
+    expect(failed(g, bad)).toContain("proof");
+  });
+});

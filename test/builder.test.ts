@@ -62,6 +62,8 @@ describe("CSR builder", () => {
     expect(() => graphFromEdges(3, [[0, 3]])).toThrow(/out of range/);
     expect(() => graphFromEdges(3, [[0, 1.5]])).toThrow(/integers/);
     expect(() => buildGraph(3, [0], [1], [NaN])).toThrow(/finite/);
+    // Refused before allocating (2·10^9 vertices would need tens of GB): common practice, no source.
+    expect(() => buildGraph(2_000_000_000, [0], [1])).toThrow(/at most 1e\+8 vertices/);
   });
 
   it("merges duplicates and drops loops only when asked, and reports how many", () => {

@@ -131,3 +131,23 @@ describe("halfplus verify", () => {
     }
   });
 });
+
+describe("halfplus verify: malformed `source`", () => {
+  it("a record without a usable `source` field is bad input (exit 2, one line), not an internal error", () => {
+    const r = halfplus(["cut", "petersen", "--json"]);
+    expect(r.code).toBe(0);
+    const rec = JSON.parse(r.stdout);
+    const noSource = { ...rec };
+    delete noSource.source;
+    for (const [name, bad] of [["missing", noSource], ["number", { ...rec, source: 5 }]] as const) {
+      const f = join(dir, `source-${name}.json`);
+      writeFileSync(f, JSON.stringify(bad) + "\n");
+      for (const args of [["verify", f], ["verify", f, "--graph", "petersen"]]) {
+        const v = halfplus(args);
+        expect(v.code, `${name}: ${args.join(" ")}`).toBe(2);
+        expect(v.stderr.trim().split("\n"), name).toHaveLength(1);
+        expect(v.stderr).toMatch(/source/);
+      }
+    }
+  });
+});

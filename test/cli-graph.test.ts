@@ -1,9 +1,9 @@
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
+import { closeSync, mkdtempSync, openSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
-import { ensureBuilt, halfplus, hasTool } from "./helpers/cli.js";
+import { BIN, ensureBuilt, halfplus, hasTool } from "./helpers/cli.js";
 
 beforeAll(ensureBuilt);
 
@@ -62,6 +62,20 @@ describe("halfplus graph", () => {
     expect(bad.stderr).toMatch(/^halfplus graph: --format must be one of/);
   });
 
+  it("refuses a header vertex count too large to hold, and a non-decimal spec number, in one line", () => {
+    const dir = mkdtempSync(join(tmpdir(), "halfplus-cli-"));
+    const f = join(dir, "huge.txt");
+    writeFileSync(f, "2000000000 1\n1 2 1\n");
+    const r = halfplus(["graph", f, "--format", "gset"]);
+    expect(r.code).toBe(2);
+    expect(r.stderr.trim().split("\n")).toHaveLength(1);
+    expect(r.stderr).toContain(`${f}: vertex count n = 2000000000`);
+    expect(r.stderr).toMatch(/at most 1e\+8 vertices/);
+    const hex = halfplus(["graph", "kneser:n=8,k=0x3"]);
+    expect(hex.code).toBe(2);
+    expect(hex.stderr).toMatch(/invalid `k`: should be a number/);
+  });
+
   it("names file and line for a duplicate edge in an edge list", () => {
     const dir = mkdtempSync(join(tmpdir(), "halfplus-cli-"));
     const f = join(dir, "dup.edges");
@@ -74,5 +88,20 @@ describe("halfplus graph", () => {
     expect(merged.code).toBe(0);
     expect(JSON.parse(merged.stdout).m).toBe(2);
     expect(JSON.parse(merged.stdout).notes).toEqual(["merged 1 duplicate edge(s)"]);
+  });
+  it("refuses a directory on standard input instead of reading it as zero graphs", () => {
+    // Node hands a directory on fd 0 over as an empty stream (common practice, no source):
+    // without the check `halfplus graph - < dir` printed nothing and exited 0.
+    const dir = mkdtempSync(join(tmpdir(), "halfplus-stdin-dir-"));
+    const fd = openSync(dir, "r");
+    try {
+      const r = spawnSync(process.execPath, [BIN, "graph", "-"], { stdio: [fd, "pipe", "pipe"], timeout: 60_000 });
+      expect(r.status).toBe(2);
+      const err = r.stderr.toString();
+      expect(err.trim().split("\n")).toHaveLength(1);
+      expect(err).toMatch(/^halfplus graph: stdin: is a directory/);
+    } finally {
+      closeSync(fd);
+    }
   });
 });

@@ -8,7 +8,8 @@ import type { Graph } from "../graph/graph.js";
 import type { BracketCertificate, BracketRecord } from "./bracket.js";
 import { verifyCertificate } from "./certificate.js";
 import { cutValue } from "./evaluate.js";
-import { integerWeights, positiveWeightSum } from "./exact-common.js";
+import { connectedComponents } from "../graph/structure/components.js";
+import { improvementMargin, integerWeights, positiveWeightSum } from "./exact-common.js";
 import { exactMaxCut } from "./exact.js";
 
 /** Format tag written into every bracket record, so verify can refuse other JSON. */
@@ -89,6 +90,8 @@ export function parseBracketRecord(value: unknown, where: string): BracketRecord
   if (typeof r.upperProven !== "boolean") bad("field `upperProven` should be true or false");
   if (typeof r.graphHash !== "string") bad("field `graphHash` should be a string");
   if (!Array.isArray(r.partition)) bad("field `partition` should be an array of 0/1");
+  // Missing or non-object `source` used to crash verify with a TypeError (test/cli-cut.test.ts "malformed `source`").
+  if (r.source !== null && (typeof r.source !== "object" || Array.isArray(r.source))) bad("field `source` should be an object or null");
   const c = r.certificate as Record<string, unknown> | undefined;
   if (typeof c !== "object" || c === null) bad("field `certificate` should be an object");
   const kind = c!.kind;
@@ -108,6 +111,16 @@ function applyRounding(graph: Graph, cert: BracketCertificate, bound: number): {
   if (!cert.floored) return { bound, problem: null };
   if (!integerWeights(graph)) return { bound, problem: "certificate rounds down to an integer but the graph has non-integer weights" };
   return { bound: Math.floor(bound + 1e-9), problem: null };
+}
+
+/**
+ * The largest tolerance an honest record can carry: 0 for integer weights; otherwise the exact
+ * search's slack, at most one margin per component, which is ≤ (components + 1) × the whole
+ * graph's margin (each component margin is max(1e-12, 1e-11·Σ|w| of the component)).
+ */
+function toleranceLimit(graph: Graph): number {
+  if (integerWeights(graph)) return 0;
+  return (connectedComponents(graph).count + 1) * improvementMargin(graph);
 }
 
 /** Every check of a record against its graph. `ok` is true only when all pass. */
@@ -134,7 +147,12 @@ export function verifyBracket(graph: Graph, record: BracketRecord, options: Brac
 
   // Upper bound: re-derived from the certificate alone.
   const cert = record.certificate;
-  const tol = cert.tolerance;
+  // The tolerance is the record's claim, so it is bounded from the graph before any check uses it
+  // (a large tolerance used to let `upper` sit below the max cut; test/bracket.test.ts "tolerance").
+  const tolLimit = toleranceLimit(graph);
+  const tolOk = cert.tolerance >= 0 && cert.tolerance <= tolLimit;
+  if (!tolOk) add("tolerance", false, `certificate tolerance ${cert.tolerance} is outside [0, ${tolLimit}] for this graph`);
+  const tol = tolOk ? cert.tolerance : 0;
   switch (cert.kind) {
     case "psd-dual": {
       if (cert.y.length !== graph.n || !cert.y.every(isNumber)) {
@@ -148,6 +166,8 @@ export function verifyBracket(graph: Graph, record: BracketRecord, options: Brac
       }
       const r = applyRounding(graph, cert, v.value);
       if (record.upperProven && !v.proven) add("proof", false, `record claims a proven bound but shift method ${cert.shiftMethod} is an estimate`);
+      // `exact` claims a proof: an estimated shift cannot close the bracket (test/bracket.test.ts "unproven").
+      if (record.exact && !v.proven) add("proof", false, `record claims exact but shift method ${cert.shiftMethod} is an estimate, not a proof`);
       if (r.problem !== null) add("upper", false, r.problem);
       else add("upper", r.bound <= record.upper, `dual certificate (${cert.shiftMethod}${v.proven ? "" : ": an estimate, not a proof"}) gives max cut ≤ ${r.bound}${r.bound <= record.upper ? "" : `, more than the claimed upper ${record.upper}`}`);
       break;

@@ -2,6 +2,7 @@
 // allocating, a graph that would not fit in memory.
 
 import { InputError } from "../errors.js";
+import { MAX_VERTICES } from "../graph/builder.js";
 
 /**
  * Above this many edges building would need more than about 14 GB (two Int32 endpoint arrays,
@@ -9,8 +10,8 @@ import { InputError } from "../errors.js";
  * q ≤ 1000 (ER_997 has 4.97·10^8 edges).
  */
 export const MAX_FAMILY_EDGES = 520_000_000;
-/** Above this many vertices per-vertex arrays alone would take GBs. */
-export const MAX_FAMILY_VERTICES = 100_000_000;
+/** Above this many vertices per-vertex arrays alone would take GBs (the builder's own limit). */
+export const MAX_FAMILY_VERTICES = MAX_VERTICES;
 
 /** Refuse a graph of about `m` edges (and `n` vertices, when known) that would not fit in memory. */
 export function checkEdgeLimit(owner: string, m: number, n = 0): void {

@@ -10,6 +10,7 @@ export interface RawSpec {
 }
 
 const NAME_RE = /^[a-z][a-z0-9-]*$/;
+const DECIMAL_RE = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
 /** Does this look like a family spec (as opposed to a file path)? */
 export function looksLikeSpec(s: string): boolean {
@@ -96,9 +97,9 @@ function convert(owner: string, p: ParamSpec, raw: string): ParamValue {
       return out;
     }
     default: {
-      const x = Number(raw);
-      if (raw === "" || !Number.isFinite(x)) throw invalidParameter(owner, p.name, "should be a number", raw);
-      return x;
+      // Plain decimal notation only: Number() would also take "0x3" or "" without a word.
+      if (!DECIMAL_RE.test(raw)) throw invalidParameter(owner, p.name, "should be a number", raw);
+      return Number(raw);
     }
   }
 }

@@ -5,6 +5,9 @@
 import { InputError } from "../errors.js";
 import { Graph } from "./graph.js";
 
+/** Largest vertex count a Graph may have: per-vertex Int32 arrays stay well under a few GB. */
+export const MAX_VERTICES = 100_000_000;
+
 export interface BuildOptions {
   /** What to do with a repeated edge: "error" (default) or "merge" (weights add up; unweighted keeps one copy). */
   duplicates?: "error" | "merge";
@@ -51,8 +54,12 @@ export function buildGraph(
   const describe = options.describeEdge ?? ((i: number) => `edge #${i}`);
   const loops = options.loops ?? "error";
   const dups = options.duplicates ?? "error";
-  if (!Number.isInteger(n) || n < 0 || n > 0x7fffffff) {
-    throw new InputError(`invalid vertex count n = ${n}: must be a non-negative integer below 2^31`);
+  if (!Number.isInteger(n) || n < 0) {
+    throw new InputError(`invalid vertex count n = ${n}: must be a non-negative integer`);
+  }
+  if (n > MAX_VERTICES) {
+    // Per-vertex arrays alone would take tens of GB; refuse before allocating rather than be killed.
+    throw new InputError(`vertex count n = ${n} is more than this machine's graphs can hold (at most ${MAX_VERTICES.toExponential(0)} vertices)`);
   }
   const count = us.length;
   if (vs.length !== count || (weights !== null && weights.length !== count)) {

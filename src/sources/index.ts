@@ -3,7 +3,7 @@
 // such as `polarity:q=13`. Resolution order: "-" → stdin; an existing path → file;
 // a known family name → family; anything else is an error naming the argument.
 
-import { existsSync, statSync } from "node:fs";
+import { existsSync, fstatSync, statSync } from "node:fs";
 import { InputError } from "../errors.js";
 import type { BuildOptions } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
@@ -53,6 +53,14 @@ function classify(arg: string): Kind {
   throw new InputError(`${arg}: no such file`);
 }
 
+function stdinIsDirectory(): boolean {
+  try {
+    return fstatSync(0).isDirectory();
+  } catch {
+    return false; // no usable fd 0 (e.g. closed): the reader reports what it finds
+  }
+}
+
 /** Every graph the argument denotes, lazily (a graph6 stream is read one line at a time). */
 export async function* openSource(arg: string, options: OpenSourceOptions = {}): AsyncGenerator<SourcedGraph> {
   const kind = classify(arg);
@@ -63,7 +71,13 @@ export async function* openSource(arg: string, options: OpenSourceOptions = {}):
     return;
   }
   const readOptions = { format: options.format, base: options.base, build: options.build };
-  const input = kind === "stdin" ? { stream: options.stdin ?? process.stdin, name: "stdin" } : { path: arg };
+  const stdin = options.stdin ?? process.stdin;
+  // Node reads a directory on fd 0 (`halfplus graph - < dir`) as an empty stream, which would
+  // pass for "no graphs"; refuse it like a directory path.
+  if (kind === "stdin" && stdin === process.stdin && stdinIsDirectory()) {
+    throw new InputError("stdin: is a directory, expected graph data");
+  }
+  const input = kind === "stdin" ? { stream: stdin, name: "stdin" } : { path: arg };
   let count = 0;
   for await (const loaded of readGraphs(input, readOptions)) {
     const notes: string[] = [];

@@ -107,7 +107,12 @@ export function formatFamilyReport(r: FamilyReport, detailed: boolean): string {
       for (const f of free) lines.push(`    ${f.pattern}  (${f.source})`);
     } else lines.push(`  proven free of: ${free.map((f) => f.pattern).join(", ")}`);
   } else if (r.problem !== null) {
-    lines.push(`  size: depends on the parameters without defaults (${r.problem})`);
+    const required = r.params.filter((p) => p.default === null).map((p) => p.name);
+    lines.push(
+      required.length > 0
+        ? `  size: set ${required.join(", ")} to see it, e.g. halfplus families ${r.name}:${required.map((k) => `${k}=…`).join(",")}`
+        : `  size: ${r.problem}`,
+    );
   }
   if (detailed && r.notes !== null) lines.push(`  notes: ${r.notes}`);
   if (detailed && r.evaluatedAt !== null) lines.push(`  try: halfplus graph ${r.evaluatedAt}`);

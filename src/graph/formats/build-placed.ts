@@ -19,6 +19,8 @@ export function buildPlaced(edges: EdgeBuffer, n: number, source: string, fileBa
     if (fileBase === 1 && e instanceof GraphBuildError) {
       throw new InputError(`${e.message} (vertex ids counted from 0; the file counts from 1)`);
     }
+    // Errors about the graph as a whole (its vertex count) still name the file.
+    if (e instanceof InputError && !(e instanceof GraphBuildError)) throw new InputError(`${source}: ${e.message}`);
     throw e;
   }
   return dropUnitWeights(result);
