@@ -78,6 +78,14 @@ export class FlipState {
     }
   }
 
+  /** Climb from `side` and write the local optimum back into it; returns its cut value. */
+  polishInPlace(side: Uint8Array): number {
+    this.load(side);
+    this.climb();
+    side.set(this.side);
+    return this.value;
+  }
+
   /**
    * Climb to a 1-flip local optimum (no gain above `tolerance`), first-improvement from a
    * work list of candidates; only neighbours of a flipped vertex can become improving.

@@ -100,10 +100,7 @@ export function hyperplaneRound(graph: Graph, vectors: Float64Array, r: number, 
     if (raw > bestRaw) bestRaw = raw;
     let value = raw;
     if (state !== null) {
-      state.load(side);
-      state.climb();
-      side.set(state.side);
-      value = state.value;
+      value = state.polishInPlace(side);
       sumPolished += value;
     }
     if (value > best) {

@@ -99,10 +99,7 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
     if (raw > bestRaw) bestRaw = raw;
     let value = raw;
     if (state !== null) {
-      state.load(side);
-      state.climb();
-      side.set(state.side);
-      value = state.value;
+      value = state.polishInPlace(side);
     }
     if (value > best) {
       best = value;
