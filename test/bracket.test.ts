@@ -242,3 +242,26 @@ describe("bracket: review fixes", () => {
     expect(failed(g, bad)).toContain("proof");
   });
 });
+
+describe("bracket: a stopped exact search is re-proven by verify", () => {
+  it("a search-bound record (bound rounded down, integer weights) verifies with a larger budget", () => {
+    // Oracle: verify's own exact search from the record's partition (common practice, no source).
+    const g = family("gnp:n=70,p=0.3,seed=1");
+    const base = bracket(g, { method: "heuristic", seconds: 0.5, seed: 3 });
+    const stopped = exactMaxCut(g, { seconds: 0.5, seed: 3, initial: base.partition });
+    expect(stopped.status).toBe("timeout");
+    const upper = Math.floor(stopped.upper + 1e-9);
+    const W = g.totalWeight;
+    const record: BracketRecord = {
+      ...base,
+      upper,
+      surplusUpper: upper - W / 2,
+      exact: false,
+      upperProven: true,
+      upperMethod: stopped.method,
+      certificate: { kind: "search-bound", search: stopped.method, nodes: stopped.nodes, floored: true, tolerance: 0 },
+    };
+    const v = verifyBracket(g, roundTrip(record), { seconds: 5 });
+    expect(v.checks.filter((c) => !c.ok)).toEqual([]);
+  });
+});
