@@ -26,7 +26,10 @@ import type { CutRecord, SolverStatus } from "./types.js";
 const OWNER = "breakout search";
 
 export interface BreakoutOptions extends AnytimeOptions {
-  /** Jump length after reaching a new local optimum (default max(1, round(n/160))). */
+  /**
+   * Jump length after reaching a new local optimum (default max(1, round(n/80)); measured on G1, G14,
+   * G22, G43 at 10 s, seeds 1–3: n/160 left G22 at 99.798% of best-known on two seeds, n/80 ≥ 99.845% on all).
+   */
   jumpMin?: number;
   /** Longest jump, also the length of the strong jump on stagnation (default max(jumpMin, round(n/10), min(⌊n/2⌋, 8))). */
   jumpMax?: number;
@@ -94,7 +97,7 @@ export class BreakoutSearcher implements AnytimeSearch {
     this.graph = graph;
     this.seed = checkSeed(OWNER, options.seed);
     this.rng = new Rng(this.seed);
-    this.jumpMin = intOption("jumpMin", options.jumpMin, Math.max(1, Math.round(n / 160)), 1, Math.max(1, n));
+    this.jumpMin = intOption("jumpMin", options.jumpMin, Math.max(1, Math.round(n / 80)), 1, Math.max(1, n));
     // n/10 as in the published method; small graphs need a floor, or a jump of one move is
     // simply undone by the next ascent.
     const floor = Math.min(n >> 1, 8);
