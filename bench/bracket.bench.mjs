@@ -5,8 +5,8 @@ import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { family } from "../dist/families/registry.js";
 import { parseGset } from "../dist/graph/formats/gset.js";
-import { bracket } from "../dist/cut/bracket.js";
-import { verifyBracket } from "../dist/cut/verify.js";
+import { bracket } from "../dist/cut/bracket/bracket.js";
+import { verifyBracket } from "../dist/cut/bracket/verify.js";
 import { SHARED_REFERENCE, hasShared, readGsetTable, report } from "./util.mjs";
 
 const args = process.argv.slice(2);

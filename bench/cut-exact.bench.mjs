@@ -2,9 +2,9 @@
 // dense n = 35 random graphs (target < 60 s each), plus a few harder instances for context.
 import { family } from "../dist/families/registry.js";
 import { randomRegularFamily } from "../dist/families/random-regular.js";
-import { grayCodeMaxCut } from "../dist/cut/exact-gray.js";
-import { branchAndBoundMaxCut } from "../dist/cut/exact-bnb.js";
-import { exactMaxCut } from "../dist/cut/exact.js";
+import { grayCodeMaxCut } from "../dist/cut/exact/gray-code.js";
+import { branchAndBoundMaxCut } from "../dist/cut/exact/branch-and-bound.js";
+import { exactMaxCut } from "../dist/cut/exact/exact-max-cut.js";
 import { report, timeBest } from "./util.mjs";
 
 const TARGET_S = 60;

@@ -10,11 +10,11 @@ import { join } from "node:path";
 import { buildGraph } from "../dist/graph/builder.js";
 import { parseGset } from "../dist/graph/formats/gset.js";
 import { Rng } from "../dist/random/prng.js";
-import { BreakoutSearcher } from "../dist/cut/breakout.js";
-import { Rank2Searcher } from "../dist/cut/rank2.js";
-import { MultiStartSearcher } from "../dist/cut/local-search.js";
-import { vectorMethodRound, vectorMethodExpectedCut } from "../dist/cut/vector-method.js";
-import { vectorMethodGuarantee } from "../dist/bounds/vector-method.js";
+import { BreakoutSearcher } from "../dist/cut/heuristic/breakout.js";
+import { Rank2Searcher } from "../dist/cut/heuristic/rank2.js";
+import { MultiStartSearcher } from "../dist/cut/heuristic/local-search.js";
+import { vectorMethodRound, vectorMethodExpectedCut } from "../dist/cut/heuristic/vector-rounding.js";
+import { vectorMethodGuarantee } from "../dist/bounds/vector-guarantee.js";
 import { SHARED_REFERENCE, hasShared, randomDistinctPairs, readGsetTable, report, timeBest } from "./util.mjs";
 
 const argv = process.argv.slice(2);

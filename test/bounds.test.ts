@@ -7,7 +7,7 @@ import type { Graph } from "../src/graph/graph.js";
 import { parseGraph6 } from "../src/graph/formats/graph6.js";
 import { edwardsEdgeBound, edwardsVertexBound } from "../src/bounds/edwards.js";
 import { triangleFreeBound } from "../src/bounds/triangle-free.js";
-import { vectorMethodGuarantee } from "../src/bounds/vector-method.js";
+import { vectorMethodGuarantee } from "../src/bounds/vector-guarantee.js";
 import { lowerBoundReport, lowerBounds } from "../src/bounds/report.js";
 import { bruteForceMaxCut } from "./helpers/maxcut.js";
 import { gengLines } from "./helpers/nauty.js";

@@ -4,8 +4,8 @@
 import { spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { parseGraph6 } from "../src/graph/formats/graph6.js";
-import { exactMaxCut } from "../src/cut/exact.js";
-import { cutValue } from "../src/cut/evaluate.js";
+import { exactMaxCut } from "../src/cut/exact/exact-max-cut.js";
+import { cutValue } from "../src/graph/cut-value.js";
 import { edwardsEdgeBound, edwardsVertexBound } from "../src/bounds/edwards.js";
 import { gengLines } from "./helpers/nauty.js";
 

@@ -5,8 +5,8 @@ import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { parseGset } from "../src/graph/formats/gset.js";
-import { cutValue } from "../src/cut/evaluate.js";
-import { breakoutSearch } from "../src/cut/breakout.js";
+import { cutValue } from "../src/graph/cut-value.js";
+import { breakoutSearch } from "../src/cut/heuristic/breakout.js";
 
 const GSET = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..", "shared", "reference", "gset");
 const present = existsSync(join(GSET, "best-known.csv"));

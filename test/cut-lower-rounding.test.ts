@@ -5,11 +5,11 @@ import { describe, expect, it } from "vitest";
 import { graphFromEdges } from "../src/graph/builder.js";
 import type { Graph } from "../src/graph/graph.js";
 import { Rng } from "../src/random/prng.js";
-import { cutValue } from "../src/cut/evaluate.js";
-import { hyperplaneExpectedCut, hyperplaneRound } from "../src/cut/rounding.js";
-import { vectorMethodCosine, vectorMethodExpectedCut, vectorMethodRound } from "../src/cut/vector-method.js";
+import { cutValue } from "../src/graph/cut-value.js";
+import { hyperplaneExpectedCut, hyperplaneRound } from "../src/cut/heuristic/hyperplane-rounding.js";
+import { vectorMethodCosine, vectorMethodExpectedCut, vectorMethodRound } from "../src/cut/heuristic/vector-rounding.js";
 import { resolveVectorSets } from "../src/bounds/vector-sets.js";
-import { vectorMethodGuarantee } from "../src/bounds/vector-method.js";
+import { vectorMethodGuarantee } from "../src/bounds/vector-guarantee.js";
 import { InputError } from "../src/errors.js";
 import { complete, cycle, hypercube, petersen, randomBipartite, randomEdges } from "./helpers/graphs.js";
 

@@ -32,7 +32,7 @@ import { pg2Coordinates } from "../src/families/pg2.js";
 import { polarityGraphWithLoops } from "../src/families/polarity.js";
 import { projectivePlaneIncidenceGraph } from "../src/families/projective-plane.js";
 import { buildFamily, family, familyWithInfo } from "../src/families/registry.js";
-import { srgParameters } from "../src/families/srg.js";
+import { srgParameters } from "../src/graph/structure/strongly-regular.js";
 
 function binom(a: number, b: number): number {
   if (b < 0 || b > a) return 0;

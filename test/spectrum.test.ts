@@ -3,7 +3,7 @@
 import { spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { graphFromEdges } from "../src/graph/builder.js";
-import { extremeEigenvalues } from "../src/graph/structure/spectrum.js";
+import { extremeEigenvalues } from "../src/linalg/spectrum.js";
 import { hasTool } from "./helpers/cli.js";
 import { complete, cycle, petersen, randomBipartite, randomGraph } from "./helpers/graphs.js";
 

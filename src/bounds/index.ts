@@ -3,5 +3,5 @@ export * from "./types.js";
 export * from "./edwards.js";
 export * from "./triangle-free.js";
 export { resolveVectorSets, type VectorSetOptions, type VectorSets } from "./vector-sets.js";
-export * from "./vector-method.js";
+export * from "./vector-guarantee.js";
 export * from "./report.js";

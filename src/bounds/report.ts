@@ -1,13 +1,12 @@
 // Every closed-form lower bound for a graph side by side, with how far each sits below the best
 // cut found: the gap in surplus terms, absolute and relative to the best surplus.
 
-import type { CutRecord } from "../cut/types.js";
-import { surplusOf } from "../cut/evaluate.js";
+import { surplusOf } from "../graph/cut-value.js";
 import type { Graph } from "../graph/graph.js";
 import { edwardsEdgeBound, edwardsVertexBound } from "./edwards.js";
 import { triangleFreeBound } from "./triangle-free.js";
 import type { LowerBoundRecord } from "./types.js";
-import { vectorMethodGuarantee } from "./vector-method.js";
+import { vectorMethodGuarantee } from "./vector-guarantee.js";
 
 export interface LowerBoundRow extends LowerBoundRecord {
   /** bestSurplus − surplus, or null when the bound does not apply. */
@@ -30,8 +29,8 @@ export function lowerBounds(graph: Graph): LowerBoundRecord[] {
   return [edwardsEdgeBound(graph), edwardsVertexBound(graph), triangleFreeBound(graph), vector];
 }
 
-/** `bestCut` is a cut value or a record (its `value` is used). */
-export function lowerBoundReport(graph: Graph, bestCut: number | CutRecord): LowerBoundReport {
+/** `bestCut` is a cut value or anything carrying one as `value` (a cut record, a bracket's lower end). */
+export function lowerBoundReport(graph: Graph, bestCut: number | { value: number }): LowerBoundReport {
   const best = typeof bestCut === "number" ? bestCut : bestCut.value;
   const bestSurplus = surplusOf(graph, best);
   const rows = lowerBounds(graph).map((b): LowerBoundRow => {

@@ -3,7 +3,7 @@
 
 import type { Graph } from "../graph/graph.js";
 import { boundDoesNotApply, type LowerBoundRecord } from "./types.js";
-import { vectorMethodGuarantee } from "./vector-method.js";
+import { vectorMethodGuarantee } from "./vector-guarantee.js";
 
 export function triangleFreeBound(graph: Graph): LowerBoundRecord {
   const name = "triangle-free";

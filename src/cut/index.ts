@@ -1,21 +1,7 @@
-// Max cut: evaluation, exact search, heuristics, rounding, the SDP bound and its certificate, the bracket.
-export * from "./evaluate.js";
+// Max cut, one sub-folder per job: exact search, heuristic search, the relaxation and its
+// certificates, and the bracket that combines them into one checkable record.
 export * from "./types.js";
-export { exactMaxCut, type ExactMaxCutOptions, type ExactMethod } from "./exact.js";
-export { grayCodeMaxCut, GRAY_MAX_VERTICES, type GrayOptions } from "./exact-gray.js";
-export { branchAndBoundMaxCut, type BranchAndBoundOptions, type BranchOrder } from "./exact-bnb.js";
-export { CutBlock, type ExactCutRecord, type ExactOptions } from "./exact-common.js";
-export * from "./bracket.js";
-export { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, graphHash, parseBracketRecord, verifyBracket, type BracketCheck, type BracketVerdict, type BracketVerifyOptions } from "./verify.js";
-export * from "./sdp.js";
-export * from "./certificate.js";
-export * from "./eigen-bound.js";
-export * from "./sdpa.js";
-export { type HeuristicBudget, type AnytimeOptions, type AnytimeSearch } from "./search-budget.js";
-export { FlipState, polishCut, type PolishResult } from "./flip-state.js";
-export { GainBuckets } from "./gain-buckets.js";
-export { localSearch, MultiStartSearcher } from "./local-search.js";
-export { breakoutSearch, BreakoutSearcher, type BreakoutOptions, type BreakoutSearchOptions } from "./breakout.js";
-export { rank2Search, Rank2Searcher, type Rank2Options, type Rank2SearchOptions } from "./rank2.js";
-export { hyperplaneRound, hyperplaneExpectedCut, separationProbability, type RoundingOptions } from "./rounding.js";
-export { vectorMethodRound, vectorMethodExpectedCut, vectorMethodCosine, type VectorRoundingOptions } from "./vector-method.js";
+export * from "./exact/index.js";
+export * from "./heuristic/index.js";
+export * from "./relaxation/index.js";
+export * from "./bracket/index.js";

@@ -3,7 +3,7 @@
 // `toPlainRecord`. Each carries its own evidence: a partition for a lower bound, a dual
 // vector and eigenvalue shift for an upper bound.
 
-import type { Partition } from "./evaluate.js";
+import type { Partition } from "../graph/cut-value.js";
 
 /**
  * optimal: proven optimum. timeout / budget: stopped by the time or iteration budget.

@@ -4,7 +4,6 @@ export * from "./spec.js";
 export * from "./registry.js";
 export { completeGraph } from "./complete.js";
 export { MAX_FIELD_ORDER, GaloisField, finiteField, finiteFieldOf, isPrimePower, isIrreducible, type PrimePower } from "./finite-field.js";
-export { srgParameters, type SrgParameters } from "./srg.js";
 export { polarityGraph, polarityGraphWithLoops, type PolarityGraph } from "./polarity.js";
 export { projectivePlaneIncidenceGraph } from "./projective-plane.js";
 export { normGraph } from "./norm-graph.js";

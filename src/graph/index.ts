@@ -1,3 +1,9 @@
+// The graph core: the CSR Graph, its one validating builder, and the facts every layer above
+// reads off a graph (cut value, weights, hash, where it came from).
 export * from "./graph.js";
 export * from "./builder.js";
 export * from "./graphology.js";
+export * from "./cut-value.js";
+export * from "./weights.js";
+export * from "./hash.js";
+export * from "./induced.js";

@@ -13,7 +13,7 @@
 // n²·2^-1022·(1 + max|ã_ii|) to ‖ΔB‖ (a generous overestimate; Rump's theorem carries a like term).
 
 import { InputError } from "../errors.js";
-import { MIN_NORMAL, UNIT_ROUNDOFF, gamma } from "./rounding.js";
+import { MIN_NORMAL, UNIT_ROUNDOFF, roundoffGamma } from "./float-rounding.js";
 
 export interface PsdProof {
   /** True only when the factorisation completed and the margin inequality above holds. */
@@ -40,7 +40,7 @@ export function provePsdByCholesky(a: Float64Array, n: number, diagonalError = 0
     throw new InputError(`provePsdByCholesky: invalid \`diagonalError\`: should be a finite number ≥ 0 (got ${diagonalError})`);
   }
   const u = UNIT_ROUNDOFF;
-  const g = gamma(n + 1);
+  const g = roundoffGamma(n + 1);
   const gp = (g / (1 - g)) * (1 + 4 * u);
   let traceAbs = 0;
   let maxDiag = 0;
@@ -53,7 +53,7 @@ export function provePsdByCholesky(a: Float64Array, n: number, diagonalError = 0
   for (let i = 0; i < n; i++) {
     for (let j = 0; j < i; j++) if (!Number.isFinite(a[i * n + j])) return fail(0, i, `entry (${i}, ${j}) is ${a[i * n + j]}`);
   }
-  traceAbs *= 1 + gamma(n + 1);
+  traceAbs *= 1 + roundoffGamma(n + 1);
   const underflow = n * n * MIN_NORMAL * (1 + maxDiag);
   // Twice the needed margin, so the a-posteriori check below passes whenever the factorisation does.
   const c = 2 * (gp * traceAbs + u * maxDiag + diagonalError + underflow) + MIN_NORMAL;

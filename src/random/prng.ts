@@ -2,11 +2,10 @@
 // seeded through SplitMix32-style mixing. All arithmetic is 32-bit integer
 // (Math.imul, >>> 0), so a seed gives the same stream on every machine and Node version.
 
+import { checkSeed } from "./seed.js";
+
 const TWO_POW_32 = 4294967296;
 const TWO_POW_53 = 9007199254740992;
-
-/** Maximum seed accepted everywhere a seed is a parameter. */
-export const MAX_SEED = 0xffffffff;
 
 function mix32(x: number): number {
   // fmix32 finaliser from MurmurHash3: a bijection on 32-bit words with good avalanche.
@@ -16,12 +15,6 @@ function mix32(x: number): number {
   x = Math.imul(x, 0xc2b2ae35);
   x ^= x >>> 16;
   return x >>> 0;
-}
-
-export function assertSeed(seed: number, owner = "seed"): void {
-  if (!Number.isInteger(seed) || seed < 0 || seed > MAX_SEED) {
-    throw new RangeError(`${owner}: seed must be an integer in [0, ${MAX_SEED}] (got ${seed})`);
-  }
 }
 
 export class Rng {
@@ -34,8 +27,8 @@ export class Rng {
   readonly stream: number;
 
   constructor(seed: number, stream = 0) {
-    assertSeed(seed);
-    assertSeed(stream, "stream");
+    checkSeed("Rng", "seed", seed);
+    checkSeed("Rng", "stream", stream);
     this.seed = seed;
     this.stream = stream;
     // SplitMix32: successive golden-ratio increments, each mixed; the stream index

@@ -7,19 +7,12 @@ import { existsSync, fstatSync, statSync } from "node:fs";
 import { InputError } from "../errors.js";
 import type { BuildOptions } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
-import { readGraphs, type GraphFormat } from "../graph/formats/index.js";
+import type { SourceRef } from "../graph/source.js";
+import { exactlyOneGraph, readGraphs, type GraphFormat } from "../graph/formats/index.js";
 import { familyWithInfo, isFamilyName } from "../families/registry.js";
 import { looksLikeSpec, parseRawSpec } from "../families/spec.js";
 
-/** Where a graph came from, precisely enough to rebuild it (stored in result records). */
-export interface SourceRef {
-  /** Canonical family spec (seed written out), when the graph is a family member. */
-  spec?: string;
-  /** File path ("-" for standard input) and 0-based position in the file's stream. */
-  path?: string;
-  index?: number;
-  format?: GraphFormat;
-}
+export type { SourceRef } from "../graph/source.js";
 
 export interface SourcedGraph {
   graph: Graph;
@@ -95,15 +88,9 @@ export async function* openSource(arg: string, options: OpenSourceOptions = {}):
   }
 }
 
-/** Exactly one graph from the argument; a stream with more than one is an error. */
+/** Exactly one graph from the argument; a stream with none or more than one is an error. */
 export async function openSingleGraph(arg: string, options: OpenSourceOptions = {}): Promise<SourcedGraph> {
-  let first: SourcedGraph | undefined;
-  for await (const g of openSource(arg, options)) {
-    if (first !== undefined) throw new InputError(`${arg}: holds more than one graph; pick one with a single-graph file`);
-    first = g;
-  }
-  if (first === undefined) throw new InputError(`${arg}: holds no graph`);
-  return first;
+  return exactlyOneGraph(openSource(arg, options), arg, (g) => `is ${g.label}`);
 }
 
 /** Rebuild the graph a stored record points to (used by `verify` and the results store). */

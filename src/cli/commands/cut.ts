@@ -4,7 +4,8 @@ import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
 import { openSource } from "../../sources/index.js";
-import { BRACKET_METHODS, DEFAULT_BRACKET_SECONDS, bracket, type BracketMethod, type BracketProgress, type BracketRecord } from "../../cut/bracket.js";
+import { DEFAULT_BRACKET_SECONDS, bracket, type BracketProgress } from "../../cut/bracket/bracket.js";
+import { BRACKET_METHODS, type BracketMethod, type BracketRecord } from "../../cut/bracket/record.js";
 import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 import { writeLine } from "../output.js";
 

@@ -1,7 +1,7 @@
 // `halfplus sdp-export <source> [-o FILE]`: writes the graph's max-cut SDP relaxation in SDPA
 // sparse format, for cross-checking with an outside SDP solver (e.g. `dsdp5 file.dat-s`).
 import { writeFile } from "node:fs/promises";
-import { toSdpa } from "../../cut/sdpa.js";
+import { toSdpa } from "../../cut/relaxation/sdpa.js";
 import { openSingleGraph } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
 import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";

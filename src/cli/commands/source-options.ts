@@ -1,14 +1,14 @@
 // Options shared by every command that reads graphs, and their translation to openSource.
 import type { OptionSpec, ParsedArgs } from "../args.js";
 import type { OpenSourceOptions } from "../../sources/index.js";
-import type { GraphFormat } from "../../graph/formats/index.js";
+import { GRAPH_FORMATS, type GraphFormat } from "../../graph/formats/index.js";
 
 export const SOURCE_OPTIONS: readonly OptionSpec[] = [
   {
     name: "format",
     type: "string",
     description: "input format, overriding detection from extension and content",
-    choices: ["graph6", "sparse6", "edgelist", "gset", "dimacs"],
+    choices: GRAPH_FORMATS,
     placeholder: "F",
   },
   { name: "one-based", type: "boolean", description: "edge-list vertex ids start at 1 (default 0)" },

@@ -6,8 +6,8 @@ import { InputError } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
 import type { CommandSpec } from "../args.js";
 import { openSource, resolveSourceRef, type OpenSourceOptions, type SourceRef } from "../../sources/index.js";
-import type { BracketRecord } from "../../cut/bracket.js";
-import { parseBracketRecord, verifyBracket } from "../../cut/verify.js";
+import type { BracketRecord } from "../../cut/bracket/record.js";
+import { parseBracketRecord, verifyBracket } from "../../cut/bracket/verify.js";
 import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 import { writeLine } from "../output.js";
 

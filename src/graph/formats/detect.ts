@@ -10,7 +10,7 @@
 
 import { InputError } from "../../errors.js";
 import { asBytes, isBlank, LineCursor, LineTokens, quoteToken, skipBlanks } from "./scan.js";
-import type { GraphFormat } from "./types.js";
+import { GRAPH_FORMATS, type GraphFormat } from "./types.js";
 
 const BY_EXTENSION: Readonly<Record<string, GraphFormat>> = Object.freeze({
   g6: "graph6",
@@ -103,7 +103,7 @@ export function detectFromContent(name: string, head: string | Uint8Array): Grap
     }
   }
   throw new InputError(
-    `${name}: cannot tell the graph format from the first line ${quoteToken(buf, s, e)}; pass one of graph6, sparse6, edgelist, gset, dimacs`,
+    `${name}: cannot tell the graph format from the first line ${quoteToken(buf, s, e)}; pass one of ${GRAPH_FORMATS.join(", ")}`,
   );
 }
 

@@ -203,15 +203,23 @@ export async function* readGraphs(input: GraphInput, options: ReadOptions = {}):
   }
 }
 
+/**
+ * The only item of a stream of graphs: none or several is bad input, naming `where` and, for a
+ * second item, where it is (`describe`, e.g. "starts on line 3"). Shared by every "exactly one graph" reader.
+ */
+export async function exactlyOneGraph<T>(items: AsyncIterable<T>, where: string, describe: (second: T) => string): Promise<T> {
+  let first: T | undefined;
+  let seen = false;
+  for await (const item of items) {
+    if (seen) throw new InputError(`${where}: holds more than one graph (the second ${describe(item)}); expected exactly one`);
+    first = item;
+    seen = true;
+  }
+  if (!seen) throw new InputError(`${where}: holds no graph`);
+  return first as T;
+}
+
 /** The one graph in a file ("-": standard input); none or several is an error. */
 export async function readGraphFile(path: string, options: ReadOptions = {}): Promise<LoadedGraph> {
-  let first: LoadedGraph | undefined;
-  for await (const g of readGraphs({ path }, options)) {
-    if (first !== undefined) {
-      throw new InputError(`${g.source}: holds more than one graph (the second starts on line ${g.line}); expected exactly one`);
-    }
-    first = g;
-  }
-  if (first === undefined) throw new InputError(`${path === "-" ? "stdin" : path}: holds no graph`);
-  return first;
+  return exactlyOneGraph(readGraphs({ path }, options), path === "-" ? "stdin" : path, (g) => `starts on line ${g.line}`);
 }

@@ -1,9 +1,9 @@
-// Structure checks: degrees, components, bipartiteness, degeneracy, counts, subgraph search, spectra.
+// Structure checks: degrees, components, bipartiteness, degeneracy, counts, subgraph search,
+// strong regularity, and the summary record behind `halfplus graph`. (Spectra are in src/linalg.)
 export * from "./degrees.js";
 export * from "./components.js";
 export * from "./bipartite.js";
 export * from "./degeneracy.js";
-export * from "./orientation.js";
 export * from "./triangles.js";
 export * from "./four-cycles.js";
 export * from "./cliques.js";
@@ -15,4 +15,4 @@ export * from "./describe.js";
 export * from "./symmetry.js";
 export * from "./complete-bipartite.js";
 export * from "./pattern-shape.js";
-export * from "./spectrum.js";
+export * from "./strongly-regular.js";

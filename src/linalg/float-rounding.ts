@@ -11,9 +11,9 @@ export const MIN_NORMAL = 2 ** -1022;
  * γ_k = k·u / (1 − k·u) (Higham, Accuracy and Stability of Numerical Algorithms, 2nd ed., §3.1):
  * a sum of k terms computed in any order has absolute error ≤ γ_{k−1}·Σ|terms|.
  */
-export function gamma(k: number): number {
+export function roundoffGamma(k: number): number {
   const ku = k * UNIT_ROUNDOFF;
-  if (!(ku < 0.5)) throw new RangeError(`gamma: k = ${k} is too large for a rounding-error bound`);
+  if (!(ku < 0.5)) throw new RangeError(`roundoffGamma: k = ${k} is too large for a rounding-error bound`);
   // The quotient itself is rounded; one extra ulp-scale factor keeps the result an upper bound.
   return (ku / (1 - ku)) * (1 + 4 * UNIT_ROUNDOFF);
 }

@@ -2,15 +2,15 @@
 // and a Gaussian g puts i on side [g·x_i > 0], with g·x_i = g_i − ε_i·Σ_{k∈V_i} g_k: O(n + Σ|V_i|)
 // per trial. Also the exact expected cut, edge by edge, to set against the guarantee.
 
-import { intersectionSize, resolveVectorSets, sortedContains, vectorEdgeTerms, type VectorEdgeTerms, type VectorSetOptions, type VectorSets } from "../bounds/vector-sets.js";
-import { vectorMethodGuaranteeFor } from "../bounds/vector-method.js";
-import type { Graph } from "../graph/graph.js";
-import { Rng } from "../random/prng.js";
-import { cutValue, surplusOf } from "./evaluate.js";
+import { intersectionSize, resolveVectorSets, sortedContains, vectorEdgeTerms, type VectorEdgeTerms, type VectorSetOptions, type VectorSets } from "../../bounds/vector-sets.js";
+import { vectorMethodGuaranteeFor } from "../../bounds/vector-guarantee.js";
+import type { Graph } from "../../graph/graph.js";
+import { Rng } from "../../random/prng.js";
+import { checkSeed } from "../../random/seed.js";
+import { cutValue, surplusOf } from "../../graph/cut-value.js";
 import { FlipState } from "./flip-state.js";
-import { checkTrials, separationProbability } from "./rounding.js";
-import { checkSeed } from "./search-budget.js";
-import type { CutRecord } from "./types.js";
+import { checkTrials, separationProbability } from "./hyperplane-rounding.js";
+import type { CutRecord } from "../types.js";
 
 const OWNER = "vector method";
 
@@ -69,7 +69,7 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
   const t0 = performance.now();
   const sets = resolveVectorSets(graph, options);
   const trials = checkTrials(OWNER, options.trials, 100);
-  const seed = checkSeed(OWNER, options.seed);
+  const seed = checkSeed(OWNER, "seed", options.seed);
   const polish = options.polish ?? false;
   const rng = new Rng(seed);
   const n = graph.n;
@@ -78,7 +78,6 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
   const side = new Uint8Array(n);
   const bestSide = new Uint8Array(n);
   const state = polish ? new FlipState(graph) : null;
-  const half = graph.totalWeight / 2;
   // Welford's running mean and variance of the raw surplus (no cancellation at large m).
   let mean = 0;
   let m2 = 0;
@@ -93,9 +92,10 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
       side[v] = g[v] - eps[v] * s > 0 ? 1 : 0;
     }
     const raw = cutValue(graph, side);
-    const d = raw - half - mean;
+    const surplus = surplusOf(graph, raw);
+    const d = surplus - mean;
     mean += d / (t + 1);
-    m2 += d * (raw - half - mean);
+    m2 += d * (surplus - mean);
     if (raw > bestRaw) bestRaw = raw;
     let value = raw;
     if (state !== null) {

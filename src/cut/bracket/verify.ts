@@ -2,54 +2,16 @@
 // the lower bound by re-evaluating the partition with `cutValue`, the upper bound by re-deriving
 // it from the certificate (dual certificate, exhaustive search, or the positive-weight sum).
 
-import { createHash } from "node:crypto";
-import { InputError } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import type { BracketCertificate, BracketRecord } from "./bracket.js";
-import { verifyCertificate } from "./certificate.js";
-import { cutValue } from "./evaluate.js";
-import { connectedComponents } from "../graph/structure/components.js";
-import { improvementMargin, integerWeights, positiveWeightSum } from "./exact-common.js";
-import { exactMaxCut } from "./exact.js";
-
-/** Format tag written into every bracket record, so verify can refuse other JSON. */
-export const BRACKET_RECORD_KIND = "halfplus-maxcut-bracket";
-export const BRACKET_RECORD_VERSION = 1;
-
-/**
- * SHA-256 over n, m and the sorted edge list (u < v, u32 little-endian each, weight as f64
- * little-endian; unweighted edges hash with weight 1), hex-encoded with a "sha256:" prefix.
- * Vertex labels matter: a relabelled graph is a different input to a partition.
- */
-export function graphHash(graph: Graph): string {
-  const h = createHash("sha256");
-  const head = Buffer.alloc(24);
-  head.write("hpg1", 0, "latin1");
-  head.writeUInt32LE(0, 4);
-  head.writeDoubleLE(graph.n, 8);
-  head.writeDoubleLE(graph.m, 16);
-  h.update(head);
-  const CHUNK = Math.max(1, Math.min(4096, graph.m));
-  const buf = Buffer.allocUnsafe(CHUNK * 16);
-  let k = 0;
-  const { offsets, neighbors, weights } = graph;
-  for (let u = 0; u < graph.n; u++) {
-    for (let i = offsets[u]; i < offsets[u + 1]; i++) {
-      const v = neighbors[i];
-      if (v <= u) continue;
-      const o = k * 16;
-      buf.writeUInt32LE(u, o);
-      buf.writeUInt32LE(v, o + 4);
-      buf.writeDoubleLE(weights === null ? 1 : weights[i], o + 8);
-      if (++k === CHUNK) {
-        h.update(buf);
-        k = 0;
-      }
-    }
-  }
-  if (k > 0) h.update(buf.subarray(0, k * 16));
-  return `sha256:${h.digest("hex")}`;
-}
+import { InputError } from "../../errors.js";
+import { cutValue, floorCutBound } from "../../graph/cut-value.js";
+import type { Graph } from "../../graph/graph.js";
+import { graphHash } from "../../graph/hash.js";
+import { connectedComponents } from "../../graph/structure/components.js";
+import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
+import { improvementMargin } from "../exact/common.js";
+import { exactMaxCut } from "../exact/exact-max-cut.js";
+import { verifyCertificate } from "../relaxation/certificate.js";
+import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, type BracketCertificate, type BracketRecord } from "./record.js";
 
 export interface BracketCheck {
   name: string;
@@ -109,8 +71,8 @@ export function parseBracketRecord(value: unknown, where: string): BracketRecord
 /** The bound a certificate proves, after the integer rounding it declares. */
 function applyRounding(graph: Graph, cert: BracketCertificate, bound: number): { bound: number; problem: string | null } {
   if (!cert.floored) return { bound, problem: null };
-  if (!integerWeights(graph)) return { bound, problem: "certificate rounds down to an integer but the graph has non-integer weights" };
-  return { bound: Math.floor(bound + 1e-9), problem: null };
+  if (!hasIntegerWeights(graph)) return { bound, problem: "certificate rounds down to an integer but the graph has non-integer weights" };
+  return { bound: floorCutBound(bound), problem: null };
 }
 
 /**
@@ -119,7 +81,7 @@ function applyRounding(graph: Graph, cert: BracketCertificate, bound: number): {
  * graph's margin (each component margin is max(1e-12, 1e-11·Σ|w| of the component)).
  */
 function toleranceLimit(graph: Graph): number {
-  if (integerWeights(graph)) return 0;
+  if (hasIntegerWeights(graph)) return 0;
   return (connectedComponents(graph).count + 1) * improvementMargin(graph);
 }
 

@@ -1,13 +1,13 @@
 // Goemans–Williamson hyperplane rounding of vertex vectors (e.g. an SDP solution): a random
 // Gaussian normal g puts i on side [g·v_i > 0]; best of many trials, optionally 1-flip polished.
 
-import { invalidParameter } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import { Rng } from "../random/prng.js";
-import { cutValue } from "./evaluate.js";
+import { invalidParameter } from "../../errors.js";
+import type { Graph } from "../../graph/graph.js";
+import { Rng } from "../../random/prng.js";
+import { checkSeed } from "../../random/seed.js";
+import { cutValue } from "../../graph/cut-value.js";
 import { FlipState } from "./flip-state.js";
-import { checkSeed } from "./search-budget.js";
-import type { CutRecord } from "./types.js";
+import type { CutRecord } from "../types.js";
 
 const OWNER = "hyperplane rounding";
 
@@ -76,7 +76,7 @@ export function hyperplaneRound(graph: Graph, vectors: Float64Array, r: number, 
   const t0 = performance.now();
   checkVectors(graph, vectors, r);
   const trials = checkTrials(OWNER, options.trials, 100);
-  const seed = checkSeed(OWNER, options.seed);
+  const seed = checkSeed(OWNER, "seed", options.seed);
   const polish = options.polish ?? true;
   const rng = new Rng(seed);
   const n = graph.n;

@@ -1,86 +1,5 @@
-// Pieces shared by the exact max-cut searches: the result record, the "block" (the last b
-// vertices, whose 2^b internal cut values are tabulated so each completion costs O(1)),
-// weight statistics that decide the pruning margin, and trivial upper bounds.
-
-import { InputError } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import type { CutRecord } from "./types.js";
-
-/** What an exact search returns: a cut (value = cutValue(partition)) plus a proven upper bound. */
-export interface ExactCutRecord extends CutRecord {
-  status: "optimal" | "timeout";
-  /** Proven upper bound on the max cut: equal to `value` when optimal, the best bracket so far on timeout. */
-  upper: number;
-  /** Search nodes visited (outer Gray steps, or branch-and-bound nodes), for the record. */
-  nodes: number;
-}
-
-export interface ExactProgress {
-  /** Best cut of the whole graph known so far (-Infinity before the first). */
-  lower: number;
-  nodes: number;
-  seconds: number;
-}
-
-export interface ExactOptions {
-  /** Time budget in seconds (default 60). On expiry the record has status "timeout" and a valid bracket. */
-  seconds?: number;
-  /** Seed for the randomised incumbent heuristic (default 0); recorded in the result. */
-  seed?: number;
-  /** Called about every half second during a long search. */
-  onProgress?: (p: ExactProgress) => void;
-}
-
-/** Seconds between `onProgress` calls. */
-export const PROGRESS_INTERVAL = 0.5;
-
-export const DEFAULT_EXACT_SECONDS = 60;
-
-export function checkSeconds(owner: string, seconds: number | undefined, fallback: number): number {
-  const s = seconds ?? fallback;
-  if (typeof s !== "number" || !(s > 0) || !Number.isFinite(s)) {
-    throw new InputError(`${owner}: invalid \`seconds\`: should be a positive finite number (got ${JSON.stringify(seconds)})`);
-  }
-  return s;
-}
-
-export function checkSeedOption(owner: string, seed: number | undefined): number {
-  const s = seed ?? 0;
-  if (!Number.isInteger(s) || s < 0 || s > 0xffffffff) {
-    throw new InputError(`${owner}: invalid \`seed\`: should be an integer between 0 and 4294967295 (got ${JSON.stringify(seed)})`);
-  }
-  return s;
-}
-
-/** Sum of the positive edge weights: every cut is at most this. */
-export function positiveWeightSum(graph: Graph): number {
-  if (graph.weights === null) return graph.m;
-  let s = 0;
-  const w = graph.weights;
-  for (let i = 0; i < w.length; i++) if (w[i] > 0) s += w[i];
-  return s / 2;
-}
-
-/** True when every weight is an integer (then every cut value is an integer and pruning can round). */
-export function integerWeights(graph: Graph): boolean {
-  if (graph.weights === null) return true;
-  const w = graph.weights;
-  for (let i = 0; i < w.length; i++) if (!Number.isInteger(w[i])) return false;
-  return true;
-}
-
-/**
- * The smallest improvement worth searching for. With integer weights a better cut is at least
- * 1 better; otherwise a relative tolerance absorbs the rounding of incremental sums, so
- * "optimal" then means optimal up to that tolerance (recorded in the result details).
- */
-export function improvementMargin(graph: Graph): number {
-  if (integerWeights(graph)) return 1;
-  let abs = 0;
-  const w = graph.weights!;
-  for (let i = 0; i < w.length; i++) abs += Math.abs(w[i]);
-  return Math.max(1e-12, 1e-11 * abs);
-}
+// The "block" of the exact searches: the last b vertices, whose 2^b internal cut values are
+// tabulated so that the best completion of any outer pattern costs two lookups per pattern.
 
 /**
  * Vertices in bit positions 0..b-1 with the internal cut of every side pattern c ∈ [0, 2^b)
@@ -192,7 +111,3 @@ export class CutBlock {
   }
 }
 
-/** Monotonic clock in seconds. */
-export function nowSeconds(): number {
-  return performance.now() / 1000;
-}

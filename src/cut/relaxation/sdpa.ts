@@ -4,9 +4,9 @@
 // max ¼⟨L, Y⟩, diag Y = 1, and the primal is min Σx_i s.t. Diag(x) − L/4 ⪰ 0 (x = y/4 of our dual):
 // both optimal values equal the SDP bound.
 
-import { InputError } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import { weightedDegrees } from "../linalg/operator.js";
+import { InputError } from "../../errors.js";
+import type { Graph } from "../../graph/graph.js";
+import { weightedDegrees } from "../../linalg/operator.js";
 
 export interface SdpaOptions {
   /** Text for the leading comment line (no newlines). */

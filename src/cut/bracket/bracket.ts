@@ -2,29 +2,25 @@
 // and the best certified upper bound, in a plain JSON-ready record that `verify` can re-check
 // from the graph alone (partition for the lower bound, certificate for the upper bound).
 
-import { InputError } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import type { SourceRef } from "../sources/index.js";
-import { BreakoutSearcher } from "./breakout.js";
-import { PROOF_SHIFT_METHODS, certifyDual } from "./certificate.js";
-import { eigenvalueUpperBound } from "./eigen-bound.js";
-import { cutValue } from "./evaluate.js";
-import { exactMaxCut } from "./exact.js";
-import { checkSeedOption, improvementMargin, integerWeights, nowSeconds, positiveWeightSum, type ExactCutRecord, type ExactProgress } from "./exact-common.js";
-import { localSearch } from "./local-search.js";
-import { hyperplaneRound } from "./rounding.js";
-import { solveSdp } from "./sdp.js";
-import type { CutRecord, DualCertificate, UpperBoundRecord } from "./types.js";
-import { vectorMethodRound } from "./vector-method.js";
-import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, graphHash } from "./verify.js";
-
-/**
- * auto: exact search when the graph is small, heuristics and certified bounds otherwise;
- * exact: exact search only (plus the eigenvalue bound if it stops early);
- * heuristic: never exact search; quick: cheap methods only, for large batches of graphs.
- */
-export type BracketMethod = "auto" | "exact" | "heuristic" | "quick";
-export const BRACKET_METHODS: readonly BracketMethod[] = ["auto", "exact", "heuristic", "quick"];
+import { InputError } from "../../errors.js";
+import { cutValue, floorCutBound } from "../../graph/cut-value.js";
+import type { Graph } from "../../graph/graph.js";
+import { graphHash } from "../../graph/hash.js";
+import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
+import { checkSeed } from "../../random/seed.js";
+import { checkSeconds } from "../../validate.js";
+import { improvementMargin, nowSeconds, type ExactCutRecord, type ExactProgress } from "../exact/common.js";
+import { exactMaxCut } from "../exact/exact-max-cut.js";
+import { BreakoutSearcher } from "../heuristic/breakout.js";
+import { hyperplaneRound } from "../heuristic/hyperplane-rounding.js";
+import { localSearch } from "../heuristic/local-search.js";
+import { vectorMethodRound } from "../heuristic/vector-rounding.js";
+import { DENSE_PROOF_LIMIT, PROOF_SHIFT_METHODS } from "../relaxation/certificate.js";
+import { eigenvalueUpperBound } from "../relaxation/eigenvalue-bound.js";
+import { solveAndCertifySdp } from "../relaxation/sdp-bound.js";
+import type { CutRecord, DualCertificate, UpperBoundRecord } from "../types.js";
+import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, type BracketCertificate, type BracketRecord, type BracketRun, type BracketMethod, BRACKET_METHODS } from "./record.js";
+import type { SourceRef } from "../../graph/source.js";
 
 export const DEFAULT_BRACKET_SECONDS = 10;
 
@@ -47,56 +43,6 @@ export interface BracketOptions {
   onProgress?: (p: BracketProgress) => void;
   /** Where the graph came from, copied into the record so `verify` can rebuild it. */
   source?: SourceRef | null;
-}
-
-/** How `upper` is proven. `floored`: integer weights, so the bound was rounded down to an integer. */
-export type BracketCertificate =
-  | { kind: "psd-dual"; y: number[]; shift: number; shiftMethod: string; floored: boolean; tolerance: number }
-  | { kind: "exhaustive"; search: string; nodes: number; floored: boolean; tolerance: number }
-  | { kind: "search-bound"; search: string; nodes: number; floored: boolean; tolerance: number }
-  | { kind: "positive-weights"; floored: boolean; tolerance: number };
-
-/** One method's contribution, summarised. */
-export interface BracketRun {
-  method: string;
-  /** lower: produced a cut; upper: produced a bound; exact: both; relaxation: an SDP objective. */
-  role: "lower" | "upper" | "exact" | "relaxation";
-  value: number;
-  /** For exact searches: their proven upper bound. */
-  upper?: number;
-  status: string;
-  seconds: number;
-  seed: number | null;
-  details?: Record<string, number | string | boolean | null>;
-}
-
-export interface BracketRecord {
-  kind: typeof BRACKET_RECORD_KIND;
-  version: typeof BRACKET_RECORD_VERSION;
-  n: number;
-  m: number;
-  totalWeight: number;
-  lower: number;
-  upper: number;
-  /** True when the bracket is closed by proof (for non-integer weights: within certificate.tolerance). */
-  exact: boolean;
-  /**
-   * False when `upper` rests on a Lanczos estimate of the shift (large n) rather than a proof
-   * (exhaustive search, Cholesky, Gershgorin, the positive-weight sum).
-   */
-  upperProven: boolean;
-  surplusLower: number;
-  surplusUpper: number;
-  lowerMethod: string;
-  upperMethod: string;
-  seconds: number;
-  seed: number;
-  method: BracketMethod;
-  partition: number[];
-  certificate: BracketCertificate;
-  runs: BracketRun[];
-  graphHash: string;
-  source: SourceRef | null;
 }
 
 /** A seed per method, derived from the bracket's seed so every run is reproducible. */
@@ -132,7 +78,7 @@ class BracketState {
 
   constructor(graph: Graph, seconds: number, onProgress?: (p: BracketProgress) => void) {
     this.graph = graph;
-    this.integral = integerWeights(graph);
+    this.integral = hasIntegerWeights(graph);
     this.tolerance = this.integral ? 0 : improvementMargin(graph);
     this.t0 = nowSeconds();
     this.deadline = this.t0 + seconds;
@@ -154,7 +100,7 @@ class BracketState {
 
   /** Integer weights: every cut is an integer, so a bound may be rounded down. */
   round(bound: number): number {
-    return this.integral ? Math.floor(bound + 1e-9) : bound;
+    return this.integral ? floorCutBound(bound) : bound;
   }
 
   closed(): boolean {
@@ -285,9 +231,6 @@ function denseProofSeconds(n: number): number {
   return 1.1e-9 * n * n * n;
 }
 
-/** Largest n the certificate module proves densely by default (src/cut/certificate.ts). */
-const CERTIFY_DENSE_LIMIT = 3000;
-
 /** Heuristic lower bounds plus certified upper bounds, within `budgetShare` of what is left. */
 function heuristicPhase(state: BracketState, seed: number, quick: boolean, budgetShare: number): void {
   const g = state.graph;
@@ -297,7 +240,7 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
   const phaseLeft = (): number => Math.max(0, phaseEnd - nowSeconds());
   // A dense proof is used only when it fits in the given share of the time left; otherwise the
   // shift is a Lanczos estimate and the record says so (upperProven = false).
-  const denseLimitFor = (share: number): number => (n <= CERTIFY_DENSE_LIMIT && denseProofSeconds(n) <= share * phaseLeft() ? CERTIFY_DENSE_LIMIT : 0);
+  const denseLimitFor = (share: number): number => (n <= DENSE_PROOF_LIMIT && denseProofSeconds(n) <= share * phaseLeft() ? DENSE_PROOF_LIMIT : 0);
   // Residual tolerance for Lanczos shifts: 1e-7 relative moves the bound by ~1e-7·n·‖L‖/4, far
   // below the gaps of interest, and converges in about half the iterations of the default.
   const tolerance = 1e-7;
@@ -317,16 +260,19 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
   const certifyCost = dense > 0 ? denseProofSeconds(n) + eigenSeconds : 2.5 * eigenSeconds;
   const forSdp = (quick ? 0.3 : 0.45) * phaseLeft() - certifyCost;
   if (forSdp > Math.min(0.5, 0.05 * total) || n <= 64) {
-    const sdp = solveSdp(g, {
-      seed: methodSeed(seed, 2),
-      seconds: Math.max(1e-3, forSdp),
-      maxSweeps: quick ? 300 : undefined,
-      // Large graphs: a low rank affords many more sweeps in the same time, which matters more
-      // than the rank (bench/bracket: rank 24 beats the default rank 201 at 10^6 edges).
-      rank: g.m > 100_000 ? Math.min(24, n) : undefined,
+    const { sdp, bound } = solveAndCertifySdp(g, {
+      sdp: {
+        seed: methodSeed(seed, 2),
+        seconds: Math.max(1e-3, forSdp),
+        maxSweeps: quick ? 300 : undefined,
+        // Large graphs: a low rank affords many more sweeps in the same time, which matters more
+        // than the rank (bench/bracket: rank 24 beats the default rank 201 at 10^6 edges).
+        rank: g.m > 100_000 ? Math.min(24, n) : undefined,
+      },
+      certify: { tolerance, denseLimit: dense },
     });
     state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, seed: sdp.seed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
-    state.offerDual(certifyDual(g, sdp.y, { tolerance, denseLimit: dense, name: "sdp-dual" }));
+    state.offerDual(bound);
     if (state.closed()) return;
     const trials = quick ? 8 : n <= 5000 ? 64 : 16;
     state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, seed: methodSeed(seed, 3), polish: true }));
@@ -350,11 +296,8 @@ function exactLooksFeasible(g: Graph): boolean {
 
 export function bracket(graph: Graph, options: BracketOptions = {}): BracketRecord {
   const owner = "bracket";
-  const seconds = options.seconds ?? DEFAULT_BRACKET_SECONDS;
-  if (typeof seconds !== "number" || !(seconds > 0) || !Number.isFinite(seconds)) {
-    throw new InputError(`${owner}: invalid \`seconds\`: should be a positive finite number (got ${JSON.stringify(options.seconds)})`);
-  }
-  const seed = checkSeedOption(owner, options.seed);
+  const seconds = checkSeconds(owner, options.seconds, DEFAULT_BRACKET_SECONDS);
+  const seed = checkSeed(owner, "seed", options.seed);
   const method = options.method ?? "auto";
   if (!BRACKET_METHODS.includes(method)) {
     throw new InputError(`${owner}: invalid \`method\`: should be one of ${BRACKET_METHODS.join(", ")} (got ${JSON.stringify(method)})`);

@@ -1,10 +1,10 @@
 // One-flip machinery shared by every cut heuristic: a partition with the gain of switching
 // each vertex (O(degree) update per flip, no allocation), and the climb to a 1-flip local optimum.
 
-import type { Graph } from "../graph/graph.js";
+import type { Graph } from "../../graph/graph.js";
 import type { GainBuckets } from "./gain-buckets.js";
-import { checkPartition, cutValue, type Partition } from "./evaluate.js";
-import { gainTolerance } from "./search-budget.js";
+import { checkPartition, cutValue, type Partition } from "../../graph/cut-value.js";
+import { gainTolerance } from "./anytime.js";
 
 /**
  * A partition under local search. `gain[v]` is the change in cut weight if v switches side:

@@ -1,8 +1,9 @@
-// The one place a cut's value is computed. Every solver's claim, `verify`, and the tests
-// go through here, so a solver cannot report a value its partition does not have.
+// The one place a cut's value and its surplus are computed. Every solver's claim, `verify`, the
+// closed-form bounds and the tests go through here, so nothing can report a value its partition
+// does not have.
 
 import { InputError } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
+import type { Graph } from "./graph.js";
 
 /** A side (0 or 1) for each vertex. */
 export type Partition = Uint8Array;
@@ -32,7 +33,16 @@ export function cutValue(graph: Graph, partition: ArrayLike<number>): number {
   return cut;
 }
 
-/** surplus = cut − W/2, the excess over a uniformly random cut. */
+/** surplus = cut − W/2, the excess over a uniformly random cut (W = total weight). */
 export function surplusOf(graph: Graph, cut: number): number {
   return cut - graph.totalWeight / 2;
+}
+
+/**
+ * An upper bound on the max cut of a graph with integer weights, rounded down to the integer
+ * below: every cut value is then an integer. The 1e-9 absorbs a bound computed in floating point
+ * that lands a hair above an integer it equals. Callers decide integrality (`hasIntegerWeights`).
+ */
+export function floorCutBound(bound: number): number {
+  return Math.floor(bound + 1e-9);
 }

@@ -14,15 +14,15 @@
 // A "dense-eig-error-bound" method is not offered: ml-matrix's eigensolver states no backward-error
 // constant, so its eigenvalues cannot be turned into a proof without one.
 
-import { InputError, invalidParameter } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import { provePsdByCholesky, type PsdProof } from "../linalg/cholesky.js";
-import { lanczosExtreme } from "../linalg/lanczos.js";
-import { shiftedLaplacianOperator } from "../linalg/operator.js";
-import { UNIT_ROUNDOFF, gamma, roundUp } from "../linalg/rounding.js";
-import { assertSeed } from "../random/prng.js";
-import { dualBoundValue, solveSdp, type SdpOptions, type SdpRecord } from "./sdp.js";
-import type { DualCertificate, SolverStatus, UpperBoundRecord } from "./types.js";
+import { InputError, invalidParameter } from "../../errors.js";
+import type { Graph } from "../../graph/graph.js";
+import { provePsdByCholesky, type PsdProof } from "../../linalg/cholesky.js";
+import { lanczosExtreme } from "../../linalg/lanczos.js";
+import { shiftedLaplacianOperator } from "../../linalg/operator.js";
+import { UNIT_ROUNDOFF, roundoffGamma, roundUp } from "../../linalg/float-rounding.js";
+import { checkSeed } from "../../random/seed.js";
+import { dualBoundValue } from "./dual-bound.js";
+import type { DualCertificate, SolverStatus, UpperBoundRecord } from "../types.js";
 
 export type ShiftMethod = "cholesky-verified" | "gershgorin" | "lanczos-ritz-residual";
 
@@ -34,7 +34,7 @@ export interface CertifyOptions {
   method?: "auto" | "cholesky" | "gershgorin" | "lanczos";
   /** Largest n for the dense Cholesky proof (default 3000: n² doubles of memory, n³/6 multiply-adds). */
   denseLimit?: number;
-  /** Seed of the Lanczos start vector (default 1; the "lanczos" method also runs seed + 1). */
+  /** Seed of the Lanczos start vector (default 1; the "lanczos" method also runs seed + 1, wrapping to 0). */
   seed?: number;
   /** Lanczos residual tolerance relative to ‖L − Diag(y)‖ (default 1e-9). */
   tolerance?: number;
@@ -43,7 +43,12 @@ export interface CertifyOptions {
 }
 
 const OWNER = "certifyDual";
-const DEFAULT_DENSE_LIMIT = 3000;
+
+/**
+ * Largest n whose shift is proved densely (Cholesky) by default: n² doubles of memory and n³/6
+ * multiply-adds. Above it the shift is a Lanczos estimate unless a caller forces a proof.
+ */
+export const DENSE_PROOF_LIMIT = 3000;
 
 function checkY(graph: Graph, y: ArrayLike<number>, owner: string): void {
   if (y.length !== graph.n) throw new InputError(`${owner}: \`y\` has ${y.length} entries but the graph has ${graph.n} vertices`);
@@ -59,14 +64,7 @@ function checkCertifyOptions(o: CertifyOptions): void {
   if (o.denseLimit !== undefined && !(Number.isInteger(o.denseLimit) && o.denseLimit >= 0)) {
     throw invalidParameter(OWNER, "denseLimit", "should be a non-negative integer", o.denseLimit);
   }
-  if (o.seed !== undefined) {
-    try {
-      assertSeed(o.seed);
-      assertSeed(o.seed + 1);
-    } catch {
-      throw invalidParameter(OWNER, "seed", "should be an integer between 0 and 4294967294", o.seed);
-    }
-  }
+  checkSeed(OWNER, "seed", o.seed);
   if (o.tolerance !== undefined && !(o.tolerance > 0 && o.tolerance < 1)) throw invalidParameter(OWNER, "tolerance", "should be a number in (0, 1)", o.tolerance);
 }
 
@@ -98,7 +96,7 @@ export function gershgorinShift(graph: Graph, y: ArrayLike<number>): number {
     // d_i is a deg-term sum and abs_i another; with the two outer operations the row bound
     // carries at most γ_{2·deg+3}·(|y_i| + 2·abs_i) of rounding.
     const c = d[i] - y[i] + abs[i];
-    const bound = c + gamma(2 * deg + 3) * (Math.abs(y[i]) + 2 * abs[i]);
+    const bound = c + roundoffGamma(2 * deg + 3) * (Math.abs(y[i]) + 2 * abs[i]);
     if (bound > best) best = bound;
   }
   return graph.n === 0 ? 0 : roundUp(best, 2);
@@ -125,7 +123,7 @@ export function proveShift(graph: Graph, y: ArrayLike<number>, shift: number): P
     }
     a[row + i] = y[i] + shift - d[i];
     const deg = offsets[i + 1] - offsets[i];
-    const e = gamma(deg + 3) * (Math.abs(y[i]) + Math.abs(shift) + abs[i]);
+    const e = roundoffGamma(deg + 3) * (Math.abs(y[i]) + Math.abs(shift) + abs[i]);
     if (e > diagError) diagError = e;
   }
   return provePsdByCholesky(a, n, diagError * (1 + 4 * UNIT_ROUNDOFF));
@@ -158,7 +156,7 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
   const n = graph.n;
   const seed = options.seed ?? 1;
   const tol = options.tolerance ?? 1e-9;
-  const denseLimit = options.denseLimit ?? DEFAULT_DENSE_LIMIT;
+  const denseLimit = options.denseLimit ?? DENSE_PROOF_LIMIT;
   const method = options.method ?? "auto";
   if (n === 0) return { shift: 0, method: "gershgorin", proven: true, converged: true, details: {} };
   if (method === "gershgorin") {
@@ -176,7 +174,7 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
   }
   const useCholesky = method === "cholesky" || (method === "auto" && n <= denseLimit);
   if (!useCholesky) {
-    const second = estimateTop(graph, y, seed + 1, tol);
+    const second = estimateTop(graph, y, (seed + 1) >>> 0, tol);
     const a = est.theta + 2 * est.residual;
     const b = second.theta + 2 * second.residual;
     const best = a >= b ? est : second;
@@ -310,29 +308,4 @@ export function verifyCertificate(graph: Graph, certificate: DualCertificate, op
     };
   }
   return { ok: false, proven: false, value, recomputedShift, method, message: `unknown shift method ${JSON.stringify(method)}` };
-}
-
-export interface SdpBoundOptions {
-  sdp?: SdpOptions;
-  certify?: CertifyOptions;
-}
-
-/** Solve the SDP by the mixing method and certify its dual: the vectors (for rounding) and the bound together. */
-export function solveAndCertifySdp(graph: Graph, options: SdpBoundOptions = {}): { sdp: SdpRecord; bound: UpperBoundRecord } {
-  const t0 = performance.now();
-  const sdp = solveSdp(graph, options.sdp);
-  const rec = certifyDual(graph, sdp.y, { name: "sdp-certified", ...options.certify });
-  const bound: UpperBoundRecord = {
-    ...rec,
-    status: sdp.status === "converged" ? rec.status : sdp.status,
-    seconds: (performance.now() - t0) / 1000,
-    relaxationValue: sdp.value,
-    details: { ...rec.details, sweeps: sdp.sweeps, rank: sdp.rank, seed: sdp.seed, sdpStatus: sdp.status, sdpSeconds: sdp.seconds, certifySeconds: rec.seconds },
-  };
-  return { sdp, bound };
-}
-
-/** The certified Goemans–Williamson bound ¼(Σy + n·λ̄) ≥ SDP ≥ max cut; `relaxationValue` is the primal value reached. */
-export function sdpUpperBound(graph: Graph, options: SdpBoundOptions = {}): UpperBoundRecord {
-  return solveAndCertifySdp(graph, options).bound;
 }

@@ -1,22 +1,16 @@
 // Exact max cut of a small graph: splits it into connected components (the max cut is the sum),
 // then solves each by Gray-code enumeration or branch and bound under one shared time budget.
 
-import { InputError } from "../errors.js";
-import { buildGraph } from "../graph/builder.js";
-import type { Graph } from "../graph/graph.js";
-import { connectedComponents } from "../graph/structure/components.js";
-import { checkPartition, cutValue } from "./evaluate.js";
-import { branchAndBoundMaxCut } from "./exact-bnb.js";
-import {
-  DEFAULT_EXACT_SECONDS,
-  checkSeconds,
-  checkSeedOption,
-  nowSeconds,
-  type ExactCutRecord,
-  type ExactOptions,
-  type ExactProgress,
-} from "./exact-common.js";
-import { GRAY_MAX_VERTICES, grayCodeMaxCut } from "./exact-gray.js";
+import { InputError } from "../../errors.js";
+import { checkPartition, cutValue } from "../../graph/cut-value.js";
+import type { Graph } from "../../graph/graph.js";
+import { inducedSubgraph } from "../../graph/induced.js";
+import { connectedComponents } from "../../graph/structure/components.js";
+import { checkSeed } from "../../random/seed.js";
+import { checkSeconds } from "../../validate.js";
+import { branchAndBoundMaxCut } from "./branch-and-bound.js";
+import { DEFAULT_EXACT_SECONDS, nowSeconds, type ExactCutRecord, type ExactOptions, type ExactProgress } from "./common.js";
+import { GRAY_MAX_VERTICES, grayCodeMaxCut } from "./gray-code.js";
 
 export type ExactMethod = "auto" | "gray" | "bnb";
 
@@ -33,30 +27,11 @@ export interface ExactMaxCutOptions extends ExactOptions {
   initial?: ArrayLike<number>;
 }
 
-/** The subgraph induced by `vertices` (relabelled 0..k-1 in the given order). */
-function inducedSubgraph(graph: Graph, vertices: Int32Array, local: Int32Array): Graph {
-  const us: number[] = [];
-  const vs: number[] = [];
-  const ws: number[] | null = graph.weights === null ? null : [];
-  for (let i = 0; i < vertices.length; i++) {
-    const u = vertices[i];
-    for (let k = graph.offsets[u]; k < graph.offsets[u + 1]; k++) {
-      const v = graph.neighbors[k];
-      if (v > u) {
-        us.push(i);
-        vs.push(local[v]);
-        if (ws !== null) ws.push(graph.weights![k]);
-      }
-    }
-  }
-  return buildGraph(vertices.length, us, vs, ws).graph;
-}
-
 export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): ExactCutRecord {
   const t0 = nowSeconds();
   const owner = "exactMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
-  const seed = checkSeedOption(owner, options.seed);
+  const seed = checkSeed(owner, "seed", options.seed);
   const method = options.method ?? "auto";
   if (method !== "auto" && method !== "gray" && method !== "bnb") {
     throw new InputError(`${owner}: invalid \`method\`: should be one of auto, gray, bnb (got ${JSON.stringify(method)})`);
@@ -70,8 +45,6 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   const comps = connectedComponents(graph);
   const members: number[][] = Array.from({ length: comps.count }, () => []);
   for (let v = 0; v < graph.n; v++) members[comps.label[v]].push(v);
-  const local = new Int32Array(graph.n);
-  for (const list of members) list.forEach((v, i) => (local[v] = i));
 
   const partition = new Uint8Array(graph.n);
   let upper = 0;
@@ -86,7 +59,7 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
     if (list.length <= 1) continue; // an isolated vertex contributes nothing
     largest = Math.max(largest, list.length);
     const verts = Int32Array.from(list);
-    const sub = list.length === graph.n ? graph : inducedSubgraph(graph, verts, local);
+    const sub = list.length === graph.n ? graph : inducedSubgraph(graph, verts);
     // Every component gets what is left of the budget; a late one may get almost nothing and
     // then reports a (valid, weak) bracket instead of an optimum.
     const left = Math.max(1e-3, deadline - nowSeconds());

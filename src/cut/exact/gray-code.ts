@@ -2,22 +2,14 @@
 // The "outer" vertices walk a binary-reflected Gray code with O(deg) incremental gain updates per
 // step; the last b vertices form a tabulated CutBlock, so each outer state costs ~2^b table lookups.
 
-import { InputError } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import { cutValue } from "./evaluate.js";
-import {
-  CutBlock,
-  DEFAULT_EXACT_SECONDS,
-  PROGRESS_INTERVAL,
-  checkSeconds,
-  checkSeedOption,
-  improvementMargin,
-  integerWeights,
-  nowSeconds,
-  positiveWeightSum,
-  type ExactCutRecord,
-  type ExactOptions,
-} from "./exact-common.js";
+import { InputError } from "../../errors.js";
+import type { Graph } from "../../graph/graph.js";
+import { cutValue } from "../../graph/cut-value.js";
+import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
+import { checkSeed } from "../../random/seed.js";
+import { checkSeconds } from "../../validate.js";
+import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, improvementMargin, nowSeconds, type ExactCutRecord, type ExactOptions } from "./common.js";
+import { CutBlock } from "./cut-block.js";
 
 /** Largest n the Gray-code enumeration accepts (2^33 patterns: tens of seconds without pruning). */
 export const GRAY_MAX_VERTICES = 34;
@@ -31,7 +23,7 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
   const t0 = nowSeconds();
   const owner = "grayCodeMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
-  const seed = checkSeedOption(owner, options.seed);
+  const seed = checkSeed(owner, "seed", options.seed);
   const n = graph.n;
   if (n > GRAY_MAX_VERTICES) {
     throw new InputError(`${owner}: graph has ${n} vertices; exhaustive enumeration supports at most ${GRAY_MAX_VERTICES}`);
@@ -91,7 +83,7 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
     }
   };
   resync();
-  const exactSums = integerWeights(graph);
+  const exactSums = hasIntegerWeights(graph);
 
   const steps = 2 ** outer.length;
   const out = new Float64Array(1);
@@ -175,7 +167,7 @@ function record(
   fixed = 0,
 ): ExactCutRecord {
   const value = cutValue(graph, partition);
-  const exactSums = integerWeights(graph);
+  const exactSums = hasIntegerWeights(graph);
   // Non-integer weights: the running sums are exact only up to rounding, so the proven
   // upper bound carries the same tolerance the search used.
   const slack = exactSums ? 0 : improvementMargin(graph);

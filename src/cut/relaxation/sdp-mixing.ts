@@ -2,13 +2,15 @@
 // factorisation X = VVᵀ (Burer–Monteiro) by the mixing method of Wang, Chang & Kolter (2017):
 // cyclic exact updates v_i ← −normalise(Σ_j w_ij v_j). Returns the primal vectors and a dual estimate y.
 
-import { invalidParameter } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import { lanczosExtreme } from "../linalg/lanczos.js";
-import { shiftedLaplacianOperator, weightedDegrees } from "../linalg/operator.js";
-import { gamma, roundUp } from "../linalg/rounding.js";
-import { Rng, assertSeed } from "../random/prng.js";
-import type { SolverStatus } from "./types.js";
+import { invalidParameter } from "../../errors.js";
+import type { Graph } from "../../graph/graph.js";
+import { lanczosExtreme } from "../../linalg/lanczos.js";
+import { shiftedLaplacianOperator, weightedDegrees } from "../../linalg/operator.js";
+import { Rng } from "../../random/prng.js";
+import { checkSeed } from "../../random/seed.js";
+import { checkSeconds } from "../../validate.js";
+import { dualBoundValue } from "./dual-bound.js";
+import type { SolverStatus } from "../types.js";
 
 export interface SdpOptions {
   /** Columns of V (default min(n, ⌈√(2n)⌉ + 1): above the Barvinok–Pataki rank, so generically no spurious local optima). */
@@ -58,22 +60,6 @@ export interface SdpRecord {
 
 const OWNER = "solveSdp";
 
-/**
- * The bound ¼(Σy + n·shift), rounded up past every rounding error of its own evaluation
- * (a sum of n + 1 terms: error ≤ γ_{n+1}·(Σ|y_i| + n·|shift|)). The one place this formula lives.
- */
-export function dualBoundValue(y: ArrayLike<number>, shift: number): number {
-  const n = y.length;
-  let s = 0, abs = 0;
-  for (let i = 0; i < n; i++) {
-    s += y[i];
-    abs += Math.abs(y[i]);
-  }
-  const total = s + n * shift;
-  const err = gamma(n + 2) * (abs + n * Math.abs(shift));
-  return roundUp((total + err) / 4, 2);
-}
-
 /** Default rank ⌈√(2n)⌉ + 1, at most n. */
 export function defaultSdpRank(n: number): number {
   return Math.max(1, Math.min(n, Math.ceil(Math.sqrt(2 * n)) + 1));
@@ -84,13 +70,7 @@ function checkOptions(graph: Graph, o: SdpOptions): void {
   if (o.rank !== undefined && !(Number.isInteger(o.rank) && o.rank >= 1 && o.rank <= Math.max(1, n))) {
     throw invalidParameter(OWNER, "rank", `should be an integer between 1 and n = ${n}`, o.rank);
   }
-  if (o.seed !== undefined) {
-    try {
-      assertSeed(o.seed);
-    } catch {
-      throw invalidParameter(OWNER, "seed", "should be an integer between 0 and 4294967295", o.seed);
-    }
-  }
+  checkSeed(OWNER, "seed", o.seed);
   if (o.tolerance !== undefined && !(o.tolerance >= 0 && o.tolerance < 1)) throw invalidParameter(OWNER, "tolerance", "should be a number in [0, 1)", o.tolerance);
   if (o.gapTolerance !== undefined && !(o.gapTolerance >= 0 && o.gapTolerance < 1)) throw invalidParameter(OWNER, "gapTolerance", "should be a number in [0, 1)", o.gapTolerance);
   if (o.checkEvery !== undefined && !(Number.isInteger(o.checkEvery) && o.checkEvery >= 1)) throw invalidParameter(OWNER, "checkEvery", "should be a positive integer", o.checkEvery);
@@ -98,7 +78,7 @@ function checkOptions(graph: Graph, o: SdpOptions): void {
     throw invalidParameter(OWNER, "gradientTolerance", "should be a number in [0, 1)", o.gradientTolerance);
   }
   if (o.maxSweeps !== undefined && !(Number.isInteger(o.maxSweeps) && o.maxSweeps >= 0)) throw invalidParameter(OWNER, "maxSweeps", "should be a non-negative integer", o.maxSweeps);
-  if (o.seconds !== undefined && !(o.seconds > 0)) throw invalidParameter(OWNER, "seconds", "should be a positive number", o.seconds);
+  if (o.seconds !== undefined) checkSeconds(OWNER, o.seconds, 1);
   const r = o.rank ?? defaultSdpRank(n);
   if (o.initial !== undefined && o.initial.length !== n * r) {
     throw invalidParameter(OWNER, "initial", `should hold n·rank = ${n * r} numbers`, `${o.initial.length} numbers`);

@@ -4,24 +4,24 @@
 // Defaults differ from the paper's (jumps from n/160, tenure up to n/5, directed jumps ≥ 95%):
 // tuned on G1, G14, G22 and G43 at equal move counts, where they were never worse and often better.
 
-import { invalidParameter } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import { Rng } from "../random/prng.js";
-import { checkPartition } from "./evaluate.js";
+import { invalidParameter } from "../../errors.js";
+import type { Graph } from "../../graph/graph.js";
+import { Rng } from "../../random/prng.js";
+import { checkSeed } from "../../random/seed.js";
+import { hasIntegerWeights } from "../../graph/weights.js";
+import { checkPartition } from "../../graph/cut-value.js";
 import { FlipState } from "./flip-state.js";
 import { GainBuckets } from "./gain-buckets.js";
 import {
   checkHeuristicBudget,
-  checkSeed,
-  hasIntegerWeights,
   optimalityThreshold,
   RunLimit,
   type AnytimeOptions,
   type AnytimeSearch,
   type HeuristicBudget,
   searcherRecord,
-} from "./search-budget.js";
-import type { CutRecord, SolverStatus } from "./types.js";
+} from "./anytime.js";
+import type { CutRecord, SolverStatus } from "../types.js";
 
 const OWNER = "breakout search";
 
@@ -95,7 +95,7 @@ export class BreakoutSearcher implements AnytimeSearch {
   constructor(graph: Graph, options: BreakoutSearchOptions = {}) {
     const n = graph.n;
     this.graph = graph;
-    this.seed = checkSeed(OWNER, options.seed);
+    this.seed = checkSeed(OWNER, "seed", options.seed);
     this.rng = new Rng(this.seed);
     this.jumpMin = intOption("jumpMin", options.jumpMin, Math.max(1, Math.round(n / 80)), 1, Math.max(1, n));
     // n/10 as in the published method; small graphs need a floor, or a jump of one move is

@@ -1,18 +1,10 @@
 // Extreme eigenvalues of a graph's adjacency, Laplacian or signless Laplacian matrix: a dense
 // decomposition for small n, Lanczos above, each value with its residual ‖Mu − θu‖ as evidence.
 
-import { invalidParameter } from "../../errors.js";
-import { symmetricEigen } from "../../linalg/dense-eigen.js";
-import { lanczosExtreme, type EigenEnd } from "../../linalg/lanczos.js";
-import {
-  adjacencyOperator,
-  laplacianOperator,
-  operatorToDense,
-  signlessLaplacianOperator,
-  type SymmetricOperator,
-} from "../../linalg/operator.js";
-import { normalize } from "../../linalg/vector.js";
-import type { Graph } from "../graph.js";
+import { invalidParameter } from "../errors.js";
+import type { Graph } from "../graph/graph.js";
+import { lanczosExtreme, type EigenEnd } from "./lanczos.js";
+import { adjacencyOperator, laplacianOperator, signlessLaplacianOperator, type SymmetricOperator } from "./operator.js";
 
 export type GraphMatrix = "adjacency" | "laplacian" | "signless-laplacian";
 
@@ -80,41 +72,14 @@ export function extremeEigenvalues(graph: Graph, options: SpectrumOptions = {}):
   const seed = options.seed ?? 1;
   const op = graphOperator(graph, matrix);
 
-  if (n <= threshold) {
-    const eig = symmetricEigen(operatorToDense(op), n);
-    const values = new Float64Array(k);
-    const residuals = new Float64Array(k);
-    const vectors: Float64Array[] = [];
-    const au = new Float64Array(n);
-    let scale = 0;
-    for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(eig.values[i]));
-    let converged = true;
-    for (let t = 0; t < k; t++) {
-      const idx = which === "largest" ? n - 1 - t : t;
-      const u = eig.vectors.slice(idx * n, (idx + 1) * n);
-      normalize(u);
-      // Keep the solver's eigenvalue; the residual is measured against it.
-      op.apply(u, au);
-      let r2 = 0;
-      for (let i = 0; i < n; i++) {
-        const e = au[i] - eig.values[idx] * u[i];
-        r2 += e * e;
-      }
-      values[t] = eig.values[idx];
-      residuals[t] = Math.sqrt(r2);
-      // A dense solver is accurate to about n·u·‖M‖, which may exceed a tight tolerance.
-      if (residuals[t] > Math.max(tolerance, 1e-15 * n) * scale) converged = false;
-      vectors.push(u);
-    }
-    return { matrix, which, values, residuals, method: "dense", iterations: n, converged, seed, ...(options.vectors ? { vectors } : {}) };
-  }
-  const l = lanczosExtreme(op, { k, which, tolerance, seed, denseBelow: 0 });
+  // One path for both regimes: Lanczos decomposes small operators densely itself.
+  const l = lanczosExtreme(op, { k, which, tolerance, seed, denseBelow: n <= threshold ? n : 0 });
   return {
     matrix,
     which,
     values: l.values,
     residuals: l.residuals,
-    method: "lanczos",
+    method: l.method,
     iterations: l.iterations,
     converged: l.converged,
     seed,

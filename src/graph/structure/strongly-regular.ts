@@ -1,7 +1,7 @@
 // Strongly-regular-graph parameters (n, k, λ, μ) of a graph, or null when it is not strongly regular:
 // k-regular, every adjacent pair with λ common neighbours, every non-adjacent pair with μ.
 
-import type { Graph } from "../graph/graph.js";
+import type { Graph } from "../graph.js";
 
 export interface SrgParameters {
   n: number;

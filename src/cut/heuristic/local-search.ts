@@ -1,20 +1,20 @@
 // Multi-start one-flip local search: random partitions, each climbed to a 1-flip local
 // optimum; keeps the best. An anytime searcher with time and restart budgets.
 
-import type { Graph } from "../graph/graph.js";
-import { Rng } from "../random/prng.js";
+import type { Graph } from "../../graph/graph.js";
+import { Rng } from "../../random/prng.js";
+import { checkSeed } from "../../random/seed.js";
 import { FlipState } from "./flip-state.js";
 import {
   checkHeuristicBudget,
-  checkSeed,
   optimalityThreshold,
   RunLimit,
   type AnytimeOptions,
   type AnytimeSearch,
   type HeuristicBudget,
   searcherRecord,
-} from "./search-budget.js";
-import type { CutRecord, SolverStatus } from "./types.js";
+} from "./anytime.js";
+import type { CutRecord, SolverStatus } from "../types.js";
 
 const OWNER = "local search";
 
@@ -34,7 +34,7 @@ export class MultiStartSearcher implements AnytimeSearch {
 
   constructor(graph: Graph, options: Omit<AnytimeOptions, keyof HeuristicBudget> = {}) {
     this.graph = graph;
-    this.seed = checkSeed(OWNER, options.seed);
+    this.seed = checkSeed(OWNER, "seed", options.seed);
     this.rng = new Rng(this.seed);
     this.state = new FlipState(graph);
     this.bestSide = new Uint8Array(graph.n);

@@ -1,11 +1,12 @@
 // Budgets and stopping rules shared by the anytime cut heuristics (local search, breakout,
 // rank-2): option validation, a cheap deadline check, and the proven-optimum stop.
 
-import { invalidParameter } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import { assertSeed } from "../random/prng.js";
-import { cutValue, type Partition } from "./evaluate.js";
-import type { CutRecord, SolverStatus } from "./types.js";
+import { invalidParameter } from "../../errors.js";
+import type { Graph } from "../../graph/graph.js";
+import { cutValue, floorCutBound, type Partition } from "../../graph/cut-value.js";
+import { hasIntegerWeights } from "../../graph/weights.js";
+import { checkSeconds } from "../../validate.js";
+import type { CutRecord, SolverStatus } from "../types.js";
 
 /** How much more work a `run` call may do. Either or both; omitting both means one second. */
 export interface HeuristicBudget {
@@ -39,33 +40,14 @@ export interface AnytimeSearch {
 export const CLOCK_STRIDE = 4096;
 
 export function checkHeuristicBudget(owner: string, budget: HeuristicBudget): { seconds: number; iterations: number } {
-  const { seconds, iterations } = budget;
-  if (seconds !== undefined && !(typeof seconds === "number" && seconds > 0 && !Number.isNaN(seconds))) {
-    throw invalidParameter(owner, "seconds", "should be a positive number of seconds", seconds);
-  }
+  const { iterations } = budget;
+  // Infinity is allowed: an iteration count then ends the run.
+  const seconds = budget.seconds === Infinity || budget.seconds === undefined ? budget.seconds : checkSeconds(owner, budget.seconds, 1);
   if (iterations !== undefined && !(Number.isInteger(iterations) && iterations > 0)) {
     throw invalidParameter(owner, "iterations", "should be a positive integer", iterations);
   }
   if (seconds === undefined && iterations === undefined) return { seconds: 1, iterations: Infinity };
   return { seconds: seconds ?? Infinity, iterations: iterations ?? Infinity };
-}
-
-export function checkSeed(owner: string, seed: number | undefined): number {
-  const s = seed ?? 0;
-  try {
-    assertSeed(s);
-  } catch {
-    throw invalidParameter(owner, "seed", "should be an integer between 0 and 4294967295", seed);
-  }
-  return s;
-}
-
-/** True when every weight is an integer (so gains and cut values are exact in doubles). */
-export function hasIntegerWeights(graph: Graph): boolean {
-  const w = graph.weights;
-  if (w === null) return true;
-  for (let i = 0; i < w.length; i++) if (!Number.isInteger(w[i])) return false;
-  return true;
 }
 
 /**
@@ -77,7 +59,7 @@ export function optimalityThreshold(owner: string, graph: Graph, upperBound: num
   if (typeof upperBound !== "number" || !Number.isFinite(upperBound)) {
     throw invalidParameter(owner, "upperBound", "should be a finite number", upperBound);
   }
-  return hasIntegerWeights(graph) ? Math.floor(upperBound + 1e-9) : upperBound;
+  return hasIntegerWeights(graph) ? floorCutBound(upperBound) : upperBound;
 }
 
 /** Tolerance below which a gain counts as zero: exact for integer weights, else relative to the weights. */

@@ -2,13 +2,13 @@
 // Σ_ij w_ij cos(θ_i − θ_j) by gradient descent, the best cut over all half-circle sweeps of the
 // angles, a 1-flip polish, and restarts from the perturbed best cut.
 
-import { invalidParameter } from "../errors.js";
-import type { Graph } from "../graph/graph.js";
-import { Rng } from "../random/prng.js";
+import { invalidParameter } from "../../errors.js";
+import type { Graph } from "../../graph/graph.js";
+import { Rng } from "../../random/prng.js";
+import { checkSeed } from "../../random/seed.js";
 import { FlipState } from "./flip-state.js";
 import {
   checkHeuristicBudget,
-  checkSeed,
   CLOCK_STRIDE,
   optimalityThreshold,
   RunLimit,
@@ -16,8 +16,8 @@ import {
   type AnytimeSearch,
   type HeuristicBudget,
   searcherRecord,
-} from "./search-budget.js";
-import type { CutRecord, SolverStatus } from "./types.js";
+} from "./anytime.js";
+import type { CutRecord, SolverStatus } from "../types.js";
 
 const OWNER = "rank-2 heuristic";
 const TWO_PI = 2 * Math.PI;
@@ -100,7 +100,7 @@ export class Rank2Searcher implements AnytimeSearch {
   constructor(graph: Graph, options: Rank2SearchOptions = {}) {
     const n = graph.n;
     this.graph = graph;
-    this.seed = checkSeed(OWNER, options.seed);
+    this.seed = checkSeed(OWNER, "seed", options.seed);
     this.rng = new Rng(this.seed);
     const ms = options.maxSteps ?? 300;
     if (!Number.isInteger(ms) || ms < 1) throw invalidParameter(OWNER, "maxSteps", "should be a positive integer", ms);

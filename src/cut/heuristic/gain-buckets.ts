@@ -1,7 +1,7 @@
 // Bucket index over flip gains, so the best (or best eligible) move is found without a full
 // scan. Buckets are circular doubly linked lists in typed arrays; no allocation after construction.
 
-import type { Rng } from "../random/prng.js";
+import type { Rng } from "../../random/prng.js";
 
 /**
  * Gains are mapped to buckets monotonically: b = ⌊(g + G)·s⌋ with G the largest possible

@@ -1,0 +1,54 @@
+// What the exact max-cut searches share: their result record and options, progress reports,
+// and the pruning margin that weights decide.
+
+import type { Graph } from "../../graph/graph.js";
+import { hasIntegerWeights } from "../../graph/weights.js";
+import type { CutRecord } from "../types.js";
+
+/** What an exact search returns: a cut (value = cutValue(partition)) plus a proven upper bound. */
+export interface ExactCutRecord extends CutRecord {
+  status: "optimal" | "timeout";
+  /** Proven upper bound on the max cut: equal to `value` when optimal, the best bracket so far on timeout. */
+  upper: number;
+  /** Search nodes visited (outer Gray steps, or branch-and-bound nodes), for the record. */
+  nodes: number;
+}
+
+export interface ExactProgress {
+  /** Best cut of the whole graph known so far (-Infinity before the first). */
+  lower: number;
+  nodes: number;
+  seconds: number;
+}
+
+export interface ExactOptions {
+  /** Time budget in seconds (default 60). On expiry the record has status "timeout" and a valid bracket. */
+  seconds?: number;
+  /** Seed for the randomised incumbent heuristic (default 0); recorded in the result. */
+  seed?: number;
+  /** Called about every half second during a long search. */
+  onProgress?: (p: ExactProgress) => void;
+}
+
+/** Seconds between `onProgress` calls. */
+export const PROGRESS_INTERVAL = 0.5;
+
+export const DEFAULT_EXACT_SECONDS = 60;
+
+/**
+ * The smallest improvement worth searching for. With integer weights a better cut is at least
+ * 1 better; otherwise a relative tolerance absorbs the rounding of incremental sums, so
+ * "optimal" then means optimal up to that tolerance (recorded in the result details).
+ */
+export function improvementMargin(graph: Graph): number {
+  if (hasIntegerWeights(graph)) return 1;
+  let abs = 0;
+  const w = graph.weights!;
+  for (let i = 0; i < w.length; i++) abs += Math.abs(w[i]);
+  return Math.max(1e-12, 1e-11 * abs);
+}
+
+/** Monotonic clock in seconds. */
+export function nowSeconds(): number {
+  return performance.now() / 1000;
+}
