@@ -67,7 +67,7 @@ describe("bracket: never crosses the optimum", () => {
       const n = 2 + rng.nextInt(9);
       const weight = t % 5 === 3 ? (r: Rng) => (r.nextInt(2) ? 1 : -1) : t % 5 === 4 ? (r: Rng) => r.nextInt(5) + 1 : undefined;
       const g = randomGraph(n, rng.nextFloat(), rng, { weight });
-      const r = bracket(g, { method: t % 50 === 0 ? "auto" : "quick", seed: t });
+      const r = bracket(g, { effort: t % 50 === 0 ? "auto" : "quick", solverSeed: t });
       const opt = exactMaxCut(g).value;
       expect(r.lower).toBeLessThanOrEqual(opt);
       expect(r.upper).toBeGreaterThanOrEqual(opt);
@@ -106,12 +106,12 @@ describe("bracket: never crosses the optimum", () => {
 
   it("heuristic brackets on larger graphs verify, with proven bounds", () => {
     const g = family("gnp:n=150,p=0.05,seed=3");
-    const r = bracket(g, { method: "heuristic", seconds: 1.5, seed: 7 });
+    const r = bracket(g, { effort: "heuristic", seconds: 1.5, solverSeed: 7 });
     expect(r.lower).toBeLessThanOrEqual(r.upper);
     // Any 1-flip local optimum cuts at least half of every vertex's edges, so ≥ m/2 (common knowledge).
     expect(r.lower).toBeGreaterThanOrEqual(g.m / 2);
     expect(r.certificate.kind).toBe("psd-dual");
-    expect(r.upperProven).toBe(true);
+    expect(r.upperKind).toBe("proven");
     expect(r.graphHash).toBe(graphHash(g));
     const back = roundTrip(r);
     expect(verifyBracket(g, back).ok).toBe(true);
@@ -125,12 +125,12 @@ describe("bracket: closes by certificate alone where the SDP is integral-tight",
     // 10·5/4); C5: (25 + 5√5)/8 (Goemans & Williamson 1995). Max cuts 12 and 4 (from memory).
     for (const [spec, opt] of [["petersen", 12], ["cycle:n=5", 4]] as const) {
       const g = family(spec);
-      const r = bracket(g, { method: "heuristic", seconds: 2 });
+      const r = bracket(g, { effort: "heuristic", seconds: 2 });
       expect(r.lower).toBe(opt);
       expect(r.upper).toBe(opt);
       expect(r.exact).toBe(true);
       expect(r.certificate.kind).toBe("psd-dual");
-      expect(r.certificate.floored).toBe(true);
+      expect(r.certificate.roundedDown).toBe(true);
       expect(verifyBracket(g, roundTrip(r)).ok).toBe(true);
     }
   });
@@ -140,7 +140,7 @@ describe("bracket: record and verifier details", () => {
   it("reports monotone progress and keeps surplus = bound − W/2", () => {
     const g = family("gnp:n=60,p=0.2,seed=1");
     const seen: BracketProgress[] = [];
-    const r = bracket(g, { method: "heuristic", seconds: 1, onProgress: (p) => seen.push(p) });
+    const r = bracket(g, { effort: "heuristic", seconds: 1, onProgress: (p) => seen.push(p) });
     expect(seen.length).toBeGreaterThan(2);
     for (let i = 1; i < seen.length; i++) {
       expect(seen[i].lower).toBeGreaterThanOrEqual(seen[i - 1].lower);
@@ -178,8 +178,8 @@ describe("bracket: record and verifier details", () => {
     delete good.certificate;
     expect(() => parseBracketRecord(good, "x.json")).toThrow(/certificate/);
     expect(() => bracket(family("petersen"), { seconds: 0 })).toThrow(/seconds/);
-    expect(() => bracket(family("petersen"), { method: "fast" as never })).toThrow(/method/);
-    expect(() => bracket(family("petersen"), { seed: -1 })).toThrow(/seed/);
+    expect(() => bracket(family("petersen"), { effort: "fast" as never })).toThrow(/effort/);
+    expect(() => bracket(family("petersen"), { solverSeed: -1 })).toThrow(/solverSeed/);
   });
 });
 
@@ -225,32 +225,32 @@ describe("bracket: review fixes", () => {
     // Max cut of K_n, n even, is n²/4 (common practice, no source). With 0.5 s the eigenvalue
     // bound is a Lanczos estimate (the dense proof does not fit 5 % of the budget).
     const g = family("complete:n=400");
-    const r = bracket(g, { method: "quick", seconds: 0.5 });
+    const r = bracket(g, { effort: "quick", seconds: 0.5 });
     expect(r.lower).toBeLessThanOrEqual(40000);
     expect(r.upper).toBeGreaterThanOrEqual(r.lower);
-    if (r.exact) expect(r.upperProven).toBe(true);
+    if (r.exact) expect(r.upperKind).toBe("proven");
     expect(verifyBracket(g, roundTrip(r)).ok).toBe(true);
   });
 
   it("unproven: verify rejects an exact claim resting on an estimated shift", () => {
     const g = family("petersen");
-    const r = roundTrip(bracket(g, { method: "heuristic", seconds: 2 }));
+    const r = roundTrip(bracket(g, { effort: "heuristic", seconds: 2 }));
     expect(r.certificate.kind).toBe("psd-dual");
     expect(r.exact).toBe(true);
     const bad: BracketRecord = JSON.parse(JSON.stringify(r));
-    if (bad.certificate.kind === "psd-dual") bad.certificate.shiftMethod = "lanczos-ritz-residual";
-    bad.upperProven = false;
+    if (bad.certificate.kind === "psd-dual") bad.certificate.shiftProof = "lanczos-estimate";
+    bad.upperKind = "estimate";
     expect(failed(g, bad)).toContain("proof");
   });
 });
 
 describe("bracket: a stopped exact search is re-proven by verify", () => {
-  it("a search-bound record (bound rounded down, integer weights) verifies with a larger budget", () => {
+  it("an unfinished-search record (bound rounded down, integer weights) verifies with a larger budget", () => {
     // Oracle: verify's own exact search from the record's partition (common practice, no source).
     const g = family("gnp:n=70,p=0.3,seed=1");
-    const base = bracket(g, { method: "heuristic", seconds: 0.5, seed: 3 });
-    const stopped = exactMaxCut(g, { seconds: 0.5, seed: 3, initial: base.partition });
-    expect(stopped.status).toBe("timeout");
+    const base = bracket(g, { effort: "heuristic", seconds: 0.5, solverSeed: 3 });
+    const stopped = exactMaxCut(g, { seconds: 0.5, solverSeed: 3, initial: base.partition });
+    expect(stopped.status).toBe("time-limit");
     const upper = Math.floor(stopped.upper + 1e-9);
     const W = g.totalWeight;
     const record: BracketRecord = {
@@ -258,9 +258,9 @@ describe("bracket: a stopped exact search is re-proven by verify", () => {
       upper,
       surplusUpper: upper - W / 2,
       exact: false,
-      upperProven: true,
+      upperKind: "proven",
       upperMethod: stopped.method,
-      certificate: { kind: "search-bound", search: stopped.method, nodes: stopped.nodes, floored: true, tolerance: 0 },
+      certificate: { kind: "unfinished-search", search: stopped.method, graySteps: stopped.graySteps, branchNodes: stopped.branchNodes, roundedDown: true, tolerance: 0 },
     };
     const v = verifyBracket(g, roundTrip(record), { seconds: 5 });
     expect(v.checks.filter((c) => !c.ok)).toEqual([]);

@@ -34,7 +34,7 @@ describe("halfplus cut", () => {
   });
 
   it("--progress reports on stderr only; stdout stays one JSON line", () => {
-    const r = halfplus(["cut", "gnp:n=70,p=0.1,seed=2", "--json", "--progress", "--seconds", "1", "--method", "heuristic"]);
+    const r = halfplus(["cut", "gnp:n=70,p=0.1,seed=2", "--json", "--progress", "--seconds", "1", "--effort", "heuristic"]);
     expect(r.code).toBe(0);
     expect(r.stderr).toMatch(/gnp:n=70/);
     const lines = r.stdout.trim().split("\n");
@@ -45,8 +45,10 @@ describe("halfplus cut", () => {
   it("bad options and sources exit 2 with one line", () => {
     for (const args of [
       ["cut", "petersen", "--seconds", "0"],
-      ["cut", "petersen", "--method", "fastest"],
-      ["cut", "petersen", "--seed", "-3"],
+      ["cut", "petersen", "--effort", "fastest"],
+      ["cut", "petersen", "--solver-seed", "-3"],
+      ["cut", "petersen", "--seed", "3"],
+      ["cut", "petersen", "--method", "exact"],
       ["cut", "no-such-graph-file.g6"],
       ["cut"],
     ]) {
@@ -57,7 +59,7 @@ describe("halfplus cut", () => {
     }
   });
 
-  it.skipIf(!hasTool("nauty-geng"))("reads a graph6 stream: one record per graph; verify matches them to --graph by index", () => {
+  it.skipIf(!hasTool("nauty-geng"))("reads a graph6 stream: one record per graph; verify matches them to --graph by position", () => {
     // nauty-geng -c 5 emits the 21 connected graphs on 5 vertices (OEIS A001349).
     const g6 = spawnSync("nauty-geng", ["-cq", "5"]).stdout;
     const file = join(dir, "c5.g6");
@@ -67,7 +69,7 @@ describe("halfplus cut", () => {
     const recs = r.stdout.trim().split("\n").map((l) => JSON.parse(l));
     expect(recs).toHaveLength(21);
     expect(recs.every((x) => x.exact && x.source.path === "-")).toBe(true);
-    expect(recs.map((x) => x.source.index)).toEqual([...Array(21).keys()]);
+    expect(recs.map((x) => x.source.position)).toEqual(Array.from({ length: 21 }, (_, i) => i + 1));
     const recFile = join(dir, "c5.json");
     writeFileSync(recFile, r.stdout);
     const v = halfplus(["verify", recFile, "--graph", file]);
@@ -103,7 +105,7 @@ describe("halfplus verify", () => {
   });
 
   it("a heuristic record with a dual certificate verifies, and a lowered shift is caught", () => {
-    const r = halfplus(["cut", "gnp:n=80,p=0.2,seed=5", "--json", "--method", "heuristic", "--seconds", "1"]);
+    const r = halfplus(["cut", "gnp:n=80,p=0.2,seed=5", "--json", "--effort", "heuristic", "--seconds", "1"]);
     expect(r.code).toBe(0);
     const rec = JSON.parse(r.stdout);
     expect(rec.certificate.kind).toBe("psd-dual");
@@ -149,5 +151,78 @@ describe("halfplus verify: malformed `source`", () => {
         expect(v.stderr).toMatch(/source/);
       }
     }
+  });
+});
+
+describe("records that stand alone", () => {
+  it("a record made from standard input verifies by itself: printf 'DQc\\n' | cut - --json > r.jsonl && verify r.jsonl", () => {
+    // DQc is the 5-cycle in graph6 (nauty's formats.txt example); C5 has max cut 4 (common knowledge).
+    const r = halfplus(["cut", "-", "--json"], "DQc\n");
+    expect(r.code).toBe(0);
+    const rec = JSON.parse(r.stdout);
+    expect(rec).toMatchObject({ kind: "halfplus/bracket", version: 2, lower: 4, upper: 4, exact: true, upperKind: "proven", effort: "auto", solverSeed: 0 });
+    expect(rec.source).toMatchObject({ path: "-", position: 1, format: "graph6", embedded: { format: "graph6", text: "DQc" } });
+    expect(rec.graphHash).toMatch(/^sha256:[0-9a-f]{64}$/);
+    const f = join(dir, "r.jsonl");
+    writeFileSync(f, r.stdout);
+    const v = halfplus(["verify", f]);
+    expect(v.stderr).toBe("");
+    expect(v.code).toBe(0);
+    expect(v.stdout).toMatch(/record 1 \(stdin\): verified: max cut = 4/);
+    // Records read from standard input too, and a tampered embedded graph is caught by its hash.
+    expect(halfplus(["verify", "-"], r.stdout).code).toBe(0);
+    const other = { ...rec, source: { ...rec.source, embedded: { format: "graph6", text: "D~{" } } }; // K5 (formats.txt)
+    const t = halfplus(["verify", "-", "--json"], JSON.stringify(other));
+    expect(t.code).toBe(1);
+    expect(JSON.parse(t.stdout).checks.find((c: { name: string }) => c.name === "graph").ok).toBe(false);
+  });
+
+  it("a graph summary and a bracket of the same graph share the envelope and join by hash", () => {
+    const s = JSON.parse(halfplus(["graph", "kneser:n=6,k=2", "--json"]).stdout);
+    const c = JSON.parse(halfplus(["cut", "kneser:n=6,k=2", "--json", "--seconds", "2"]).stdout);
+    expect(s.kind).toBe("halfplus/graph-summary");
+    expect(c.kind).toBe("halfplus/bracket");
+    for (const rec of [s, c]) {
+      expect(Number.isInteger(rec.version)).toBe(true);
+      expect(rec.source).toMatchObject({ spec: "kneser:n=6,k=2", graphSeed: null });
+      expect(Array.isArray(rec.notes)).toBe(true);
+    }
+    expect(s.graphHash).toBe(c.graphHash);
+  });
+
+  it("two seeds: --graph-seed picks the random graph (source.graphSeed), --solver-seed the solvers (solverSeed)", () => {
+    const a = JSON.parse(halfplus(["cut", "gnp:n=40,p=0.2", "--graph-seed", "3", "--solver-seed", "5", "--json", "--seconds", "1"]).stdout);
+    const b = JSON.parse(halfplus(["cut", "gnp:n=40,p=0.2,seed=3", "--json", "--seconds", "1"]).stdout);
+    expect(a.source).toMatchObject({ spec: "gnp:n=40,p=0.2,seed=3", graphSeed: 3 });
+    expect(a.solverSeed).toBe(5);
+    expect(a.graphHash).toBe(b.graphHash);
+    const unseeded = JSON.parse(halfplus(["cut", "gnp:n=40,p=0.2", "--json", "--seconds", "1"]).stdout);
+    expect(unseeded.source.graphSeed).toBe(0);
+    expect(unseeded.notes.join(" ")).toMatch(/no seed given: using graph seed 0/);
+    for (const [args, re] of [
+      [["cut", "petersen", "--seed", "3"], /--solver-seed.*--graph-seed/],
+      [["cut", "gnp:n=40,p=0.2,seed=1", "--graph-seed", "2"], /seed=1 but --graph-seed says 2/],
+      [["cut", "petersen", "--graph-seed", "2"], /random families, and petersen is not one/],
+    ] as const) {
+      const r = halfplus([...args]);
+      expect(r.code, args.join(" ")).toBe(2);
+      expect(r.stderr.trim().split("\n")).toHaveLength(1);
+      expect(r.stderr).toMatch(re);
+    }
+  });
+
+  it("every command's --help explains its options, and cut's names both seeds", () => {
+    const top = halfplus(["--help"]);
+    expect(top.code).toBe(0);
+    for (const cmd of ["families", "graph", "encode", "cut", "verify", "sdp-export"]) {
+      expect(top.stdout).toContain(`  ${cmd} `);
+      const h = halfplus([cmd, "--help"]);
+      expect(h.code, cmd).toBe(0);
+      expect(h.stdout, cmd).toMatch(new RegExp(`^halfplus ${cmd}`));
+    }
+    const cut = halfplus(["cut", "--help"]).stdout;
+    expect(cut).toMatch(/--solver-seed N/);
+    expect(cut).toMatch(/--graph-seed N/);
+    expect(cut).toMatch(/--effort E/);
   });
 });

@@ -135,7 +135,7 @@ describe("exact max cut: timeouts give valid brackets", () => {
     // K_n max cut ⌊n²/4⌋ (from memory); the search cannot finish in 0.2 s, so it must report a bracket.
     const g = family("complete:n=44");
     const r = branchAndBoundMaxCut(g, { seconds: 0.2 });
-    expect(r.status).toBe("timeout");
+    expect(r.status).toBe("time-limit");
     expectConsistent(g, r);
     expect(r.value).toBeLessThanOrEqual(484);
     expect(r.upper).toBeGreaterThanOrEqual(484);
@@ -145,7 +145,7 @@ describe("exact max cut: timeouts give valid brackets", () => {
   it("Gray code on K_34 stopped early brackets 289", () => {
     const g = family("complete:n=34");
     const r = grayCodeMaxCut(g, { seconds: 0.1 });
-    expect(r.status).toBe("timeout");
+    expect(r.status).toBe("time-limit");
     expectConsistent(g, r);
     expect(r.value).toBeLessThanOrEqual(289);
     expect(r.upper).toBeGreaterThanOrEqual(289);
@@ -157,7 +157,7 @@ describe("exact max cut: timeouts give valid brackets", () => {
     for (let c = 0; c < 2; c++) for (let i = 0; i < 40; i++) for (let j = i + 1; j < 40; j++) us.push(40 * c + i), vs.push(40 * c + j);
     const g = buildGraph(80, us, vs).graph;
     const r = exactMaxCut(g, { seconds: 0.2 });
-    expect(r.status).toBe("timeout");
+    expect(r.status).toBe("time-limit");
     expectConsistent(g, r);
     expect(r.value).toBeLessThanOrEqual(800);
     expect(r.upper).toBeGreaterThanOrEqual(800);
@@ -169,7 +169,7 @@ describe("exact max cut: bad input", () => {
     const g = family("petersen");
     expect(() => exactMaxCut(g, { seconds: 0 })).toThrow(InputError);
     expect(() => exactMaxCut(g, { seconds: -1 })).toThrow(/seconds/);
-    expect(() => exactMaxCut(g, { seed: 1.5 })).toThrow(/seed/);
+    expect(() => exactMaxCut(g, { solverSeed: 1.5 })).toThrow(/solverSeed/);
     expect(() => grayCodeMaxCut(g, { blockSize: 10 })).toThrow(/blockSize/);
     expect(() => branchAndBoundMaxCut(g, { blockSize: -1 })).toThrow(/blockSize/);
     expect(() => grayCodeMaxCut(family("complete:n=35"))).toThrow(/at most 34/);

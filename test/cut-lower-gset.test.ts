@@ -19,20 +19,20 @@ function bestKnown(name: string): number {
 
 describe.skipIf(!present)("breakout search on benchmark graphs (best-known.csv)", () => {
   it("G48 (toroidal grid, bipartite): cuts all 6000 edges and proves it with upperBound = m", () => {
-    const g = parseGset(readFileSync(join(GSET, "G48.txt")), { source: "G48.txt" }).graph;
+    const g = parseGset(readFileSync(join(GSET, "G48.txt")), { file: "G48.txt" }).graph;
     // best-known.csv: 6000; the graph is bipartite (README), so the max cut is m.
     expect(bestKnown("G48")).toBe(g.m);
-    const r = breakoutSearch(g, { iterations: 200000, seed: 1, upperBound: g.m });
+    const r = breakoutSearch(g, { iterations: 200000, solverSeed: 1, upperBound: g.m });
     expect(r.value).toBe(cutValue(g, r.partition));
     expect(r.value).toBe(6000);
     expect(r.status).toBe("optimal");
   });
 
   it("G11 (toroidal, ±1 weights): within 0.5% of the best known 564 after 60000 rounds", () => {
-    const g = parseGset(readFileSync(join(GSET, "G11.txt")), { source: "G11.txt" }).graph;
+    const g = parseGset(readFileSync(join(GSET, "G11.txt")), { file: "G11.txt" }).graph;
     expect(g.weighted).toBe(true);
     const ref = bestKnown("G11");
-    const r = breakoutSearch(g, { iterations: 60000, seed: 1 });
+    const r = breakoutSearch(g, { iterations: 60000, solverSeed: 1 });
     expect(r.value).toBe(cutValue(g, r.partition));
     expect(r.value).toBeGreaterThanOrEqual(Math.ceil(0.995 * ref));
   });

@@ -45,7 +45,7 @@ describe("hyperplane rounding (Goemans–Williamson)", () => {
     }
     const sdp = (5 * (1 - Math.cos((4 * Math.PI) / 5))) / 2;
     expect(sdp).toBeCloseTo((25 + 5 * Math.sqrt(5)) / 8, 12);
-    const r = hyperplaneRound(g, vectors, 2, { trials: 400, seed: 7, polish: false });
+    const r = hyperplaneRound(g, vectors, 2, { trials: 400, solverSeed: 7, polish: false });
     expect(r.value).toBe(cutValue(g, r.partition));
     expect(r.details?.expectedCut).toBeCloseTo(4, 12); // 5 edges × (4π/5)/π
     expect(r.details?.meanCut as number).toBeGreaterThanOrEqual(0.87856 * sdp);
@@ -62,7 +62,7 @@ describe("hyperplane rounding (Goemans–Williamson)", () => {
     for (let i = 0; i < vectors.length; i++) vectors[i] = rng.nextNormal();
     const expected = hyperplaneExpectedCut(g, vectors, 3);
     const trials = 3000;
-    const rec = hyperplaneRound(g, vectors, 3, { trials, seed: 3, polish: false });
+    const rec = hyperplaneRound(g, vectors, 3, { trials, solverSeed: 3, polish: false });
     // Re-simulate to get the sample standard deviation.
     const sim = new Rng(99);
     let s = 0, s2 = 0;
@@ -85,12 +85,12 @@ describe("hyperplane rounding (Goemans–Williamson)", () => {
     const g = graphFromEdges(40, randomEdges(40, 0.2, rng));
     const vectors = new Float64Array(40 * 4);
     for (let i = 0; i < vectors.length; i++) vectors[i] = rng.nextNormal();
-    const raw = hyperplaneRound(g, vectors, 4, { trials: 30, seed: 1, polish: false });
-    const pol = hyperplaneRound(g, vectors, 4, { trials: 30, seed: 1, polish: true });
+    const raw = hyperplaneRound(g, vectors, 4, { trials: 30, solverSeed: 1, polish: false });
+    const pol = hyperplaneRound(g, vectors, 4, { trials: 30, solverSeed: 1, polish: true });
     expect(pol.value).toBeGreaterThanOrEqual(raw.value);
     expect(pol.value).toBe(cutValue(g, pol.partition));
     expect(raw.details?.bestRoundedCut).toBe(raw.value);
-    const again = hyperplaneRound(g, vectors, 4, { trials: 30, seed: 1, polish: true });
+    const again = hyperplaneRound(g, vectors, 4, { trials: 30, solverSeed: 1, polish: true });
     expect(Array.from(again.partition)).toEqual(Array.from(pol.partition));
   });
 
@@ -174,7 +174,7 @@ describe("the explicit vector method", () => {
       expect(gu.surplus).toBeCloseTo(sqrtDegreeSum(g), 12);
       expect(gu.overlapTerm).toBe(0);
       const trials = 4000;
-      const rec = vectorMethodRound(g, { trials, seed: 17 });
+      const rec = vectorMethodRound(g, { trials, solverSeed: 17 });
       const d = rec.details!;
       const expected = d.expectedSurplus as number;
       expect(expected).toBeGreaterThanOrEqual((gu.surplus as number) - 1e-12);
@@ -227,7 +227,7 @@ describe("the explicit vector method", () => {
         for (let k = 0; k < g.n; k++) d += dense[i][k] * dense[j][k];
         expect(vectorMethodCosine(resolved, i, j)).toBeCloseTo(d, 12);
       }
-      const rec = vectorMethodRound(g, { sets: sub, eps: e2, trials: 3000, seed: 4 });
+      const rec = vectorMethodRound(g, { sets: sub, eps: e2, trials: 3000, solverSeed: 4 });
       expect(Math.abs((rec.details!.meanSurplus as number) - (exp2 - g.m / 2))).toBeLessThan(4 * (rec.details!.stdErr as number));
     });
   }
@@ -239,7 +239,7 @@ describe("the explicit vector method", () => {
     const gu = vectorMethodGuarantee(g);
     expect(gu.applies).toBe(false);
     expect(gu.surplus).toBeNull();
-    const rec = vectorMethodRound(g, { trials: 3000, seed: 2, polish: true });
+    const rec = vectorMethodRound(g, { trials: 3000, solverSeed: 2, polish: true });
     expect(rec.details!.guarantee).toBeNull();
     expect(rec.value).toBe(cutValue(g, rec.partition));
     const sets = Array.from({ length: 20 }, (_, i) => Array.from(g.neighborsOf(i)));
@@ -250,10 +250,10 @@ describe("the explicit vector method", () => {
 
   it("is deterministic per seed, and polishing only raises the best cut", () => {
     const g = petersen();
-    const a = vectorMethodRound(g, { trials: 50, seed: 9 });
-    const b = vectorMethodRound(g, { trials: 50, seed: 9 });
+    const a = vectorMethodRound(g, { trials: 50, solverSeed: 9 });
+    const b = vectorMethodRound(g, { trials: 50, solverSeed: 9 });
     expect(Array.from(a.partition)).toEqual(Array.from(b.partition));
-    const c = vectorMethodRound(g, { trials: 50, seed: 9, polish: true });
+    const c = vectorMethodRound(g, { trials: 50, solverSeed: 9, polish: true });
     expect(c.value).toBeGreaterThanOrEqual(a.value);
     expect(c.details!.meanSurplus).toBe(a.details!.meanSurplus);
   });

@@ -80,9 +80,9 @@ describe("known optima of named graphs", () => {
   ];
   for (const [name, g, opt] of cases) {
     it(`${name}: breakout, rank-2 and multi-start local search reach ${opt}`, () => {
-      const b = breakoutSearch(g, { iterations: 2000, seed: 1 });
-      const r = rank2Search(g, { iterations: 30, seed: 1 });
-      const l = localSearch(g, { iterations: 300, seed: 1 });
+      const b = breakoutSearch(g, { iterations: 2000, solverSeed: 1 });
+      const r = rank2Search(g, { iterations: 30, solverSeed: 1 });
+      const l = localSearch(g, { iterations: 300, solverSeed: 1 });
       for (const rec of [b, r, l]) {
         expectSound(g, rec);
         expect(rec.value).toBe(opt);
@@ -93,9 +93,9 @@ describe("known optima of named graphs", () => {
   it("stops with status optimal when a proven upper bound is reached", () => {
     const g = petersen();
     for (const rec of [
-      breakoutSearch(g, { iterations: 100000, upperBound: 12, seed: 2 }),
-      rank2Search(g, { iterations: 100000, upperBound: 12.5, seed: 2 }),
-      localSearch(g, { iterations: 100000, upperBound: 12, seed: 2 }),
+      breakoutSearch(g, { iterations: 100000, upperBound: 12, solverSeed: 2 }),
+      rank2Search(g, { iterations: 100000, upperBound: 12.5, solverSeed: 2 }),
+      localSearch(g, { iterations: 100000, upperBound: 12, solverSeed: 2 }),
     ]) {
       expect(rec.status).toBe("optimal");
       expect(rec.value).toBe(12);
@@ -116,7 +116,7 @@ describe("against brute force on random small graphs", () => {
   it("breakout finds the optimum on (almost) all of 40 graphs with n ≤ 16, weighted and not", () => {
     let hits = 0;
     graphs.forEach((g, i) => {
-      const r = breakoutSearch(g, { iterations: 3000, seed: i });
+      const r = breakoutSearch(g, { iterations: 3000, solverSeed: i });
       expectSound(g, r);
       expect(r.value).toBeLessThanOrEqual(optima[i]);
       if (r.value === optima[i]) hits++;
@@ -127,7 +127,7 @@ describe("against brute force on random small graphs", () => {
   it("rank-2 and multi-start never exceed the optimum and mostly reach it", () => {
     let hits = 0;
     graphs.forEach((g, i) => {
-      for (const r of [rank2Search(g, { iterations: 40, seed: i }), localSearch(g, { iterations: 200, seed: i })]) {
+      for (const r of [rank2Search(g, { iterations: 40, solverSeed: i }), localSearch(g, { iterations: 200, solverSeed: i })]) {
         expectSound(g, r);
         expect(r.value).toBeLessThanOrEqual(optima[i]);
         if (r.value === optima[i]) hits++;
@@ -142,7 +142,7 @@ describe("against brute force on random small graphs", () => {
     for (let i = 0; i < 14; i++) for (let j = i + 1; j < 14; j++) if (r0.nextFloat() < 0.5) e.push([i, j, r0.nextNormal()]);
     const g = graphFromEdges(14, e);
     const opt = bruteForceMaxCut(g);
-    for (const r of [breakoutSearch(g, { iterations: 3000, seed: 1 }), rank2Search(g, { iterations: 40, seed: 1 }), localSearch(g, { iterations: 300, seed: 1 })]) {
+    for (const r of [breakoutSearch(g, { iterations: 3000, solverSeed: 1 }), rank2Search(g, { iterations: 40, solverSeed: 1 }), localSearch(g, { iterations: 300, solverSeed: 1 })]) {
       expectSound(g, r);
       expect(r.value).toBeLessThanOrEqual(opt + 1e-9);
       expect(r.value).toBeGreaterThan(opt - 1e-9 - 0.05 * Math.abs(opt));
@@ -155,8 +155,8 @@ describe("anytime searchers", () => {
 
   it("report improvements through onImprove and keep best() consistent between runs", () => {
     const seen: number[] = [];
-    const s = new BreakoutSearcher(g, { seed: 5, onImprove: (v) => seen.push(v) });
-    expect(s.run({ iterations: 50 })).toBe("budget");
+    const s = new BreakoutSearcher(g, { solverSeed: 5, onImprove: (v) => seen.push(v) });
+    expect(s.run({ iterations: 50 })).toBe("iteration-limit");
     const first = s.best();
     expectSound(g, first);
     expect(seen.at(-1)).toBe(first.value);
@@ -169,26 +169,26 @@ describe("anytime searchers", () => {
   });
 
   it("stop on a time budget with status timeout", () => {
-    for (const s of [new BreakoutSearcher(g, { seed: 1 }), new Rank2Searcher(g, { seed: 1 }), new MultiStartSearcher(g, { seed: 1 })]) {
+    for (const s of [new BreakoutSearcher(g, { solverSeed: 1 }), new Rank2Searcher(g, { solverSeed: 1 }), new MultiStartSearcher(g, { solverSeed: 1 })]) {
       const t0 = performance.now();
-      expect(s.run({ seconds: 0.05 })).toBe("timeout");
+      expect(s.run({ seconds: 0.05 })).toBe("time-limit");
       expect(performance.now() - t0).toBeLessThan(1000);
       expectSound(g, s.best());
-      expect(s.best().status).toBe("timeout");
+      expect(s.best().status).toBe("time-limit");
     }
   });
 
   it("are deterministic: same seed, same partition", () => {
-    const a = breakoutSearch(g, { iterations: 300, seed: 42 });
-    const b = breakoutSearch(g, { iterations: 300, seed: 42 });
+    const a = breakoutSearch(g, { iterations: 300, solverSeed: 42 });
+    const b = breakoutSearch(g, { iterations: 300, solverSeed: 42 });
     expect(Array.from(a.partition)).toEqual(Array.from(b.partition));
-    const c = rank2Search(g, { iterations: 5, seed: 42 });
-    const d = rank2Search(g, { iterations: 5, seed: 42 });
+    const c = rank2Search(g, { iterations: 5, solverSeed: 42 });
+    const d = rank2Search(g, { iterations: 5, solverSeed: 42 });
     expect(Array.from(c.partition)).toEqual(Array.from(d.partition));
-    const e = localSearch(g, { iterations: 20, seed: 42 });
-    const f = localSearch(g, { iterations: 20, seed: 42 });
+    const e = localSearch(g, { iterations: 20, solverSeed: 42 });
+    const f = localSearch(g, { iterations: 20, solverSeed: 42 });
     expect(Array.from(e.partition)).toEqual(Array.from(f.partition));
-    expect(a.seed).toBe(42);
+    expect(a.solverSeed).toBe(42);
   });
 
   it("handle edgeless and empty graphs", () => {
@@ -207,7 +207,7 @@ describe("input errors", () => {
     expect(() => breakoutSearch(g, { seconds: -1 })).toThrow(InputError);
     expect(() => breakoutSearch(g, { seconds: -1 })).toThrow(/`seconds`/);
     expect(() => breakoutSearch(g, { iterations: 1.5 })).toThrow(/`iterations`: should be a positive integer/);
-    expect(() => breakoutSearch(g, { seed: -3 })).toThrow(/`seed`/);
+    expect(() => breakoutSearch(g, { solverSeed: -3 })).toThrow(/`solverSeed`/);
     expect(() => breakoutSearch(g, { jumpMin: 0 })).toThrow(/`jumpMin`: should be an integer between 1 and 5/);
     expect(() => breakoutSearch(g, { directedFloor: 2 })).toThrow(/`directedFloor`/);
     expect(() => breakoutSearch(g, { initial: [0, 1] })).toThrow(/initial: has 2 entries/);

@@ -4,16 +4,15 @@
 import { execFileSync, spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { gnp } from "../src/families/gnp.js";
-import { blowUp, blowupFamily } from "../src/families/operations/blow-up.js";
+import { blowUp, blowUpFamily } from "../src/families/operations/blow-up.js";
 import { complement, complementFamily } from "../src/families/operations/complement.js";
-import { deleteEdgesFamily, deleteRandomEdges } from "../src/families/operations/delete-edges.js";
-import { disjointUnion, unionFamily } from "../src/families/operations/disjoint-union.js";
-import { inducedFamily } from "../src/families/operations/induced-subgraph.js";
+import { deleteRandomEdgesFamily, deleteRandomEdges } from "../src/families/operations/delete-random-edges.js";
+import { disjointUnion, disjointUnionFamily } from "../src/families/operations/disjoint-union.js";
+import { inducedSubgraphFamily } from "../src/families/operations/induced-subgraph.js";
 import { inducedSubgraph } from "../src/graph/induced.js";
-import type { ShapeContext } from "../src/families/operations/nested-shape.js";
-import type { ExpectedShape, FamilyDefinition, Params } from "../src/families/types.js";
+import type { FamilyDefinition, Params, PredictedSize, SizeContext } from "../src/families/types.js";
 import { family, familyWithInfo } from "../src/families/registry.js";
-import { completeGraph } from "../src/families/complete.js";
+import { complete as completeGraph } from "../src/families/complete.js";
 import { graphFromEdges } from "../src/graph/builder.js";
 import { encodeGraph6 } from "../src/graph/formats/graph6.js";
 import type { Graph } from "../src/graph/graph.js";
@@ -65,17 +64,17 @@ describe("blow-up", () => {
 
   it("works as a family on nested specs and rejects t < 1", () => {
     // The examples of the family list: Petersen (10 vertices, 15 edges) blown up by 3.
-    const b = family("blowup:of=[petersen],t=3");
+    const b = family("blow-up:of=[petersen],t=3");
     expect([b.n, b.m]).toEqual([30, 135]);
-    const u = family("union:of=[cycle:n=5]+[petersen]");
+    const u = family("disjoint-union:of=[cycle:n=5]+[petersen]");
     expect([u.n, u.m]).toEqual([15, 20]);
-    expect(family("induced:of=[petersen],vertices=0+1+2+5").n).toBe(4);
+    expect(family("induced-subgraph:of=[petersen],vertices=0+1+2+5").n).toBe(4);
     expect(family("complement:of=[petersen]").m).toBe(30);
-    const g = family("blowup:of=[complete:n=3],t=2");
+    const g = family("blow-up:of=[complete:n=3],t=2");
     expect(g.n).toBe(6);
     expect(g.m).toBe(12);
-    expect(familyWithInfo("blowup:of=[complete:n=3],t=2").spec).toBe("blowup:of=[complete:n=3],t=2");
-    expectInputError(() => family("blowup:of=[complete:n=3],t=0"), "`t`");
+    expect(familyWithInfo("blow-up:of=[complete:n=3],t=2").spec).toBe("blow-up:of=[complete:n=3],t=2");
+    expectInputError(() => family("blow-up:of=[complete:n=3],t=0"), "`t`");
     expectInputError(() => blowUp(petersen, 1.5), "`t`");
     expectInputError(() => blowUp(completeGraph(500), 100), "would not fit in memory");
   });
@@ -124,7 +123,7 @@ describe("disjoint union", () => {
     expect(disjointUnion().n).toBe(0);
     const w = disjointUnion(graphFromEdges(2, [[0, 1, 3]]), cycle5);
     expect(w.totalWeight).toBe(3 + 5);
-    const spec = family("union:of=[complete:n=3]+[complete:n=4]");
+    const spec = family("disjoint-union:of=[complete:n=3]+[complete:n=4]");
     expect(spec.n).toBe(7);
     expect(spec.m).toBe(9);
   });
@@ -148,15 +147,15 @@ describe("induced subgraph", () => {
     expect(bipartition(p).bipartite).toBe(true);
     const w = inducedSubgraph(graphFromEdges(3, [[0, 1, 2], [1, 2, 7]]), [2, 1]);
     expect(w.edgeWeight(0, 1)).toBe(7);
-    expect(family("induced:of=[complete:n=6],vertices=0+2+4").m).toBe(3);
+    expect(family("induced-subgraph:of=[complete:n=6],vertices=0+2+4").m).toBe(3);
   });
 
   it("rejects repeated or out-of-range vertices naming `vertices`", () => {
     expectInputError(() => inducedSubgraph(petersen, [0, 1, 1]), "`vertices`");
     expectInputError(() => inducedSubgraph(petersen, [0, 10]), "`vertices`");
-    expectInputError(() => family("induced:of=[complete:n=4],vertices=0+7"), "`vertices`");
-    expectInputError(() => family("induced:of=[complete:n=4],vertices=0+0"), "`vertices`");
-    expectInputError(() => family("induced:of=[complete:n=4],vertices=-1"), "`vertices`");
+    expectInputError(() => family("induced-subgraph:of=[complete:n=4],vertices=0+7"), "`vertices`");
+    expectInputError(() => family("induced-subgraph:of=[complete:n=4],vertices=0+0"), "`vertices`");
+    expectInputError(() => family("induced-subgraph:of=[complete:n=4],vertices=-1"), "`vertices`");
   });
 });
 
@@ -176,7 +175,7 @@ describe("random edge deletion", () => {
       expect(extra).toBe(0);
     }
     expect(sameGraph(deleteRandomEdges(g, p, 7), deleteRandomEdges(g, p, new Rng(7)))).toBe(true);
-    expect(sameGraph(deleteRandomEdges(g, p, 7), family("delete-edges:of=[complete:n=80],p=0.3,seed=7"))).toBe(true);
+    expect(sameGraph(deleteRandomEdges(g, p, 7), family("delete-random-edges:of=[complete:n=80],p=0.3,seed=7"))).toBe(true);
     expect(sameGraph(deleteRandomEdges(g, 0, 7), g)).toBe(true);
     expect(deleteRandomEdges(g, 1, 7).m).toBe(0);
     const w = deleteRandomEdges(graphFromEdges(3, [[0, 1, 2], [1, 2, 7]]), 0, 1);
@@ -199,31 +198,31 @@ describe("random edge deletion", () => {
 
   it("rejects p outside [0, 1] naming `p`", () => {
     expectInputError(() => deleteRandomEdges(petersen, 1.2, 0), "`p`");
-    expectInputError(() => family("delete-edges:of=[complete:n=4],p=-0.5"), "`p`");
+    expectInputError(() => family("delete-random-edges:of=[complete:n=4],p=-0.5"), "`p`");
     expectInputError(() => deleteRandomEdges(petersen, 0.5, -1), "`seed`");
   });
 });
 
-describe("expected sizes of operations", () => {
+describe("predicted sizes of operations", () => {
   // Sizes follow from the definitions (common practice, no source): blow-up n·t, m·t², degrees ·t;
   // union sums; complement C(n,2) − m with degrees n − 1 − d; deletion m(1 − p).
-  const shapes: Record<string, ExpectedShape> = {
+  const sizes: Record<string, PredictedSize> = {
     petersen: { n: 10, m: 15, mExact: true, minDegree: 3, maxDegree: 3 },
     "gnp:n=100,p=0.1": { n: 100, m: 495, mExact: false },
   };
-  const ctx: ShapeContext = { expectedOf: (spec) => shapes[spec] };
-  // Operations take the context as an optional second argument of `expected`.
-  const shapeOf = (def: FamilyDefinition, params: Params): ExpectedShape => (def.expected as (p: Params, c: ShapeContext) => ExpectedShape)(params, ctx);
+  const ctx: SizeContext = { predictedSizeOf: (spec) => sizes[spec] };
+  // Operations take the context as an optional second argument of `predictedSize`.
+  const shapeOf = (def: FamilyDefinition, params: Params): PredictedSize => def.predictedSize(params, ctx);
 
-  it("follow the nested shape when a ShapeContext is given", () => {
-    expect(shapeOf(blowupFamily, { of: "petersen", t: 3 })).toEqual({ n: 30, m: 135, mExact: true, minDegree: 9, maxDegree: 9 });
-    expect(shapeOf(unionFamily, { of: ["petersen", "gnp:n=100,p=0.1"] })).toEqual({ n: 110, m: 510, mExact: false });
+  it("follow the nested size when a SizeContext is given", () => {
+    expect(shapeOf(blowUpFamily, { of: "petersen", t: 3 })).toEqual({ n: 30, m: 135, mExact: true, minDegree: 9, maxDegree: 9 });
+    expect(shapeOf(disjointUnionFamily, { of: ["petersen", "gnp:n=100,p=0.1"] })).toEqual({ n: 110, m: 510, mExact: false });
     expect(shapeOf(complementFamily, { of: "petersen" })).toEqual({ n: 10, m: 30, mExact: true, minDegree: 6, maxDegree: 6 });
-    expect(shapeOf(deleteEdgesFamily, { of: "petersen", p: 0.2, seed: 0 })).toEqual({ n: 10, m: 12, mExact: false });
-    expect(shapeOf(inducedFamily, { of: "petersen", vertices: [0, 1, 2] }).n).toBe(3);
+    expect(shapeOf(deleteRandomEdgesFamily, { of: "petersen", p: 0.2, seed: 0 })).toEqual({ n: 10, m: 12, mExact: false });
+    expect(shapeOf(inducedSubgraphFamily, { of: "petersen", vertices: [0, 1, 2] }).n).toBe(3);
   });
 
   it("are unknown (NaN) without one, and the exact size is checked when building", () => {
-    expect(Number.isNaN(blowupFamily.expected({ of: "petersen", t: 3 }).m)).toBe(true);
+    expect(Number.isNaN(blowUpFamily.predictedSize({ of: "petersen", t: 3 }).m)).toBe(true);
   });
 });

@@ -108,7 +108,7 @@ describe("G(n, p)", () => {
     expect(sameBytes(a, gnp(300, 0.1, new Rng(42)))).toBe(true);
     expect(sameBytes(a, gnp(300, 0.1, 43))).toBe(false);
     const info = familyWithInfo("gnp:n=30,p=0.2");
-    expect(info.seed).toBe(0);
+    expect(info.graphSeed).toBe(0);
     expect(info.notes.join(" ")).toContain("seed 0");
     expect(info.spec).toBe("gnp:n=30,p=0.2,seed=0");
   });

@@ -3,7 +3,7 @@
 // against the definition of closing K3 / C4; the `edges` limit gives a prefix of the process.
 import { execFileSync, spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
-import { HFREE_PATTERNS, hFreeProcess, type HFreePattern } from "../src/families/hfree-process.js";
+import { HFREE_PATTERNS, hfreeProcess, type HFreePattern } from "../src/families/hfree-process.js";
 import { buildFamily, family } from "../src/families/registry.js";
 import { graphFromEdges } from "../src/graph/builder.js";
 import type { Graph } from "../src/graph/graph.js";
@@ -77,7 +77,7 @@ describe("random H-free process", () => {
     for (const h of HFREE_PATTERNS) {
       for (const n of [9, 14]) {
         for (let seed = 0; seed < 3; seed++) {
-          const g = hFreeProcess(n, h, seed);
+          const g = hfreeProcess(n, h, seed);
           expect(contains(g, h)).toBe(false);
           const edges = edgesOf(g);
           let extendable = 0;
@@ -91,7 +91,7 @@ describe("random H-free process", () => {
   it.skipIf(python === null)("agrees with networkx: H-free and maximal", () => {
     // Outside check: networkx's VF2 monomorphism (see NX_SCRIPT).
     const cases: { n: number; edges: [number, number][]; h: HFreePattern }[] = [];
-    for (const h of HFREE_PATTERNS) for (let seed = 10; seed < 13; seed++) cases.push({ n: 11, edges: edgesOf(hFreeProcess(11, h, seed)), h });
+    for (const h of HFREE_PATTERNS) for (let seed = 10; seed < 13; seed++) cases.push({ n: 11, edges: edgesOf(hfreeProcess(11, h, seed)), h });
     const out = JSON.parse(execFileSync(python!, ["-c", NX_SCRIPT], { input: JSON.stringify(cases), encoding: "utf8" })) as { free: boolean; maximal: boolean }[];
     expect(out).toEqual(cases.map(() => ({ free: true, maximal: true })));
   });
@@ -100,26 +100,26 @@ describe("random H-free process", () => {
     // Triangle-free: no triangles (countTriangles); maximal: every non-edge has a common
     // neighbour. C4-free: no 4-cycles (countFourCycles); maximal: every non-edge uv is joined by a
     // path u–x–y–v. Both are the definitions (common practice, no source).
-    const t = hFreeProcess(300, "K3", 5);
+    const t = hfreeProcess(300, "K3", 5);
     expect(countTriangles(t).total).toBe(0);
     let open = 0;
     for (const [u, v] of nonEdges(t)) if (!t.neighborsOf(u).some((x) => t.hasEdge(x, v))) open++;
     expect(open).toBe(0);
-    const c = hFreeProcess(150, "C4", 5);
+    const c = hfreeProcess(150, "C4", 5);
     expect(countFourCycles(c).total).toBe(0);
     open = 0;
     for (const [u, v] of nonEdges(c)) {
       if (!c.neighborsOf(u).some((x) => c.neighborsOf(v).some((y) => c.hasEdge(x, y)))) open++;
     }
     expect(open).toBe(0);
-    for (const h of ["C5", "K4", "K2,3"] as HFreePattern[]) expect(contains(hFreeProcess(60, h, 5), h)).toBe(false);
+    for (const h of ["C5", "K4", "K2,3"] as HFreePattern[]) expect(contains(hfreeProcess(60, h, 5), h)).toBe(false);
   });
 
   it("stops after `edges` edges with a prefix of the full process", () => {
     // The limit truncates the same random order (design; common practice, no source).
-    const full = hFreeProcess(80, "K3", 3);
+    const full = hfreeProcess(80, "K3", 3);
     for (const k of [1, 50, 200]) {
-      const part = hFreeProcess(80, "K3", 3, k);
+      const part = hfreeProcess(80, "K3", 3, k);
       expect(part.m).toBe(k);
       let outside = 0;
       part.forEachEdge((u, v) => {
@@ -127,16 +127,16 @@ describe("random H-free process", () => {
       });
       expect(outside).toBe(0);
     }
-    expect(hFreeProcess(20, "C4", 3, 100000).m).toBe(hFreeProcess(20, "C4", 3).m);
+    expect(hfreeProcess(20, "C4", 3, 100000).m).toBe(hfreeProcess(20, "C4", 3).m);
     const viaSpec = family("hfree-process:n=80,h=K3,edges=50,seed=3");
-    expect(Array.from(viaSpec.neighbors)).toEqual(Array.from(hFreeProcess(80, "K3", 3, 50).neighbors));
+    expect(Array.from(viaSpec.neighbors)).toEqual(Array.from(hfreeProcess(80, "K3", 3, 50).neighbors));
   });
 
   it("declares H in freeOf and rejects unknown patterns, naming the parameter", () => {
     const info = buildFamily("hfree-process", { n: 10, h: "K2,3", seed: 1 });
     expect(info.graph.n).toBe(10);
     expectInputError(() => family("hfree-process:n=10,h=C6"), "`h`");
-    expectInputError(() => hFreeProcess(10, "K5" as HFreePattern, 0), "`h`");
+    expectInputError(() => hfreeProcess(10, "K5" as HFreePattern, 0), "`h`");
     expectInputError(() => family("hfree-process:n=20000,h=K3"), "`n`");
     expectInputError(() => family("hfree-process:n=20,h=K3,edges=-1"), "`edges`");
   });

@@ -3,7 +3,7 @@
 // against nauty's list of cubic graphs weighted by automorphism group sizes.
 import { execFileSync, spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
-import { randomRegular, type RegularMethod } from "../src/families/random-regular.js";
+import { randomRegular, type RegularSampler } from "../src/families/random-regular.js";
 import { family } from "../src/families/registry.js";
 import { encodeGraph6 } from "../src/graph/formats/graph6.js";
 import type { Graph } from "../src/graph/graph.js";
@@ -30,16 +30,16 @@ function regularityDefects(g: Graph, d: number): number {
 }
 
 describe("random regular graphs", () => {
-  it("are simple and exactly d-regular for many n, d, seeds and both methods", () => {
+  it("are simple and exactly d-regular for many n, d, seeds and both samplers", () => {
     // Definition of a simple d-regular graph (common practice, no source). Cases cover odd d
     // with even n, the complement route (d > (n−1)/2, e.g. n = 100, d = 60) and the extremes.
     const cases: [number, number][] = [
       [1, 0], [2, 1], [4, 3], [10, 3], [12, 5], [11, 4], [50, 4], [50, 7], [64, 31], [100, 60], [101, 50], [100, 99], [100, 0], [1000, 10], [200, 150],
     ];
     for (const [n, d] of cases) {
-      for (const method of ["auto", "steger-wormald"] as RegularMethod[]) {
+      for (const sampler of ["auto", "steger-wormald"] as RegularSampler[]) {
         for (let seed = 0; seed < 6; seed++) {
-          const g = randomRegular(n, d, seed, method);
+          const g = randomRegular(n, d, seed, sampler);
           expect(g.n).toBe(n);
           expect(g.m).toBe((n * d) / 2);
           expect(regularityDefects(g, d)).toBe(0);
@@ -85,11 +85,11 @@ describe("random regular graphs", () => {
       });
       const total = weight.reduce((a, b) => a + b, 0);
       expect(total).toBe(19355);
-      for (const method of ["auto", "pairing"] as RegularMethod[]) {
+      for (const sampler of ["auto", "pairing"] as RegularSampler[]) {
         const S = 5000;
-        const seed0 = method === "auto" ? 0 : 1_000_000;
+        const seed0 = sampler === "auto" ? 0 : 1_000_000;
         const samples: string[] = [];
-        for (let s = 0; s < S; s++) samples.push(encodeGraph6(randomRegular(8, d, seed0 + s, method)));
+        for (let s = 0; s < S; s++) samples.push(encodeGraph6(randomRegular(8, d, seed0 + s, sampler)));
         const counts = new Map<string, number>();
         for (const c of labelgLines(samples)) counts.set(c, (counts.get(c) ?? 0) + 1);
         expect([...counts.keys()].every((k) => canon.includes(k))).toBe(true);
@@ -112,7 +112,7 @@ describe("random regular graphs", () => {
   it("is reproducible and agrees with the spec string", () => {
     // Determinism (common practice, no source).
     const a = randomRegular(300, 7, 11);
-    const b = family("regular:n=300,d=7,seed=11");
+    const b = family("random-regular:n=300,d=7,seed=11");
     expect(Array.from(a.neighbors)).toEqual(Array.from(b.neighbors));
     expect(Array.from(randomRegular(300, 7, 12).neighbors)).not.toEqual(Array.from(a.neighbors));
   });
@@ -121,10 +121,10 @@ describe("random regular graphs", () => {
     expectInputError(() => randomRegular(7, 3, 0), "`d`");
     expectInputError(() => randomRegular(7, 3, 0), "even");
     expectInputError(() => randomRegular(10, 10, 0), "`d`");
-    expectInputError(() => family("regular:n=10,d=12"), "n − 1 = 9");
-    expectInputError(() => randomRegular(100, 20, 0, "pairing"), "`method`");
-    expectInputError(() => family("regular:n=10,d=3,method=fast"), "`method`");
-    expectInputError(() => family("regular:n=0,d=0"), "`n`");
-    expectInputError(() => family("regular:n=10000000,d=120"), "would not fit in memory");
+    expectInputError(() => family("random-regular:n=10,d=12"), "n − 1 = 9");
+    expectInputError(() => randomRegular(100, 20, 0, "pairing"), "`sampler`");
+    expectInputError(() => family("random-regular:n=10,d=3,sampler=fast"), "`sampler`");
+    expectInputError(() => family("random-regular:n=0,d=0"), "`n`");
+    expectInputError(() => family("random-regular:n=10000000,d=120"), "would not fit in memory");
   });
 });

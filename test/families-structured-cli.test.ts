@@ -8,7 +8,7 @@ import { ensureBuilt, halfplus } from "./helpers/cli.js";
 beforeAll(ensureBuilt);
 
 describe("halfplus families", () => {
-  it("--json prints one object per registered family, in registry order, with params, freeOf and size", () => {
+  it("--json prints one object per registered family, in registry order, with params, freeOf and predicted size", () => {
     const r = halfplus(["families", "--json"]);
     expect(r.stderr).toBe("");
     expect(r.code).toBe(0);
@@ -20,11 +20,11 @@ describe("halfplus families", () => {
       expect(row.params.map((p: { name: string }) => p.name)).toEqual([...def.params.map((p) => p.name), ...(def.random ? ["seed"] : [])]);
       if (def.params.every((p) => p.default !== undefined)) {
         const params = resolveParams(def, {}).params;
-        expect(row.expected).toEqual(def.expected(params));
+        expect(row.predictedSize).toEqual(def.predictedSize(params));
         expect(row.freeOf).toEqual(def.freeOf(params));
         expect(row.problem).toBeNull();
       } else {
-        expect(row.expected).toBeNull();
+        expect(row.predictedSize).toBeNull();
         expect(row.problem).toMatch(/missing parameter/);
       }
     }
@@ -35,8 +35,8 @@ describe("halfplus families", () => {
     const r = halfplus(["families", "kneser:n=9,k=4", "--json"]);
     expect(r.code).toBe(0);
     const row = JSON.parse(r.stdout);
-    expect(row.evaluatedAt).toBe("kneser:n=9,k=4");
-    expect(row.expected).toMatchObject({ n: 126, m: 315, minDegree: 5, maxDegree: 5 });
+    expect(row.spec).toBe("kneser:n=9,k=4");
+    expect(row.predictedSize).toMatchObject({ n: 126, m: 315, minDegree: 5, maxDegree: 5 });
     expect(row.freeOf.map((f: { pattern: string }) => f.pattern)).toEqual(["K3"]);
   });
 

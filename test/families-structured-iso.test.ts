@@ -6,21 +6,21 @@ import { describe, expect, it } from "vitest";
 import { EdgeBuffer } from "../src/graph/builder.js";
 import { encodeGraph6 } from "../src/graph/formats/graph6.js";
 import type { Graph } from "../src/graph/graph.js";
-import { cayleyGf2Graph, hypercubeGraph } from "../src/families/cayley-gf2.js";
-import { andrasfaiGraph, circulantGraph, cycleGraph } from "../src/families/circulant.js";
-import { completeBipartiteGraph } from "../src/families/complete-multipartite.js";
-import { generalizedPetersenGraph } from "../src/families/generalized-petersen.js";
-import { kneserGraph } from "../src/families/kneser.js";
-import { mycielskiGraph } from "../src/families/mycielski.js";
-import { chvatalGraph } from "../src/families/named/chvatal.js";
-import { heawoodGraph } from "../src/families/named/heawood.js";
-import { hoffmanSingletonGraph } from "../src/families/named/hoffman-singleton.js";
-import { dodecahedronGraph, petersenGraph } from "../src/families/named/petersen.js";
-import { grotzschGraph } from "../src/families/named/grotzsch.js";
+import { cayleyGf2, hypercube } from "../src/families/cayley-gf2.js";
+import { andrasfai, circulant, cycle } from "../src/families/circulant.js";
+import { completeBipartite } from "../src/families/complete-multipartite.js";
+import { generalizedPetersen } from "../src/families/generalized-petersen.js";
+import { kneser } from "../src/families/kneser.js";
+import { mycielskiChain, mycielskiOf } from "../src/families/mycielski.js";
+import { chvatal } from "../src/families/named/chvatal.js";
+import { heawood } from "../src/families/named/heawood.js";
+import { hoffmanSingleton } from "../src/families/named/hoffman-singleton.js";
+import { dodecahedron, petersen } from "../src/families/named/petersen.js";
+import { grotzsch } from "../src/families/named/grotzsch.js";
 import { normGraph } from "../src/families/norm-graph.js";
-import { paleyGraph } from "../src/families/paley.js";
-import { pathGraph } from "../src/families/path.js";
-import { polarityGraph } from "../src/families/polarity.js";
+import { paley } from "../src/families/paley.js";
+import { path } from "../src/families/path.js";
+import { polarity } from "../src/families/polarity.js";
 import { family } from "../src/families/registry.js";
 import { genspecialLines, labelgLines } from "./helpers/nauty.js";
 
@@ -54,13 +54,13 @@ describe.skipIf(!HAVE_NAUTY)("against nauty-genspecialg", () => {
   it("hypercube Q_d equals genspecialg -Q d for d = 1..7", () => {
     const ds = [1, 2, 3, 4, 5, 6, 7];
     const theirs = genspecialLines(ds.map((d) => `-Q${d}`));
-    expect(mismatches(ds.map((d, i) => ({ label: `Q${d}`, ours: hypercubeGraph(d), theirs: theirs[i] })))).toEqual([]);
+    expect(mismatches(ds.map((d, i) => ({ label: `Q${d}`, ours: hypercube(d), theirs: theirs[i] })))).toEqual([]);
   });
 
   it("generalized Petersen GP(n,k) equals genspecialg -P n,k", () => {
     const cases = [[3, 1], [4, 1], [5, 1], [5, 2], [7, 2], [7, 3], [8, 3], [10, 2], [10, 3], [12, 5], [13, 5], [24, 5]];
     const theirs = genspecialLines(cases.map(([n, k]) => `-P${n},${k}`));
-    expect(mismatches(cases.map(([n, k], i) => ({ label: `GP(${n},${k})`, ours: generalizedPetersenGraph(n, k), theirs: theirs[i] })))).toEqual([]);
+    expect(mismatches(cases.map(([n, k], i) => ({ label: `GP(${n},${k})`, ours: generalizedPetersen(n, k), theirs: theirs[i] })))).toEqual([]);
   });
 
   it("Petersen graph, KG(5,2) and the dodecahedron equal genspecialg -P5,2 and -P10,2", () => {
@@ -68,9 +68,9 @@ describe.skipIf(!HAVE_NAUTY)("against nauty-genspecialg", () => {
     const [p52, p102] = genspecialLines(["-P5,2", "-P10,2"]);
     expect(
       mismatches([
-        { label: "petersen", ours: petersenGraph(), theirs: p52 },
-        { label: "KG(5,2)", ours: kneserGraph(5, 2), theirs: p52 },
-        { label: "dodecahedron", ours: dodecahedronGraph(), theirs: p102 },
+        { label: "petersen", ours: petersen(), theirs: p52 },
+        { label: "KG(5,2)", ours: kneser(5, 2), theirs: p52 },
+        { label: "dodecahedron", ours: dodecahedron(), theirs: p102 },
       ]),
     ).toEqual([]);
   });
@@ -78,12 +78,12 @@ describe.skipIf(!HAVE_NAUTY)("against nauty-genspecialg", () => {
   it("cycles, paths and complete bipartite graphs equal genspecialg -c, -p and -b", () => {
     const pairs: { label: string; ours: Graph; theirs: string }[] = [];
     const cyc = genspecialLines([3, 4, 5, 6, 7, 12, 30].map((n) => `-c${n}`));
-    [3, 4, 5, 6, 7, 12, 30].forEach((n, i) => pairs.push({ label: `C${n}`, ours: cycleGraph(n), theirs: cyc[i] }));
+    [3, 4, 5, 6, 7, 12, 30].forEach((n, i) => pairs.push({ label: `C${n}`, ours: cycle(n), theirs: cyc[i] }));
     const pth = genspecialLines([1, 2, 3, 4, 9].map((n) => `-p${n}`));
-    [1, 2, 3, 4, 9].forEach((n, i) => pairs.push({ label: `P${n}`, ours: pathGraph(n), theirs: pth[i] }));
+    [1, 2, 3, 4, 9].forEach((n, i) => pairs.push({ label: `P${n}`, ours: path(n), theirs: pth[i] }));
     const bip = [[1, 1], [1, 4], [2, 3], [3, 3], [4, 6]];
     const b = genspecialLines(bip.map(([x, y]) => `-b${x},${y}`));
-    bip.forEach(([x, y], i) => pairs.push({ label: `K${x},${y}`, ours: completeBipartiteGraph(x, y), theirs: b[i] }));
+    bip.forEach(([x, y], i) => pairs.push({ label: `K${x},${y}`, ours: completeBipartite(x, y), theirs: b[i] }));
     expect(mismatches(pairs)).toEqual([]);
   });
 
@@ -93,13 +93,13 @@ describe.skipIf(!HAVE_NAUTY)("against nauty-genspecialg", () => {
     const folded = (n: number, s: number[]) => [...new Set(s.map((x) => Math.min(x, n - x)))].join(",");
     const theirs = genspecialLines(cases.map(([n, s]) => `-C${n},${folded(n, s)}`));
     const pairs = cases.flatMap(([n, s], i) => [
-      { label: `circulant ${n} ${s}`, ours: circulantGraph(n, s), theirs: theirs[i] },
+      { label: `circulant ${n} ${s}`, ours: circulant(n, s), theirs: theirs[i] },
       { label: `cayley-zn ${n} ${s}`, ours: family(`cayley-zn:n=${n},s=${s.join("+")}`), theirs: theirs[i] },
     ]);
     // And(k) is the circulant on 3k−1 vertices with the residues ≡ 1 (mod 3) (Andrásfai 1964).
     const ks = [2, 3, 4, 5, 6];
     const and = genspecialLines(ks.map((k) => `-C${3 * k - 1},${folded(3 * k - 1, Array.from({ length: k }, (_, i) => 3 * i + 1))}`));
-    ks.forEach((k, i) => pairs.push({ label: `And(${k})`, ours: andrasfaiGraph(k), theirs: and[i] }));
+    ks.forEach((k, i) => pairs.push({ label: `And(${k})`, ours: andrasfai(k), theirs: and[i] }));
     expect(mismatches(pairs)).toEqual([]);
   });
 
@@ -107,9 +107,9 @@ describe.skipIf(!HAVE_NAUTY)("against nauty-genspecialg", () => {
     const [q5, c5] = genspecialLines(["-Q5", "-c5"]);
     expect(
       mismatches([
-        { label: "cayley-gf2 units", ours: cayleyGf2Graph(5, [1, 2, 4, 8, 16]), theirs: q5 },
-        { label: "And(2)", ours: andrasfaiGraph(2), theirs: c5 },
-        { label: "mycielski 1", ours: mycielskiGraph(1), theirs: c5 },
+        { label: "cayley-gf2 units", ours: cayleyGf2(5, [1, 2, 4, 8, 16]), theirs: q5 },
+        { label: "And(2)", ours: andrasfai(2), theirs: c5 },
+        { label: "mycielski-chain 1", ours: mycielskiChain(1), theirs: c5 },
       ]),
     ).toEqual([]);
   });
@@ -131,17 +131,21 @@ function networkx(exprs: string[]): string[] {
 }
 
 describe.skipIf(!HAVE_NAUTY || !HAVE_NETWORKX)("against networkx's generators", () => {
-  it("named graphs: Petersen, dodecahedron, Heawood, Hoffman–Singleton, Chvátal, Grötzsch", () => {
+  it("named graphs: Petersen, dodecahedron, Heawood, Hoffman–Singleton, Chvátal, Grötzsch; Mycielski of a given graph", () => {
     const cases: [string, Graph, string][] = [
-      ["petersen", petersenGraph(), "nx.petersen_graph()"],
-      ["dodecahedron", dodecahedronGraph(), "nx.dodecahedral_graph()"],
-      ["heawood", heawoodGraph(), "nx.heawood_graph()"],
-      ["hoffman-singleton", hoffmanSingletonGraph(), "nx.hoffman_singleton_graph()"],
-      ["chvatal", chvatalGraph(), "nx.chvatal_graph()"],
+      ["petersen", petersen(), "nx.petersen_graph()"],
+      ["dodecahedron", dodecahedron(), "nx.dodecahedral_graph()"],
+      ["heawood", heawood(), "nx.heawood_graph()"],
+      ["hoffman-singleton", hoffmanSingleton(), "nx.hoffman_singleton_graph()"],
+      ["chvatal", chvatal(), "nx.chvatal_graph()"],
       // networkx numbers Mycielski graphs from M_1 = K1, M_2 = K2: M_4 is the Grötzsch graph.
-      ["grotzsch", grotzschGraph(), "nx.mycielski_graph(4)"],
-      ["mycielski 3", mycielskiGraph(3), "nx.mycielski_graph(5)"],
+      ["grotzsch", grotzsch(), "nx.mycielski_graph(4)"],
+      ["mycielski-chain 3", mycielskiChain(3), "nx.mycielski_graph(5)"],
       ["heawood as PG(2,2) incidence", family("projective-plane:q=2"), "nx.heawood_graph()"],
+      // networkx's mycielskian(G, iterations) applies the same construction to a given graph.
+      ["mycielski-of C7", family("mycielski-of:of=[cycle:n=7]"), "nx.mycielskian(nx.cycle_graph(7))"],
+      ["mycielski-of K2, 2 steps", family("mycielski-of:of=[complete:n=2],steps=2"), "nx.mycielskian(nx.complete_graph(2), 2)"],
+      ["mycielskiOf(Petersen)", mycielskiOf(petersen()), "nx.mycielskian(nx.petersen_graph())"],
     ];
     const theirs = networkx(cases.map((c) => c[2]));
     expect(mismatches(cases.map(([label, ours], i) => ({ label, ours, theirs: theirs[i] })))).toEqual([]);
@@ -150,16 +154,16 @@ describe.skipIf(!HAVE_NAUTY || !HAVE_NETWORKX)("against networkx's generators", 
   it("Paley graphs for primes q ≡ 1 (mod 4) equal networkx's paley_graph", () => {
     const qs = [5, 13, 17, 29, 37, 41];
     const theirs = networkx(qs.map((q) => `nx.paley_graph(${q}).to_undirected()`));
-    expect(mismatches(qs.map((q, i) => ({ label: `P(${q})`, ours: paleyGraph(q), theirs: theirs[i] })))).toEqual([]);
+    expect(mismatches(qs.map((q, i) => ({ label: `P(${q})`, ours: paley(q), theirs: theirs[i] })))).toEqual([]);
   });
 
   it("hypercubes and circulants agree with networkx too", () => {
     const theirs = networkx(["nx.hypercube_graph(4)", "nx.circulant_graph(13, [1, 5])", "nx.circulant_graph(12, [2, 6])"]);
     expect(
       mismatches([
-        { label: "Q4", ours: hypercubeGraph(4), theirs: theirs[0] },
-        { label: "C13(1,5)", ours: circulantGraph(13, [1, 5]), theirs: theirs[1] },
-        { label: "C12(2,6)", ours: circulantGraph(12, [2, 6]), theirs: theirs[2] },
+        { label: "Q4", ours: hypercube(4), theirs: theirs[0] },
+        { label: "C13(1,5)", ours: circulant(13, [1, 5]), theirs: theirs[1] },
+        { label: "C12(2,6)", ours: circulant(12, [2, 6]), theirs: theirs[2] },
       ]),
     ).toEqual([]);
   });
@@ -174,7 +178,7 @@ describe.skipIf(!HAVE_NAUTY)("against constructions written here from the defini
       for (let b = 0; b < p; b++) pts.push([0, 1, b]);
       pts.push([0, 0, 1]);
       const oracle = edgeGraph(pts.length, (u, v) => (pts[u][0] * pts[v][0] + pts[u][1] * pts[v][1] + pts[u][2] * pts[v][2]) % p === 0);
-      return { label: `ER_${p}`, ours: polarityGraph(p), theirs: encodeGraph6(oracle) };
+      return { label: `ER_${p}`, ours: polarity(p), theirs: encodeGraph6(oracle) };
     });
     expect(mismatches(pairs)).toEqual([]);
   });
@@ -216,7 +220,7 @@ describe.skipIf(!HAVE_NAUTY)("against constructions written here from the defini
         for (let x = s; x; x &= x - 1) c++;
         if (c === k) sets.push(s);
       }
-      return { label: `KG(${n},${k})`, ours: kneserGraph(n, k), theirs: encodeGraph6(edgeGraph(sets.length, (u, v) => (sets[u] & sets[v]) === 0)) };
+      return { label: `KG(${n},${k})`, ours: kneser(n, k), theirs: encodeGraph6(edgeGraph(sets.length, (u, v) => (sets[u] & sets[v]) === 0)) };
     });
     expect(mismatches(pairs)).toEqual([]);
   });

@@ -65,7 +65,7 @@ describe("graph6 and sparse6 lines", () => {
     expect((await errorOf("long.g6", "DQcc\n")).message).toMatch(/long\.g6:1: graph6 line too long/);
     // 'd' = 'c' + 1: sets the last of the 2 padding bits of n = 5 (10 bits in 12).
     expect((await errorOf("pad.g6", "DQd\n")).message).toMatch(/pad\.g6:1: corrupt graph6 line: the padding bits/);
-    expect(() => parseGraph6("DQé", { source: "s", line: 4 })).toThrow(/^s:4: invalid graph6 character/);
+    expect(() => parseGraph6("DQé", { file: "s", line: 4 })).toThrow(/^s:4: invalid graph6 character/);
   });
 
   it("sparse6 garbage, truncation and refused variants are errors", async () => {
@@ -85,8 +85,8 @@ describe("graph6 and sparse6 lines", () => {
   const MULTI = ":AGN";
 
   it("sparse6 loops and repeated edges follow the build policy: errors by default, with a count when allowed", () => {
-    expect(() => parseSparse6(MULTI, { source: "m.s6", line: 9 })).toThrow(/^m\.s6:9: sparse6 edge 1: self-loop at vertex 0$/);
-    expect(() => parseSparse6(MULTI, { source: "m.s6", line: 9 }, { loops: "drop" })).toThrow(/^m\.s6:9: sparse6 edge 3: duplicate edge \{0, 1\}$/);
+    expect(() => parseSparse6(MULTI, { file: "m.s6", line: 9 })).toThrow(/^m\.s6:9: sparse6 edge 1: self-loop at vertex 0$/);
+    expect(() => parseSparse6(MULTI, { file: "m.s6", line: 9 }, { loops: "drop" })).toThrow(/^m\.s6:9: sparse6 edge 3: duplicate edge \{0, 1\}$/);
     const g = parseSparse6(MULTI, {}, { loops: "drop", duplicates: "merge" });
     expect([g.n, g.m]).toEqual([2, 1]);
   });
@@ -145,8 +145,8 @@ describe("text formats", () => {
     expect((await errorOf("cols.gset", "3 2\n1 2 1\n2 3\n")).message).toMatch(/cols\.gset:3: expected a gset edge "u v w", found 2 columns/);
     expect((await errorOf("range.txt", "3 2\n1 2 1\n2 4 1\n")).message).toMatch(/range\.txt:3: vertex id 4 out of range 1\.\.3/);
     expect((await errorOf("zero.txt", "3 2\n1 2 1\n0 3 1\n")).message).toMatch(/zero\.txt:3: vertex id 0 out of range 1\.\.3/);
-    expect(() => parseGset("3 x\n", { source: "hdr" })).toThrow(/^hdr:1: gset header: expected edge count m/);
-    expect(() => parseGset("", { source: "empty" })).toThrow(/^empty: gset file is empty/);
+    expect(() => parseGset("3 x\n", { file: "hdr" })).toThrow(/^hdr:1: gset header: expected edge count m/);
+    expect(() => parseGset("", { file: "empty" })).toThrow(/^empty: gset file is empty/);
   });
 
   it("DIMACS: edge count against the p line, lines out of place, unknown line types", async () => {
@@ -158,7 +158,7 @@ describe("text formats", () => {
     expect((await errorOf("two.col", "p edge 2 1\np edge 2 1\n")).message).toMatch(/two\.col:2: second DIMACS problem line/);
     expect((await errorOf("n.col", "p edge 2 1\nn 1 5\ne 1 2\n")).message).toMatch(/n\.col:2: unknown DIMACS line "n 1 5"/);
     expect((await errorOf("r.col", "p edge 2 1\ne 1 3\n")).message).toMatch(/r\.col:2: vertex id 3 out of range 1\.\.2/);
-    expect(() => parseDimacs("c only comments\n", { source: "nop" })).toThrow(/^nop: DIMACS file has no problem line/);
+    expect(() => parseDimacs("c only comments\n", { file: "nop" })).toThrow(/^nop: DIMACS file has no problem line/);
   });
 });
 

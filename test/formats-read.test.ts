@@ -98,7 +98,7 @@ describe("detectFormat", () => {
 });
 
 describe("readGraphs", () => {
-  it.skipIf(!GENG)("gives the same graphs, indexes and lines however the stream is chunked", async () => {
+  it.skipIf(!GENG)("gives the same graphs, positions and lines however the stream is chunked", async () => {
     // Source: nauty-geng 6 writes the 156 graphs on 6 vertices (OEIS A000088), one per line.
     const text = execFileSync("nauty-geng", ["-q", "6"]).toString("latin1");
     const lines = text.trim().split("\n");
@@ -106,7 +106,7 @@ describe("readGraphs", () => {
       const got = await collect({ stream: chunked(text, size), name: "geng" });
       expect(got.length).toBe(156);
       got.forEach((g, i) => {
-        expect([g.index, g.line, g.source, g.format]).toEqual([i, i + 1, "geng", "graph6"]);
+        expect([g.position, g.line, g.file, g.format]).toEqual([i + 1, i + 1, "geng", "graph6"]);
         expect(edgesOf(g.graph)).toBe(edgesOf(parseGraph6(lines[i])));
       });
     }
@@ -131,11 +131,11 @@ describe("readGraphs", () => {
     // formats.txt: optional >>graph6<< / >>sparse6<< headers; nauty's tools read graph6 and sparse6 lines mixed.
     const text = ">>graph6<<DQc\r\n\r\n:Fa@x^\r\n>>sparse6<<\n>>sparse6<<:Fa@x^\nDQc";
     const got = await collect({ stream: chunked(text, 5), name: "mixed" });
-    expect(got.map((g) => [g.index, g.line, g.format, g.graph.m])).toEqual([
-      [0, 1, "graph6", 4],
-      [1, 3, "sparse6", 4],
-      [2, 5, "sparse6", 4],
-      [3, 6, "graph6", 4],
+    expect(got.map((g) => [g.position, g.line, g.format, g.graph.m])).toEqual([
+      [1, 1, "graph6", 4],
+      [2, 3, "sparse6", 4],
+      [3, 5, "sparse6", 4],
+      [4, 6, "graph6", 4],
     ]);
   });
 
@@ -152,7 +152,7 @@ describe("readGraphs", () => {
       const path = join(tmp, name);
       writeFileSync(path, text);
       const loaded = await readGraphFile(path);
-      expect([loaded.format, loaded.index, loaded.line, loaded.source]).toEqual([format, 0, 1, path]);
+      expect([loaded.format, loaded.position, loaded.line, loaded.file]).toEqual([format, 1, 1, path]);
       expect(edgesOf(loaded.graph)).toBe(edgesOf(g));
       const viaStream = await collect({ stream: chunked(text, 4), name: "stdin" });
       expect(viaStream.map((x) => [x.format, edgesOf(x.graph)])).toEqual([[format, edgesOf(g)]]);
@@ -183,7 +183,7 @@ describe("readGraphs", () => {
     let seen = 0;
     for await (const g of readGraphs({ path })) {
       seen++;
-      if (g.index === 2) break;
+      if (g.position === 3) break;
     }
     expect(seen).toBe(3);
   });

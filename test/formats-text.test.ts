@@ -117,7 +117,7 @@ describe("edge lists", () => {
     }[];
     expect(cases.length).toBe(6);
     for (const c of cases) {
-      const { graph } = parseEdgeList(c.text, { base: c.base, source: "nx.edges" });
+      const { graph } = parseEdgeList(c.text, { base: c.base, file: "nx.edges" });
       const plain = parseGraph6(c.g6);
       expect(graph.n).toBe(plain.n);
       expect(edgeStrings(graph)).toEqual(edgeStrings(plain));
@@ -209,7 +209,7 @@ describe("DIMACS", () => {
       writeFileSync(path, text);
       const s6 = execFileSync("nauty-dimacs2g", ["-c", path], { stdio: ["ignore", "pipe", "ignore"] }).toString().trim();
       const theirs = parseSparse6(s6);
-      const ours = parseDimacs(text, { source: name }).graph;
+      const ours = parseDimacs(text, { file: name }).graph;
       expect(ours.n).toBe(theirs.n);
       expect(edgeStrings(ours)).toEqual(edgeStrings(theirs));
     }

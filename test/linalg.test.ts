@@ -73,7 +73,7 @@ describe("Lanczos", () => {
       const dense = symmetricEigen(a, n);
       const op = denseOperator(a, n);
       for (const which of ["largest", "smallest"] as const) {
-        const l = lanczosExtreme(op, { k: 3, which, seed: 5, denseBelow: 0, maxBasis: 30 });
+        const l = lanczosExtreme(op, { k: 3, which, solverSeed: 5, denseBelow: 0, maxBasis: 30 });
         expect(l.method).toBe("lanczos");
         expect(l.converged).toBe(true);
         for (let t = 0; t < 3; t++) {
@@ -92,7 +92,7 @@ describe("Lanczos", () => {
       const g = randomGraph(120, 0.08, rng, weights);
       const op = laplacianOperator(g);
       const dense = symmetricEigen(operatorToDense(op), g.n);
-      const l = lanczosExtreme(op, { k: 2, which: "largest", denseBelow: 0, maxBasis: 16, seed: 3 });
+      const l = lanczosExtreme(op, { k: 2, which: "largest", denseBelow: 0, maxBasis: 16, solverSeed: 3 });
       expect(l.restarts).toBeGreaterThan(0);
       expect(l.values[0]).toBeCloseTo(dense.values[g.n - 1], 8);
       expect(l.values[1]).toBeCloseTo(dense.values[g.n - 2], 8);
@@ -113,10 +113,10 @@ describe("Lanczos", () => {
 
   it("is reproducible from its seed and validates its options", () => {
     const g = randomGraph(100, 0.1, new Rng(4), "none");
-    const a = lanczosExtreme(laplacianOperator(g), { seed: 9, denseBelow: 0 });
-    const b = lanczosExtreme(laplacianOperator(g), { seed: 9, denseBelow: 0 });
+    const a = lanczosExtreme(laplacianOperator(g), { solverSeed: 9, denseBelow: 0 });
+    const b = lanczosExtreme(laplacianOperator(g), { solverSeed: 9, denseBelow: 0 });
     expect(Array.from(a.vectors[0])).toEqual(Array.from(b.vectors[0]));
-    expect(a.seed).toBe(9);
+    expect(a.solverSeed).toBe(9);
     expect(() => lanczosExtreme(laplacianOperator(g), { k: 0 })).toThrow(/invalid `k`/);
     expect(() => lanczosExtreme(laplacianOperator(g), { tolerance: 2 })).toThrow(/invalid `tolerance`/);
     expect(() => lanczosExtreme(laplacianOperator(g), { start: new Float64Array(3) })).toThrow(/`start` has 3 entries/);

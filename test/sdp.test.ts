@@ -62,12 +62,12 @@ function dsdp(g: Graph, name: string): { primal: number; dual: number } {
 describe("SDP values with published closed forms", () => {
   it("C5: (25 + 5√5)/8 (Goemans & Williamson, J. ACM 42 (1995), the 5-cycle example)", () => {
     const truth = (25 + 5 * Math.sqrt(5)) / 8;
-    const { sdp, bound } = solveAndCertifySdp(cycle(5), { sdp: { gapTolerance: 1e-10, seed: 3 } });
+    const { sdp, bound } = solveAndCertifySdp(cycle(5), { sdp: { gapTolerance: 1e-10, solverSeed: 3 } });
     expect(sdp.value).toBeLessThanOrEqual(truth + 1e-12);
     expect(relErr(sdp.value, truth)).toBeLessThan(1e-8);
     expect(bound.value).toBeGreaterThanOrEqual(truth);
     expect(relErr(bound.value, truth)).toBeLessThan(1e-6);
-    expect(bound.certificate?.shiftMethod).toBe("cholesky-verified");
+    expect(bound.certificate?.shiftProof).toBe("cholesky");
     expect(bruteMaxCut(cycle(5))).toBe(4);
   });
 
@@ -95,7 +95,7 @@ describe.skipIf(!hasDsdp)("agreement with dsdp5 (Debian dsdp) on our SDPA export
       const n = 30 + ((t * 17) % 51);
       const g = randomGraph(n, [0.1, 0.3, 0.6][t % 3], 100 + t, kinds[t % 3]);
       const ref = dsdp(g, `rand${t}`);
-      const { sdp, bound } = solveAndCertifySdp(g, { sdp: { gapTolerance: 1e-8, seed: t } });
+      const { sdp, bound } = solveAndCertifySdp(g, { sdp: { gapTolerance: 1e-8, solverSeed: t } });
       const ok = verifyCertificate(g, bound.certificate!);
       expect(ok.ok, ok.message).toBe(true);
       expect(relErr(bound.value, ref.dual), `graph ${t}: ours ${bound.value}, dsdp ${ref.dual}`).toBeLessThan(1e-4);
@@ -123,7 +123,7 @@ describe.skipIf(!hasGset)("G-set reference bounds (../shared/reference/gset/sdp-
       const g = parseGset(readFileSync(join(REFERENCE, `${name}.txt`))).graph;
       const ref = table.get(name)!;
       const b = sdpUpperBound(g, { sdp: { gapTolerance: 1e-4 } });
-      expect(b.certificate?.shiftMethod).toBe("cholesky-verified");
+      expect(b.certificate?.shiftProof).toBe("cholesky");
       // The table rounds to 4–6 significant digits; a proof may sit below it by that rounding only.
       expect(b.value).toBeGreaterThanOrEqual(ref * (1 - 1e-5));
       expect((b.value - ref) / ref).toBeLessThan(5e-4);
@@ -135,7 +135,7 @@ describe("eigenvalue bound", () => {
   it("even cycles: λmax(L) = 4 (Brouwer & Haemers, §1.4.3), so n·4/4 = n = m, proved by Gershgorin at any size", () => {
     for (const n of [10, 1200]) {
       const e = eigenvalueUpperBound(cycle(n));
-      expect(e.certificate?.shiftMethod).toBe("gershgorin");
+      expect(e.certificate?.shiftProof).toBe("gershgorin");
       expect(e.value).toBeGreaterThanOrEqual(n);
       expect(relErr(e.value, n)).toBeLessThan(1e-12);
       expect(verifyCertificate(cycle(n), e.certificate!).proven).toBe(true);
@@ -145,9 +145,9 @@ describe("eigenvalue bound", () => {
   it("above denseLimit it is an honest estimate, labelled as such", () => {
     const g = randomGraph(300, 0.05, 77, "none");
     const e = eigenvalueUpperBound(g, { denseLimit: 100 });
-    expect(e.certificate?.shiftMethod).toBe("lanczos-ritz-residual");
+    expect(e.certificate?.shiftProof).toBe("lanczos-estimate");
     const proved = eigenvalueUpperBound(g);
-    expect(proved.certificate?.shiftMethod).toBe("cholesky-verified");
+    expect(proved.certificate?.shiftProof).toBe("cholesky");
     expect(relErr(e.value, proved.value)).toBeLessThan(1e-8);
     const v = verifyCertificate(g, e.certificate!);
     expect(v.ok).toBe(true);
@@ -164,15 +164,15 @@ describe("certificates", () => {
     ["real", randomGraph(40, 0.5, 3, "real")],
   ];
 
-  it("verifyCertificate accepts every certificate we produce, for each shift method", () => {
+  it("verifyCertificate accepts every certificate we produce, for each shift proof", () => {
     for (const [name, g] of graphs) {
       const sdp = solveSdp(g, { gapTolerance: 1e-6 });
-      for (const method of ["auto", "cholesky", "gershgorin", "lanczos"] as const) {
-        const rec = certifyDual(g, sdp.y, { method });
+      for (const shiftProof of ["auto", "cholesky", "gershgorin", "lanczos-estimate"] as const) {
+        const rec = certifyDual(g, sdp.y, { shiftProof });
         const check = verifyCertificate(g, rec.certificate!);
-        expect(check.ok, `${name}/${method}: ${check.message}`).toBe(true);
+        expect(check.ok, `${name}/${shiftProof}: ${check.message}`).toBe(true);
         expect(check.value).toBe(rec.value);
-        expect(check.proven).toBe(method !== "lanczos");
+        expect(check.proven).toBe(shiftProof !== "lanczos-estimate");
         expect(rec.value).toBeGreaterThanOrEqual(sdp.value);
       }
       const e = eigenvalueUpperBound(g);
@@ -180,7 +180,7 @@ describe("certificates", () => {
     }
   });
 
-  it("rejects tampered certificates: y lowered, shift lowered, wrong length, NaN, unknown kind or method", () => {
+  it("rejects tampered certificates: y lowered, shift lowered, wrong length, NaN, unknown kind or shift proof", () => {
     for (const [name, g] of graphs) {
       const b = sdpUpperBound(g, { sdp: { gapTolerance: 1e-6 } });
       const c = b.certificate!;
@@ -194,11 +194,11 @@ describe("certificates", () => {
       y2[1] = NaN;
       tampered.push(["NaN in y", { ...c, y: y2 }]);
       tampered.push(["NaN shift", { ...c, shift: NaN }]);
-      tampered.push(["unknown method", { ...c, shiftMethod: "trust-me" }]);
+      tampered.push(["unknown shift proof", { ...c, shiftProof: "trust-me" as never }]);
       tampered.push(["wrong kind", { ...c, kind: "other" as "psd-dual" }]);
-      tampered.push(["Gershgorin claim", { ...c, shiftMethod: "gershgorin" }]);
-      for (const method of ["lanczos-ritz-residual"]) {
-        tampered.push([`lowered ${method}`, { ...c, shiftMethod: method, shift: c.shift - 1e-2 }]);
+      tampered.push(["Gershgorin claim", { ...c, shiftProof: "gershgorin" }]);
+      for (const shiftProof of ["lanczos-estimate"] as const) {
+        tampered.push([`lowered ${shiftProof}`, { ...c, shiftProof, shift: c.shift - 1e-2 }]);
       }
       for (const [what, t] of tampered) expect(verifyCertificate(g, t).ok, `${name}: ${what}`).toBe(false);
     }
@@ -231,16 +231,16 @@ describe("certificates", () => {
     expect(rec.value).toBeGreaterThanOrEqual(sdpUpperBound(g).relaxationValue!);
     expect(() => certifyDual(g, y.slice(1))).toThrow(/`y` has 29 entries but the graph has 30 vertices/);
     expect(() => certifyDual(g, Float64Array.from(y, (x, i) => (i === 4 ? Infinity : x)))).toThrow(/`y`\[4\] is Infinity/);
-    expect(() => certifyDual(g, y, { method: "magic" as never })).toThrow(/invalid `method`/);
+    expect(() => certifyDual(g, y, { shiftProof: "magic" as never })).toThrow(/invalid `shiftProof`/);
   });
 });
 
 describe("solveSdp", () => {
   it("records its seed and rank, repeats itself from the seed, and keeps unit rows", () => {
     const g = randomGraph(50, 0.2, 5, "real");
-    const a = solveSdp(g, { seed: 17, maxSweeps: 30 });
-    const b = solveSdp(g, { seed: 17, maxSweeps: 30 });
-    expect(a.seed).toBe(17);
+    const a = solveSdp(g, { solverSeed: 17, maxSweeps: 30 });
+    const b = solveSdp(g, { solverSeed: 17, maxSweeps: 30 });
+    expect(a.solverSeed).toBe(17);
     expect(a.rank).toBe(defaultSdpRank(50));
     expect(defaultSdpRank(50)).toBe(11); // ⌈√100⌉ + 1
     expect(Array.from(a.vectors)).toEqual(Array.from(b.vectors));
@@ -256,11 +256,11 @@ describe("solveSdp", () => {
 
   it("stops on its budgets and validates options", () => {
     const g = randomGraph(80, 0.2, 6, "none");
-    expect(solveSdp(g, { maxSweeps: 3, gapTolerance: 0 }).status).toBe("budget");
-    expect(solveSdp(g, { seconds: 1e-6, gapTolerance: 0 }).status).toBe("timeout");
+    expect(solveSdp(g, { maxSweeps: 3, gapTolerance: 0 }).status).toBe("iteration-limit");
+    expect(solveSdp(g, { seconds: 1e-6, gapTolerance: 0 }).status).toBe("time-limit");
     expect(solveSdp(graphFromEdges(4, []), {}).status).toBe("converged");
     expect(() => solveSdp(g, { rank: 0 })).toThrow(/invalid `rank`/);
-    expect(() => solveSdp(g, { seed: -1 })).toThrow(/invalid `seed`/);
+    expect(() => solveSdp(g, { solverSeed: -1 })).toThrow(/invalid `solverSeed`/);
     expect(() => solveSdp(g, { gapTolerance: 2 })).toThrow(/invalid `gapTolerance`/);
     expect(() => solveSdp(g, { initial: new Float64Array(3) })).toThrow(/invalid `initial`/);
   });

@@ -171,7 +171,7 @@ describe("Petersen graph", () => {
       n: 10, m: 15, totalWeight: 15, minDegree: 3, maxDegree: 3, avgDegree: 3, degeneracy: 3,
       triangles: 0, fourCycles: 0, girth: 5, bipartite: false, components: 1,
       free: { K3: true, K4: true, C4: true, C5: false },
-      undecided: [],
+      unknown: [],
     });
     expectCycle(g, s.witnesses.C5, 5);
     // Any K2,3 contains a 4-cycle, so a C4-free graph has none (common practice, no source).
@@ -438,7 +438,7 @@ describe("larger random graphs: witnesses and consistency", () => {
     const s = describeGraph(complete(6), { skip: ["triangles", "fourCycles", "girth"], maxSearchNodes: 1 });
     expect(s.triangles).toBeNull();
     expect(s.free.K4).toBeNull();
-    expect(s.undecided).toEqual(expect.arrayContaining(["triangles", "fourCycles", "girth", "free.K4", "free.C5"]));
+    expect(s.unknown).toEqual(expect.arrayContaining(["triangles", "fourCycles", "girth", "free.K4", "free.C5"]));
   });
 });
 

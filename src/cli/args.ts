@@ -29,8 +29,12 @@ export interface CommandSpec {
   minPositionals: number;
   maxPositionals: number; // Infinity for variadic
   options: readonly OptionSpec[];
+  /** Paragraphs shown under the summary: what the command does, in plain words. */
+  description?: readonly string[];
   /** Extra lines shown under the usage (examples). */
   examples?: readonly string[];
+  /** Options this command refuses with a message saying what to use instead (e.g. an ambiguous --seed). */
+  refused?: Readonly<Record<string, string>>;
   run(args: ParsedArgs, io: CommandIO): Promise<number>;
 }
 
@@ -91,6 +95,8 @@ export function parseArgs(cmd: CommandSpec, argv: readonly string[]): ParsedArgs
     if (a.startsWith("--")) {
       const eq = a.indexOf("=");
       const name = eq < 0 ? a.slice(2) : a.slice(2, eq);
+      const refusal = cmd.refused?.[name];
+      if (refusal !== undefined) throw new InputError(`--${name}: ${refusal}`);
       let spec = byName.get(name);
       if (spec === undefined && name.startsWith("no-") && byName.get(name.slice(3))?.type === "boolean") {
         if (eq >= 0) throw new InputError(`--${name} takes no value`);
@@ -127,6 +133,7 @@ export function parseArgs(cmd: CommandSpec, argv: readonly string[]): ParsedArgs
 
 export function commandHelp(cmd: CommandSpec): string {
   const lines = [`halfplus ${cmd.name} ${cmd.positionals}`.trimEnd(), "", `  ${cmd.summary}`, ""];
+  for (const paragraph of cmd.description ?? []) lines.push(...wrap(paragraph, 96).map((l) => `  ${l}`), "");
   if (cmd.options.length > 0) {
     lines.push("options:");
     const rows = cmd.options.map((o) => {
@@ -139,7 +146,10 @@ export function commandHelp(cmd: CommandSpec): string {
       return [flag, o.description + (extra.length ? ` (${extra.join("; ")})` : "")];
     });
     const w = Math.max(...rows.map((r) => r[0].length));
-    for (const [f, d] of rows) lines.push(`  ${f.padEnd(w)}  ${d}`);
+    for (const [f, d] of rows) {
+      const [first, ...rest] = wrap(d, Math.max(40, 100 - w));
+      lines.push(`  ${f.padEnd(w)}  ${first}`, ...rest.map((l) => `  ${"".padEnd(w)}  ${l}`));
+    }
     lines.push("");
   }
   if (cmd.examples && cmd.examples.length > 0) {
@@ -148,4 +158,18 @@ export function commandHelp(cmd: CommandSpec): string {
     lines.push("");
   }
   return lines.join("\n");
+}
+
+/** Greedy word wrap at `width` columns. */
+function wrap(text: string, width: number): string[] {
+  const out: string[] = [];
+  let line = "";
+  for (const word of text.split(/\s+/).filter((x) => x !== "")) {
+    if (line !== "" && line.length + 1 + word.length > width) {
+      out.push(line);
+      line = word;
+    } else line = line === "" ? word : `${line} ${word}`;
+  }
+  out.push(line);
+  return out;
 }

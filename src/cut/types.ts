@@ -6,10 +6,12 @@
 import type { Partition } from "../graph/cut-value.js";
 
 /**
- * optimal: proven optimum. timeout / budget: stopped by the time or iteration budget.
- * converged: an iterative method met its tolerance. heuristic: a best-effort answer.
+ * Why a method stopped. optimal: proven optimum. converged: an iterative method met its
+ * tolerance. completed: it did the fixed amount of work asked for (all rounding trials), with no
+ * optimality claim. time-limit: its wall-clock budget ran out. iteration-limit: its count of
+ * iterations (restarts, rounds, sweeps) ran out.
  */
-export type SolverStatus = "optimal" | "timeout" | "budget" | "converged" | "heuristic";
+export type SolverStatus = "optimal" | "converged" | "completed" | "time-limit" | "iteration-limit";
 
 /** A cut found by some method: the value is `cutValue(graph, partition)`. */
 export interface CutRecord {
@@ -18,10 +20,27 @@ export interface CutRecord {
   partition: Partition;
   status: SolverStatus;
   seconds: number;
-  seed: number | null;
+  /** Seed of the method's own randomness; null for methods that use none. */
+  solverSeed: number | null;
   /** Method-specific numbers (trials, iterations, guarantee, ...), all plain. */
   details?: Record<string, number | string | boolean | null>;
 }
+
+/**
+ * How the shift of a dual certificate is established. cholesky: proved by a floating-point
+ * Cholesky factorisation with a rounding-error margin. gershgorin: proved by Gershgorin's circle
+ * theorem. lanczos-estimate: a Lanczos Ritz value plus residual, a high-confidence estimate
+ * rather than a proof (see src/cut/relaxation/certificate.ts).
+ */
+export type ShiftProof = "cholesky" | "gershgorin" | "lanczos-estimate";
+
+/**
+ * How far an upper bound can be trusted. proven: a theorem, checked in floating point with
+ * rounding margins (exhaustive search, a Cholesky or Gershgorin shift, the positive-weight sum).
+ * probable: holds with a stated probability (kept for probabilistic shift proofs). estimate: a
+ * high-confidence numerical estimate, not a proof (a Lanczos shift).
+ */
+export type UpperKind = "proven" | "probable" | "estimate";
 
 /**
  * Certificate for upper ≤ ¼·(Σ y_i + n·shift): the matrix Diag(y) + shift·I − L is PSD
@@ -30,13 +49,9 @@ export interface CutRecord {
 export interface DualCertificate {
   kind: "psd-dual";
   y: Float64Array;
-  /** Rigorous upper estimate of λmax(L − Diag(y)), rounded up. */
+  /** Upper estimate of λmax(L − Diag(y)), rounded up. */
   shift: number;
-  /**
-   * How `shift` was established: "cholesky-verified" and "gershgorin" are proofs;
-   * "lanczos-ritz-residual" is a high-confidence estimate (see src/cut/certificate.ts).
-   */
-  shiftMethod: string;
+  shiftProof: ShiftProof;
 }
 
 export interface UpperBoundRecord {

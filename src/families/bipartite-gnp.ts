@@ -8,7 +8,7 @@ import type { Rng } from "../random/prng.js";
 import { bipartiteFreeOf } from "./free-of.js";
 import { binomialCapacity, geometricSkip, MAX_RANDOM_VERTICES } from "./gnp.js";
 import { buildRandomTyped } from "./typed-build.js";
-import type { FamilyDefinition } from "./types.js";
+import { defineFamily } from "./types.js";
 
 function sampleBipartite(a: number, b: number, p: number, rng: Rng): Graph {
   const pairs = a * b;
@@ -28,7 +28,7 @@ function sampleBipartite(a: number, b: number, p: number, rng: Rng): Graph {
   return buf.build(a + b).graph;
 }
 
-export const bipartiteGnpFamily: FamilyDefinition = {
+export const bipartiteGnpFamily = defineFamily({
   name: "bipartite-gnp",
   summary: "random bipartite graph: parts of sizes a and b, each cross pair an edge with probability p",
   params: [
@@ -38,27 +38,27 @@ export const bipartiteGnpFamily: FamilyDefinition = {
   ],
   random: true,
   validate: (params) => {
-    const a = params.a as number;
-    const b = params.b as number;
+    const a = params.a;
+    const b = params.b;
     if (a + b > MAX_RANDOM_VERTICES) {
       throw invalidParameter("bipartite-gnp", "b", `a + b should be at most ${MAX_RANDOM_VERTICES} (a = ${a})`, b);
     }
   },
   freeOf: () => bipartiteFreeOf("no odd cycles (König 1936)"),
-  expected: (params) => {
-    const a = params.a as number;
-    const b = params.b as number;
-    const p = params.p as number;
+  predictedSize: (params) => {
+    const a = params.a;
+    const b = params.b;
+    const p = params.p;
     const exact = p === 0 || p === 1;
     if (!exact || a + b === 0) return { n: a + b, m: p * a * b, mExact: exact };
     const both = a > 0 && b > 0;
     return { n: a + b, m: p * a * b, mExact: true, minDegree: both ? p * Math.min(a, b) : 0, maxDegree: both ? p * Math.max(a, b) : 0 };
   },
-  build: (params, ctx) => sampleBipartite(params.a as number, params.b as number, params.p as number, ctx.rng),
-  notes: "Geometric skipping over the a·b cross pairs (Batagelj & Brandes 2005).",
-};
+  build: (params, ctx) => sampleBipartite(params.a, params.b, params.p, ctx.rng),
+  notes: ["Geometric skipping over the a·b cross pairs (Batagelj & Brandes 2005)."],
+});
 
-/** Random bipartite graph from a seed (spec `bipartite-gnp:a=…,b=…,p=…,seed=…`) or a caller's Rng. */
-export function bipartiteGnp(a: number, b: number, p: number, seed: number | Rng = 0): Graph {
-  return buildRandomTyped(bipartiteGnpFamily, { a, b, p }, seed);
+/** Random bipartite graph from a graph seed (spec `bipartite-gnp:a=…,b=…,p=…,seed=…`) or a caller's Rng. */
+export function bipartiteGnp(a: number, b: number, p: number, graphSeed: number | Rng = 0): Graph {
+  return buildRandomTyped(bipartiteGnpFamily, { a, b, p }, graphSeed);
 }

@@ -1,52 +1,52 @@
-// Deterministic families (algebraic, structured, named, operations). One file per family.
-import { cayleyGf2, hypercube } from "./cayley-gf2.js";
-import { andrasfai, cayleyZn, circulant, cycle } from "./circulant.js";
-import { complete } from "./complete.js";
-import { completeBipartite, completeMultipartite } from "./complete-multipartite.js";
-import { generalizedPetersen } from "./generalized-petersen.js";
-import { kneser } from "./kneser.js";
-import { mycielski } from "./mycielski.js";
-import { chvatal } from "./named/chvatal.js";
-import { clebsch } from "./named/clebsch.js";
-import { grotzsch } from "./named/grotzsch.js";
-import { heawood } from "./named/heawood.js";
-import { higmanSims } from "./named/higman-sims.js";
-import { hoffmanSingleton } from "./named/hoffman-singleton.js";
-import { dodecahedron, petersen } from "./named/petersen.js";
+// Deterministic families (elementary, algebraic and extremal, named graphs), in the order
+// `halfplus families` lists them. One file per family.
+import { cayleyGf2Family, hypercubeFamily } from "./cayley-gf2.js";
+import { andrasfaiFamily, circulantFamily, cycleFamily } from "./circulant.js";
+import { completeFamily } from "./complete.js";
+import { completeBipartiteFamily, completeMultipartiteFamily } from "./complete-multipartite.js";
+import { generalizedPetersenFamily } from "./generalized-petersen.js";
+import { kneserFamily } from "./kneser.js";
+import { mycielskiChainFamily } from "./mycielski.js";
+import { chvatalFamily } from "./named/chvatal.js";
+import { clebschFamily } from "./named/clebsch.js";
+import { grotzschFamily } from "./named/grotzsch.js";
+import { heawoodFamily } from "./named/heawood.js";
+import { higmanSimsFamily } from "./named/higman-sims.js";
+import { hoffmanSingletonFamily } from "./named/hoffman-singleton.js";
+import { dodecahedronFamily, petersenFamily } from "./named/petersen.js";
 import { normGraphFamily } from "./norm-graph.js";
-import { paley } from "./paley.js";
-import { path } from "./path.js";
-import { polarity } from "./polarity.js";
-import { projectivePlane } from "./projective-plane.js";
+import { paleyFamily } from "./paley.js";
+import { pathFamily } from "./path.js";
+import { polarityFamily } from "./polarity.js";
+import { projectivePlaneFamily } from "./projective-plane.js";
 import type { FamilyDefinition } from "./types.js";
 
-export const STRUCTURED_FAMILIES: FamilyDefinition[] = [
+export const STRUCTURED_FAMILIES: readonly FamilyDefinition[] = [
   // elementary
-  complete,
-  completeBipartite,
-  completeMultipartite,
-  cycle,
-  path,
-  hypercube,
-  circulant,
-  cayleyZn,
-  cayleyGf2,
-  generalizedPetersen,
+  completeFamily,
+  completeBipartiteFamily,
+  completeMultipartiteFamily,
+  cycleFamily,
+  pathFamily,
+  hypercubeFamily,
+  circulantFamily,
+  cayleyGf2Family,
+  generalizedPetersenFamily,
   // algebraic and extremal
-  polarity,
-  projectivePlane,
+  polarityFamily,
+  projectivePlaneFamily,
   normGraphFamily,
-  kneser,
-  paley,
-  andrasfai,
-  mycielski,
+  kneserFamily,
+  paleyFamily,
+  andrasfaiFamily,
+  mycielskiChainFamily,
   // named graphs
-  petersen,
-  dodecahedron,
-  heawood,
-  clebsch,
-  hoffmanSingleton,
-  higmanSims,
-  grotzsch,
-  chvatal,
+  petersenFamily,
+  dodecahedronFamily,
+  heawoodFamily,
+  clebschFamily,
+  hoffmanSingletonFamily,
+  higmanSimsFamily,
+  grotzschFamily,
+  chvatalFamily,
 ];

@@ -1,12 +1,12 @@
 // Circulant graphs (Cayley graphs of Z_n): x ~ x ± s (mod n) for s in the connection set. `cayley-zn`
-// is the same family under its group-theoretic name; cycles and Andrásfai graphs are built here too.
+// is an alias, the group-theoretic name of the same graphs; cycles and Andrásfai graphs are built here too.
 
 import { invalidParameter } from "../errors.js";
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { bipartiteFreeOf } from "./free-of.js";
 import { resolveTyped } from "./typed-build.js";
-import type { FamilyDefinition, Params } from "./types.js";
+import { defineFamily, type FreeOfClaim } from "./types.js";
 
 /** Every s in 1..n−1 and listed once; s and n − s may both appear (they give the same edges). */
 export function checkConnectionSet(owner: string, n: number, s: readonly number[]): void {
@@ -52,64 +52,58 @@ function circulantSumFree(n: number, closure: readonly number[]): boolean {
   return true;
 }
 
-function circulantFreeOf(n: number, s: readonly number[]): { pattern: string; source: string }[] {
+function circulantFreeOf(n: number, s: readonly number[]): FreeOfClaim[] {
   if (n % 2 === 0 && s.every((x) => x % 2 === 1)) return bipartiteFreeOf("n even and every s odd, so x mod 2 is a proper 2-colouring");
-  if (circulantSumFree(n, symmetricClosure(n, s))) return [{ pattern: "K3", source: "S ∪ −S is sum-free mod n; a triangle x, x+a, x+a+b needs a, b, a+b in it (elementary)" }];
+  if (circulantSumFree(n, symmetricClosure(n, s))) return [{ pattern: "K3", citation: "S ∪ −S is sum-free mod n; a triangle x, x+a, x+a+b needs a, b, a+b in it (elementary)" }];
   return [];
 }
 
 /** Circulant graph on Z_n with connection set s (closed under negation automatically). */
-export function circulantGraph(n: number, s: readonly number[]): Graph {
-  const p = resolveTyped(circulant, { n, s: [...s] });
-  return buildCirculant(p.n as number, p.s as number[]);
+export function circulant(n: number, s: readonly number[]): Graph {
+  const p = resolveTyped(circulantFamily, { n, s: [...s] });
+  return buildCirculant(p.n, p.s);
 }
 
-export const circulant: FamilyDefinition = {
+export const circulantFamily = defineFamily({
   name: "circulant",
-  summary: "circulant graph on Z_n: x ~ x ± s (mod n) for each s in the connection set",
+  aliases: ["cayley-zn"],
+  summary: "circulant graph on Z_n (the Cayley graph of Z_n, alias cayley-zn): x ~ x ± s (mod n) for each s in the connection set",
   params: [
     { name: "n", type: "integer", description: "number of vertices", default: 13, min: 2, max: 100_000_000 },
     { name: "s", type: "integer-list", description: "connection set, integers 1..n−1 joined by +", default: [1, 5] },
   ],
   random: false,
-  validate: (p: Params) => checkConnectionSet("circulant", p.n as number, p.s as number[]),
-  freeOf: (p) => circulantFreeOf(p.n as number, p.s as number[]),
-  expected: (p) => {
-    const n = p.n as number, d = circulantDegree(n, p.s as number[]);
+  validate: (p) => checkConnectionSet("circulant", p.n, p.s),
+  freeOf: (p) => circulantFreeOf(p.n, p.s),
+  predictedSize: (p) => {
+    const n = p.n, d = circulantDegree(n, p.s);
     return { n, m: (n * d) / 2, mExact: true, minDegree: d, maxDegree: d };
   },
-  build: (p) => buildCirculant(p.n as number, p.s as number[]),
-};
-
-/** The same family under its Cayley-graph name: one implementation, two spellings. */
-export const cayleyZn: FamilyDefinition = {
-  ...circulant,
-  name: "cayley-zn",
-  summary: "Cayley graph of the cyclic group Z_n with connection set s (same graphs as circulant)",
-  validate: (p: Params) => checkConnectionSet("cayley-zn", p.n as number, p.s as number[]),
-};
+  build: (p) => buildCirculant(p.n, p.s),
+});
 
 // ---- cycles ----
 
-export function cycleGraph(n: number): Graph {
-  const p = resolveTyped(cycle, { n });
-  return buildCirculant(p.n as number, [1]);
+/** C_n, validated like the spec `cycle:n=…`. */
+export function cycle(n: number): Graph {
+  const p = resolveTyped(cycleFamily, { n });
+  return buildCirculant(p.n, [1]);
 }
 
-export const cycle: FamilyDefinition = {
+export const cycleFamily = defineFamily({
   name: "cycle",
   summary: "cycle C_n",
   params: [{ name: "n", type: "integer", description: "number of vertices", default: 5, min: 3, max: 100_000_000 }],
   random: false,
   freeOf: (p) => {
-    const n = p.n as number;
-    const out: { pattern: string; source: string }[] = [];
-    for (let len = 3; len <= 8; len++) if (len !== n) out.push({ pattern: len === 3 ? "K3" : `C${len}`, source: `the only cycle of C_${n} has length ${n}` });
+    const n = p.n;
+    const out: FreeOfClaim[] = [];
+    for (let len = 3; len <= 8; len++) if (len !== n) out.push({ pattern: len === 3 ? "K3" : `C${len}`, citation: `the only cycle of C_${n} has length ${n}` });
     return out;
   },
-  expected: (p) => ({ n: p.n as number, m: p.n as number, mExact: true, minDegree: 2, maxDegree: 2 }),
-  build: (p) => buildCirculant(p.n as number, [1]),
-};
+  predictedSize: (p) => ({ n: p.n, m: p.n, mExact: true, minDegree: 2, maxDegree: 2 }),
+  build: (p) => buildCirculant(p.n, [1]),
+});
 
 // ---- Andrásfai graphs ----
 
@@ -120,20 +114,20 @@ function andrasfaiSet(k: number): number[] {
 }
 
 /** And(k): the circulant on 3k − 1 vertices with connection set {x ≡ 1 (mod 3)}; k-regular, triangle-free. */
-export function andrasfaiGraph(k: number): Graph {
-  const p = resolveTyped(andrasfai, { k });
-  return buildCirculant(3 * (p.k as number) - 1, andrasfaiSet(p.k as number));
+export function andrasfai(k: number): Graph {
+  const p = resolveTyped(andrasfaiFamily, { k });
+  return buildCirculant(3 * p.k - 1, andrasfaiSet(p.k));
 }
 
-export const andrasfai: FamilyDefinition = {
+export const andrasfaiFamily = defineFamily({
   name: "andrasfai",
   summary: "Andrásfai graph And(k): circulant on 3k−1 vertices joining x, y when x − y ≡ 1 (mod 3)",
   params: [{ name: "k", type: "integer", description: "degree", default: 3, min: 1, max: 10000 }],
   random: false,
-  freeOf: () => [{ pattern: "K3", source: "Andrásfai 1964: two residues ≡ 1 (mod 3) sum to ≡ 2, or to ≡ 0 once reduced mod 3k−1" }],
-  expected: (p) => {
-    const k = p.k as number;
+  freeOf: () => [{ pattern: "K3", citation: "Andrásfai 1964: two residues ≡ 1 (mod 3) sum to ≡ 2, or to ≡ 0 once reduced mod 3k−1" }],
+  predictedSize: (p) => {
+    const k = p.k;
     return { n: 3 * k - 1, m: (k * (3 * k - 1)) / 2, mExact: true, minDegree: k, maxDegree: k };
   },
-  build: (p) => buildCirculant(3 * (p.k as number) - 1, andrasfaiSet(p.k as number)),
-};
+  build: (p) => buildCirculant(3 * p.k - 1, andrasfaiSet(p.k)),
+});

@@ -3,23 +3,30 @@
 
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
-import type { FamilyDefinition } from "./types.js";
+import { resolveTyped } from "./typed-build.js";
+import { defineFamily } from "./types.js";
 
-export function completeGraph(n: number): Graph {
+/** Builds K_n; trusts its argument (callers validated it). */
+export function buildComplete(n: number): Graph {
   const buf = new EdgeBuffer({ capacity: (n * (n - 1)) / 2 });
   for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) buf.add(u, v);
   return buf.build(n).graph;
 }
 
-export const complete: FamilyDefinition = {
+export const completeFamily = defineFamily({
   name: "complete",
   summary: "complete graph K_n",
   params: [{ name: "n", type: "integer", description: "number of vertices", default: 5, min: 1, max: 30000 }],
   random: false,
-  freeOf: (p) => ((p.n as number) < 3 ? [{ pattern: "K3", source: "fewer than 3 vertices" }] : []),
-  expected: (p) => {
-    const n = p.n as number;
+  freeOf: (p) => (p.n < 3 ? [{ pattern: "K3", citation: "fewer than 3 vertices" }] : []),
+  predictedSize: (p) => {
+    const n = p.n;
     return { n, m: (n * (n - 1)) / 2, mExact: true, minDegree: n - 1, maxDegree: n - 1 };
   },
-  build: (p) => completeGraph(p.n as number),
-};
+  build: (p) => buildComplete(p.n),
+});
+
+/** K_n, validated like the spec `complete:n=…`. */
+export function complete(n: number): Graph {
+  return buildComplete(resolveTyped(completeFamily, { n }).n);
+}

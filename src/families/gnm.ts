@@ -8,7 +8,7 @@ import type { Graph } from "../graph/graph.js";
 import type { Rng } from "../random/prng.js";
 import { MAX_RANDOM_VERTICES } from "./gnp.js";
 import { buildRandomTyped } from "./typed-build.js";
-import type { FamilyDefinition, Params } from "./types.js";
+import { defineFamily } from "./types.js";
 
 const TWO_POW_32 = 4294967296;
 
@@ -106,7 +106,7 @@ function sampleGnm(n: number, m: number, rng: Rng): Graph {
   return buf.build(n).graph;
 }
 
-export const gnmFamily: FamilyDefinition = {
+export const gnmFamily = defineFamily({
   name: "gnm",
   summary: "Erdős–Rényi random graph G(n, m): uniform over graphs with exactly m edges",
   params: [
@@ -115,24 +115,24 @@ export const gnmFamily: FamilyDefinition = {
   ],
   random: true,
   freeOf: () => [],
-  validate: (params: Params) => {
-    const n = params.n as number;
+  validate: (params) => {
+    const n = params.n;
     const total = pairCount(n);
-    if ((params.m as number) > total) {
+    if (params.m > total) {
       throw invalidParameter("gnm", "m", `should be an integer between 0 and n(n−1)/2 = ${total} for n = ${n}`, params.m);
     }
   },
-  expected: (params) => {
-    const n = params.n as number;
-    const m = params.m as number;
+  predictedSize: (params) => {
+    const n = params.n;
+    const m = params.m;
     const regular = n > 0 && (m === 0 || m === pairCount(n));
     return { n, m, mExact: true, ...(regular ? { minDegree: (2 * m) / n, maxDegree: (2 * m) / n } : {}) };
   },
-  build: (params, ctx) => sampleGnm(params.n as number, params.m as number, ctx.rng),
-  notes: "Uniform over all labelled graphs with m edges (the first m distinct pairs of an i.i.d. uniform stream form a uniform m-subset).",
-};
+  build: (params, ctx) => sampleGnm(params.n, params.m, ctx.rng),
+  notes: ["Uniform over all labelled graphs with m edges (the first m distinct pairs of an i.i.d. uniform stream form a uniform m-subset)."],
+});
 
-/** G(n, m) from a seed (the graph of spec `gnm:n=…,m=…,seed=…`) or from a caller's Rng. */
-export function gnm(n: number, m: number, seed: number | Rng = 0): Graph {
-  return buildRandomTyped(gnmFamily, { n, m }, seed);
+/** G(n, m) from a graph seed (the graph of spec `gnm:n=…,m=…,seed=…`) or from a caller's Rng. */
+export function gnm(n: number, m: number, graphSeed: number | Rng = 0): Graph {
+  return buildRandomTyped(gnmFamily, { n, m }, graphSeed);
 }

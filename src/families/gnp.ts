@@ -4,9 +4,9 @@
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import type { Rng } from "../random/prng.js";
-import { completeGraph } from "./complete.js";
+import { buildComplete } from "./complete.js";
 import { buildRandomTyped } from "./typed-build.js";
-import type { FamilyDefinition } from "./types.js";
+import { defineFamily } from "./types.js";
 
 /**
  * Largest vertex count of the random families: typed arrays of a few n entries must fit, and
@@ -29,7 +29,7 @@ export function binomialCapacity(trials: number, p: number): number {
 }
 
 function sampleGnp(n: number, p: number, rng: Rng): Graph {
-  if (p === 1) return completeGraph(n);
+  if (p === 1) return buildComplete(n);
   const buf = new EdgeBuffer({ capacity: binomialCapacity((n * (n - 1)) / 2, p) });
   if (p > 0 && n > 1) {
     const logQ = Math.log1p(-p);
@@ -48,7 +48,7 @@ function sampleGnp(n: number, p: number, rng: Rng): Graph {
   return buf.build(n).graph;
 }
 
-export const gnpFamily: FamilyDefinition = {
+export const gnpFamily = defineFamily({
   name: "gnp",
   summary: "Erdős–Rényi random graph G(n, p): each pair an edge independently with probability p",
   params: [
@@ -57,9 +57,9 @@ export const gnpFamily: FamilyDefinition = {
   ],
   random: true,
   freeOf: () => [],
-  expected: (params) => {
-    const n = params.n as number;
-    const p = params.p as number;
+  predictedSize: (params) => {
+    const n = params.n;
+    const p = params.p;
     const exact = p === 0 || p === 1;
     return {
       n,
@@ -68,11 +68,11 @@ export const gnpFamily: FamilyDefinition = {
       ...(exact && n > 0 ? { minDegree: p * (n - 1), maxDegree: p * (n - 1) } : {}),
     };
   },
-  build: (params, ctx) => sampleGnp(params.n as number, params.p as number, ctx.rng),
-  notes: "Batagelj & Brandes, Efficient generation of large random networks, Phys. Rev. E 71 (2005): geometric skipping, O(n + m) expected time.",
-};
+  build: (params, ctx) => sampleGnp(params.n, params.p, ctx.rng),
+  notes: ["Batagelj & Brandes, Efficient generation of large random networks, Phys. Rev. E 71 (2005): geometric skipping, O(n + m) expected time."],
+});
 
-/** G(n, p) from a seed (the graph of spec `gnp:n=…,p=…,seed=…`) or from a caller's Rng. */
-export function gnp(n: number, p: number, seed: number | Rng = 0): Graph {
-  return buildRandomTyped(gnpFamily, { n, p }, seed);
+/** G(n, p) from a graph seed (the graph of spec `gnp:n=…,p=…,seed=…`) or from a caller's Rng. */
+export function gnp(n: number, p: number, graphSeed: number | Rng = 0): Graph {
+  return buildRandomTyped(gnpFamily, { n, p }, graphSeed);
 }

@@ -6,7 +6,7 @@ import { buildGraph } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import type { Rng } from "../random/prng.js";
 import { buildRandomTyped } from "./typed-build.js";
-import type { FamilyDefinition } from "./types.js";
+import { defineFamily } from "./types.js";
 
 export const HFREE_PATTERNS = ["K3", "C4", "C5", "K4", "K2,3"] as const;
 export type HFreePattern = (typeof HFREE_PATTERNS)[number];
@@ -274,7 +274,7 @@ const PATTERN_SIZE: Record<HFreePattern, { v: number; e: number; constant: numbe
   "K2,3": { v: 5, e: 6, constant: 1 },
 };
 
-export const hfreeProcessFamily: FamilyDefinition = {
+export const hfreeProcessFamily = defineFamily({
   name: "hfree-process",
   summary: "random H-free process: pairs in random order, each added unless it creates a copy of H",
   params: [
@@ -283,23 +283,24 @@ export const hfreeProcessFamily: FamilyDefinition = {
     { name: "edges", type: "integer", description: "stop after this many edges (0: run until the graph is maximal H-free)", default: 0, min: 0 },
   ],
   random: true,
-  freeOf: (params) => [{ pattern: params.h as string, source: "by construction: no edge that completes a copy of H is ever added" }],
-  expected: (params) => {
-    const n = params.n as number;
-    const edges = params.edges as number;
-    const { v, e, constant } = PATTERN_SIZE[params.h as HFreePattern];
+  freeOf: (params) => [{ pattern: params.h, citation: "by construction: no edge that completes a copy of H is ever added" }],
+  predictedSize: (params) => {
+    const n = params.n;
+    const edges = params.edges;
+    const { v, e, constant } = PATTERN_SIZE[params.h];
     const ln = Math.log(Math.max(n, 2));
     const estimate = constant * n ** (2 - (v - 2) / (e - 1)) * ln ** (1 / (e - 1));
     const cap = Math.min((n * (n - 1)) / 2, edges === 0 ? Infinity : edges);
     return { n, m: Math.min(estimate, cap), mExact: false };
   },
-  build: (params, ctx) => runProcess(params.n as number, params.h as HFreePattern, params.edges as number, ctx.rng),
-  notes:
-    "Final size: (1/(2√2) + o(1)) n^{3/2} √(log n) edges for K3 (Bohman & Keevash 2013; Fiz Pontiveros, Griffiths & Morris 2013); " +
-    "order n^{2−(v−2)/(e−1)} (log n)^{1/(e−1)} for strictly 2-balanced H (Bohman & Keevash 2010), shown with constant 1 for C4, C5, K4, K2,3.",
-};
+  build: (params, ctx) => runProcess(params.n, params.h, params.edges, ctx.rng),
+  notes: [
+    "Final size: (1/(2√2) + o(1)) n^{3/2} √(log n) edges for K3 (Bohman & Keevash 2013; Fiz Pontiveros, Griffiths & Morris 2013).",
+    "Order n^{2−(v−2)/(e−1)} (log n)^{1/(e−1)} for strictly 2-balanced H (Bohman & Keevash 2010); the predicted size uses constant 1 for C4, C5, K4, K2,3.",
+  ],
+});
 
-/** The H-free process from a seed (spec `hfree-process:n=…,h=…,seed=…`) or a caller's Rng. */
-export function hFreeProcess(n: number, h: HFreePattern, seed: number | Rng = 0, edges = 0): Graph {
-  return buildRandomTyped(hfreeProcessFamily, { n, h, edges }, seed);
+/** The H-free process from a graph seed (spec `hfree-process:n=…,h=…,seed=…`) or a caller's Rng. */
+export function hfreeProcess(n: number, h: HFreePattern, graphSeed: number | Rng = 0, edges = 0): Graph {
+  return buildRandomTyped(hfreeProcessFamily, { n, h, edges }, graphSeed);
 }

@@ -5,7 +5,7 @@ import { invalidParameter } from "../errors.js";
 import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { resolveTyped } from "./typed-build.js";
-import type { FamilyDefinition, Params } from "./types.js";
+import { defineFamily } from "./types.js";
 
 /** Binomial coefficient C(a, b) as a double (exact below 2^53). */
 export function binomial(a: number, b: number): number {
@@ -66,12 +66,12 @@ function buildKneser(n: number, k: number): Graph {
 }
 
 /** KG(n, k), validated like the spec `kneser:n=…,k=…`. KG(5, 2) is the Petersen graph. */
-export function kneserGraph(n: number, k: number): Graph {
-  const p = resolveTyped(kneser, { n, k });
-  return buildKneser(p.n as number, p.k as number);
+export function kneser(n: number, k: number): Graph {
+  const p = resolveTyped(kneserFamily, { n, k });
+  return buildKneser(p.n, p.k);
 }
 
-export const kneser: FamilyDefinition = {
+export const kneserFamily = defineFamily({
   name: "kneser",
   summary: "Kneser graph KG(n,k): k-subsets of an n-set, adjacent when disjoint",
   params: [
@@ -79,21 +79,21 @@ export const kneser: FamilyDefinition = {
     { name: "k", type: "integer", description: "subset size, at most n/2", default: 2, min: 1, max: 15 },
   ],
   random: false,
-  validate: (p: Params) => {
-    const n = p.n as number, k = p.k as number;
+  validate: (p) => {
+    const n = p.n, k = p.k;
     if (2 * k > n) throw invalidParameter("kneser", "k", `should be at most n/2 = ${n / 2}`, k);
   },
   freeOf: (p) => {
-    const n = p.n as number, k = p.k as number;
+    const n = p.n, k = p.k;
     // r pairwise disjoint k-sets need rk elements, so KG(n,k) has no K_r once n < rk.
     const r = Math.floor(n / k) + 1;
-    return r <= 6 ? [{ pattern: `K${r}`, source: `${r} pairwise disjoint ${k}-sets need ${r * k} > n elements (clique number ⌊n/k⌋)` }] : [];
+    return r <= 6 ? [{ pattern: `K${r}`, citation: `${r} pairwise disjoint ${k}-sets need ${r * k} > n elements (clique number ⌊n/k⌋)` }] : [];
   },
-  expected: (p) => {
-    const n = p.n as number, k = p.k as number;
+  predictedSize: (p) => {
+    const n = p.n, k = p.k;
     const N = binomial(n, k), d = binomial(n - k, k);
     return { n: N, m: (N * d) / 2, mExact: true, minDegree: d, maxDegree: d };
   },
-  build: (p) => buildKneser(p.n as number, p.k as number),
-  notes: "Eigenvalues (−1)^j·C(n−k−j, k−j), j = 0..k (Lovász 1979); chromatic number n − 2k + 2 (Lovász 1978).",
-};
+  build: (p) => buildKneser(p.n, p.k),
+  notes: ["Eigenvalues (−1)^j·C(n−k−j, k−j), j = 0..k (Lovász 1979); chromatic number n − 2k + 2 (Lovász 1978)."],
+});

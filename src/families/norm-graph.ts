@@ -6,7 +6,7 @@ import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { checkPrimePower, finiteFieldOf, MAX_FIELD_ORDER } from "./finite-field.js";
 import { resolveTyped } from "./typed-build.js";
-import type { FamilyDefinition, Params } from "./types.js";
+import { defineFamily } from "./types.js";
 
 function factorial(x: number): number {
   let r = 1;
@@ -45,10 +45,10 @@ function buildNormGraph(q: number, t: number): Graph {
 /** H(q, t) validated like the spec `norm-graph:q=…,t=…`. */
 export function normGraph(q: number, t: number): Graph {
   const p = resolveTyped(normGraphFamily, { q, t });
-  return buildNormGraph(p.q as number, p.t as number);
+  return buildNormGraph(p.q, p.t);
 }
 
-export const normGraphFamily: FamilyDefinition = {
+export const normGraphFamily = defineFamily({
   name: "norm-graph",
   summary: "projective norm graph on GF(q^(t−1)) × GF(q)*: (A,a) ~ (B,b) iff N(A+B) = ab",
   params: [
@@ -56,24 +56,24 @@ export const normGraphFamily: FamilyDefinition = {
     { name: "t", type: "integer", description: "forbidden K_{t,(t−1)!+1}; the big field is GF(q^(t−1))", default: 3, min: 2, max: 20 },
   ],
   random: false,
-  validate: (p: Params) => {
-    const q = p.q as number, t = p.t as number;
+  validate: (p) => {
+    const q = p.q, t = p.t;
     checkPrimePower("norm-graph", "q", q);
     if (q ** (t - 1) > MAX_FIELD_ORDER) throw invalidParameter("norm-graph", "t", `should keep q^(t−1) at most ${MAX_FIELD_ORDER} (q = ${q})`, t);
   },
   freeOf: (p) => {
-    const t = p.t as number;
+    const t = p.t;
     const s = factorial(t - 1) + 1;
     const pattern = t === 2 ? "C4" : `K${t},${s}`;
-    return [{ pattern, source: `any ${t} vertices have at most ${s - 1} common neighbours: Alon–Rónyai–Szabó 1999` }];
+    return [{ pattern, citation: `any ${t} vertices have at most ${s - 1} common neighbours: Alon–Rónyai–Szabó 1999` }];
   },
-  expected: (p) => {
-    const q = p.q as number, t = p.t as number;
+  predictedSize: (p) => {
+    const q = p.q, t = p.t;
     const Q = q ** (t - 1), n = Q * (q - 1);
     // Odd q: N(2A) = a² has Q − 1 solutions (the norm is onto GF(q)* with fibres of size (Q−1)/(q−1)),
     // and those vertices lose their loop. Even q: 2A = 0, so no loops.
     if (q % 2 === 0) return { n, m: (n * (Q - 1)) / 2, mExact: true, minDegree: Q - 1, maxDegree: Q - 1 };
     return { n, m: ((n - 1) * (Q - 1)) / 2, mExact: true, minDegree: Q - 2, maxDegree: Q - 1 };
   },
-  build: (p) => buildNormGraph(p.q as number, p.t as number),
-};
+  build: (p) => buildNormGraph(p.q, p.t),
+});

@@ -6,7 +6,7 @@ import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { checkPrimePower, finiteField } from "./finite-field.js";
 import { resolveTyped } from "./typed-build.js";
-import type { FamilyDefinition, Params } from "./types.js";
+import { defineFamily } from "./types.js";
 
 function buildPaley(q: number): Graph {
   const F = finiteField(q, "paley");
@@ -23,27 +23,27 @@ function buildPaley(q: number): Graph {
 }
 
 /** P(q), validated like the spec `paley:q=…`. */
-export function paleyGraph(q: number): Graph {
-  const p = resolveTyped(paley, { q });
-  return buildPaley(p.q as number);
+export function paley(q: number): Graph {
+  const p = resolveTyped(paleyFamily, { q });
+  return buildPaley(p.q);
 }
 
-export const paley: FamilyDefinition = {
+export const paleyFamily = defineFamily({
   name: "paley",
   summary: "Paley graph on GF(q), q ≡ 1 (mod 4): x ~ y iff x − y is a nonzero square",
   params: [{ name: "q", type: "integer", description: "field order, a prime power ≡ 1 (mod 4)", default: 13, min: 5, max: 30000 }],
   random: false,
-  validate: (p: Params) => {
-    const q = p.q as number;
+  validate: (p) => {
+    const q = p.q;
     checkPrimePower("paley", "q", q);
     if (q % 4 !== 1) throw invalidParameter("paley", "q", "should be ≡ 1 (mod 4) so that −1 is a square", q);
   },
   freeOf: (p) =>
-    p.q === 5 ? [{ pattern: "K3", source: "P(5) is the 5-cycle (λ = (q−5)/4 = 0)" }] : [],
-  expected: (p) => {
-    const q = p.q as number;
+    p.q === 5 ? [{ pattern: "K3", citation: "P(5) is the 5-cycle (λ = (q−5)/4 = 0)" }] : [],
+  predictedSize: (p) => {
+    const q = p.q;
     return { n: q, m: (q * (q - 1)) / 4, mExact: true, minDegree: (q - 1) / 2, maxDegree: (q - 1) / 2 };
   },
-  build: (p) => buildPaley(p.q as number),
-  notes: "Strongly regular srg(q, (q−1)/2, (q−5)/4, (q−1)/4); self-complementary.",
-};
+  build: (p) => buildPaley(p.q),
+  notes: ["Strongly regular srg(q, (q−1)/2, (q−5)/4, (q−1)/4); self-complementary."],
+});

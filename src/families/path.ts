@@ -4,7 +4,7 @@ import { EdgeBuffer } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { girthFreeOf } from "./free-of.js";
 import { resolveTyped } from "./typed-build.js";
-import type { FamilyDefinition } from "./types.js";
+import { defineFamily } from "./types.js";
 
 function buildPath(n: number): Graph {
   const buf = new EdgeBuffer({ capacity: Math.max(16, n - 1) });
@@ -12,20 +12,21 @@ function buildPath(n: number): Graph {
   return buf.build(n).graph;
 }
 
-export function pathGraph(n: number): Graph {
-  const p = resolveTyped(path, { n });
-  return buildPath(p.n as number);
+/** P_n, validated like the spec `path:n=…`. */
+export function path(n: number): Graph {
+  const p = resolveTyped(pathFamily, { n });
+  return buildPath(p.n);
 }
 
-export const path: FamilyDefinition = {
+export const pathFamily = defineFamily({
   name: "path",
   summary: "path P_n on n vertices",
   params: [{ name: "n", type: "integer", description: "number of vertices", default: 5, min: 1, max: 100_000_000 }],
   random: false,
   freeOf: () => girthFreeOf(Infinity, "a path is a tree"),
-  expected: (p) => {
-    const n = p.n as number;
+  predictedSize: (p) => {
+    const n = p.n;
     return { n, m: n - 1, mExact: true, minDegree: n === 1 ? 0 : 1, maxDegree: n <= 2 ? n - 1 : 2 };
   },
-  build: (p) => buildPath(p.n as number),
-};
+  build: (p) => buildPath(p.n),
+});

@@ -6,7 +6,7 @@ import type { Graph } from "../graph/graph.js";
 import { checkPrimePower, finiteField } from "./finite-field.js";
 import { pg2Coordinates, pg2PointCount, pg2PolarLine } from "./pg2.js";
 import { resolveTyped } from "./typed-build.js";
-import type { FamilyDefinition, Params } from "./types.js";
+import { defineFamily } from "./types.js";
 
 export interface PolarityGraph {
   q: number;
@@ -37,17 +37,17 @@ function buildPolarity(q: number): PolarityGraph {
 }
 
 /** ER_q with its absolute points (a typed call validated like the spec `polarity:q=…`). */
-export function polarityGraphWithLoops(q: number): PolarityGraph {
-  const p = resolveTyped(polarity, { q, loops: "drop" });
-  return buildPolarity(p.q as number);
+export function polarityWithAbsolutePoints(q: number): PolarityGraph {
+  const p = resolveTyped(polarityFamily, { q, loops: "drop" });
+  return buildPolarity(p.q);
 }
 
 /** ER_q as a simple graph (loops at the absolute points dropped). */
-export function polarityGraph(q: number): Graph {
-  return polarityGraphWithLoops(q).graph;
+export function polarity(q: number): Graph {
+  return polarityWithAbsolutePoints(q).graph;
 }
 
-export const polarity: FamilyDefinition = {
+export const polarityFamily = defineFamily({
   name: "polarity",
   summary: "Erdős–Rényi orthogonal-polarity graph ER_q on the points of PG(2,q), x ~ y iff x·y = 0",
   params: [
@@ -61,20 +61,20 @@ export const polarity: FamilyDefinition = {
     },
   ],
   random: false,
-  validate: (p: Params) => {
-    checkPrimePower("polarity", "q", p.q as number);
+  validate: (p) => {
+    checkPrimePower("polarity", "q", p.q);
   },
-  freeOf: () => [{ pattern: "C4", source: "two points have one common neighbour at most: Erdős–Rényi 1962; Brown 1966" }],
-  expected: (p) => {
-    const q = p.q as number;
+  freeOf: () => [{ pattern: "C4", citation: "two points have one common neighbour at most: Erdős–Rényi 1962; Brown 1966" }],
+  predictedSize: (p) => {
+    const q = p.q;
     return { n: q * q + q + 1, m: (q * (q + 1) * (q + 1)) / 2, mExact: true, minDegree: q, maxDegree: q + 1 };
   },
   build: (p, ctx) => {
-    const r = buildPolarity(p.q as number);
+    const r = buildPolarity(p.q);
     if (p.loops === "report") {
       ctx.note(`${r.absolutePoints.length} absolute points (loops dropped): ${Array.from(r.absolutePoints).join(" ")}`);
     }
     return r.graph;
   },
-  notes: "q+1 absolute points have degree q (their loop is dropped), the rest q+1; with loops the adjacency spectrum is q+1 once and ±√q.",
-};
+  notes: ["q+1 absolute points have degree q (their loop is dropped), the rest q+1; with loops the adjacency spectrum is q+1 once and ±√q."],
+});

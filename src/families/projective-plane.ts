@@ -7,7 +7,7 @@ import { checkPrimePower, finiteField } from "./finite-field.js";
 import { bipartiteFreeOf } from "./free-of.js";
 import { pg2Coordinates, pg2PointCount, pg2PolarLine } from "./pg2.js";
 import { resolveTyped } from "./typed-build.js";
-import type { FamilyDefinition, Params } from "./types.js";
+import { defineFamily } from "./types.js";
 
 function buildIncidence(q: number): Graph {
   const F = finiteField(q, "projective-plane");
@@ -25,27 +25,27 @@ function buildIncidence(q: number): Graph {
 }
 
 /** Points-versus-lines incidence graph of PG(2, q); PG(2,2) gives the Heawood graph. */
-export function projectivePlaneIncidenceGraph(q: number): Graph {
-  const p = resolveTyped(projectivePlane, { q });
-  return buildIncidence(p.q as number);
+export function projectivePlane(q: number): Graph {
+  const p = resolveTyped(projectivePlaneFamily, { q });
+  return buildIncidence(p.q);
 }
 
-export const projectivePlane: FamilyDefinition = {
+export const projectivePlaneFamily = defineFamily({
   name: "projective-plane",
   summary: "incidence graph of PG(2,q): points versus lines, bipartite and (q+1)-regular",
   params: [{ name: "q", type: "integer", description: "field order, a prime power", default: 3, min: 2, max: 1000 }],
   random: false,
-  validate: (p: Params) => {
-    checkPrimePower("projective-plane", "q", p.q as number);
+  validate: (p) => {
+    checkPrimePower("projective-plane", "q", p.q);
   },
   freeOf: () => [
     ...bipartiteFreeOf("points versus lines"),
-    { pattern: "C4", source: "girth 6: two points lie on exactly one line (axiom of projective planes)" },
+    { pattern: "C4", citation: "girth 6: two points lie on exactly one line (axiom of projective planes)" },
   ],
-  expected: (p) => {
-    const q = p.q as number;
+  predictedSize: (p) => {
+    const q = p.q;
     const N = q * q + q + 1;
     return { n: 2 * N, m: N * (q + 1), mExact: true, minDegree: q + 1, maxDegree: q + 1 };
   },
-  build: (p) => buildIncidence(p.q as number),
-};
+  build: (p) => buildIncidence(p.q),
+});

@@ -10,9 +10,10 @@ import type { Rng } from "../random/prng.js";
 import { MAX_RANDOM_VERTICES } from "./gnp.js";
 import { complement } from "./operations/complement.js";
 import { buildRandomTyped } from "./typed-build.js";
-import type { FamilyDefinition, Params } from "./types.js";
+import { defineFamily } from "./types.js";
 
-export type RegularMethod = "auto" | "pairing" | "steger-wormald";
+/** How the random regular graph is sampled (see the family's `sampler` parameter). */
+export type RegularSampler = "auto" | "pairing" | "steger-wormald";
 
 /**
  * A pairing is simple with probability about exp(−(d² − 1)/4) (Bender & Canfield 1978;
@@ -109,7 +110,7 @@ function removeTwo(pts: Int32Array, len: number, i: number, j: number): void {
 /** Position of the k-th (0-based) unpaired point of vertex v. */
 function nthPointOf(pts: Int32Array, len: number, v: number, k: number): number {
   for (let i = 0; i < len; i++) if (pts[i] === v && k-- === 0) return i;
-  throw new Error("regular: point bookkeeping is inconsistent");
+  throw new Error("random-regular: point bookkeeping is inconsistent");
 }
 
 /**
@@ -164,7 +165,7 @@ function listingStep(ws: Workspace, len: number, budget: number, rng: Rng): numb
     }
     total = acc;
   }
-  throw new Error("regular: weighted choice ran past its total");
+  throw new Error("random-regular: weighted choice ran past its total");
 }
 
 /**
@@ -202,18 +203,18 @@ function stegerWormaldAttempt(ws: Workspace, rng: Rng): boolean {
   return true;
 }
 
-function usesPairing(d: number, method: RegularMethod): boolean {
-  return method === "pairing" || (method === "auto" && d <= AUTO_PAIRING_MAX_DEGREE);
+function usesPairing(d: number, sampler: RegularSampler): boolean {
+  return sampler === "pairing" || (sampler === "auto" && d <= AUTO_PAIRING_MAX_DEGREE);
 }
 
-/** d-regular graph for d ≤ (n − 1)/2, by the method chosen. */
-function sampleDirect(n: number, d: number, method: RegularMethod, rng: Rng): Graph {
+/** d-regular graph for d ≤ (n − 1)/2, by the sampler chosen. */
+function sampleDirect(n: number, d: number, sampler: RegularSampler, rng: Rng): Graph {
   const m = (n * d) / 2;
   const us = new Int32Array(m);
   const vs = new Int32Array(m);
   if (d > 0) {
     const ws = workspace(n, d);
-    const attempt = usesPairing(d, method) ? pairingAttempt : stegerWormaldAttempt;
+    const attempt = usesPairing(d, sampler) ? pairingAttempt : stegerWormaldAttempt;
     while (!attempt(ws, rng));
     for (let u = 0, k = 0; u < n; u++) {
       for (let i = u * d; i < u * d + d; i++) {
@@ -232,26 +233,26 @@ function sampleDirect(n: number, d: number, method: RegularMethod, rng: Rng): Gr
 
 function assertRegular(g: Graph, d: number): void {
   for (let v = 0; v < g.n; v++) {
-    if (g.degree(v) !== d) throw new Error(`regular: vertex ${v} has degree ${g.degree(v)}, expected ${d}`);
+    if (g.degree(v) !== d) throw new Error(`random-regular: vertex ${v} has degree ${g.degree(v)}, expected ${d}`);
   }
 }
 
-function sampleRegular(n: number, d: number, method: RegularMethod, rng: Rng): Graph {
+function sampleRegular(n: number, d: number, sampler: RegularSampler, rng: Rng): Graph {
   const dual = n - 1 - d;
   // The complement is a bijection between d- and (n−1−d)-regular graphs: it preserves uniformity.
-  const g = dual < d ? complement(sampleDirect(n, dual, method, rng)) : sampleDirect(n, d, method, rng);
+  const g = dual < d ? complement(sampleDirect(n, dual, sampler, rng)) : sampleDirect(n, d, sampler, rng);
   assertRegular(g, d);
   return g;
 }
 
-export const randomRegularFamily: FamilyDefinition = {
-  name: "regular",
+export const randomRegularFamily = defineFamily({
+  name: "random-regular",
   summary: "random simple d-regular graph on n vertices",
   params: [
     { name: "n", type: "integer", description: "number of vertices", min: 1, max: MAX_RANDOM_VERTICES },
     { name: "d", type: "integer", description: "degree, below n, with n·d even", min: 0 },
     {
-      name: "method",
+      name: "sampler",
       type: "string",
       description: `pairing: exactly uniform, for min(d, n−1−d) ≤ ${PAIRING_MAX_DEGREE}; steger-wormald: asymptotically uniform; auto: pairing up to degree ${AUTO_PAIRING_MAX_DEGREE}`,
       default: "auto",
@@ -259,35 +260,36 @@ export const randomRegularFamily: FamilyDefinition = {
     },
   ],
   random: true,
-  validate: (params: Params) => {
-    const n = params.n as number;
-    const d = params.d as number;
-    if (d >= n) throw invalidParameter("regular", "d", `should be an integer between 0 and n − 1 = ${n - 1}`, d);
-    if ((n * d) % 2 !== 0) throw invalidParameter("regular", "d", `n·d should be even (n = ${n} is odd, so d must be even)`, d);
+  validate: (params) => {
+    const n = params.n;
+    const d = params.d;
+    if (d >= n) throw invalidParameter("random-regular", "d", `should be an integer between 0 and n − 1 = ${n - 1}`, d);
+    if ((n * d) % 2 !== 0) throw invalidParameter("random-regular", "d", `n·d should be even (n = ${n} is odd, so d must be even)`, d);
     const effective = Math.min(d, n - 1 - d);
-    if (params.method === "pairing" && effective > PAIRING_MAX_DEGREE) {
+    if (params.sampler === "pairing" && effective > PAIRING_MAX_DEGREE) {
       throw invalidParameter(
-        "regular",
-        "method",
+        "random-regular",
+        "sampler",
         `pairing needs min(d, n−1−d) ≤ ${PAIRING_MAX_DEGREE} (a pairing is simple with probability about exp(−(d²−1)/4)); use steger-wormald`,
-        params.method,
+        params.sampler,
       );
     }
   },
   freeOf: () => [],
-  expected: (params) => {
-    const n = params.n as number;
-    const d = params.d as number;
+  predictedSize: (params) => {
+    const n = params.n;
+    const d = params.d;
     return { n, m: (n * d) / 2, mExact: true, minDegree: d, maxDegree: d };
   },
-  build: (params, ctx) => sampleRegular(params.n as number, params.d as number, params.method as RegularMethod, ctx.rng),
-  notes:
-    "Pairing model conditioned on simplicity is exactly uniform over simple d-regular graphs (Bender & Canfield 1978; Bollobás 1980). " +
-    "Steger & Wormald, Generating random regular graphs quickly, Combin. Probab. Comput. 8 (1999): asymptotically uniform for d = o(n^{1/28}), " +
-    "extended by Kim & Vu (2006) to d ≪ n^{1/3}; not exactly uniform. Degrees above (n−1)/2 use the complement of the (n−1−d)-regular case.",
-};
+  build: (params, ctx) => sampleRegular(params.n, params.d, params.sampler, ctx.rng),
+  notes: [
+    "The pairing model conditioned on simplicity is exactly uniform over simple d-regular graphs (Bender & Canfield 1978; Bollobás 1980).",
+    "Steger & Wormald, Generating random regular graphs quickly, Combin. Probab. Comput. 8 (1999): asymptotically uniform for d = o(n^{1/28}), extended by Kim & Vu (2006) to d ≪ n^{1/3}; not exactly uniform.",
+    "Degrees above (n−1)/2 use the complement of the (n−1−d)-regular case.",
+  ],
+});
 
-/** Random d-regular graph from a seed (spec `regular:n=…,d=…,seed=…`) or a caller's Rng. */
-export function randomRegular(n: number, d: number, seed: number | Rng = 0, method: RegularMethod = "auto"): Graph {
-  return buildRandomTyped(randomRegularFamily, { n, d, method }, seed);
+/** Random d-regular graph from a graph seed (spec `random-regular:n=…,d=…,seed=…`) or a caller's Rng. */
+export function randomRegular(n: number, d: number, graphSeed: number | Rng = 0, sampler: RegularSampler = "auto"): Graph {
+  return buildRandomTyped(randomRegularFamily, { n, d, sampler }, graphSeed);
 }

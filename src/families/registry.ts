@@ -1,61 +1,77 @@
-// The family registry: looks a spec up, validates it, guards memory, and builds the graph
-// with a PRNG seeded from the spec. `family("kneser:n=8,k=3")` is the one entry point.
+// The family registry: looks a spec up (aliases included), validates it, guards memory, and builds
+// the graph with a PRNG seeded from the spec. `family("kneser:n=8,k=3")` is the one entry point.
 
 import { InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { Rng } from "../random/prng.js";
+import { OPERATION_FAMILIES } from "./catalog-operations.js";
 import { RANDOM_FAMILIES } from "./catalog-random.js";
 import { STRUCTURED_FAMILIES } from "./catalog-structured.js";
 import { checkEdgeLimit } from "./limits.js";
 import { formatSpec, parseRawSpec, resolveParams } from "./spec.js";
-import type { ExpectedShape, FamilyDefinition, FamilyGraph, Params, ShapeContext } from "./types.js";
+import type { FamilyDefinition, FamilyGraph, Params, PredictedSize, SizeContext } from "./types.js";
 
 export { MAX_FAMILY_EDGES } from "./limits.js";
 
-const ALL: FamilyDefinition[] = [...STRUCTURED_FAMILIES, ...RANDOM_FAMILIES];
+const ALL: readonly FamilyDefinition[] = [...STRUCTURED_FAMILIES, ...RANDOM_FAMILIES, ...OPERATION_FAMILIES];
 const BY_NAME = new Map<string, FamilyDefinition>();
 for (const def of ALL) {
-  if (BY_NAME.has(def.name)) throw new Error(`family ${def.name} registered twice`);
-  BY_NAME.set(def.name, def);
+  for (const name of [def.name, ...(def.aliases ?? [])]) {
+    if (BY_NAME.has(name)) throw new Error(`family name ${name} registered twice`);
+    BY_NAME.set(name, def);
+  }
 }
 
-/** Predicted shape of a spec without building it (operations ask this of their nested specs). */
-export function expectedShape(spec: string): ExpectedShape {
+/** Names that were retired, and what replaces them: a spec using one gets a one-line pointer. */
+const RETIRED_NAMES: Readonly<Record<string, string>> = {
+  regular: "random-regular",
+  mycielski: "mycielski-chain (iterates from K2) or mycielski-of (of a given graph)",
+  blowup: "blow-up",
+  union: "disjoint-union",
+  induced: "induced-subgraph",
+  "delete-edges": "delete-random-edges",
+};
+
+/** Predicted size of a spec without building it (operations ask this of their nested specs). */
+export function predictedSizeOf(spec: string): PredictedSize {
   const raw = parseRawSpec(spec);
   const def = lookup(raw.name);
-  return def.expected(resolveParams(def, raw.values).params, SHAPES);
+  return def.predictedSize(resolveParams(def, raw.values).params, SIZES);
 }
 
-const SHAPES: ShapeContext = { expectedOf: expectedShape };
+const SIZES: SizeContext = { predictedSizeOf };
 
+/** Every family, each once, in catalogue order. */
 export function listFamilies(): readonly FamilyDefinition[] {
   return ALL;
 }
 
+/** The family a spec name (or one of its aliases) denotes, or undefined. */
 export function getFamily(name: string): FamilyDefinition | undefined {
   return BY_NAME.get(name);
-}
-
-export function isFamilyName(name: string): boolean {
-  return BY_NAME.has(name);
 }
 
 function lookup(name: string): FamilyDefinition {
   const def = BY_NAME.get(name);
   if (def === undefined) {
-    throw new InputError(`unknown family ${JSON.stringify(name)} (run halfplus families for the list)`);
+    const now = RETIRED_NAMES[name];
+    throw new InputError(
+      now === undefined ? `unknown family ${JSON.stringify(name)} (run halfplus families for the list)` : `unknown family ${JSON.stringify(name)}: it is now called ${now}`,
+    );
   }
   return def;
 }
 
-function buildResolved(def: FamilyDefinition, params: Params, defaulted: string[]): FamilyGraph {
-  const shape = def.expected(params, SHAPES);
-  checkEdgeLimit(formatSpec(def, params), shape.m, shape.n);
-  const seed = def.random ? (params.seed as number) : null;
+function buildResolved(def: FamilyDefinition, params: Params, defaulted: string[], usedName: string): FamilyGraph {
+  const size = def.predictedSize(params, SIZES);
+  const spec = formatSpec(def, params);
+  checkEdgeLimit(spec, size.m, size.n);
+  const graphSeed = def.random ? (params.seed as number) : null;
   const notes: string[] = [];
-  if (def.random && defaulted.includes("seed")) notes.push("no seed given: using seed 0");
-  const graph = def.build(params, { rng: new Rng(seed ?? 0), resolve: family, note: (msg) => notes.push(msg) });
-  return { graph, spec: formatSpec(def, params), family: def.name, params, seed, notes };
+  if (usedName !== def.name) notes.push(`${usedName} is another name for ${def.name}`);
+  if (def.random && defaulted.includes("seed")) notes.push("no seed given: using graph seed 0");
+  const graph = def.build(params, { rng: new Rng(graphSeed ?? 0), resolve: family, note: (msg) => notes.push(msg) });
+  return { graph, spec, family: def.name, params, graphSeed, notes };
 }
 
 /** Build a family graph from a spec string, with its canonical spec and notes. */
@@ -63,14 +79,14 @@ export function familyWithInfo(spec: string): FamilyGraph {
   const raw = parseRawSpec(spec);
   const def = lookup(raw.name);
   const { params, defaulted } = resolveParams(def, raw.values);
-  return buildResolved(def, params, defaulted);
+  return buildResolved(def, params, defaulted, raw.name);
 }
 
-/** Build a family graph from typed parameters, e.g. `buildFamily("kneser", { n: 8, k: 3 })`. */
+/** Build a family graph from parameters by name, e.g. `buildFamily("kneser", { n: 8, k: 3 })`. */
 export function buildFamily(name: string, params: Params = {}): FamilyGraph {
   const def = lookup(name);
   const r = resolveParams(def, params);
-  return buildResolved(def, r.params, r.defaulted);
+  return buildResolved(def, r.params, r.defaulted, name);
 }
 
 /** Just the graph: `family("polarity:q=7")`. */

@@ -2,6 +2,7 @@
 // the CLI, `family()`, sweep plans and stored results, so parsing lives only here.
 
 import { InputError, invalidParameter } from "../errors.js";
+import { MAX_SEED } from "../random/seed.js";
 import type { FamilyDefinition, ParamSpec, ParamValue, Params } from "./types.js";
 
 export interface RawSpec {
@@ -133,13 +134,14 @@ export function checkParam(owner: string, p: ParamSpec, v: ParamValue): void {
   } else if (typeof v !== "boolean") throw invalidParameter(owner, p.name, "should be true or false", v);
 }
 
+/** The implicit parameter of random families: the graph seed, which random graph is built. */
 export const SEED_PARAM: ParamSpec = {
   name: "seed",
   type: "integer",
-  description: "PRNG seed (xoshiro128**)",
+  description: "graph seed: which random graph is built (the xoshiro128** generator is seeded with it)",
   default: 0,
   min: 0,
-  max: 0xffffffff,
+  max: MAX_SEED,
 };
 
 /** All parameters of a family, including the implicit seed of random families. */

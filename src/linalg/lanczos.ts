@@ -23,7 +23,7 @@ export interface LanczosOptions {
   /** Restart budget (default 300). */
   maxRestarts?: number;
   /** Seed of the random start vector (default 1). */
-  seed?: number;
+  solverSeed?: number;
   /** Start vector instead of a random one (copied; must have length n and be non-zero). */
   start?: Float64Array;
   /** The basis may use at most this many bytes (default 1 GiB); the basis shrinks to fit, down to k + 10 vectors. */
@@ -50,7 +50,7 @@ export interface LanczosResult {
   normEstimate: number;
   basisSize: number;
   method: "lanczos" | "dense";
-  seed: number;
+  solverSeed: number;
 }
 
 const OWNER = "lanczos";
@@ -72,7 +72,7 @@ function checkOptions(op: SymmetricOperator, o: LanczosOptions): void {
   if (o.maxRestarts !== undefined && !(Number.isInteger(o.maxRestarts) && o.maxRestarts >= 0)) {
     throw invalidParameter(OWNER, "maxRestarts", "should be a non-negative integer", o.maxRestarts);
   }
-  checkSeed(OWNER, "seed", o.seed);
+  checkSeed(OWNER, "solverSeed", o.solverSeed);
   if (o.start !== undefined && o.start.length !== n) {
     throw new InputError(`${OWNER}: \`start\` has ${o.start.length} entries, expected n = ${n}`);
   }
@@ -100,7 +100,7 @@ function denseExtreme(op: SymmetricOperator, k: number, which: EigenEnd, tol: nu
     // A dense solver is accurate to about n·u·‖M‖, which may exceed a tight tolerance.
     if (r.residual > Math.max(tol, 1e-15 * n) * Math.max(normEstimate, Number.MIN_VALUE)) converged = false;
   }
-  return { values, vectors, residuals, iterations: n, restarts: 0, converged, normEstimate, basisSize: n, method: "dense", seed };
+  return { values, vectors, residuals, iterations: n, restarts: 0, converged, normEstimate, basisSize: n, method: "dense", solverSeed: seed };
 }
 
 /** Rayleigh quotient θ = uᵀAu of a unit vector and the explicit residual ‖Au − θu‖ (au is scratch). */
@@ -148,7 +148,7 @@ export function lanczosExtreme(op: SymmetricOperator, options: LanczosOptions = 
   const k = options.k ?? 1;
   const which = options.which ?? "largest";
   const tol = options.tolerance ?? 1e-10;
-  const seed = options.seed ?? 1;
+  const seed = options.solverSeed ?? 1;
   const maxRestarts = options.maxRestarts ?? 300;
   let p = Math.min(options.maxBasis ?? Math.max(40, 2 * k + 20), n);
   const memory = options.maxMemoryBytes ?? 2 ** 30;
@@ -264,7 +264,7 @@ export function lanczosExtreme(op: SymmetricOperator, options: LanczosOptions = 
     // Orthogonality loss can make the explicit residual exceed the estimate; judge by the explicit one.
     if (r.residual > tol * normEstimate) converged = false;
   }
-  const result: LanczosResult = { values, vectors, residuals, iterations: matvecs, restarts, converged, normEstimate, basisSize: p, method: "lanczos", seed };
+  const result: LanczosResult = { values, vectors, residuals, iterations: matvecs, restarts, converged, normEstimate, basisSize: p, method: "lanczos", solverSeed: seed };
   if (k > 1 && converged && options.checkMultiplicity !== false) completeMultiplicities(op, result, which, tol, options, rng);
   return result;
 }
@@ -303,7 +303,7 @@ function completeMultiplicities(op: SymmetricOperator, res: LanczosResult, which
       maxBasis: options.maxBasis,
       maxRestarts: options.maxRestarts,
       maxMemoryBytes: options.maxMemoryBytes,
-      seed: rng.nextU32(),
+      solverSeed: rng.nextU32(),
       denseBelow: 0,
     });
     res.iterations += extra.iterations;

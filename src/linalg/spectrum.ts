@@ -22,8 +22,8 @@ export interface SpectrumOptions {
   denseThreshold?: number;
   /** Lanczos tolerance on ‖Mu − θu‖ relative to ‖M‖ (default 1e-10). */
   tolerance?: number;
-  /** Lanczos start-vector seed (default 1). */
-  seed?: number;
+  /** Seed of the Lanczos start vector (default 1). */
+  solverSeed?: number;
   /** Also return the eigenvectors (default false). */
   vectors?: boolean;
 }
@@ -39,7 +39,7 @@ export interface SpectrumRecord {
   /** Matrix–vector products (Lanczos) or n (dense). */
   iterations: number;
   converged: boolean;
-  seed: number;
+  solverSeed: number;
   vectors?: Float64Array[];
 }
 
@@ -69,11 +69,11 @@ export function extremeEigenvalues(graph: Graph, options: SpectrumOptions = {}):
   const threshold = options.denseThreshold ?? 400;
   if (!Number.isInteger(threshold) || threshold < 0) throw invalidParameter(OWNER, "denseThreshold", "should be a non-negative integer", threshold);
   const tolerance = options.tolerance ?? 1e-10;
-  const seed = options.seed ?? 1;
+  const seed = options.solverSeed ?? 1;
   const op = graphOperator(graph, matrix);
 
   // One path for both regimes: Lanczos decomposes small operators densely itself.
-  const l = lanczosExtreme(op, { k, which, tolerance, seed, denseBelow: n <= threshold ? n : 0 });
+  const l = lanczosExtreme(op, { k, which, tolerance, solverSeed: seed, denseBelow: n <= threshold ? n : 0 });
   return {
     matrix,
     which,
@@ -82,7 +82,7 @@ export function extremeEigenvalues(graph: Graph, options: SpectrumOptions = {}):
     method: l.method,
     iterations: l.iterations,
     converged: l.converged,
-    seed,
+    solverSeed: seed,
     ...(options.vectors ? { vectors: l.vectors } : {}),
   };
 }

@@ -2,52 +2,76 @@
 // readable summary or one JSON record per line (--json); progress goes to stderr, never stdout.
 import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
-import type { CommandSpec } from "../args.js";
-import { openSource } from "../../sources/index.js";
 import { DEFAULT_BRACKET_SECONDS, bracket, type BracketProgress } from "../../cut/bracket/bracket.js";
-import { BRACKET_METHODS, type BracketMethod, type BracketRecord } from "../../cut/bracket/record.js";
-import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
+import { BRACKET_EFFORTS, type BracketEffort, type BracketRecord } from "../../cut/bracket/record.js";
+import { MAX_SEED } from "../../random/seed.js";
+import { openSource } from "../../sources/index.js";
+import type { CommandSpec } from "../args.js";
+import { formatNumber as num, formatRows } from "../format.js";
 import { writeLine } from "../output.js";
+import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 
-/** Integers as they are; other numbers to 4 decimals (fewer when trailing zeros). */
-function num(x: number): string {
-  if (Number.isInteger(x)) return String(x);
-  return x.toFixed(4).replace(/\.?0+$/, "");
+/** Each algorithm in plain words, for the summary (records keep the short ids). */
+const METHOD_WORDS: Readonly<Record<string, string>> = {
+  "all-on-one-side": "no cut yet (all vertices on one side)",
+  "local-search": "multi-start local search",
+  breakout: "breakout search",
+  rank2: "rank-2 heuristic",
+  "hyperplane-rounding": "hyperplane rounding of the SDP vectors",
+  "vector-rounding": "sparse vector rounding",
+  "exact-gray": "exhaustive search (Gray code)",
+  "exact-bnb": "branch and bound",
+  "exact-mixed": "exact search (Gray code and branch and bound, one per component)",
+  "exact-trivial": "exact search (no component has an edge)",
+  "positive-weights": "sum of the positive edge weights",
+  eigenvalue: "eigenvalue bound n·λmax(L)/4",
+  "sdp-certified": "Goemans–Williamson SDP",
+};
+
+const SHIFT_WORDS: Readonly<Record<string, string>> = {
+  cholesky: "proven by a Cholesky factorisation",
+  gershgorin: "proven by Gershgorin's circle theorem",
+  "lanczos-estimate": "a Lanczos estimate, not a proof",
+};
+
+function words(method: string): string {
+  return METHOD_WORDS[method] ?? method;
 }
 
 function certificateText(r: BracketRecord): string {
   const c = r.certificate;
+  const rounded = c.roundedDown ? ", rounded down to an integer (integer weights make every cut an integer)" : "";
   switch (c.kind) {
     case "exhaustive":
-      return c.search === "exact-gray" ? "exhaustive search (Gray code)" : `exhaustive search (${c.search}, ${c.nodes} nodes)`;
-    case "search-bound":
-      return `bound of an unfinished search (${c.search})`;
+      return `${words(c.search)} finished${c.branchNodes > 0 ? ` after ${c.branchNodes} branch nodes` : ""}`;
+    case "unfinished-search":
+      return `bound left by ${words(c.search)} when it stopped${rounded}`;
     case "psd-dual":
-      return `dual certificate, shift by ${c.shiftMethod}${c.floored ? ", rounded down" : ""}`;
+      return `${words(r.upperMethod)}: dual certificate, eigenvalue shift ${SHIFT_WORDS[c.shiftProof] ?? c.shiftProof}${rounded}`;
     case "positive-weights":
-      return "sum of positive weights";
+      return `${words("positive-weights")}${rounded}`;
   }
 }
 
 /** Our own layout: the bracket first, then where each side of it came from. */
-export function formatBracket(label: string, r: BracketRecord, notes: string[]): string {
+export function formatBracket(label: string, r: BracketRecord): string {
   const gap = r.upper - r.lower;
   const rows: [string, string][] = [];
   if (r.exact) {
     rows.push(["max cut", `${num(r.lower)}  (optimal${gap > 0 ? `, within ${num(gap)}` : ""})`]);
-    rows.push(["surplus", num(r.surplusLower)]);
+    rows.push(["surplus", `${num(r.surplusLower)}  (max cut − W/2)`]);
   } else {
-    const pct = r.upper !== 0 ? ` = ${((100 * gap) / Math.abs(r.upper)).toFixed(2)}% of upper` : "";
+    const pct = r.upper !== 0 ? ` = ${num((100 * gap) / Math.abs(r.upper))}% of upper` : "";
     rows.push(["max cut in", `[${num(r.lower)}, ${num(r.upper)}]  gap ${num(gap)}${pct}`]);
-    rows.push(["surplus in", `[${num(r.surplusLower)}, ${num(r.surplusUpper)}]`]);
+    rows.push(["surplus in", `[${num(r.surplusLower)}, ${num(r.surplusUpper)}]  (max cut − W/2)`]);
   }
-  rows.push(["graph", `n = ${r.n}, m = ${r.m}${r.totalWeight !== r.m ? `, W = ${num(r.totalWeight)}` : ""}`]);
-  rows.push(["cut found by", r.lowerMethod]);
-  rows.push(["bound from", `${r.upperMethod}: ${certificateText(r)}`]);
-  rows.push(["time", `${r.seconds.toFixed(2)} s (method ${r.method}, seed ${r.seed})`]);
-  const w = Math.max(...rows.map((x) => x[0].length));
-  const out = [label, ...rows.map(([k, v]) => `  ${k.padEnd(w)}  ${v}`)];
-  for (const n of notes) out.push(`  note: ${n}`);
+  rows.push(["graph", `n = ${r.n}, m = ${r.m}, W = ${num(r.totalWeight)} (total weight)`]);
+  rows.push(["cut found by", words(r.lowerMethod)]);
+  rows.push(["upper bound", certificateText(r)]);
+  if (r.upperKind !== "proven") rows.push(["caution", `the upper bound is ${r.upperKind === "estimate" ? "an estimate" : "probable"}, not a proof`]);
+  rows.push(["time", `${num(r.seconds)} s (effort ${r.effort}, solver seed ${r.solverSeed})`]);
+  const out = [label, ...formatRows(rows)];
+  for (const n of r.notes) out.push(`  note: ${n}`);
   return out.join("\n");
 }
 
@@ -60,7 +84,7 @@ function progressWriter(stderr: NodeJS.WritableStream, label: string): { update:
     update(p) {
       if (p.elapsed - last < 0.25 && p.method !== "start") return;
       last = p.elapsed;
-      const line = `${label}: [${num(p.lower)}, ${num(p.upper)}] after ${p.method}, ${p.elapsed.toFixed(1)} s`;
+      const line = `${label}: max cut in [${num(p.lower)}, ${num(p.upper)}] after ${p.method === "start" ? "start" : words(p.method)}, ${num(p.elapsed)} s`;
       stderr.write(tty ? `\r\x1b[2K${line}` : `${line}\n`);
       shown = true;
     },
@@ -72,31 +96,48 @@ function progressWriter(stderr: NodeJS.WritableStream, label: string): { update:
 
 export const cutCommand: CommandSpec = {
   name: "cut",
-  summary: "certified max-cut bracket [lower, upper] of each graph in a file, stream or family spec",
+  summary: "bracket the max cut of each graph: lower ≤ max cut ≤ upper, with the evidence for both ends",
   positionals: "<source>",
   minPositionals: 1,
   maxPositionals: 1,
+  description: [
+    "The lower end is a cut anyone can re-evaluate (the partition is in the record); the upper end comes with a certificate: exhaustive search on small graphs, else a dual certificate of the Goemans–Williamson relaxation. The surplus is max cut − W/2, W the total edge weight (m when unweighted).",
+    "Two seeds: --solver-seed seeds the randomised solvers (which cuts are tried); --graph-seed picks which random graph a random family builds. Both are recorded (solverSeed, source.graphSeed).",
+    SOURCE_HELP,
+  ],
   options: [
-    { name: "seconds", type: "number", description: "time budget per graph", default: DEFAULT_BRACKET_SECONDS, min: 0.001, max: 1e7, placeholder: "S" },
-    { name: "seed", type: "integer", description: "seed of every randomised method", default: 0, min: 0, max: 0xffffffff, placeholder: "N" },
-    { name: "method", type: "string", description: "auto, exact search only, heuristics with certified bounds, or quick cheap methods", default: "auto", choices: BRACKET_METHODS, placeholder: "M" },
+    { name: "seconds", type: "number", description: "time budget per graph; certifying the bound may run a little past it", default: DEFAULT_BRACKET_SECONDS, min: 0.001, max: 1e7, placeholder: "S" },
+    {
+      name: "effort",
+      type: "string",
+      description: "auto: exact search on small graphs, heuristics and certified bounds otherwise; exact: exact search only; heuristic: never exact search; quick: cheap methods, for large batches",
+      default: "auto",
+      choices: BRACKET_EFFORTS,
+      placeholder: "E",
+    },
+    { name: "solver-seed", type: "integer", description: "seed of the randomised solvers (local search, SDP start, rounding, breakout)", default: 0, min: 0, max: MAX_SEED, placeholder: "N" },
     { name: "json", type: "boolean", description: "one JSON record per graph, one per line (what `halfplus verify` reads)" },
     { name: "out", short: "o", type: "string", description: "also write the JSON records to FILE", placeholder: "FILE" },
     { name: "progress", type: "boolean", description: "report progress on stderr (default: only when stderr is a terminal)" },
     ...SOURCE_OPTIONS,
   ],
+  refused: {
+    seed: "ambiguous: use --solver-seed N for the randomised solvers, or --graph-seed N (or seed= in the spec) for a random family's graph",
+    method: "renamed --effort (auto, exact, heuristic or quick)",
+  },
   examples: [
     "halfplus cut petersen",
-    "halfplus cut kneser:n=8,k=3 --json > kneser.json && halfplus verify kneser.json",
+    "halfplus cut kneser:n=8,k=3 --json > kneser.jsonl && halfplus verify kneser.jsonl",
+    "halfplus cut gnp:n=200,p=0.05 --graph-seed 3 --solver-seed 1",
     "nauty-geng -c 9 | halfplus cut - --json --seconds 1",
-    "halfplus cut G1.txt --seconds 60 --method heuristic",
+    "halfplus cut G1.txt --seconds 60 --effort heuristic",
   ],
   async run(args, io) {
     const o = args.options;
     const json = o["json"] === true;
     const seconds = o["seconds"] as number;
-    const seed = o["seed"] as number;
-    const method = o["method"] as BracketMethod;
+    const solverSeed = o["solver-seed"] as number;
+    const effort = o["effort"] as BracketEffort;
     const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
     const outPath = o["out"] as string | undefined;
     if (outPath === "") throw new InputError("--out needs a file name");
@@ -105,7 +146,7 @@ export const cutCommand: CommandSpec = {
       let first = true;
       for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
         const progress = wantProgress ? progressWriter(io.stderr, item.label) : null;
-        const record = bracket(item.graph, { seconds, seed, method, source: item.ref, onProgress: progress?.update });
+        const record = bracket(item.graph, { seconds, solverSeed, effort, source: item.source, notes: item.notes, onProgress: progress?.update });
         progress?.done();
         const line = JSON.stringify(record);
         if (outPath !== undefined) {
@@ -120,7 +161,7 @@ export const cutCommand: CommandSpec = {
           writeSync(fd, line + "\n");
         }
         if (json) await writeLine(io.stdout, line);
-        else await writeLine(io.stdout, (first ? "" : "\n") + formatBracket(item.label, record, item.notes));
+        else await writeLine(io.stdout, (first ? "" : "\n") + formatBracket(item.label, record));
         first = false;
       }
     } finally {

@@ -1,60 +1,64 @@
-// `halfplus graph <source>`: structure summary of each graph a source denotes. Reads a
-// graph6 stream one graph at a time and writes one JSON object per line with --json.
-import type { CommandSpec } from "../args.js";
+// `halfplus graph <source>`: structure summary of each graph a source denotes. Reads a graph6
+// stream one graph at a time and writes one JSON record per line with --json.
+import { describeGraph, type GraphSummary } from "../../graph/structure/describe.js";
+import { graphSummaryRecord } from "../../graph/structure/summary-record.js";
 import { openSource } from "../../sources/index.js";
-import { describeGraph, type GraphSummary } from "../../graph/structure/index.js";
-import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
+import type { CommandSpec } from "../args.js";
+import { formatNumber as num, formatRows } from "../format.js";
 import { writeLine } from "../output.js";
+import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 
-function fmt(x: number | null | boolean): string {
-  if (x === null) return "—";
+function text(x: number | null | boolean): string {
+  if (x === null) return "not known";
   if (typeof x === "boolean") return x ? "yes" : "no";
-  return Number.isInteger(x) ? String(x) : x.toFixed(4);
+  return num(x);
 }
 
-export function formatSummary(label: string, s: GraphSummary, notes: string[]): string {
+export function formatSummary(label: string, s: GraphSummary, notes: readonly string[]): string {
   const free = Object.entries(s.free)
-    .map(([k, v]) => (v === null ? `${k}?` : v ? `${k}-free` : `has ${k}`))
+    .map(([k, v]) => (v === null ? `${k} not known` : v ? `no ${k}` : `has ${k}`))
     .join(", ");
   const rows: [string, string][] = [
-    ["vertices, edges", `${s.n}, ${s.m}${s.totalWeight !== s.m ? ` (total weight ${fmt(s.totalWeight)})` : ""}`],
-    ["degree min/avg/max", `${s.minDegree} / ${fmt(s.avgDegree)} / ${s.maxDegree}`],
-    ["degeneracy", fmt(s.degeneracy)],
-    ["components", fmt(s.components)],
-    ["bipartite", fmt(s.bipartite)],
-    ["girth", s.girth !== null ? fmt(s.girth) : s.undecided.includes("girth") ? "—" : "∞ (forest)"],
-    ["triangles, 4-cycles", `${fmt(s.triangles)}, ${fmt(s.fourCycles)}`],
-    ["forbidden subgraphs", free],
+    ["vertices, edges", `${s.n}, ${s.m}${s.totalWeight !== s.m ? ` (total weight ${num(s.totalWeight)})` : ""}`],
+    ["degree min/avg/max", `${s.minDegree} / ${num(s.avgDegree)} / ${s.maxDegree}`],
+    ["degeneracy", text(s.degeneracy)],
+    ["components", text(s.components)],
+    ["bipartite", text(s.bipartite)],
+    ["girth", s.girth !== null ? text(s.girth) : s.unknown.includes("girth") ? "not known" : "∞ (no cycles)"],
+    ["triangles, 4-cycles", `${text(s.triangles)}, ${text(s.fourCycles)}`],
+    ["subgraphs", free],
   ];
-  const w = Math.max(...rows.map((r) => r[0].length));
-  const out = [`${label}`, ...rows.map(([k, v]) => `  ${k.padEnd(w)}  ${v}`)];
-  if (s.undecided.length > 0) out.push(`  not decided: ${s.undecided.join(", ")}`);
+  const out = [label, ...formatRows(rows)];
+  if (s.unknown.length > 0) out.push(`  not known (skipped, or the search ran out of budget): ${s.unknown.join(", ")}`);
   for (const n of notes) out.push(`  note: ${n}`);
   return out.join("\n") + "\n";
 }
 
 export const graphCommand: CommandSpec = {
   name: "graph",
-  summary: "structure of each graph in a file, stream or family spec",
+  summary: "structure of each graph: degrees, degeneracy, components, girth, triangle and 4-cycle counts, which of K3, K4, C4, C5 occur",
   positionals: "<source>",
   minPositionals: 1,
   maxPositionals: 1,
-  options: [{ name: "json", type: "boolean", description: "one JSON object per graph, one per line" }, ...SOURCE_OPTIONS],
+  description: [
+    "Subgraphs are counted as subgraphs, not necessarily induced. With --json each graph gives one record (kind halfplus/graph-summary) carrying the graph's hash and source, so it joins with `halfplus cut` records of the same graph.",
+    SOURCE_HELP,
+  ],
+  options: [{ name: "json", type: "boolean", description: "one JSON record per graph, one per line" }, ...SOURCE_OPTIONS],
   examples: [
     "halfplus graph petersen",
     "halfplus graph graphs.g6 --json",
     "nauty-geng -c 8 -t | halfplus graph - --json",
-    "halfplus graph kneser:n=8,k=3",
+    "halfplus graph gnp:n=500,p=0.02 --graph-seed 7",
   ],
   async run(args, io) {
     const json = args.options["json"] === true;
     let first = true;
     for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
-      const summary = describeGraph(item.graph);
       if (json) {
-        await writeLine(io.stdout, JSON.stringify({ source: item.label, ...summary, notes: item.notes.length > 0 ? item.notes : undefined }));
+        await writeLine(io.stdout, JSON.stringify(graphSummaryRecord(item.graph, { source: item.source, notes: item.notes })));
       } else {
-        await writeLine(io.stdout, (first ? "" : "\n") + formatSummary(item.label, summary, item.notes).trimEnd());
+        await writeLine(io.stdout, (first ? "" : "\n") + formatSummary(item.label, describeGraph(item.graph), item.notes).trimEnd());
       }
       first = false;
     }

@@ -2,9 +2,10 @@
 // file; to add one, import it here and put it in the list.
 import type { CommandSpec } from "../args.js";
 import { cutCommand } from "./cut.js";
+import { encodeCommand } from "./encode.js";
 import { familiesCommand } from "./families.js";
 import { graphCommand } from "./graph.js";
 import { sdpExportCommand } from "./sdp-export.js";
 import { verifyCommand } from "./verify.js";
 
-export const COMMANDS: readonly CommandSpec[] = [graphCommand, familiesCommand, cutCommand, verifyCommand, sdpExportCommand];
+export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, verifyCommand, sdpExportCommand];

@@ -1,15 +1,17 @@
 // `halfplus verify <records>`: re-checks bracket records written by `halfplus cut --json` against
-// their graphs (rebuilt from each record's source, or taken from --graph). Exit 0 when every check
-// passes, 1 when any fails, 2 for unreadable input.
+// their graphs (the copy embedded in a record, else rebuilt from its source, or taken from
+// --graph). Exit 0 when every check passes, 1 when any fails, 2 for unreadable input.
 import { readFile } from "node:fs/promises";
 import { InputError } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
+import { sourceLabel } from "../../graph/record/source.js";
+import { readBracketRecords } from "../../cut/bracket/read-records.js";
+import { verifyBracket } from "../../cut/bracket/verify.js";
+import { SourceResolver, pickGivenGraph, readAllGraphs } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
-import { openSource, resolveSourceRef, type OpenSourceOptions, type SourceRef } from "../../sources/index.js";
-import type { BracketRecord } from "../../cut/bracket/record.js";
-import { parseBracketRecord, verifyBracket } from "../../cut/bracket/verify.js";
-import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
+import { formatRows } from "../format.js";
 import { writeLine } from "../output.js";
+import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 
 async function readAll(path: string, stdin: NodeJS.ReadableStream): Promise<string> {
   if (path === "-") {
@@ -24,105 +26,53 @@ async function readAll(path: string, stdin: NodeJS.ReadableStream): Promise<stri
   }
 }
 
-/** One JSON object (possibly pretty-printed), or JSON lines as `halfplus cut --json` writes them. */
-export function parseRecords(text: string, where: string): BracketRecord[] {
-  const trimmed = text.trim();
-  if (trimmed === "") throw new InputError(`${where}: holds no record`);
-  let whole: unknown;
-  let single = true;
-  try {
-    whole = JSON.parse(trimmed);
-  } catch {
-    single = false; // not one JSON value: read it as JSON lines below
-  }
-  if (single) return [parseBracketRecord(whole, where)];
-  const records: BracketRecord[] = [];
-  text.split("\n").forEach((line, i) => {
-    if (line.trim() === "") return;
-    let value: unknown;
-    try {
-      value = JSON.parse(line);
-    } catch {
-      throw new InputError(`${where}:${i + 1}: not valid JSON`);
-    }
-    records.push(parseBracketRecord(value, `${where}:${i + 1}`));
-  });
-  return records;
-}
-
-function describeSource(ref: SourceRef | null): string {
-  if (ref === null) return "unknown source";
-  if (ref.spec !== undefined) return ref.spec;
-  return ref.index !== undefined && ref.index > 0 ? `${ref.path}#${ref.index}` : String(ref.path);
-}
-
-async function loadAll(arg: string, options: OpenSourceOptions): Promise<Graph[]> {
-  const out: Graph[] = [];
-  for await (const g of openSource(arg, options)) out.push(g.graph);
-  if (out.length === 0) throw new InputError(`${arg}: holds no graph`);
-  return out;
-}
-
 export const verifyCommand: CommandSpec = {
   name: "verify",
   summary: "re-check max-cut bracket records (from `halfplus cut --json`) against their graphs",
-  positionals: "<records.json>",
+  positionals: "<records>",
   minPositionals: 1,
   maxPositionals: 1,
+  description: [
+    "Trusts nothing the solvers did: the cut of the record's partition is recomputed, and the upper bound is re-derived from its certificate (the dual certificate's shift proved again, or the exact search rerun). The graph is the copy embedded in the record (standard input and small graphs), else rebuilt from its spec or file, else the one given with --graph.",
+    "Records are numbered from 1. `-` reads the records from standard input.",
+  ],
   options: [
-    { name: "graph", type: "string", description: "take the graph(s) from this source instead of each record's own source", placeholder: "SOURCE" },
-    { name: "seconds", type: "number", description: "budget for re-running exact search on exhaustive certificates", default: 60, min: 0.001, max: 1e7, placeholder: "S" },
+    { name: "graph", type: "string", description: "take the graphs from this source instead of the records' own: one graph serves every record, else the k-th graph the record at position k", placeholder: "SOURCE" },
+    { name: "seconds", type: "number", description: "time budget for rerunning exact search on exhaustive-search certificates", default: 60, min: 0.001, max: 1e7, placeholder: "S" },
     { name: "json", type: "boolean", description: "one JSON verdict per record, one per line" },
     ...SOURCE_OPTIONS,
   ],
-  examples: ["halfplus cut petersen --json > p.json && halfplus verify p.json", "halfplus verify results.json --graph G1.txt"],
+  examples: [
+    "halfplus cut petersen --json > p.jsonl && halfplus verify p.jsonl",
+    "printf 'DQc\\n' | halfplus cut - --json | halfplus verify -",
+    "halfplus verify results.jsonl --graph G1.txt",
+  ],
   async run(args, io) {
     const path = args.positionals[0];
     const where = path === "-" ? "stdin" : path;
-    const records = parseRecords(await readAll(path, io.stdin), where);
     const graphArg = args.options["graph"] as string | undefined;
     const seconds = args.options["seconds"] as number;
     const json = args.options["json"] === true;
     const sourceOptions = sourceOptionsFrom(args, io.stdin);
     if (graphArg === "-" && path === "-") throw new InputError("records and --graph cannot both come from standard input");
-    const given = graphArg === undefined ? null : await loadAll(graphArg, sourceOptions);
-    const byPath = new Map<string, Graph[]>();
+    const records = readBracketRecords(await readAll(path, io.stdin), where);
+    const given = graphArg === undefined ? null : await readAllGraphs(graphArg, sourceOptions);
+    const resolver = new SourceResolver(sourceOptions);
     let failures = 0;
-    for (let k = 0; k < records.length; k++) {
-      const rec = records[k];
-      const label = `record ${k + 1} (${describeSource(rec.source)})`;
-      let graph: Graph;
-      if (given !== null) {
-        const idx = given.length === 1 ? 0 : (rec.source?.index ?? k);
-        if (idx >= given.length) throw new InputError(`--graph ${graphArg}: has ${given.length} graphs, ${label} needs graph #${idx}`);
-        graph = given[idx];
-      } else if (rec.source === null || (rec.source.spec === undefined && rec.source.path === undefined)) {
-        throw new InputError(`${label}: records no source; pass the graph with --graph SOURCE`);
-      } else if (rec.source.spec === undefined && rec.source.path !== undefined && rec.source.path !== "-") {
-        // Files are read once, however many records point into them.
-        let all = byPath.get(rec.source.path);
-        if (all === undefined) {
-          all = await loadAll(rec.source.path, { ...sourceOptions, format: rec.source.format ?? sourceOptions.format });
-          byPath.set(rec.source.path, all);
-        }
-        const idx = rec.source.index ?? 0;
-        if (idx >= all.length) throw new InputError(`${rec.source.path}: has no graph #${idx}`);
-        graph = all[idx];
-      } else {
-        graph = await resolveSourceRef(rec.source, sourceOptions);
-      }
-      const report = verifyBracket(graph, rec, { seconds });
+    for (const { record, where: at, position } of records) {
+      const label = `record ${position} (${sourceLabel(record.source)})`;
+      const graph: Graph = given !== null ? pickGivenGraph(given, record.source, position, `--graph ${graphArg}`) : await resolver.resolve(record.source, at);
+      const report = verifyBracket(graph, record, { seconds });
       if (!report.ok) failures++;
       if (json) {
-        await writeLine(io.stdout, JSON.stringify({ record: k + 1, source: describeSource(rec.source), ok: report.ok, checks: report.checks }));
+        await writeLine(io.stdout, JSON.stringify({ position, label: sourceLabel(record.source), ok: report.ok, checks: report.checks }));
       } else {
         const failed = report.checks.filter((c) => !c.ok).map((c) => c.name);
         const verdict = report.ok
-          ? `verified: max cut ${rec.exact ? `= ${rec.lower}` : `in [${rec.lower}, ${rec.upper}]`}`
+          ? `verified: max cut ${record.exact ? `= ${record.lower}` : `in [${record.lower}, ${record.upper}]`}`
           : `REJECTED (${failed.join(", ")})`;
-        const w = Math.max(...report.checks.map((c) => c.name.length));
-        const lines = [`${label}: ${verdict}`, ...report.checks.map((c) => `  ${c.ok ? "pass" : "FAIL"}  ${c.name.padEnd(w)}  ${c.message}`)];
-        await writeLine(io.stdout, lines.join("\n"));
+        const rows = formatRows(report.checks.map((c) => [`${c.ok ? "pass" : "FAIL"}  ${c.name}`, c.message] as const));
+        await writeLine(io.stdout, [`${label}: ${verdict}`, ...rows].join("\n"));
       }
     }
     if (!json && records.length > 1) await writeLine(io.stdout, `${records.length - failures} of ${records.length} records verified`);

@@ -2,8 +2,8 @@
 // and the best certified upper bound, in a plain JSON-ready record that `verify` can re-check
 // from the graph alone (partition for the lower bound, certificate for the upper bound).
 
-import { InputError } from "../../errors.js";
-import { cutValue, floorCutBound } from "../../graph/cut-value.js";
+import { invalidParameter } from "../../errors.js";
+import { cutValue, floorCutBound, surplusOf } from "../../graph/cut-value.js";
 import type { Graph } from "../../graph/graph.js";
 import { graphHash } from "../../graph/hash.js";
 import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
@@ -15,12 +15,13 @@ import { BreakoutSearcher } from "../heuristic/breakout.js";
 import { hyperplaneRound } from "../heuristic/hyperplane-rounding.js";
 import { localSearch } from "../heuristic/local-search.js";
 import { vectorMethodRound } from "../heuristic/vector-rounding.js";
-import { DENSE_PROOF_LIMIT, PROOF_SHIFT_METHODS } from "../relaxation/certificate.js";
+import { DENSE_PROOF_LIMIT, upperKindOf } from "../relaxation/certificate.js";
 import { eigenvalueUpperBound } from "../relaxation/eigenvalue-bound.js";
 import { solveAndCertifySdp } from "../relaxation/sdp-bound.js";
-import type { CutRecord, DualCertificate, UpperBoundRecord } from "../types.js";
-import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, type BracketCertificate, type BracketRecord, type BracketRun, type BracketMethod, BRACKET_METHODS } from "./record.js";
-import type { SourceRef } from "../../graph/source.js";
+import type { CutRecord, DualCertificate, UpperBoundRecord, UpperKind } from "../types.js";
+import { recordEnvelope } from "../../graph/record/envelope.js";
+import type { GraphSource } from "../../graph/record/source.js";
+import { BRACKET_EFFORTS, BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, type BracketCertificate, type BracketEffort, type BracketRecord, type BracketRun } from "./record.js";
 
 export const DEFAULT_BRACKET_SECONDS = 10;
 
@@ -37,15 +38,19 @@ export interface BracketProgress {
 export interface BracketOptions {
   /** Time budget in seconds (default 10). Certification steps may run a little past it. */
   seconds?: number;
-  seed?: number;
-  method?: BracketMethod;
+  /** Seed of every randomised solver the bracket runs (default 0); each run gets a seed derived from it. */
+  solverSeed?: number;
+  /** How much work to put in (default "auto"); see BracketEffort. */
+  effort?: BracketEffort;
   /** Called after each method, and every half second during long searches. */
   onProgress?: (p: BracketProgress) => void;
   /** Where the graph came from, copied into the record so `verify` can rebuild it. */
-  source?: SourceRef | null;
+  source?: GraphSource;
+  /** Notes to carry into the record (e.g. what the reader merged or dropped). */
+  notes?: readonly string[];
 }
 
-/** A seed per method, derived from the bracket's seed so every run is reproducible. */
+/** A seed per method, derived from the bracket's solverSeed so every run is reproducible. */
 function methodSeed(seed: number, k: number): number {
   return (seed + Math.imul(k + 1, 0x9e3779b9)) >>> 0;
 }
@@ -70,7 +75,7 @@ class BracketState {
   partition: Uint8Array;
   upper: number;
   upperMethod = "positive-weights";
-  upperProven = true;
+  upperKind: UpperKind = "proven";
   certificate: BracketCertificate;
   exact = false;
   readonly runs: BracketRun[] = [];
@@ -87,7 +92,7 @@ class BracketState {
     this.lower = cutValue(graph, this.partition);
     this.lowerMethod = "all-on-one-side";
     this.upper = this.round(positiveWeightSum(graph));
-    this.certificate = { kind: "positive-weights", floored: this.integral, tolerance: this.tolerance };
+    this.certificate = { kind: "positive-weights", roundedDown: this.integral, tolerance: this.tolerance };
   }
 
   left(): number {
@@ -106,7 +111,7 @@ class BracketState {
   closed(): boolean {
     // An unproven (Lanczos) upper bound never closes the bracket: `exact` claims a proof.
     // Fixes the K_400 case in test/bracket.test.ts ("an unproven bound never closes the bracket").
-    return this.exact || (this.integral && this.upperProven && this.lower >= this.upper);
+    return this.exact || (this.integral && this.upperKind === "proven" && this.lower >= this.upper);
   }
 
   progress(method: string): void {
@@ -114,7 +119,7 @@ class BracketState {
   }
 
   offerCut(r: CutRecord, role: BracketRun["role"] = "lower"): void {
-    this.runs.push({ method: r.method, role, value: r.value, status: r.status, seconds: r.seconds, seed: r.seed, details: plainDetails(r.details) });
+    this.runs.push({ method: r.method, role, value: r.value, status: r.status, seconds: r.seconds, solverSeed: r.solverSeed, details: plainDetails(r.details) });
     if (r.value > this.lower) {
       // The record's value is the solver's claim; the bracket keeps only what cutValue confirms.
       const v = cutValue(this.graph, r.partition);
@@ -128,16 +133,16 @@ class BracketState {
   }
 
   offerDual(r: UpperBoundRecord): void {
-    this.runs.push({ method: r.method, role: "upper", value: r.value, status: r.status, seconds: r.seconds, seed: null, details: plainDetails(r.details) });
+    this.runs.push({ method: r.method, role: "upper", value: r.value, status: r.status, seconds: r.seconds, solverSeed: null, details: plainDetails(r.details) });
     const cert = r.certificate;
     if (cert !== null && Number.isFinite(r.value)) {
       const bound = this.round(r.value);
-      const proven = PROOF_SHIFT_METHODS.includes(cert.shiftMethod);
+      const kind = upperKindOf(cert.shiftProof);
       // An estimated bound below a cut we hold is refuted by that cut: never adopt it.
-      if (bound < this.upper && (proven || bound >= this.lower)) {
+      if (bound < this.upper && (kind === "proven" || bound >= this.lower)) {
         this.upper = bound;
         this.upperMethod = r.method;
-        this.upperProven = proven;
+        this.upperKind = kind;
         this.certificate = toPlainDual(cert, this.integral, this.tolerance);
       }
     }
@@ -150,7 +155,7 @@ class BracketState {
   }
 
   offerExact(r: ExactCutRecord): void {
-    this.runs.push({ method: r.method, role: "exact", value: r.value, upper: r.upper, status: r.status, seconds: r.seconds, seed: r.seed, details: plainDetails(r.details) });
+    this.runs.push({ method: r.method, role: "exact", value: r.value, upper: r.upper, status: r.status, seconds: r.seconds, solverSeed: r.solverSeed, details: plainDetails(r.details) });
     this.takeCut(r);
     if (r.status === "optimal") {
       this.exact = true;
@@ -162,19 +167,19 @@ class BracketState {
         this.certificate = { ...this.certificate, tolerance: this.tolerance };
       }
       // Non-integer weights: the search proves value + tolerance, which an earlier certificate may beat.
-      if (r.upper <= this.upper || !this.upperProven) {
+      if (r.upper <= this.upper || this.upperKind !== "proven") {
         this.upper = r.upper;
         this.upperMethod = r.method;
-        this.upperProven = true;
-        this.certificate = { kind: "exhaustive", search: r.method, nodes: r.nodes, floored: false, tolerance: this.tolerance };
+        this.upperKind = "proven";
+        this.certificate = { kind: "exhaustive", search: r.method, graySteps: r.graySteps, branchNodes: r.branchNodes, roundedDown: false, tolerance: this.tolerance };
       }
     } else {
       const bound = this.round(r.upper);
       if (bound < this.upper) {
         this.upper = bound;
         this.upperMethod = r.method;
-        this.upperProven = true;
-        this.certificate = { kind: "search-bound", search: r.method, nodes: r.nodes, floored: this.integral, tolerance: this.tolerance };
+        this.upperKind = "proven";
+        this.certificate = { kind: "unfinished-search", search: r.method, graySteps: r.graySteps, branchNodes: r.branchNodes, roundedDown: this.integral, tolerance: this.tolerance };
       }
     }
     this.progress(r.method);
@@ -191,15 +196,15 @@ class BracketState {
   }
 }
 
-function toPlainDual(c: DualCertificate, floored: boolean, tolerance: number): BracketCertificate {
-  return { kind: "psd-dual", y: Array.from(c.y), shift: c.shift, shiftMethod: c.shiftMethod, floored, tolerance };
+function toPlainDual(c: DualCertificate, roundedDown: boolean, tolerance: number): BracketCertificate {
+  return { kind: "psd-dual", y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, roundedDown, tolerance };
 }
 
 /** Run breakout search in slices, reporting progress, until `seconds` or `rounds` run out or the bracket closes. */
 function runBreakout(state: BracketState, seconds: number, rounds: number, seed: number): void {
   if (seconds <= 0 || state.closed()) return;
   const searcher = new BreakoutSearcher(state.graph, {
-    seed,
+    solverSeed: seed,
     initial: state.partition,
     upperBound: state.upper,
   });
@@ -216,10 +221,10 @@ function runBreakout(state: BracketState, seconds: number, rounds: number, seed:
       state.takeCut(best);
       state.progress("breakout");
     }
-    if (status !== "timeout") break; // "optimal": reached the upper bound; "budget": rounds used up
+    if (status !== "time-limit") break; // "optimal": reached the upper bound; "iteration-limit": rounds used up
   }
   const best = searcher.best();
-  state.runs.push({ method: best.method, role: "lower", value: best.value, status: best.status, seconds: best.seconds, seed: best.seed, details: plainDetails(best.details) });
+  state.runs.push({ method: best.method, role: "lower", value: best.value, status: best.status, seconds: best.seconds, solverSeed: best.solverSeed, details: plainDetails(best.details) });
   state.takeCut(best);
 }
 
@@ -239,14 +244,14 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
   const phaseEnd = nowSeconds() + total;
   const phaseLeft = (): number => Math.max(0, phaseEnd - nowSeconds());
   // A dense proof is used only when it fits in the given share of the time left; otherwise the
-  // shift is a Lanczos estimate and the record says so (upperProven = false).
+  // shift is a Lanczos estimate and the record says so (upperKind = "estimate").
   const denseLimitFor = (share: number): number => (n <= DENSE_PROOF_LIMIT && denseProofSeconds(n) <= share * phaseLeft() ? DENSE_PROOF_LIMIT : 0);
   // Residual tolerance for Lanczos shifts: 1e-7 relative moves the bound by ~1e-7·n·‖L‖/4, far
   // below the gaps of interest, and converges in about half the iterations of the default.
   const tolerance = 1e-7;
 
   // A first cut in a few milliseconds: multi-start 1-flip local search.
-  state.offerCut(localSearch(g, { seconds: Math.max(1e-3, Math.min(0.05 * total, 1)), iterations: quick ? 4 : 16, seed: methodSeed(seed, 1) }));
+  state.offerCut(localSearch(g, { seconds: Math.max(1e-3, Math.min(0.05 * total, 1)), iterations: quick ? 4 : 16, solverSeed: methodSeed(seed, 1) }));
 
   // The eigenvalue bound (the dual certificate with y = 0): one Lanczos run, or a small dense proof.
   const tEigen0 = nowSeconds();
@@ -262,7 +267,7 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
   if (forSdp > Math.min(0.5, 0.05 * total) || n <= 64) {
     const { sdp, bound } = solveAndCertifySdp(g, {
       sdp: {
-        seed: methodSeed(seed, 2),
+        solverSeed: methodSeed(seed, 2),
         seconds: Math.max(1e-3, forSdp),
         maxSweeps: quick ? 300 : undefined,
         // Large graphs: a low rank affords many more sweeps in the same time, which matters more
@@ -271,17 +276,17 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
       },
       certify: { tolerance, denseLimit: dense },
     });
-    state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, seed: sdp.seed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
+    state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, solverSeed: sdp.solverSeed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
     state.offerDual(bound);
     if (state.closed()) return;
     const trials = quick ? 8 : n <= 5000 ? 64 : 16;
-    state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, seed: methodSeed(seed, 3), polish: true }));
+    state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, solverSeed: methodSeed(seed, 3), polish: true }));
     if (state.closed()) return;
   }
   if (quick) return;
   // Sparse vector rounding: its set-up (the exact guarantee) costs about one Lanczos run.
   if (phaseLeft() > 3 * eigenSeconds) {
-    state.offerCut(vectorMethodRound(g, { trials: n <= 5000 ? 32 : 8, seed: methodSeed(seed, 4), polish: true }));
+    state.offerCut(vectorMethodRound(g, { trials: n <= 5000 ? 32 : 8, solverSeed: methodSeed(seed, 4), polish: true }));
     if (state.closed()) return;
   }
   // Breakout gets what is left of the phase; the round cap (≈ 50 n² rounds, a few µs each at
@@ -297,29 +302,27 @@ function exactLooksFeasible(g: Graph): boolean {
 export function bracket(graph: Graph, options: BracketOptions = {}): BracketRecord {
   const owner = "bracket";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_BRACKET_SECONDS);
-  const seed = checkSeed(owner, "seed", options.seed);
-  const method = options.method ?? "auto";
-  if (!BRACKET_METHODS.includes(method)) {
-    throw new InputError(`${owner}: invalid \`method\`: should be one of ${BRACKET_METHODS.join(", ")} (got ${JSON.stringify(method)})`);
-  }
+  const seed = checkSeed(owner, "solverSeed", options.solverSeed);
+  const effort = options.effort ?? "auto";
+  if (!BRACKET_EFFORTS.includes(effort)) throw invalidParameter(owner, "effort", `should be one of ${BRACKET_EFFORTS.join(", ")}`, effort);
   const state = new BracketState(graph, seconds, options.onProgress);
   state.progress("start");
 
   if (graph.m > 0) {
-    if (method === "exact") {
-      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, onProgress: state.exactProgress("exact search") }));
+    if (effort === "exact") {
+      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, onProgress: state.exactProgress("exact search") }));
       if (!state.closed()) state.offerDual(eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 }));
-    } else if (method === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
-      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, onProgress: state.exactProgress("exact search") }));
+    } else if (effort === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
+      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, onProgress: state.exactProgress("exact search") }));
       if (!state.closed()) heuristicPhase(state, seed, false, 1);
-    } else if (method === "auto" && exactLooksFeasible(graph)) {
+    } else if (effort === "auto" && exactLooksFeasible(graph)) {
       // Heuristics first (a good incumbent prunes far more), then exact search on the rest.
       heuristicPhase(state, seed, false, 0.3);
       if (!state.closed()) {
-        state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, initial: state.partition, onProgress: state.exactProgress("exact search") }));
+        state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, initial: state.partition, onProgress: state.exactProgress("exact search") }));
       }
     } else {
-      heuristicPhase(state, seed, method === "quick", 1);
+      heuristicPhase(state, seed, effort === "quick", 1);
     }
   } else {
     state.exact = true; // no edges: every cut is 0
@@ -327,29 +330,31 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
     state.upperMethod = "positive-weights";
   }
 
-  const W = graph.totalWeight;
   const exact = state.closed();
+  const envelope = recordEnvelope(BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, graph, options.source);
   return {
-    kind: BRACKET_RECORD_KIND,
+    kind: envelope.kind,
     version: BRACKET_RECORD_VERSION,
+    graphHash: envelope.graphHash,
     n: graph.n,
     m: graph.m,
-    totalWeight: W,
+    totalWeight: graph.totalWeight,
     lower: state.lower,
     upper: state.upper,
     exact,
-    upperProven: state.upperProven,
-    surplusLower: state.lower - W / 2,
-    surplusUpper: state.upper - W / 2,
+    upperKind: state.upperKind,
+    surplusLower: surplusOf(graph, state.lower),
+    surplusUpper: surplusOf(graph, state.upper),
     lowerMethod: state.lowerMethod,
     upperMethod: state.upperMethod,
     seconds: state.elapsed(),
-    seed,
-    method,
+    solverSeed: seed,
+    effort,
     partition: Array.from(state.partition),
     certificate: state.certificate,
     runs: state.runs,
-    graphHash: graphHash(graph),
-    source: options.source ?? null,
+    notes: [...(options.notes ?? [])],
+    // Last, so the (possibly long) embedded graph does not hide the numbers in a JSON line.
+    source: envelope.source,
   };
 }

@@ -2,3 +2,4 @@
 export * from "./record.js";
 export * from "./bracket.js";
 export { parseBracketRecord, verifyBracket, type BracketCheck, type BracketVerdict, type BracketVerifyOptions } from "./verify.js";
+export * from "./read-records.js";

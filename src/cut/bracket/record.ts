@@ -1,43 +1,51 @@
-// The bracket record: its shape, format tag and version, kept apart from the code that makes it
-// (bracket.ts) and the code that checks it (verify.ts), so neither imports the other.
+// The bracket record: its shape, kind and version, kept apart from the code that makes it
+// (bracket.ts) and the code that checks it (verify.ts), so neither imports the other. It shares
+// the envelope (kind, version, graphHash, source) with every other result record.
 
-import type { SourceRef } from "../../graph/source.js";
+import type { RecordEnvelope } from "../../graph/record/envelope.js";
+import type { ShiftProof, SolverStatus, UpperKind } from "../types.js";
 
-/** Format tag written into every bracket record, so verify can refuse other JSON. */
-export const BRACKET_RECORD_KIND = "halfplus-maxcut-bracket";
-export const BRACKET_RECORD_VERSION = 1;
+/** The `kind` every bracket record carries, so verify can refuse other JSON. */
+export const BRACKET_RECORD_KIND = "halfplus/bracket";
+/** Version 2: the shared envelope, `effort`, `solverSeed`, `upperKind`, `shiftProof`, `roundedDown`, `notes`. */
+export const BRACKET_RECORD_VERSION = 2;
 
 /**
- * auto: exact search when the graph is small, heuristics and certified bounds otherwise;
- * exact: exact search only (plus the eigenvalue bound if it stops early);
- * heuristic: never exact search; quick: cheap methods only, for large batches of graphs.
+ * How much work the bracket puts in. auto: exact search when the graph is small, heuristics and
+ * certified bounds otherwise; exact: exact search only (plus the eigenvalue bound if it stops
+ * early); heuristic: never exact search; quick: cheap methods only, for large batches of graphs.
  */
-export type BracketMethod = "auto" | "exact" | "heuristic" | "quick";
-export const BRACKET_METHODS: readonly BracketMethod[] = ["auto", "exact", "heuristic", "quick"];
+export type BracketEffort = "auto" | "exact" | "heuristic" | "quick";
+export const BRACKET_EFFORTS: readonly BracketEffort[] = ["auto", "exact", "heuristic", "quick"];
 
-/** How `upper` is proven. `floored`: integer weights, so the bound was rounded down to an integer. */
+/**
+ * How `upper` is proven. `roundedDown`: the graph has integer weights, so every cut is an integer
+ * and the bound was rounded down to the integer below. `tolerance`: for non-integer weights, how
+ * far a closed bracket's `upper` may sit above `lower` (the exact search's rounding slack).
+ */
 export type BracketCertificate =
-  | { kind: "psd-dual"; y: number[]; shift: number; shiftMethod: string; floored: boolean; tolerance: number }
-  | { kind: "exhaustive"; search: string; nodes: number; floored: boolean; tolerance: number }
-  | { kind: "search-bound"; search: string; nodes: number; floored: boolean; tolerance: number }
-  | { kind: "positive-weights"; floored: boolean; tolerance: number };
+  | { kind: "psd-dual"; y: number[]; shift: number; shiftProof: ShiftProof; roundedDown: boolean; tolerance: number }
+  | { kind: "exhaustive"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
+  | { kind: "unfinished-search"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
+  | { kind: "positive-weights"; roundedDown: boolean; tolerance: number };
 
 /** One method's contribution, summarised. */
 export interface BracketRun {
+  /** The algorithm, e.g. "local-search", "sdp-mixing", "exact-bnb". */
   method: string;
   /** lower: produced a cut; upper: produced a bound; exact: both; relaxation: an SDP objective. */
   role: "lower" | "upper" | "exact" | "relaxation";
   value: number;
   /** For exact searches: their proven upper bound. */
   upper?: number;
-  status: string;
+  status: SolverStatus;
   seconds: number;
-  seed: number | null;
+  /** Seed the method's randomness was drawn from (derived from the bracket's solverSeed); null when it uses none. */
+  solverSeed: number | null;
   details?: Record<string, number | string | boolean | null>;
 }
 
-export interface BracketRecord {
-  kind: typeof BRACKET_RECORD_KIND;
+export interface BracketRecord extends RecordEnvelope<typeof BRACKET_RECORD_KIND> {
   version: typeof BRACKET_RECORD_VERSION;
   n: number;
   m: number;
@@ -46,22 +54,21 @@ export interface BracketRecord {
   upper: number;
   /** True when the bracket is closed by proof (for non-integer weights: within certificate.tolerance). */
   exact: boolean;
-  /**
-   * False when `upper` rests on a Lanczos estimate of the shift (large n) rather than a proof
-   * (exhaustive search, Cholesky, Gershgorin, the positive-weight sum).
-   */
-  upperProven: boolean;
+  /** How far `upper` can be trusted: "estimate" when it rests on a Lanczos shift (large n) rather than a proof. */
+  upperKind: UpperKind;
   surplusLower: number;
   surplusUpper: number;
+  /** The algorithm that found the cut `partition`. */
   lowerMethod: string;
+  /** The algorithm behind `upper` and its certificate. */
   upperMethod: string;
   seconds: number;
-  seed: number;
-  method: BracketMethod;
+  /** Seed of the randomised solvers; each run's seed is derived from it. */
+  solverSeed: number;
+  effort: BracketEffort;
   partition: number[];
   certificate: BracketCertificate;
   runs: BracketRun[];
-  graphHash: string;
-  source: SourceRef | null;
+  /** Things the reader should know about the graph or the run (possibly none). */
+  notes: string[];
 }
-

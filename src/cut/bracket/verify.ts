@@ -11,7 +11,10 @@ import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
 import { improvementMargin } from "../exact/common.js";
 import { exactMaxCut } from "../exact/exact-max-cut.js";
 import { verifyCertificate } from "../relaxation/certificate.js";
+import type { UpperKind } from "../types.js";
 import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, type BracketCertificate, type BracketRecord } from "./record.js";
+
+const UPPER_KINDS: readonly UpperKind[] = ["proven", "probable", "estimate"];
 
 export interface BracketCheck {
   name: string;
@@ -49,28 +52,28 @@ export function parseBracketRecord(value: unknown, where: string): BracketRecord
     if (!isNumber(r[f])) bad(`field \`${f}\` should be a finite number`);
   }
   if (typeof r.exact !== "boolean") bad("field `exact` should be true or false");
-  if (typeof r.upperProven !== "boolean") bad("field `upperProven` should be true or false");
+  if (!UPPER_KINDS.includes(r.upperKind as UpperKind)) bad(`field \`upperKind\` should be one of ${UPPER_KINDS.join(", ")}`);
   if (typeof r.graphHash !== "string") bad("field `graphHash` should be a string");
   if (!Array.isArray(r.partition)) bad("field `partition` should be an array of 0/1");
   // Missing or non-object `source` used to crash verify with a TypeError (test/cli-cut.test.ts "malformed `source`").
-  if (r.source !== null && (typeof r.source !== "object" || Array.isArray(r.source))) bad("field `source` should be an object or null");
+  if (typeof r.source !== "object" || r.source === null || Array.isArray(r.source)) bad("field `source` should be an object");
   const c = r.certificate as Record<string, unknown> | undefined;
   if (typeof c !== "object" || c === null) bad("field `certificate` should be an object");
   const kind = c!.kind;
   if (kind === "psd-dual") {
-    if (!Array.isArray(c!.y) || !isNumber(c!.shift) || typeof c!.shiftMethod !== "string") bad("psd-dual certificate needs `y` (array), `shift` and `shiftMethod`");
-  } else if (kind === "exhaustive" || kind === "search-bound") {
+    if (!Array.isArray(c!.y) || !isNumber(c!.shift) || typeof c!.shiftProof !== "string") bad("psd-dual certificate needs `y` (array), `shift` and `shiftProof`");
+  } else if (kind === "exhaustive" || kind === "unfinished-search") {
     if (typeof c!.search !== "string") bad(`${kind} certificate needs \`search\``);
   } else if (kind !== "positive-weights") {
     bad(`unknown certificate kind ${JSON.stringify(kind)}`);
   }
-  if (typeof c!.floored !== "boolean" || !isNumber(c!.tolerance)) bad("certificate needs `floored` (boolean) and `tolerance` (number)");
+  if (typeof c!.roundedDown !== "boolean" || !isNumber(c!.tolerance)) bad("certificate needs `roundedDown` (boolean) and `tolerance` (number)");
   return value as BracketRecord;
 }
 
 /** The bound a certificate proves, after the integer rounding it declares. */
 function applyRounding(graph: Graph, cert: BracketCertificate, bound: number): { bound: number; problem: string | null } {
-  if (!cert.floored) return { bound, problem: null };
+  if (!cert.roundedDown) return { bound, problem: null };
   if (!hasIntegerWeights(graph)) return { bound, problem: "certificate rounds down to an integer but the graph has non-integer weights" };
   return { bound: floorCutBound(bound), problem: null };
 }
@@ -95,7 +98,7 @@ export function verifyBracket(graph: Graph, record: BracketRecord, options: Brac
   const hash = graphHash(graph);
   add("graph", hash === record.graphHash && graph.n === record.n && graph.m === record.m,
     hash === record.graphHash ? `same graph (n = ${graph.n}, m = ${graph.m})` : `graph hash differs: record ${record.graphHash}, graph ${hash} (n = ${graph.n}, m = ${graph.m})`);
-  add("total weight", graph.totalWeight === record.totalWeight, `W = ${graph.totalWeight}${graph.totalWeight === record.totalWeight ? "" : `, record says ${record.totalWeight}`}`);
+  add("totalWeight", graph.totalWeight === record.totalWeight, `W = ${graph.totalWeight}${graph.totalWeight === record.totalWeight ? "" : `, record says ${record.totalWeight}`}`);
 
   // Lower bound: the partition must be a 0/1 vector whose cut is exactly `lower`.
   const p = record.partition;
@@ -121,17 +124,17 @@ export function verifyBracket(graph: Graph, record: BracketRecord, options: Brac
         add("upper", false, `dual vector y should hold ${graph.n} finite numbers`);
         break;
       }
-      const v = verifyCertificate(graph, { kind: "psd-dual", y: Float64Array.from(cert.y), shift: cert.shift, shiftMethod: cert.shiftMethod });
+      const v = verifyCertificate(graph, { kind: "psd-dual", y: Float64Array.from(cert.y), shift: cert.shift, shiftProof: cert.shiftProof });
       if (!v.ok) {
         add("upper", false, `dual certificate rejected: ${v.message}`);
         break;
       }
       const r = applyRounding(graph, cert, v.value);
-      if (record.upperProven && !v.proven) add("proof", false, `record claims a proven bound but shift method ${cert.shiftMethod} is an estimate`);
+      if (record.upperKind === "proven" && !v.proven) add("proof", false, `record claims a proven bound but shift proof ${cert.shiftProof} is an estimate`);
       // `exact` claims a proof: an estimated shift cannot close the bracket (test/bracket.test.ts "unproven").
-      if (record.exact && !v.proven) add("proof", false, `record claims exact but shift method ${cert.shiftMethod} is an estimate, not a proof`);
+      if (record.exact && !v.proven) add("proof", false, `record claims exact but shift proof ${cert.shiftProof} is an estimate, not a proof`);
       if (r.problem !== null) add("upper", false, r.problem);
-      else add("upper", r.bound <= record.upper, `dual certificate (${cert.shiftMethod}${v.proven ? "" : ": an estimate, not a proof"}) gives max cut ≤ ${r.bound}${r.bound <= record.upper ? "" : `, more than the claimed upper ${record.upper}`}`);
+      else add("upper", r.bound <= record.upper, `dual certificate (${cert.shiftProof}${v.proven ? "" : ": an estimate, not a proof"}) gives max cut ≤ ${r.bound}${r.bound <= record.upper ? "" : `, more than the claimed upper ${record.upper}`}`);
       break;
     }
     case "positive-weights": {
@@ -140,7 +143,7 @@ export function verifyBracket(graph: Graph, record: BracketRecord, options: Brac
       break;
     }
     case "exhaustive":
-    case "search-bound": {
+    case "unfinished-search": {
       const seconds = options.seconds ?? 60;
       // Starting from the record's own cut (when it is a valid partition) prunes as the original run did.
       const valid = record.partition.length === graph.n && record.partition.every((x) => x === 0 || x === 1);

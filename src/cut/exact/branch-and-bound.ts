@@ -161,7 +161,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   const t0 = nowSeconds();
   const owner = "branchAndBoundMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
-  const seed = checkSeed(owner, "seed", options.seed);
+  const seed = checkSeed(owner, "solverSeed", options.solverSeed);
   const n = graph.n;
   const restarts = options.restarts ?? 16;
   if (!Number.isInteger(restarts) || restarts < 0 || restarts > 100000) {
@@ -309,7 +309,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
       if (now > deadline) stopped = true;
       else if (onProgress !== undefined && now >= nextReport) {
         nextReport = now + PROGRESS_INTERVAL;
-        onProgress({ lower: k === 0 ? Math.max(best, globalBest) : globalBest, nodes, seconds: now - t0 });
+        onProgress({ lower: k === 0 ? Math.max(best, globalBest) : globalBest, graySteps: 0, branchNodes: nodes, seconds: now - t0 });
       }
     }
     if (stopped) {
@@ -389,9 +389,9 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
 
   const partitionByPos = new Uint8Array(n);
   let upper: number | null = null;
-  let status: "optimal" | "timeout" = "optimal";
+  let status: "optimal" | "time-limit" = "optimal";
   if (stopped) {
-    status = "timeout";
+    status = "time-limit";
     // Extend the stopped tail's best partition to the prefix greedily, polish, and keep the
     // better of that and the global incumbent. The bound chains MC[j] ≤ MC[j+1] + positive weight of v_j's forward edges.
     const stoppedK = k;
@@ -421,7 +421,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
 function finish(
   graph: Graph,
   partition: Uint8Array,
-  status: "optimal" | "timeout",
+  status: "optimal" | "time-limit",
   upper: number | null,
   nodes: number,
   t0: number,
@@ -441,9 +441,10 @@ function finish(
     upper: upper === null ? value + slack : Math.max(upper, value + slack),
     partition,
     status,
-    nodes,
+    graySteps: 0,
+    branchNodes: nodes,
     seconds: nowSeconds() - t0,
-    seed,
+    solverSeed: seed,
     details: { blockSize, order, integerWeights: exactSums, tolerance: slack, solvedTail },
   };
 }

@@ -7,25 +7,28 @@ import type { CutRecord } from "../types.js";
 
 /** What an exact search returns: a cut (value = cutValue(partition)) plus a proven upper bound. */
 export interface ExactCutRecord extends CutRecord {
-  status: "optimal" | "timeout";
-  /** Proven upper bound on the max cut: equal to `value` when optimal, the best bracket so far on timeout. */
+  status: "optimal" | "time-limit";
+  /** Proven upper bound on the max cut: equal to `value` when optimal, the best bracket so far when time ran out. */
   upper: number;
-  /** Search nodes visited (outer Gray steps, or branch-and-bound nodes), for the record. */
-  nodes: number;
+  /** Gray-code steps taken: one outer pattern each, whose 2^b block completions are tabulated. */
+  graySteps: number;
+  /** Branch-and-bound nodes visited. */
+  branchNodes: number;
 }
 
 export interface ExactProgress {
   /** Best cut of the whole graph known so far (-Infinity before the first). */
   lower: number;
-  nodes: number;
+  graySteps: number;
+  branchNodes: number;
   seconds: number;
 }
 
 export interface ExactOptions {
-  /** Time budget in seconds (default 60). On expiry the record has status "timeout" and a valid bracket. */
+  /** Time budget in seconds (default 60). On expiry the record has status "time-limit" and a valid bracket. */
   seconds?: number;
   /** Seed for the randomised incumbent heuristic (default 0); recorded in the result. */
-  seed?: number;
+  solverSeed?: number;
   /** Called about every half second during a long search. */
   onProgress?: (p: ExactProgress) => void;
 }

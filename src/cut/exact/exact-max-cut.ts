@@ -31,7 +31,7 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   const t0 = nowSeconds();
   const owner = "exactMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
-  const seed = checkSeed(owner, "seed", options.seed);
+  const seed = checkSeed(owner, "solverSeed", options.solverSeed);
   const method = options.method ?? "auto";
   if (method !== "auto" && method !== "gray" && method !== "bnb") {
     throw new InputError(`${owner}: invalid \`method\`: should be one of auto, gray, bnb (got ${JSON.stringify(method)})`);
@@ -48,9 +48,10 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
 
   const partition = new Uint8Array(graph.n);
   let upper = 0;
-  let nodes = 0;
+  let graySteps = 0;
+  let branchNodes = 0;
   let finishedValue = 0;
-  let status: "optimal" | "timeout" = "optimal";
+  let status: "optimal" | "time-limit" = "optimal";
   let largest = 0;
   let tolerance = 0;
   const used = new Set<string>();
@@ -74,15 +75,16 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
     }
     // Progress of a component search, reported as a cut of the whole graph: finished components' values plus its own.
     const done = finishedValue;
-    const onProgress = options.onProgress === undefined ? undefined : (p: ExactProgress) => options.onProgress!({ ...p, lower: done + p.lower, nodes: nodes + p.nodes, seconds: nowSeconds() - t0 });
-    const r = useGray ? grayCodeMaxCut(sub, { seconds: left, seed, onProgress }) : branchAndBoundMaxCut(sub, { seconds: left, seed, initial, onProgress });
+    const onProgress = options.onProgress === undefined ? undefined : (p: ExactProgress) => options.onProgress!({ lower: done + p.lower, graySteps: graySteps + p.graySteps, branchNodes: branchNodes + p.branchNodes, seconds: nowSeconds() - t0 });
+    const r = useGray ? grayCodeMaxCut(sub, { seconds: left, solverSeed: seed, onProgress }) : branchAndBoundMaxCut(sub, { seconds: left, solverSeed: seed, initial, onProgress });
     used.add(r.method);
     for (let i = 0; i < sub.n; i++) partition[verts[i]] = r.partition[i];
     upper += r.upper;
-    nodes += r.nodes;
+    graySteps += r.graySteps;
+    branchNodes += r.branchNodes;
     finishedValue += r.value;
     tolerance += Number(r.details?.tolerance ?? 0);
-    if (r.status === "timeout") status = "timeout";
+    if (r.status === "time-limit") status = "time-limit";
   }
   const value = cutValue(graph, partition);
   return {
@@ -92,9 +94,10 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
     upper: Math.max(upper, value),
     partition,
     status,
-    nodes,
+    graySteps,
+    branchNodes,
     seconds: nowSeconds() - t0,
-    seed,
+    solverSeed: seed,
     details: { components: comps.count, largestComponent: largest, methods: [...used].sort().join("+") || "none", tolerance },
   };
 }

@@ -23,7 +23,7 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
   const t0 = nowSeconds();
   const owner = "grayCodeMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
-  const seed = checkSeed(owner, "seed", options.seed);
+  const seed = checkSeed(owner, "solverSeed", options.solverSeed);
   const n = graph.n;
   if (n > GRAY_MAX_VERTICES) {
     throw new InputError(`${owner}: graph has ${n} vertices; exhaustive enumeration supports at most ${GRAY_MAX_VERTICES}`);
@@ -91,7 +91,7 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
   let bestStep = 0;
   let bestPattern = 0;
   const deadline = t0 + seconds;
-  let status: "optimal" | "timeout" = "optimal";
+  let status: "optimal" | "time-limit" = "optimal";
   let done = 0;
   const checkEvery = Math.max(1, Math.floor(2 ** 16 / (1 << b)));
   const onProgress = options.onProgress;
@@ -134,12 +134,12 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
     if (s % checkEvery === 0) {
       const now = nowSeconds();
       if (now > deadline && s + 1 < steps) {
-        status = "timeout";
+        status = "time-limit";
         break;
       }
       if (onProgress !== undefined && now >= nextReport) {
         nextReport = now + PROGRESS_INTERVAL;
-        onProgress({ lower: best, nodes: s + 1, seconds: now - t0 });
+        onProgress({ lower: best, graySteps: s + 1, branchNodes: 0, seconds: now - t0 });
       }
     }
   }
@@ -158,7 +158,7 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
 function record(
   graph: Graph,
   partition: Uint8Array,
-  status: "optimal" | "timeout",
+  status: "optimal" | "time-limit",
   upper: number | null,
   nodes: number,
   t0: number,
@@ -177,9 +177,10 @@ function record(
     upper: upper === null ? value + slack : Math.max(upper, value + slack),
     partition,
     status,
-    nodes,
+    graySteps: nodes,
+    branchNodes: 0,
     seconds: nowSeconds() - t0,
-    seed,
+    solverSeed: seed,
     details: { blockSize, fixedVertex: fixed, integerWeights: exactSums, tolerance: slack },
   };
 }

@@ -18,8 +18,8 @@ export interface HeuristicBudget {
 
 /** Options every anytime heuristic accepts. */
 export interface AnytimeOptions extends HeuristicBudget {
-  /** PRNG seed; recorded in the result. Default 0. */
-  seed?: number;
+  /** Seed of the search's randomness; recorded in the result. Default 0. */
+  solverSeed?: number;
   /** Called whenever the best cut improves, with its value and the seconds spent so far; call `best()` for the partition. */
   onImprove?: (value: number, seconds: number) => void;
   /** A proven upper bound on the max cut (e.g. from an SDP certificate): reaching it ends the search with status "optimal". */
@@ -100,7 +100,7 @@ export class RunLimit {
   }
 
   get status(): SolverStatus {
-    return this.timedOut ? "timeout" : "budget";
+    return this.timedOut ? "time-limit" : "iteration-limit";
   }
 }
 
@@ -111,9 +111,9 @@ export function searcherRecord(
   bestSide: Partition,
   status: SolverStatus,
   seconds: number,
-  seed: number,
+  solverSeed: number,
   details: CutRecord["details"],
 ): CutRecord {
   const partition = bestSide.slice();
-  return { method, value: cutValue(graph, partition), partition, status, seconds, seed, details };
+  return { method, value: cutValue(graph, partition), partition, status, seconds, solverSeed, details };
 }

@@ -55,7 +55,7 @@ function intOption(name: string, v: number | undefined, dflt: number, min: numbe
 
 export class BreakoutSearcher implements AnytimeSearch {
   readonly graph: Graph;
-  readonly seed: number;
+  readonly solverSeed: number;
   private readonly rng: Rng;
   private readonly state: FlipState;
   private readonly buckets: GainBuckets;
@@ -89,14 +89,14 @@ export class BreakoutSearcher implements AnytimeSearch {
   private strongJumps = 0;
   private elapsed = 0;
   private secondsToBest = 0;
-  private lastStatus: SolverStatus = "budget";
+  private lastStatus: SolverStatus = "iteration-limit";
   private initial: Uint8Array | undefined;
 
   constructor(graph: Graph, options: BreakoutSearchOptions = {}) {
     const n = graph.n;
     this.graph = graph;
-    this.seed = checkSeed(OWNER, "seed", options.seed);
-    this.rng = new Rng(this.seed);
+    this.solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
+    this.rng = new Rng(this.solverSeed);
     this.jumpMin = intOption("jumpMin", options.jumpMin, Math.max(1, Math.round(n / 80)), 1, Math.max(1, n));
     // n/10 as in the published method; small graphs need a floor, or a jump of one move is
     // simply undone by the next ascent.
@@ -280,7 +280,7 @@ export class BreakoutSearcher implements AnytimeSearch {
   }
 
   best(): CutRecord {
-    return searcherRecord("breakout", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.seed, {
+    return searcherRecord("breakout", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.solverSeed, {
       rounds: this.rounds,
       moves: this.moveNo,
       directedJumps: this.directedJumps,

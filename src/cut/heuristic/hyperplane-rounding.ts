@@ -14,7 +14,8 @@ const OWNER = "hyperplane rounding";
 export interface RoundingOptions {
   /** Number of random hyperplanes (default 100). */
   trials?: number;
-  seed?: number;
+  /** Seed of the random hyperplanes or Gaussian vectors (default 0). */
+  solverSeed?: number;
   /** Climb each rounded cut to a 1-flip local optimum (default true). */
   polish?: boolean;
 }
@@ -76,9 +77,9 @@ export function hyperplaneRound(graph: Graph, vectors: Float64Array, r: number, 
   const t0 = performance.now();
   checkVectors(graph, vectors, r);
   const trials = checkTrials(OWNER, options.trials, 100);
-  const seed = checkSeed(OWNER, "seed", options.seed);
+  const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
   const polish = options.polish ?? true;
-  const rng = new Rng(seed);
+  const rng = new Rng(solverSeed);
   const n = graph.n;
   const normal = new Float64Array(r);
   const side = new Uint8Array(n);
@@ -109,12 +110,12 @@ export function hyperplaneRound(graph: Graph, vectors: Float64Array, r: number, 
     }
   }
   return {
-    method: "hyperplane",
+    method: "hyperplane-rounding",
     value: cutValue(graph, bestSide),
     partition: bestSide,
-    status: "heuristic",
+    status: "completed",
     seconds: (performance.now() - t0) / 1000,
-    seed,
+    solverSeed,
     details: {
       trials,
       meanCut: sumRaw / trials,

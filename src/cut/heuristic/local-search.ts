@@ -21,7 +21,7 @@ const OWNER = "local search";
 /** Anytime multi-start search; `iterations` counts restarts. */
 export class MultiStartSearcher implements AnytimeSearch {
   readonly graph: Graph;
-  readonly seed: number;
+  readonly solverSeed: number;
   private readonly rng: Rng;
   private readonly state: FlipState;
   private readonly bestSide: Uint8Array;
@@ -30,12 +30,12 @@ export class MultiStartSearcher implements AnytimeSearch {
   private best_ = -Infinity;
   private starts = 0;
   private elapsed = 0;
-  private lastStatus: SolverStatus = "budget";
+  private lastStatus: SolverStatus = "iteration-limit";
 
   constructor(graph: Graph, options: Omit<AnytimeOptions, keyof HeuristicBudget> = {}) {
     this.graph = graph;
-    this.seed = checkSeed(OWNER, "seed", options.seed);
-    this.rng = new Rng(this.seed);
+    this.solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
+    this.rng = new Rng(this.solverSeed);
     this.state = new FlipState(graph);
     this.bestSide = new Uint8Array(graph.n);
     this.onImprove = options.onImprove;
@@ -76,7 +76,7 @@ export class MultiStartSearcher implements AnytimeSearch {
   }
 
   best(): CutRecord {
-    return searcherRecord("local-search", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.seed, { starts: this.starts });
+    return searcherRecord("local-search", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.solverSeed, { starts: this.starts });
   }
 }
 

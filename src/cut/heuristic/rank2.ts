@@ -73,7 +73,7 @@ class AngleObjective {
 
 export class Rank2Searcher implements AnytimeSearch {
   readonly graph: Graph;
-  readonly seed: number;
+  readonly solverSeed: number;
   private readonly rng: Rng;
   private readonly maxSteps: number;
   private readonly perturbation: number;
@@ -95,13 +95,13 @@ export class Rank2Searcher implements AnytimeSearch {
   private cycles = 0;
   private gradientSteps = 0;
   private elapsed = 0;
-  private lastStatus: SolverStatus = "budget";
+  private lastStatus: SolverStatus = "iteration-limit";
 
   constructor(graph: Graph, options: Rank2SearchOptions = {}) {
     const n = graph.n;
     this.graph = graph;
-    this.seed = checkSeed(OWNER, "seed", options.seed);
-    this.rng = new Rng(this.seed);
+    this.solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
+    this.rng = new Rng(this.solverSeed);
     const ms = options.maxSteps ?? 300;
     if (!Number.isInteger(ms) || ms < 1) throw invalidParameter(OWNER, "maxSteps", "should be a positive integer", ms);
     this.maxSteps = ms;
@@ -246,7 +246,7 @@ export class Rank2Searcher implements AnytimeSearch {
   }
 
   best(): CutRecord {
-    return searcherRecord("rank2", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.seed, { cycles: this.cycles, gradientSteps: this.gradientSteps });
+    return searcherRecord("rank2", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.solverSeed, { cycles: this.cycles, gradientSteps: this.gradientSteps });
   }
 }
 

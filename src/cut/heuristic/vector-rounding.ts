@@ -17,7 +17,8 @@ const OWNER = "vector method";
 export interface VectorRoundingOptions extends VectorSetOptions {
   /** Number of Gaussian vectors g (default 100). */
   trials?: number;
-  seed?: number;
+  /** Seed of the random hyperplanes or Gaussian vectors (default 0). */
+  solverSeed?: number;
   /** Climb each rounded cut to a 1-flip local optimum (default false). Statistics always describe the raw rounding. */
   polish?: boolean;
 }
@@ -69,9 +70,9 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
   const t0 = performance.now();
   const sets = resolveVectorSets(graph, options);
   const trials = checkTrials(OWNER, options.trials, 100);
-  const seed = checkSeed(OWNER, "seed", options.seed);
+  const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
   const polish = options.polish ?? false;
-  const rng = new Rng(seed);
+  const rng = new Rng(solverSeed);
   const n = graph.n;
   const { offsets, members, eps } = sets;
   const g = new Float64Array(n);
@@ -112,12 +113,12 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
   const guarantee = vectorMethodGuaranteeFor(graph, sets, terms);
   const value = cutValue(graph, bestSide);
   return {
-    method: "vector-method",
+    method: "vector-rounding",
     value,
     partition: bestSide,
-    status: "heuristic",
+    status: "completed",
     seconds: (performance.now() - t0) / 1000,
-    seed,
+    solverSeed,
     details: {
       trials,
       guarantee: guarantee.surplus,

@@ -2,15 +2,15 @@
 // Diag(y + λ̄) − L ⪰ 0 and ¼(Σy + n·λ̄) ≥ SDP ≥ max cut whatever solver produced y; and re-check one.
 //
 // Why it is a bound: for a cut x ∈ {±1}ⁿ, cut = ¼xᵀLx = ¼Σy_i + ¼xᵀ(L − Diag(y))x ≤ ¼Σy_i + ¼n·λmax(L − Diag(y)).
-// How λ̄ is established (certificate.shiftMethod):
-//   "cholesky-verified"      proof: a Lanczos estimate θ + ρ + margin, then a floating-point Cholesky
-//                            factorisation of Diag(y) + λ̄·I − L with a rounding-error margin
-//                            (src/linalg/cholesky.ts states the bound). Dense, O(n³): n ≤ denseLimit.
-//   "gershgorin"             proof: λmax ≤ max_i (d_i − y_i + Σ_j |w_ij|) (Gershgorin's circle theorem), rounded up.
-//                            Loose in general; chosen automatically whenever it is as good as the estimate.
-//   "lanczos-ritz-residual"  estimate, not a proof: a Ritz pair (θ, u) with ρ = ‖Au − θu‖ guarantees an
-//                            eigenvalue in [θ − ρ, θ + ρ] but not that none lies above; we take θ + 2ρ
-//                            (+ a relative margin) from the better of two seeded runs. Used above denseLimit.
+// How λ̄ is established (certificate.shiftProof):
+//   "cholesky"          proof: a Lanczos estimate θ + ρ + margin, then a floating-point Cholesky
+//                       factorisation of Diag(y) + λ̄·I − L with a rounding-error margin
+//                       (src/linalg/cholesky.ts states the bound). Dense, O(n³): n ≤ denseLimit.
+//   "gershgorin"        proof: λmax ≤ max_i (d_i − y_i + Σ_j |w_ij|) (Gershgorin's circle theorem), rounded up.
+//                       Loose in general; chosen automatically whenever it is as good as the estimate.
+//   "lanczos-estimate"  estimate, not a proof: a Ritz pair (θ, u) with ρ = ‖Au − θu‖ guarantees an
+//                       eigenvalue in [θ − ρ, θ + ρ] but not that none lies above; we take θ + 2ρ
+//                       (+ a relative margin) from the better of two seeded runs. Used above denseLimit.
 // A "dense-eig-error-bound" method is not offered: ml-matrix's eigensolver states no backward-error
 // constant, so its eigenvalues cannot be turned into a proof without one.
 
@@ -22,20 +22,22 @@ import { shiftedLaplacianOperator } from "../../linalg/operator.js";
 import { UNIT_ROUNDOFF, roundoffGamma, roundUp } from "../../linalg/float-rounding.js";
 import { checkSeed } from "../../random/seed.js";
 import { dualBoundValue } from "./dual-bound.js";
-import type { DualCertificate, SolverStatus, UpperBoundRecord } from "../types.js";
+import type { DualCertificate, ShiftProof, SolverStatus, UpperBoundRecord, UpperKind } from "../types.js";
 
-export type ShiftMethod = "cholesky-verified" | "gershgorin" | "lanczos-ritz-residual";
+export const SHIFT_PROOFS: readonly ShiftProof[] = ["cholesky", "gershgorin", "lanczos-estimate"];
 
-/** Shift methods whose shift is a theorem rather than an estimate. */
-export const PROOF_SHIFT_METHODS: readonly string[] = ["cholesky-verified", "gershgorin"];
+/** How far a bound resting on this shift can be trusted: Cholesky and Gershgorin are proofs, Lanczos an estimate. */
+export function upperKindOf(shiftProof: ShiftProof): UpperKind {
+  return shiftProof === "lanczos-estimate" ? "estimate" : "proven";
+}
 
 export interface CertifyOptions {
-  /** auto (default): Cholesky when n ≤ denseLimit, else Lanczos; or force one method. */
-  method?: "auto" | "cholesky" | "gershgorin" | "lanczos";
+  /** auto (default): Cholesky when n ≤ denseLimit, else a Lanczos estimate (Gershgorin whenever it is as good); or force one. */
+  shiftProof?: "auto" | ShiftProof;
   /** Largest n for the dense Cholesky proof (default 3000: n² doubles of memory, n³/6 multiply-adds). */
   denseLimit?: number;
-  /** Seed of the Lanczos start vector (default 1; the "lanczos" method also runs seed + 1, wrapping to 0). */
-  seed?: number;
+  /** Seed of the Lanczos start vector (default 1; a Lanczos estimate also runs seed + 1, wrapping to 0). */
+  solverSeed?: number;
   /** Lanczos residual tolerance relative to ‖L − Diag(y)‖ (default 1e-9). */
   tolerance?: number;
   /** Record name (default "dual-certificate"). */
@@ -58,13 +60,13 @@ function checkY(graph: Graph, y: ArrayLike<number>, owner: string): void {
 }
 
 function checkCertifyOptions(o: CertifyOptions): void {
-  if (o.method !== undefined && !["auto", "cholesky", "gershgorin", "lanczos"].includes(o.method)) {
-    throw invalidParameter(OWNER, "method", "should be one of auto, cholesky, gershgorin, lanczos", o.method);
+  if (o.shiftProof !== undefined && o.shiftProof !== "auto" && !SHIFT_PROOFS.includes(o.shiftProof)) {
+    throw invalidParameter(OWNER, "shiftProof", `should be one of auto, ${SHIFT_PROOFS.join(", ")}`, o.shiftProof);
   }
   if (o.denseLimit !== undefined && !(Number.isInteger(o.denseLimit) && o.denseLimit >= 0)) {
     throw invalidParameter(OWNER, "denseLimit", "should be a non-negative integer", o.denseLimit);
   }
-  checkSeed(OWNER, "seed", o.seed);
+  checkSeed(OWNER, "solverSeed", o.solverSeed);
   if (o.tolerance !== undefined && !(o.tolerance > 0 && o.tolerance < 1)) throw invalidParameter(OWNER, "tolerance", "should be a number in (0, 1)", o.tolerance);
 }
 
@@ -140,13 +142,13 @@ interface ShiftEstimate {
 function estimateTop(graph: Graph, y: ArrayLike<number>, seed: number, tolerance: number): ShiftEstimate {
   // The residual enters the shift, so a looser tolerance costs a little bound, never validity;
   // the restart cap keeps clustered spectra near an SDP optimum from running long.
-  const l = lanczosExtreme(shiftedLaplacianOperator(graph, y), { which: "largest", k: 1, tolerance, seed, maxRestarts: 100 });
+  const l = lanczosExtreme(shiftedLaplacianOperator(graph, y), { which: "largest", k: 1, tolerance, solverSeed: seed, maxRestarts: 100 });
   return { theta: l.values[0], residual: l.residuals[0], normEstimate: l.normEstimate, converged: l.converged, iterations: l.iterations };
 }
 
 interface EstablishedShift {
   shift: number;
-  method: ShiftMethod;
+  shiftProof: ShiftProof;
   proven: boolean;
   converged: boolean;
   details: Record<string, number | string | boolean | null>;
@@ -154,13 +156,13 @@ interface EstablishedShift {
 
 function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOptions): EstablishedShift {
   const n = graph.n;
-  const seed = options.seed ?? 1;
+  const seed = options.solverSeed ?? 1;
   const tol = options.tolerance ?? 1e-9;
   const denseLimit = options.denseLimit ?? DENSE_PROOF_LIMIT;
-  const method = options.method ?? "auto";
-  if (n === 0) return { shift: 0, method: "gershgorin", proven: true, converged: true, details: {} };
-  if (method === "gershgorin") {
-    return { shift: gershgorinShift(graph, y), method: "gershgorin", proven: true, converged: true, details: {} };
+  const wanted = options.shiftProof ?? "auto";
+  if (n === 0) return { shift: 0, shiftProof: "gershgorin", proven: true, converged: true, details: {} };
+  if (wanted === "gershgorin") {
+    return { shift: gershgorinShift(graph, y), shiftProof: "gershgorin", proven: true, converged: true, details: {} };
   }
   const est = estimateTop(graph, y, seed, tol);
   const scale = Math.max(est.normEstimate, 1e-300);
@@ -170,9 +172,9 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
   const candidate = est.theta + 3 * est.residual + 1e-10 * scale;
   const gValue = dualBoundValue(y, gersh);
   if (gValue <= dualBoundValue(y, candidate) + 1e-9 * Math.abs(gValue)) {
-    return { shift: gersh, method: "gershgorin", proven: true, converged: true, details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations: est.iterations, proof: true } };
+    return { shift: gersh, shiftProof: "gershgorin", proven: true, converged: true, details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations: est.iterations, proof: true } };
   }
-  const useCholesky = method === "cholesky" || (method === "auto" && n <= denseLimit);
+  const useCholesky = wanted === "cholesky" || (wanted === "auto" && n <= denseLimit);
   if (!useCholesky) {
     const second = estimateTop(graph, y, (seed + 1) >>> 0, tol);
     const a = est.theta + 2 * est.residual;
@@ -181,7 +183,7 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
     const shift = roundUp(Math.max(a, b) + 1e-12 * scale, 2);
     return {
       shift,
-      method: "lanczos-ritz-residual",
+      shiftProof: "lanczos-estimate",
       proven: false,
       converged: est.converged && second.converged,
       details: { ritzValue: best.theta, ritzResidual: best.residual, lanczosIterations: est.iterations + second.iterations, proof: false },
@@ -196,7 +198,7 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
     if (last.proven) {
       return {
         shift,
-        method: "cholesky-verified",
+        shiftProof: "cholesky",
         proven: true,
         converged: true,
         details: { ritzValue: est.theta, ritzResidual: est.residual, margin, choleskyShift: last.shift, attempts: attempt, lanczosIterations: est.iterations, proof: true },
@@ -207,7 +209,7 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
   // Fall back to the loose but unconditional bound rather than report nothing.
   return {
     shift: gershgorinShift(graph, y),
-    method: "gershgorin",
+    shiftProof: "gershgorin",
     proven: true,
     converged: true,
     details: { ritzValue: est.theta, ritzResidual: est.residual, choleskyFailure: last?.message ?? null, proof: true },
@@ -224,15 +226,15 @@ export function certifyDual(graph: Graph, y: ArrayLike<number>, options: Certify
   const t0 = performance.now();
   const yy = Float64Array.from(y);
   const s = establishShift(graph, yy, options);
-  const certificate: DualCertificate = { kind: "psd-dual", y: yy, shift: s.shift, shiftMethod: s.method };
-  const status: SolverStatus = s.converged ? "converged" : "budget";
+  const certificate: DualCertificate = { kind: "psd-dual", y: yy, shift: s.shift, shiftProof: s.shiftProof };
+  const status: SolverStatus = s.converged ? "converged" : "iteration-limit";
   return {
     method: options.name ?? "dual-certificate",
     value: dualBoundValue(yy, s.shift),
     certificate,
     status,
     seconds: (performance.now() - t0) / 1000,
-    details: { ...s.details, shiftMethod: s.method },
+    details: { ...s.details, shiftProof: s.shiftProof },
   };
 }
 
@@ -245,19 +247,20 @@ export interface CertificateCheck {
   value: number;
   /** Independent upper estimate θ + ρ of λmax(L − Diag(y)) from a fresh Lanczos run (NaN when malformed). */
   recomputedShift: number;
-  method: string;
+  /** The certificate's claimed shift proof, as written (or "unknown"). */
+  shiftProof: string;
   message: string;
 }
 
 export interface VerifyOptions {
   /** Seed of the independent Lanczos run (default 7, unlike the certifier's 1). */
-  seed?: number;
+  solverSeed?: number;
   /** Largest n for re-running a Cholesky proof (default 6000). */
   denseLimit?: number;
 }
 
-function rejected(method: string, message: string): CertificateCheck {
-  return { ok: false, proven: false, value: NaN, recomputedShift: NaN, method, message };
+function rejected(shiftProof: string, message: string): CertificateCheck {
+  return { ok: false, proven: false, value: NaN, recomputedShift: NaN, shiftProof, message };
 }
 
 /**
@@ -266,7 +269,7 @@ function rejected(method: string, message: string): CertificateCheck {
  * refutes the certificate), and, for proof methods, the proof is redone at the claimed shift.
  */
 export function verifyCertificate(graph: Graph, certificate: DualCertificate, options: VerifyOptions = {}): CertificateCheck {
-  const method = typeof certificate?.shiftMethod === "string" ? certificate.shiftMethod : "unknown";
+  const method = typeof certificate?.shiftProof === "string" ? certificate.shiftProof : "unknown";
   if (certificate === null || typeof certificate !== "object" || certificate.kind !== "psd-dual") return rejected(method, "not a psd-dual certificate");
   const { y, shift } = certificate;
   if (y === null || typeof y !== "object" || typeof (y as ArrayLike<number>).length !== "number") return rejected(method, "`y` is not an array");
@@ -276,36 +279,36 @@ export function verifyCertificate(graph: Graph, certificate: DualCertificate, op
   }
   if (typeof shift !== "number" || !Number.isFinite(shift)) return rejected(method, `shift is ${String(shift)}, expected a finite number`);
   const value = dualBoundValue(y, shift);
-  if (graph.n === 0) return { ok: true, proven: true, value, recomputedShift: 0, method, message: "empty graph" };
+  if (graph.n === 0) return { ok: true, proven: true, value, recomputedShift: 0, shiftProof: method, message: "empty graph" };
 
-  const est = estimateTop(graph, y, options.seed ?? 7, 1e-10);
+  const est = estimateTop(graph, y, options.solverSeed ?? 7, 1e-10);
   const recomputedShift = est.theta + est.residual;
   // Ritz values lie below λmax, so a shift under one (beyond rounding) is certainly too small.
   const slack = 64 * UNIT_ROUNDOFF * Math.max(1, est.normEstimate);
   if (shift < est.theta - slack) {
-    return { ok: false, proven: false, value, recomputedShift, method, message: `shift ${shift} is below the Ritz value ${est.theta} of L − Diag(y): Diag(y + shift) − L is not PSD` };
+    return { ok: false, proven: false, value, recomputedShift, shiftProof: method, message: `shift ${shift} is below the Ritz value ${est.theta} of L − Diag(y): Diag(y + shift) − L is not PSD` };
   }
   if (method === "gershgorin") {
     const g = gershgorinShift(graph, y);
     const ok = shift >= g;
-    return { ok, proven: ok, value, recomputedShift, method, message: ok ? "shift ≥ the Gershgorin bound recomputed from y" : `shift ${shift} is below the Gershgorin bound ${g}` };
+    return { ok, proven: ok, value, recomputedShift, shiftProof: method, message: ok ? "shift ≥ the Gershgorin bound recomputed from y" : `shift ${shift} is below the Gershgorin bound ${g}` };
   }
-  if (method === "cholesky-verified") {
+  if (method === "cholesky") {
     const limit = options.denseLimit ?? 6000;
-    if (graph.n > limit) return { ok: false, proven: false, value, recomputedShift, method, message: `n = ${graph.n} exceeds denseLimit = ${limit}: the Cholesky proof was not redone` };
+    if (graph.n > limit) return { ok: false, proven: false, value, recomputedShift, shiftProof: method, message: `n = ${graph.n} exceeds denseLimit = ${limit}: the Cholesky proof was not redone` };
     const proof = proveShift(graph, y, shift);
-    return { ok: proof.proven, proven: proof.proven, value, recomputedShift, method, message: proof.proven ? `re-proved: ${proof.message}` : `Cholesky check failed: ${proof.message}` };
+    return { ok: proof.proven, proven: proof.proven, value, recomputedShift, shiftProof: method, message: proof.proven ? `re-proved: ${proof.message}` : `Cholesky check failed: ${proof.message}` };
   }
-  if (method === "lanczos-ritz-residual") {
+  if (method === "lanczos-estimate") {
     const ok = shift >= recomputedShift - slack;
     return {
       ok,
       proven: false,
       value,
       recomputedShift,
-      method,
+      shiftProof: method,
       message: ok ? "shift ≥ the recomputed Ritz value + residual (an estimate, not a proof)" : `shift ${shift} is below the recomputed estimate ${recomputedShift}`,
     };
   }
-  return { ok: false, proven: false, value, recomputedShift, method, message: `unknown shift method ${JSON.stringify(method)}` };
+  return { ok: false, proven: false, value, recomputedShift, shiftProof: method, message: `unknown shift proof ${JSON.stringify(method)}` };
 }

@@ -5,7 +5,7 @@ import type { Graph } from "../../graph/graph.js";
 import { certifyDual, type CertifyOptions } from "./certificate.js";
 import type { UpperBoundRecord } from "../types.js";
 
-/** n·λ̄/4 with λ̄ ≥ λmax(L) (proved by Cholesky for n ≤ denseLimit, else a Lanczos estimate; see shiftMethod). */
+/** n·λ̄/4 with λ̄ ≥ λmax(L) (proved by Cholesky for n ≤ denseLimit, else a Lanczos estimate; see shiftProof). */
 export function eigenvalueUpperBound(graph: Graph, options: Omit<CertifyOptions, "name"> = {}): UpperBoundRecord {
   return certifyDual(graph, new Float64Array(graph.n), { ...options, name: "eigenvalue" });
 }

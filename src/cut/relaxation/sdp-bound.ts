@@ -21,7 +21,7 @@ export function solveAndCertifySdp(graph: Graph, options: SdpBoundOptions = {}):
     status: sdp.status === "converged" ? rec.status : sdp.status,
     seconds: (performance.now() - t0) / 1000,
     relaxationValue: sdp.value,
-    details: { ...rec.details, sweeps: sdp.sweeps, rank: sdp.rank, seed: sdp.seed, sdpStatus: sdp.status, sdpSeconds: sdp.seconds, certifySeconds: rec.seconds },
+    details: { ...rec.details, sweeps: sdp.sweeps, rank: sdp.rank, solverSeed: sdp.solverSeed, sdpStatus: sdp.status, sdpSeconds: sdp.seconds, certifySeconds: rec.seconds },
   };
   return { sdp, bound };
 }

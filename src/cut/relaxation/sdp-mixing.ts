@@ -16,7 +16,7 @@ export interface SdpOptions {
   /** Columns of V (default min(n, ⌈√(2n)⌉ + 1): above the Barvinok–Pataki rank, so generically no spurious local optima). */
   rank?: number;
   /** Seed of the random unit start vectors (default 0). */
-  seed?: number;
+  solverSeed?: number;
   /**
    * Stop when the estimated relative duality gap (¼(Σy + n·θ⁺) − value) / ¼(Σy + n·θ⁺) ≤ gapTolerance,
    * θ being a Lanczos estimate of λmax(L − Diag(y)) (default 1e-5). 0 disables the check.
@@ -44,10 +44,10 @@ export interface SdpRecord {
   vectors: Float64Array;
   rank: number;
   sweeps: number;
-  /** converged: tolerance met; budget: maxSweeps; timeout: `seconds`. */
+  /** converged: tolerance met; iteration-limit: maxSweeps reached; time-limit: `seconds` ran out. */
   status: SolverStatus;
   seconds: number;
-  seed: number;
+  solverSeed: number;
   /** Dual estimate y_i = ((L V)_i · v_i); ¼Σy equals `value`, and Diag(y) − L ⪰ 0 at an optimum. */
   y: Float64Array;
   /** Frobenius norm of (Diag(y) − L)V, zero exactly at a stationary point. */
@@ -70,7 +70,7 @@ function checkOptions(graph: Graph, o: SdpOptions): void {
   if (o.rank !== undefined && !(Number.isInteger(o.rank) && o.rank >= 1 && o.rank <= Math.max(1, n))) {
     throw invalidParameter(OWNER, "rank", `should be an integer between 1 and n = ${n}`, o.rank);
   }
-  checkSeed(OWNER, "seed", o.seed);
+  checkSeed(OWNER, "solverSeed", o.solverSeed);
   if (o.tolerance !== undefined && !(o.tolerance >= 0 && o.tolerance < 1)) throw invalidParameter(OWNER, "tolerance", "should be a number in [0, 1)", o.tolerance);
   if (o.gapTolerance !== undefined && !(o.gapTolerance >= 0 && o.gapTolerance < 1)) throw invalidParameter(OWNER, "gapTolerance", "should be a number in [0, 1)", o.gapTolerance);
   if (o.checkEvery !== undefined && !(Number.isInteger(o.checkEvery) && o.checkEvery >= 1)) throw invalidParameter(OWNER, "checkEvery", "should be a positive integer", o.checkEvery);
@@ -190,7 +190,7 @@ function gapEstimate(graph: Graph, y: Float64Array, value: number, warm: Float64
     tolerance: 1e-6,
     maxBasis: 24,
     maxRestarts: 3,
-    seed: 1,
+    solverSeed: 1,
     ...(warm === null ? {} : { start: warm }),
   });
   const dual = dualBoundValue(y, Math.max(0, top.values[0]));
@@ -203,7 +203,7 @@ export function solveSdp(graph: Graph, options: SdpOptions = {}): SdpRecord {
   const t0 = performance.now();
   const { n, offsets, weights } = graph;
   const r = options.rank ?? defaultSdpRank(n);
-  const seed = options.seed ?? 0;
+  const seed = options.solverSeed ?? 0;
   const tol = options.tolerance ?? 1e-12;
   const gapTol = options.gapTolerance ?? 1e-5;
   const checkEvery = options.checkEvery ?? 20;
@@ -219,13 +219,13 @@ export function solveSdp(graph: Graph, options: SdpOptions = {}): SdpRecord {
 
   let value = sdpObjective(graph, V, r);
   let sweeps = 0;
-  let status: SolverStatus = graph.m === 0 ? "converged" : "budget";
+  let status: SolverStatus = graph.m === 0 ? "converged" : "iteration-limit";
   let lastImprovement = 0;
   let gap = NaN;
   let warm: Float64Array | null = null;
   let nextCheck = checkEvery;
   let checkTotalMs = 0;
-  while (status === "budget" && sweeps < maxSweeps) {
+  while (status === "iteration-limit" && sweeps < maxSweeps) {
     let gain = 0;
     let grad2 = 0;
     for (let i = 0; i < n; i++) {
@@ -261,7 +261,7 @@ export function solveSdp(graph: Graph, options: SdpOptions = {}): SdpRecord {
       checkTotalMs += checkMs;
       nextCheck = sweeps + Math.max(checkEvery, Math.ceil(checkMs / (0.15 * Math.max(sweepMs, 1e-6))));
     }
-    if (status === "budget" && performance.now() > deadline) status = "timeout";
+    if (status === "iteration-limit" && performance.now() > deadline) status = "time-limit";
   }
   const { y, gradientNorm } = sdpDualEstimate(graph, V, r);
   return {
@@ -272,7 +272,7 @@ export function solveSdp(graph: Graph, options: SdpOptions = {}): SdpRecord {
     sweeps,
     status,
     seconds: (performance.now() - t0) / 1000,
-    seed,
+    solverSeed: seed,
     y,
     gradientNorm,
     lastImprovement,

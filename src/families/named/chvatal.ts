@@ -10,17 +10,17 @@ const EDGES: ReadonlyArray<readonly [number, number]> = [
   [3, 9], [4, 5], [4, 8], [5, 10], [5, 11], [6, 10], [6, 11], [7, 8], [7, 11], [8, 10], [9, 10], [9, 11],
 ];
 
-export function chvatalGraph(): Graph {
+export function chvatal(): Graph {
   return graphFromEdges(12, EDGES);
 }
 
-export const chvatal = namedFamily({
+export const chvatalFamily = namedFamily({
   name: "chvatal",
   summary: "Chvátal graph: smallest triangle-free 4-regular 4-chromatic graph",
   n: 12,
   m: 24,
   minDegree: 4,
   maxDegree: 4,
-  freeOf: [{ pattern: "K3", source: "Chvátal 1970 (a 4-regular triangle-free 4-chromatic graph)" }],
-  build: chvatalGraph,
+  freeOf: [{ pattern: "K3", citation: "Chvátal 1970 (a 4-regular triangle-free 4-chromatic graph)" }],
+  build: chvatal,
 });

@@ -2,7 +2,7 @@
 // stated once here and checked against the built graph in the tests.
 
 import type { Graph } from "../../graph/graph.js";
-import type { FamilyDefinition } from "../types.js";
+import { defineFamily, type FamilyDefinition, type FreeOfClaim } from "../types.js";
 
 export interface NamedGraphFacts {
   name: string;
@@ -12,20 +12,20 @@ export interface NamedGraphFacts {
   /** Degree range (equal for regular graphs). */
   minDegree: number;
   maxDegree: number;
-  freeOf: { pattern: string; source: string }[];
-  notes?: string;
+  freeOf: FreeOfClaim[];
+  notes?: readonly string[];
   build: () => Graph;
 }
 
-export function namedFamily(f: NamedGraphFacts): FamilyDefinition {
-  return {
+export function namedFamily(f: NamedGraphFacts): FamilyDefinition<unknown> {
+  return defineFamily({
     name: f.name,
     summary: f.summary,
     params: [],
     random: false,
     freeOf: () => f.freeOf,
-    expected: () => ({ n: f.n, m: f.m, mExact: true, minDegree: f.minDegree, maxDegree: f.maxDegree }),
+    predictedSize: () => ({ n: f.n, m: f.m, mExact: true, minDegree: f.minDegree, maxDegree: f.maxDegree }),
     build: () => f.build(),
-    ...(f.notes === undefined ? {} : { notes: f.notes }),
-  };
+    notes: f.notes ?? [],
+  });
 }

@@ -2,14 +2,14 @@
 
 import type { Graph } from "../../graph/graph.js";
 import { bipartiteFreeOf } from "../free-of.js";
-import { projectivePlaneIncidenceGraph } from "../projective-plane.js";
+import { projectivePlane } from "../projective-plane.js";
 import { namedFamily } from "./define.js";
 
-export function heawoodGraph(): Graph {
-  return projectivePlaneIncidenceGraph(2);
+export function heawood(): Graph {
+  return projectivePlane(2);
 }
 
-export const heawood = namedFamily({
+export const heawoodFamily = namedFamily({
   name: "heawood",
   summary: "Heawood graph: points versus lines of the Fano plane",
   n: 14,
@@ -18,7 +18,7 @@ export const heawood = namedFamily({
   maxDegree: 3,
   freeOf: [
     ...bipartiteFreeOf("points versus lines"),
-    { pattern: "C4", source: "girth 6: two points of the Fano plane lie on one line (Heawood 1890; the (3,6)-cage)" },
+    { pattern: "C4", citation: "girth 6: two points of the Fano plane lie on one line (Heawood 1890; the (3,6)-cage)" },
   ],
-  build: heawoodGraph,
+  build: heawood,
 });

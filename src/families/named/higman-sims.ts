@@ -22,7 +22,7 @@ export function steinerHexads(): number[] {
   return out.sort((a, b) => a - b);
 }
 
-export function higmanSimsGraph(): Graph {
+export function higmanSims(): Graph {
   const hexads = steinerHexads();
   const buf = new EdgeBuffer({ capacity: 1100 });
   const H = (i: number) => 23 + i; // vertex 0 = ∞, 1..22 = points, 23.. = hexads
@@ -34,13 +34,13 @@ export function higmanSimsGraph(): Graph {
   return buf.build(23 + hexads.length).graph;
 }
 
-export const higmanSims = namedFamily({
+export const higmanSimsFamily = namedFamily({
   name: "higman-sims",
   summary: "Higman–Sims graph: ∞, the points and the hexads of the Steiner system S(3,6,22)",
   n: 100,
   m: 1100,
   minDegree: 22,
   maxDegree: 22,
-  freeOf: [{ pattern: "K3", source: "srg(100,22,0,6): λ = 0 (Higman–Sims 1968)" }],
-  build: higmanSimsGraph,
+  freeOf: [{ pattern: "K3", citation: "srg(100,22,0,6): λ = 0 (Higman–Sims 1968)" }],
+  build: higmanSims,
 });

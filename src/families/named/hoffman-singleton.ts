@@ -6,7 +6,7 @@ import type { Graph } from "../../graph/graph.js";
 import { girthFreeOf } from "../free-of.js";
 import { namedFamily } from "./define.js";
 
-export function hoffmanSingletonGraph(): Graph {
+export function hoffmanSingleton(): Graph {
   const P = (h: number, j: number) => 5 * h + (j % 5);
   const Q = (i: number, j: number) => 25 + 5 * i + (j % 5);
   const buf = new EdgeBuffer({ capacity: 175 });
@@ -20,7 +20,7 @@ export function hoffmanSingletonGraph(): Graph {
   return buf.build(50).graph;
 }
 
-export const hoffmanSingleton = namedFamily({
+export const hoffmanSingletonFamily = namedFamily({
   name: "hoffman-singleton",
   summary: "Hoffman–Singleton graph: the Moore graph of degree 7 and girth 5",
   n: 50,
@@ -28,5 +28,5 @@ export const hoffmanSingleton = namedFamily({
   minDegree: 7,
   maxDegree: 7,
   freeOf: girthFreeOf(5, "srg(50,7,0,1), a Moore graph (Hoffman–Singleton 1960)"),
-  build: hoffmanSingletonGraph,
+  build: hoffmanSingleton,
 });

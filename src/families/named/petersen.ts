@@ -6,15 +6,15 @@ import { girthFreeOf } from "../free-of.js";
 import { buildGeneralizedPetersen } from "../generalized-petersen.js";
 import { namedFamily } from "./define.js";
 
-export function petersenGraph(): Graph {
+export function petersen(): Graph {
   return buildGeneralizedPetersen(5, 2);
 }
 
-export function dodecahedronGraph(): Graph {
+export function dodecahedron(): Graph {
   return buildGeneralizedPetersen(10, 2);
 }
 
-export const petersen = namedFamily({
+export const petersenFamily = namedFamily({
   name: "petersen",
   summary: "Petersen graph: GP(5,2), also the Kneser graph KG(5,2)",
   n: 10,
@@ -22,11 +22,11 @@ export const petersen = namedFamily({
   minDegree: 3,
   maxDegree: 3,
   freeOf: girthFreeOf(5, "Petersen graph (Holton–Sheehan, The Petersen Graph, 1993)"),
-  notes: "Strongly regular srg(10,3,0,1); chromatic number 3.",
-  build: petersenGraph,
+  notes: ["Strongly regular srg(10,3,0,1); chromatic number 3."],
+  build: petersen,
 });
 
-export const dodecahedron = namedFamily({
+export const dodecahedronFamily = namedFamily({
   name: "dodecahedron",
   summary: "skeleton of the regular dodecahedron, GP(10,2)",
   n: 20,
@@ -34,5 +34,5 @@ export const dodecahedron = namedFamily({
   minDegree: 3,
   maxDegree: 3,
   freeOf: girthFreeOf(5, "every face of the dodecahedron is a pentagon (common knowledge, no source; checked in the tests)"),
-  build: dodecahedronGraph,
+  build: dodecahedron,
 });

@@ -6,15 +6,16 @@ import { EdgeBuffer } from "../../graph/builder.js";
 import type { Graph } from "../../graph/graph.js";
 import { checkEdgeLimit } from "../limits.js";
 import { checkTypedParam } from "../typed-build.js";
-import type { FamilyDefinition } from "../types.js";
-import { unknownShape, type ShapeContext } from "./nested-shape.js";
+import { defineFamily } from "../types.js";
+import { unknownSize } from "./nested-size.js";
 
 const MAX_VERTICES = 0x7fffffff;
 
+/** G(t), validated like the spec `blow-up:of=[…],t=…`. */
 export function blowUp(g: Graph, t: number): Graph {
-  checkTypedParam(blowupFamily, "t", t);
-  if (g.n * t > MAX_VERTICES) throw invalidParameter("blowup", "t", `n·t should be below 2^31 (n = ${g.n})`, t);
-  checkEdgeLimit("blowup", g.m * t * t);
+  checkTypedParam(blowUpFamily, "t", t);
+  if (g.n * t > MAX_VERTICES) throw invalidParameter("blow-up", "t", `n·t should be below 2^31 (n = ${g.n})`, t);
+  checkEdgeLimit("blow-up", g.m * t * t);
   const buf = new EdgeBuffer({ weighted: g.weighted, capacity: g.m * t * t });
   const { us, vs, ws } = g.edgeArrays();
   for (let e = 0; e < us.length; e++) {
@@ -26,8 +27,8 @@ export function blowUp(g: Graph, t: number): Graph {
   return buf.build(g.n * t).graph;
 }
 
-export const blowupFamily: FamilyDefinition = {
-  name: "blowup",
+export const blowUpFamily = defineFamily({
+  name: "blow-up",
   summary: "blow-up: every vertex replaced by t independent copies, copies of adjacent vertices joined",
   params: [
     { name: "of", type: "spec", description: "the graph to blow up, e.g. [petersen]" },
@@ -35,10 +36,10 @@ export const blowupFamily: FamilyDefinition = {
   ],
   random: false,
   freeOf: () => [],
-  expected: (params, ctx?: ShapeContext) => {
-    const s = ctx?.expectedOf(params.of as string);
-    if (s === undefined) return unknownShape();
-    const t = params.t as number;
+  predictedSize: (params, ctx) => {
+    const s = ctx?.predictedSizeOf(params.of);
+    if (s === undefined) return unknownSize();
+    const t = params.t;
     return {
       n: s.n * t,
       m: s.m * t * t,
@@ -46,6 +47,6 @@ export const blowupFamily: FamilyDefinition = {
       ...(s.minDegree !== undefined && s.maxDegree !== undefined ? { minDegree: s.minDegree * t, maxDegree: s.maxDegree * t } : {}),
     };
   },
-  build: (params, ctx) => blowUp(ctx.resolve(params.of as string), params.t as number),
-  notes: "A clique meets each set of copies at most once, so the blow-up of a K_r-free graph is K_r-free; for t ≥ 2 any edge gives a C4.",
-};
+  build: (params, ctx) => blowUp(ctx.resolve(params.of), params.t),
+  notes: ["A clique meets each set of copies at most once, so the blow-up of a K_r-free graph is K_r-free; for t ≥ 2 any edge gives a C4."],
+});

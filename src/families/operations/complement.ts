@@ -5,8 +5,8 @@ import { InputError } from "../../errors.js";
 import { EdgeBuffer } from "../../graph/builder.js";
 import type { Graph } from "../../graph/graph.js";
 import { checkEdgeLimit } from "../limits.js";
-import type { FamilyDefinition } from "../types.js";
-import { unknownShape, type ShapeContext } from "./nested-shape.js";
+import { defineFamily } from "../types.js";
+import { unknownSize } from "./nested-size.js";
 
 export function complement(g: Graph): Graph {
   if (g.weighted) throw new InputError("complement: the input graph is weighted; only unweighted graphs have a complement here");
@@ -28,15 +28,15 @@ export function complement(g: Graph): Graph {
   return buf.build(n).graph;
 }
 
-export const complementFamily: FamilyDefinition = {
+export const complementFamily = defineFamily({
   name: "complement",
   summary: "complement of a graph: edges exactly where the nested graph has none",
   params: [{ name: "of", type: "spec", description: "the graph to complement, e.g. [petersen]" }],
   random: false,
   freeOf: () => [],
-  expected: (params, ctx?: ShapeContext) => {
-    const s = ctx?.expectedOf(params.of as string);
-    if (s === undefined) return unknownShape();
+  predictedSize: (params, ctx) => {
+    const s = ctx?.predictedSizeOf(params.of);
+    if (s === undefined) return unknownSize();
     const n = s.n;
     return {
       n,
@@ -45,5 +45,5 @@ export const complementFamily: FamilyDefinition = {
       ...(s.minDegree !== undefined && s.maxDegree !== undefined ? { minDegree: n - 1 - s.maxDegree, maxDegree: n - 1 - s.minDegree } : {}),
     };
   },
-  build: (params, ctx) => complement(ctx.resolve(params.of as string)),
-};
+  build: (params, ctx) => complement(ctx.resolve(params.of)),
+});

@@ -5,8 +5,8 @@ import { InputError } from "../../errors.js";
 import { EdgeBuffer } from "../../graph/builder.js";
 import type { Graph } from "../../graph/graph.js";
 import { checkEdgeLimit } from "../limits.js";
-import type { ExpectedShape, FamilyDefinition } from "../types.js";
-import { unknownShape, type ShapeContext } from "./nested-shape.js";
+import { defineFamily, type PredictedSize } from "../types.js";
+import { unknownSize } from "./nested-size.js";
 
 export function disjointUnion(...gs: Graph[]): Graph {
   let n = 0;
@@ -15,8 +15,8 @@ export function disjointUnion(...gs: Graph[]): Graph {
     n += g.n;
     m += g.m;
   }
-  if (n > 0x7fffffff) throw new InputError(`union: ${n} vertices in total; at most 2^31 − 1 fit`);
-  checkEdgeLimit("union", m);
+  if (n > 0x7fffffff) throw new InputError(`disjoint-union: ${n} vertices in total; at most 2^31 − 1 fit`);
+  checkEdgeLimit("disjoint-union", m);
   const weighted = gs.some((g) => g.weighted);
   const buf = new EdgeBuffer({ weighted, capacity: m });
   let base = 0;
@@ -28,15 +28,15 @@ export function disjointUnion(...gs: Graph[]): Graph {
   return buf.build(n).graph;
 }
 
-export const unionFamily: FamilyDefinition = {
-  name: "union",
+export const disjointUnionFamily = defineFamily({
+  name: "disjoint-union",
   summary: "disjoint union of graphs, relabelled one after another",
   params: [{ name: "of", type: "spec-list", description: "the graphs, e.g. [cycle:n=5]+[petersen]" }],
   random: false,
   freeOf: () => [],
-  expected: (params, ctx?: ShapeContext) => {
-    if (ctx === undefined) return unknownShape();
-    const shapes: ExpectedShape[] = (params.of as string[]).map((s) => ctx.expectedOf(s));
+  predictedSize: (params, ctx) => {
+    if (ctx === undefined) return unknownSize();
+    const shapes: PredictedSize[] = params.of.map((s) => ctx.predictedSizeOf(s));
     const known = shapes.every((s) => s.minDegree !== undefined && s.maxDegree !== undefined);
     return {
       n: shapes.reduce((a, s) => a + s.n, 0),
@@ -45,5 +45,5 @@ export const unionFamily: FamilyDefinition = {
       ...(known ? { minDegree: Math.min(...shapes.map((s) => s.minDegree!)), maxDegree: Math.max(...shapes.map((s) => s.maxDegree!)) } : {}),
     };
   },
-  build: (params, ctx) => disjointUnion(...(params.of as string[]).map((s) => ctx.resolve(s))),
-};
+  build: (params, ctx) => disjointUnion(...(params.of).map((s) => ctx.resolve(s))),
+});

@@ -1,7 +1,7 @@
-// Graph operations as families on nested specs, and their typed functions.
-export * from "./nested-shape.js";
-export * from "./complement.js";
-export * from "./blow-up.js";
-export * from "./disjoint-union.js";
-export * from "./induced-subgraph.js";
-export * from "./delete-edges.js";
+// Graph operations as families on nested specs, and their typed functions (a Graph in, a Graph out).
+export * from "./nested-size.js";
+export { complement, complementFamily } from "./complement.js";
+export { blowUp, blowUpFamily } from "./blow-up.js";
+export { disjointUnion, disjointUnionFamily } from "./disjoint-union.js";
+export { inducedSubgraphFamily } from "./induced-subgraph.js";
+export { deleteRandomEdges, deleteRandomEdgesFamily } from "./delete-random-edges.js";

@@ -7,7 +7,7 @@ import { EdgeBuffer, type BuildResult } from "../builder.js";
 import type { Graph } from "../graph.js";
 import { buildPlaced } from "./build-placed.js";
 import { asBytes, badUintMessage, isBlank, LineCursor, LineTokens, quoteToken, readUint, skipBlanks } from "./scan.js";
-import { DEFAULT_SOURCE, type TextParseOptions } from "./types.js";
+import { DEFAULT_FILE_NAME, type TextParseOptions } from "./types.js";
 import { assertUnitWeights } from "./unweighted.js";
 
 function tokenIs(buf: Uint8Array, s: number, e: number, word: string): boolean {
@@ -18,7 +18,7 @@ function tokenIs(buf: Uint8Array, s: number, e: number, word: string): boolean {
 
 export function parseDimacs(text: string | Uint8Array, options: TextParseOptions = {}): BuildResult {
   const buf = asBytes(text);
-  const source = options.source ?? DEFAULT_SOURCE;
+  const source = options.file ?? DEFAULT_FILE_NAME;
   const cur = new LineCursor(buf);
   const tok = new LineTokens(4);
   let pLine = 0;

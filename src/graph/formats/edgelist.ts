@@ -24,7 +24,7 @@ import {
   skipBlanks,
   tokenEnd,
 } from "./scan.js";
-import { DEFAULT_SOURCE, type TextParseOptions } from "./types.js";
+import { DEFAULT_FILE_NAME, type TextParseOptions } from "./types.js";
 
 export interface EdgeListOptions extends TextParseOptions {
   /** Vertex numbering; when omitted: the header's `base`, else 0. */
@@ -71,7 +71,7 @@ function readHeader(buf: Uint8Array, s: number, e: number, source: string, line:
 /** Parse an edge list (see the module header for the rules). */
 export function parseEdgeList(text: string | Uint8Array, options: EdgeListOptions = {}): BuildResult {
   const buf = asBytes(text);
-  const source = options.source ?? DEFAULT_SOURCE;
+  const source = options.file ?? DEFAULT_FILE_NAME;
   const cur = new LineCursor(buf);
   const tok = new LineTokens(3);
   let header: EdgeListHeader | null = null;

@@ -7,7 +7,7 @@ import { buildGraph } from "../builder.js";
 import type { Graph } from "../graph.js";
 import { encodeGraphSize, graphSizeFieldLength, readGraphSize } from "./graph-size.js";
 import { asBytes } from "./scan.js";
-import { DEFAULT_SOURCE, type Where } from "./types.js";
+import { DEFAULT_FILE_NAME, type Where } from "./types.js";
 import { assertUnitWeights } from "./unweighted.js";
 
 export const GRAPH6_HEADER = ">>graph6<<";
@@ -26,7 +26,7 @@ function charName(c: number): string {
  * the line began, so columns in messages count from the real line start.
  */
 export function decodeGraph6(buf: Uint8Array, lineStart: number, dataStart: number, end: number, where: Where = {}): Graph {
-  const source = where.source ?? DEFAULT_SOURCE;
+  const source = where.file ?? DEFAULT_FILE_NAME;
   const fail = (problem: string) => inputErrorAt(source, where.line, problem);
   if (dataStart >= end) throw fail("empty graph6 line");
   for (let p = dataStart; p < end; p++) {

@@ -7,11 +7,11 @@ import { EdgeBuffer, type BuildResult } from "../builder.js";
 import type { Graph } from "../graph.js";
 import { buildPlaced } from "./build-placed.js";
 import { asBytes, badUintMessage, badWeightMessage, LineCursor, LineTokens, readDecimal, readUint, skipBlanks } from "./scan.js";
-import { DEFAULT_SOURCE, type TextParseOptions } from "./types.js";
+import { DEFAULT_FILE_NAME, type TextParseOptions } from "./types.js";
 
 export function parseGset(text: string | Uint8Array, options: TextParseOptions = {}): BuildResult {
   const buf = asBytes(text);
-  const source = options.source ?? DEFAULT_SOURCE;
+  const source = options.file ?? DEFAULT_FILE_NAME;
   const cur = new LineCursor(buf);
   const tok = new LineTokens(3);
   let headerLine = 0;

@@ -8,7 +8,7 @@ import type { Graph } from "../graph.js";
 import { decodeGraph6, GRAPH6_HEADER, hasPrefix } from "./graph6.js";
 import { isBlank } from "./scan.js";
 import { decodeSparse6, SPARSE6_HEADER } from "./sparse6.js";
-import { DEFAULT_SOURCE, type Where } from "./types.js";
+import { DEFAULT_FILE_NAME, type Where } from "./types.js";
 
 export interface NautyLineGraph {
   graph: Graph;
@@ -34,12 +34,12 @@ export function decodeNautyLine(buf: Uint8Array, start: number, end: number, whe
       header = "sparse6";
       p += SPARSE6_HEADER.length;
     } else if (hasPrefix(buf, p, end, ">>digraph6<<")) {
-      throw inputErrorAt(where.source ?? DEFAULT_SOURCE, where.line, "digraph6 is not supported: halfplus reads undirected graphs");
+      throw inputErrorAt(where.file ?? DEFAULT_FILE_NAME, where.line, "digraph6 is not supported: halfplus reads undirected graphs");
     }
     if (p === end) return null;
   }
   const c = buf[p];
-  const fail = (problem: string) => inputErrorAt(where.source ?? DEFAULT_SOURCE, where.line, problem);
+  const fail = (problem: string) => inputErrorAt(where.file ?? DEFAULT_FILE_NAME, where.line, problem);
   if (c === 59) throw fail("incremental sparse6 (a line starting with ';') is not supported");
   if (c === 38) throw fail("digraph6 (a line starting with '&') is not supported: halfplus reads undirected graphs");
   if (c === 58) {

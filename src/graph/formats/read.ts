@@ -111,7 +111,7 @@ async function readHead(chunks: Chunks): Promise<Buffer | null> {
 async function* nautyStream(chunks: Chunks, source: string, build: BuildOptions | undefined): AsyncGenerator<LoadedGraph> {
   let carry: Buffer[] = []; // pieces of a line split across chunks
   let line = 0;
-  let index = 0;
+  let position = 0; // graphs yielded so far
   for (;;) {
     const chunk = await chunks.next();
     if (chunk === null) break;
@@ -134,16 +134,16 @@ async function* nautyStream(chunks: Chunks, source: string, build: BuildOptions 
       }
       p = nl + 1;
       line++;
-      const r = decodeNautyLine(buf, s, e, { source, line }, build);
-      if (r !== null) yield { graph: r.graph, source, index: index++, line, format: r.format, report: r.report };
+      const r = decodeNautyLine(buf, s, e, { file: source, line }, build);
+      if (r !== null) yield { graph: r.graph, file: source, position: ++position, line, format: r.format, report: r.report };
     }
   }
   if (carry.length > 0) {
     // Last line without a final newline.
     const buf = Buffer.concat(carry);
     line++;
-    const r = decodeNautyLine(buf, 0, buf.length, { source, line }, build);
-    if (r !== null) yield { graph: r.graph, source, index, line, format: r.format, report: r.report };
+    const r = decodeNautyLine(buf, 0, buf.length, { file: source, line }, build);
+    if (r !== null) yield { graph: r.graph, file: source, position: position + 1, line, format: r.format, report: r.report };
   }
 }
 
@@ -151,10 +151,10 @@ async function wholeFile(chunks: Chunks, source: string, format: GraphFormat, op
   const parts: Buffer[] = [];
   for (let c = await chunks.next(); c !== null; c = await chunks.next()) parts.push(c);
   const buf = parts.length === 1 ? parts[0] : Buffer.concat(parts);
-  const opts = { source, build: options.build };
+  const opts = { file: source, build: options.build };
   const r =
     format === "edgelist" ? parseEdgeList(buf, { ...opts, base: options.base }) : format === "gset" ? parseGset(buf, opts) : parseDimacs(buf, opts);
-  return { graph: r.graph, source, index: 0, line: 1, format, report: r.report };
+  return { graph: r.graph, file: source, position: 1, line: 1, format, report: r.report };
 }
 
 function checkOptions(options: ReadOptions): void {

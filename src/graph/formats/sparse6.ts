@@ -11,7 +11,7 @@ import type { Graph } from "../graph.js";
 import { encodeGraphSize, graphSizeFieldLength, readGraphSize } from "./graph-size.js";
 import { hasPrefix } from "./graph6.js";
 import { asBytes } from "./scan.js";
-import { DEFAULT_SOURCE, type Where } from "./types.js";
+import { DEFAULT_FILE_NAME, type Where } from "./types.js";
 import { assertUnitWeights } from "./unweighted.js";
 
 export const SPARSE6_HEADER = ">>sparse6<<";
@@ -56,7 +56,7 @@ export function decodeSparse6(
   where: Where = {},
   build: BuildOptions = {},
 ): BuildResult {
-  const source = where.source ?? DEFAULT_SOURCE;
+  const source = where.file ?? DEFAULT_FILE_NAME;
   const fail = (problem: string) => inputErrorAt(source, where.line, problem);
   if (dataStart >= end || buf[dataStart] !== 58) throw fail("a sparse6 line must start with ':'");
   for (let p = dataStart + 1; p < end; p++) {
@@ -133,7 +133,7 @@ export function parseSparse6(line: string | Uint8Array, where: Where = {}, build
   let start = 0;
   if (hasPrefix(buf, 0, end, SPARSE6_HEADER)) start = SPARSE6_HEADER.length;
   if (start < end && buf[start] === 59) {
-    throw inputErrorAt(where.source ?? DEFAULT_SOURCE, where.line, "incremental sparse6 (a line starting with ';') is not supported");
+    throw inputErrorAt(where.file ?? DEFAULT_FILE_NAME, where.line, "incremental sparse6 (a line starting with ';') is not supported");
   }
   return decodeSparse6(buf, 0, start, end, where, build).graph;
 }

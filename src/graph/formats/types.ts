@@ -20,9 +20,9 @@ export interface ReadOptions {
 export interface LoadedGraph {
   graph: Graph;
   /** File name as given, or the stream's name ("stdin"). */
-  source: string;
-  /** 0-based position in the stream (always 0 for whole-file formats). */
-  index: number;
+  file: string;
+  /** Position in the stream, counted from 1 like lines (always 1 for whole-file formats). */
+  position: number;
   /** 1-based line the graph starts on (1 for whole-file formats). */
   line: number;
   format: GraphFormat;
@@ -31,15 +31,17 @@ export interface LoadedGraph {
 
 /** Where a piece of text came from, for error messages. */
 export interface Where {
-  source?: string;
+  /** File name; "input" when omitted. */
+  file?: string;
   line?: number;
 }
 
 /** Options of the whole-file text parsers. */
 export interface TextParseOptions {
   /** File name used in messages; "input" when omitted. */
-  source?: string;
+  file?: string;
   build?: BuildOptions;
 }
 
-export const DEFAULT_SOURCE = "input";
+/** The name messages use for text that came with no file name. */
+export const DEFAULT_FILE_NAME = "input";

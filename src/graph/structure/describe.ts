@@ -37,16 +37,16 @@ export interface GraphSummary {
   triangles: number | null;
   /** null: skipped. */
   fourCycles: number | null;
-  /** Length of a shortest cycle; null for a forest, or when skipped (then "girth" is listed in `undecided`). */
+  /** Length of a shortest cycle; null for a forest, or when skipped (then "girth" is listed in `unknown`). */
   girth: number | null;
   bipartite: boolean;
   components: number;
-  /** true: the graph has no such subgraph (not necessarily induced); null: not decided (see `undecided`). */
+  /** true: the graph has no such subgraph (not necessarily induced); null: not decided (see `unknown`). */
   free: { K3: boolean | null; K4: boolean | null; C4: boolean | null; C5: boolean | null };
-  /** A copy of each pattern that is present (vertex lists), null when absent or undecided. */
+  /** A copy of each pattern that is present (vertex lists), null when absent or unknown. */
   witnesses: { K3: number[] | null; K4: number[] | null; C4: number[] | null; C5: number[] | null };
   /** Fields left null because they were skipped or a search ran out of budget. */
-  undecided: string[];
+  unknown: string[];
 }
 
 /** Each quantity is computed once; cheap facts (bipartite, degeneracy, girth) settle the rest where they can. */
@@ -58,7 +58,7 @@ export function describeGraph(g: Graph, options: DescribeOptions = {}): GraphSum
     }
   }
   const budget = { maxNodes: options.maxSearchNodes ?? Infinity };
-  const undecided: string[] = [];
+  const unknown: string[] = [];
   const deg = degreeStats(g);
   const comps = connectedComponents(g);
   const bip = bipartition(g);
@@ -68,9 +68,9 @@ export function describeGraph(g: Graph, options: DescribeOptions = {}): GraphSum
   const tri = skip.has("triangles") ? null : countTriangles(g);
   const c4 = skip.has("fourCycles") ? null : countFourCycles(g);
   const gi = skip.has("girth") ? null : girth(g);
-  if (tri === null) undecided.push("triangles");
-  if (c4 === null) undecided.push("fourCycles");
-  if (gi === null) undecided.push("girth");
+  if (tri === null) unknown.push("triangles");
+  if (c4 === null) unknown.push("fourCycles");
+  if (gi === null) unknown.push("girth");
   const girthValue = gi === null ? null : gi.girth;
   const shortest = gi === null ? null : gi.cycle;
   // With the girth known: a forest has no cycles, C_k is absent for k < girth and present for k = girth.
@@ -112,10 +112,10 @@ export function describeGraph(g: Graph, options: DescribeOptions = {}): GraphSum
     C5 = r.exhaustive ? !r.found : null;
     witnesses.C5 = r.witness;
   }
-  if (K4 === null) undecided.push("free.K4");
-  if (C5 === null) undecided.push("free.C5");
-  if (K3 === null) undecided.push("free.K3");
-  if (C4 === null) undecided.push("free.C4");
+  if (K4 === null) unknown.push("free.K4");
+  if (C5 === null) unknown.push("free.C5");
+  if (K3 === null) unknown.push("free.K3");
+  if (C4 === null) unknown.push("free.C4");
 
   return {
     n: g.n,
@@ -133,6 +133,6 @@ export function describeGraph(g: Graph, options: DescribeOptions = {}): GraphSum
     components: comps.count,
     free: { K3, K4, C4, C5 },
     witnesses,
-    undecided,
+    unknown,
   };
 }

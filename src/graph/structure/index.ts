@@ -16,3 +16,4 @@ export * from "./symmetry.js";
 export * from "./complete-bipartite.js";
 export * from "./pattern-shape.js";
 export * from "./strongly-regular.js";
+export * from "./summary-record.js";

@@ -5,16 +5,18 @@ import type { Graph } from "../../graph/graph.js";
 import { buildGraph } from "../../graph/builder.js";
 import { Rng } from "../../random/prng.js";
 import { geometricSkip } from "../gnp.js";
-import { checkParam, SEED_PARAM } from "../spec.js";
+import { checkSeed } from "../../random/seed.js";
 import { checkTypedParam } from "../typed-build.js";
-import type { FamilyDefinition } from "../types.js";
-import { unknownShape, type ShapeContext } from "./nested-shape.js";
+import { defineFamily } from "../types.js";
+import { unknownSize } from "./nested-size.js";
 
-/** `rng` may be a seed; the draws follow the edges in (u, v) order, so the result is reproducible. */
-export function deleteRandomEdges(g: Graph, p: number, rng: Rng | number): Graph {
-  checkTypedParam(deleteEdgesFamily, "p", p);
-  if (typeof rng === "number") checkParam(deleteEdgesFamily.name, SEED_PARAM, rng);
-  const r = typeof rng === "number" ? new Rng(rng) : rng;
+/**
+ * Each edge deleted with probability p, like the spec `delete-random-edges:of=[…],p=…,seed=…`.
+ * `graphSeed` may be a caller's Rng; the draws follow the edges in (u, v) order, so the result is reproducible.
+ */
+export function deleteRandomEdges(g: Graph, p: number, graphSeed: Rng | number): Graph {
+  checkTypedParam(deleteRandomEdgesFamily, "p", p);
+  const r = typeof graphSeed === "number" ? new Rng(checkSeed(deleteRandomEdgesFamily.name, "seed", graphSeed)) : graphSeed;
   const { us, vs, ws } = g.edgeArrays();
   const m = us.length;
   const keep = new Uint8Array(m).fill(1);
@@ -42,8 +44,8 @@ export function deleteRandomEdges(g: Graph, p: number, rng: Rng | number): Graph
   return buildGraph(g.n, ku, kv, kw).graph;
 }
 
-export const deleteEdgesFamily: FamilyDefinition = {
-  name: "delete-edges",
+export const deleteRandomEdgesFamily = defineFamily({
+  name: "delete-random-edges",
   summary: "random edge deletion: each edge of the nested graph kept with probability 1 − p",
   params: [
     { name: "of", type: "spec", description: "the graph to thin out, e.g. [petersen]" },
@@ -51,12 +53,12 @@ export const deleteEdgesFamily: FamilyDefinition = {
   ],
   random: true,
   freeOf: () => [],
-  expected: (params, ctx?: ShapeContext) => {
-    const s = ctx?.expectedOf(params.of as string);
-    if (s === undefined) return unknownShape();
-    const p = params.p as number;
+  predictedSize: (params, ctx) => {
+    const s = ctx?.predictedSizeOf(params.of);
+    if (s === undefined) return unknownSize();
+    const p = params.p;
     return { n: s.n, m: s.m * (1 - p), mExact: p === 1 || (p === 0 && s.mExact) };
   },
-  build: (params, ctx) => deleteRandomEdges(ctx.resolve(params.of as string), params.p as number, ctx.rng),
-  notes: "Deleting edges keeps every H-free property of the nested graph.",
-};
+  build: (params, ctx) => deleteRandomEdges(ctx.resolve(params.of), params.p, ctx.rng),
+  notes: ["Deleting edges keeps every H-free property of the nested graph."],
+});
