@@ -16,7 +16,7 @@ const rows = [];
 function measure(label, graph, seconds, extra = {}) {
   globalThis.gc?.();
   const t0 = performance.now();
-  const r = bracket(graph, { seconds, seed: 1 });
+  const r = bracket(graph, { seconds, solverSeed: 1 });
   const wall = (performance.now() - t0) / 1000;
   const v0 = performance.now();
   const verdict = verifyBracket(graph, JSON.parse(JSON.stringify(r)));
@@ -32,7 +32,7 @@ function measure(label, graph, seconds, extra = {}) {
     gap_pct: +((100 * (r.upper - r.lower)) / Math.abs(r.upper)).toFixed(3),
     lowerMethod: r.lowerMethod,
     upperMethod: r.upperMethod,
-    upperProven: r.upperProven,
+    upperKind: r.upperKind,
     verified: verdict.ok,
     verify_s: +verifySeconds.toFixed(2),
     ...extra(r),

@@ -21,7 +21,8 @@ function run(label, spec, solve, reps = 1) {
     status: result.status,
     value: result.value,
     upper: result.upper,
-    nodes: result.nodes,
+    graySteps: result.graySteps,
+    branchNodes: result.branchNodes,
     seconds: +(ms / 1000).toFixed(3),
     target_s: TARGET_S,
   });

@@ -44,7 +44,7 @@ function heuristicRows() {
     const pct = (v) => Number(((100 * v) / ref).toFixed(3));
     for (let seed = 1; seed <= seeds; seed++) {
       // Breakout: one searcher resumed, so the 10 s column includes the first second.
-      const s = new BreakoutSearcher(g, { seed });
+      const s = new BreakoutSearcher(g, { solverSeed: seed });
       const row = { graph: name, n: g.n, m: g.m, bestKnown: ref, seed };
       let spent = 0;
       for (const mark of [1, 10, 60].filter((t) => t <= maxSeconds)) {
@@ -59,10 +59,10 @@ function heuristicRows() {
       // Targets: ≥ 99.8% of the best known within 10 s on G1, G14, G22, G43; G48 at its optimum 6000.
       if (name === "G48") row.target = row["breakout@1s"] === ref ? "met@1s" : tenSeconds === ref ? "met@10s" : "missed";
       else if (["G1", "G14", "G22", "G43"].includes(name) && tenSeconds !== undefined) row.target = row["%@10s"] >= 99.8 ? "met" : "missed";
-      const r2 = new Rank2Searcher(g, { seed });
+      const r2 = new Rank2Searcher(g, { solverSeed: seed });
       r2.run({ seconds: 1 });
       row["rank2@1s%"] = pct(r2.best().value);
-      const ls = new MultiStartSearcher(g, { seed });
+      const ls = new MultiStartSearcher(g, { solverSeed: seed });
       ls.run({ seconds: 1 });
       row["multistart@1s%"] = pct(ls.best().value);
       // Other processes on the machine stretch wall-clock budgets; record the load for context.
@@ -87,7 +87,7 @@ function vectorRows() {
     const gu = timeBest(() => vectorMethodGuarantee(g), 1);
     const ex = timeBest(() => vectorMethodExpectedCut(g), 1);
     const trials = 20;
-    const many = timeBest(() => vectorMethodRound(g, { trials, seed: 1 }), 1);
+    const many = timeBest(() => vectorMethodRound(g, { trials, solverSeed: 1 }), 1);
     const perTrial = (1000 * many.result.details.trialSeconds) / trials;
     const d = many.result.details;
     rows.push({

@@ -4,7 +4,7 @@
 export * from "./graph.js";
 export * from "./builder.js";
 export * from "./graphology.js";
-export * from "./cut-value.js";
+export { cutValue, surplusOf, checkPartition, type Partition } from "./cut-value.js";
 export * from "./weights.js";
 export * from "./hash.js";
 export * from "./induced.js";

@@ -1,7 +1,6 @@
 // Heuristic search for good cuts: anytime searchers (multi-start local search, breakout, rank-2)
 // and rounding of vectors (hyperplane rounding of SDP vectors, sparse vector rounding).
 export { type HeuristicBudget, type AnytimeOptions, type AnytimeSearch } from "./anytime.js";
-export { FlipState, polishCut, type PolishResult } from "./flip-state.js";
 export { localSearch, MultiStartSearcher } from "./local-search.js";
 export { breakoutSearch, BreakoutSearcher, type BreakoutOptions, type BreakoutSearchOptions } from "./breakout.js";
 export { rank2Search, Rank2Searcher, type Rank2Options, type Rank2SearchOptions } from "./rank2.js";

@@ -1,5 +1,4 @@
 // Graph operations as families on nested specs, and their typed functions (a Graph in, a Graph out).
-export * from "./nested-size.js";
 export { complement, complementFamily } from "./complement.js";
 export { blowUp, blowUpFamily } from "./blow-up.js";
 export { disjointUnion, disjointUnionFamily } from "./disjoint-union.js";

@@ -6,7 +6,7 @@ import { InputError, inputErrorAt } from "../../errors.js";
 import { buildGraph } from "../builder.js";
 import type { Graph } from "../graph.js";
 import { encodeGraphSize, graphSizeFieldLength, readGraphSize } from "./graph-size.js";
-import { asBytes } from "./scan.js";
+import { asBytes, hasPrefix } from "./scan.js";
 import { DEFAULT_FILE_NAME, type Where } from "./types.js";
 import { assertUnitWeights } from "./unweighted.js";
 
@@ -101,12 +101,6 @@ export function parseGraph6(line: string | Uint8Array, where: Where = {}): Graph
   let start = 0;
   if (hasPrefix(buf, 0, end, GRAPH6_HEADER)) start = GRAPH6_HEADER.length;
   return decodeGraph6(buf, 0, start, end, where);
-}
-
-export function hasPrefix(buf: Uint8Array, start: number, end: number, prefix: string): boolean {
-  if (end - start < prefix.length) return false;
-  for (let i = 0; i < prefix.length; i++) if (buf[start + i] !== prefix.charCodeAt(i)) return false;
-  return true;
 }
 
 /** graph6 bytes of g (no header, no newline). */

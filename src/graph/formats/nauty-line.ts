@@ -5,8 +5,8 @@
 import { inputErrorAt } from "../../errors.js";
 import type { BuildOptions, BuildReport } from "../builder.js";
 import type { Graph } from "../graph.js";
-import { decodeGraph6, GRAPH6_HEADER, hasPrefix } from "./graph6.js";
-import { isBlank } from "./scan.js";
+import { decodeGraph6, GRAPH6_HEADER } from "./graph6.js";
+import { hasPrefix, isBlank } from "./scan.js";
 import { decodeSparse6, SPARSE6_HEADER } from "./sparse6.js";
 import { DEFAULT_FILE_NAME, type Where } from "./types.js";
 

@@ -6,6 +6,13 @@ export function isBlank(c: number): boolean {
   return c === 32 || c === 9 || c === 13 || c === 11 || c === 12;
 }
 
+/** Do the bytes [start, end) begin with the ASCII text `prefix`? */
+export function hasPrefix(buf: Uint8Array, start: number, end: number, prefix: string): boolean {
+  if (end - start < prefix.length) return false;
+  for (let i = 0; i < prefix.length; i++) if (buf[start + i] !== prefix.charCodeAt(i)) return false;
+  return true;
+}
+
 /** First non-blank position in [p, end), or end. */
 export function skipBlanks(buf: Uint8Array, p: number, end: number): number {
   while (p < end && isBlank(buf[p])) p++;

@@ -9,8 +9,7 @@ import { InputError, inputErrorAt } from "../../errors.js";
 import { EdgeBuffer, type BuildOptions, type BuildResult } from "../builder.js";
 import type { Graph } from "../graph.js";
 import { encodeGraphSize, graphSizeFieldLength, readGraphSize } from "./graph-size.js";
-import { hasPrefix } from "./graph6.js";
-import { asBytes } from "./scan.js";
+import { asBytes, hasPrefix } from "./scan.js";
 import { DEFAULT_FILE_NAME, type Where } from "./types.js";
 import { assertUnitWeights } from "./unweighted.js";
 
