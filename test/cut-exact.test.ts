@@ -72,7 +72,7 @@ describe("exact max cut: known values", () => {
   it("hypercubes Q_d: every edge (bipartite)", () => {
     // Q_d is bipartite by parity of weight, so all d·2^(d−1) edges are cut (common knowledge).
     for (let d = 1; d <= 6; d++) {
-      const g = family(`hypercube:d=${d}`);
+      const g = family(`hypercube:dim=${d}`);
       const r = exactMaxCut(g);
       expect(r.value).toBe(d * 2 ** (d - 1));
       expect(r.upper).toBe(r.value);

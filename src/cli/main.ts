@@ -10,12 +10,18 @@ import { COMMANDS } from "./commands/index.js";
 function overview(): string {
   const w = Math.max(...COMMANDS.map((c) => c.name.length));
   return [
-    "halfplus: max-cut surplus toolkit",
+    "halfplus: graph families, structure checks and certified max-cut brackets for studying the",
+    "max-cut surplus, maxcut − W/2 (W the total edge weight; m/2 for unweighted graphs).",
     "",
     "usage: halfplus <command> [arguments] [options]",
     "",
     "commands:",
     ...COMMANDS.map((c) => `  ${c.name.padEnd(w)}  ${c.summary}`),
+    "",
+    "A source is a graph file, `-` for standard input (graph6/sparse6 streams hold many graphs), or a",
+    "family spec such as kneser:n=8,k=3. A random family's graph is fixed by its graph seed (seed= in",
+    "the spec, or --graph-seed); the randomised solvers of `cut` have their own --solver-seed.",
+    "With --json every record carries kind, version, the graph's hash and its source.",
     "",
     "Run `halfplus <command> --help` for a command's options.",
     "",

@@ -3,7 +3,8 @@
 // `toPlainRecord`. Each carries its own evidence: a partition for a lower bound, a dual
 // vector and eigenvalue shift for an upper bound.
 
-import type { Partition } from "../graph/cut-value.js";
+import { cutValue, type Partition } from "../graph/cut-value.js";
+import type { Graph } from "../graph/graph.js";
 
 /**
  * Why a method stopped. optimal: proven optimum. converged: an iterative method met its
@@ -41,6 +42,20 @@ export type ShiftProof = "cholesky" | "gershgorin" | "lanczos-estimate";
  * high-confidence numerical estimate, not a proof (a Lanczos shift).
  */
 export type UpperKind = "proven" | "probable" | "estimate";
+
+/** The record of a cut a method found: a copy of its partition, the value confirmed by `cutValue`. */
+export function cutRecordOf(
+  method: string,
+  graph: Graph,
+  partition: Partition,
+  status: SolverStatus,
+  seconds: number,
+  solverSeed: number | null,
+  details: CutRecord["details"],
+): CutRecord {
+  const copy = partition.slice();
+  return { method, value: cutValue(graph, copy), partition: copy, status, seconds, solverSeed, details };
+}
 
 /**
  * Certificate for upper ≤ ¼·(Σ y_i + n·shift): the matrix Diag(y) + shift·I − L is PSD

@@ -67,7 +67,7 @@ export function circulant(n: number, s: readonly number[]): Graph {
 export const circulantFamily = defineFamily({
   name: "circulant",
   aliases: ["cayley-zn"],
-  summary: "circulant graph on Z_n (the Cayley graph of Z_n, alias cayley-zn): x ~ x ± s (mod n) for each s in the connection set",
+  summary: "circulant graph (Cayley graph of the cyclic group Z_n): x ~ x ± s (mod n) for each s in the connection set",
   params: [
     { name: "n", type: "integer", description: "number of vertices", default: 13, min: 2, max: 100_000_000 },
     { name: "s", type: "integer-list", description: "connection set, integers 1..n−1 joined by +", default: [1, 5] },

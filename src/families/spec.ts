@@ -56,7 +56,7 @@ export function parseRawSpec(spec: string): RawSpec {
   if (colon >= 0) {
     const body = spec.slice(colon + 1);
     // Lists use `+` inside a value (e.g. `circulant:n=13,s=1+5`); a nested spec is wrapped in
-    // brackets (`blowup:of=[kneser:n=8,k=3],t=2`), so only top-level commas separate parameters.
+    // brackets (`blow-up:of=[kneser:n=8,k=3],t=2`), so only top-level commas separate parameters.
     let last: string | undefined;
     for (const part of splitTopLevel(spec, body, ",")) {
       if (part.trim() === "") continue;

@@ -96,7 +96,7 @@ function progressWriter(stderr: NodeJS.WritableStream, label: string): { update:
 
 export const cutCommand: CommandSpec = {
   name: "cut",
-  summary: "bracket the max cut of each graph: lower ≤ max cut ≤ upper, with the evidence for both ends",
+  summary: "bracket the max cut of each graph, lower ≤ max cut ≤ upper, with evidence for both ends",
   positionals: "<source>",
   minPositionals: 1,
   maxPositionals: 1,

@@ -14,7 +14,7 @@ const STREAM_FORMATS: readonly GraphFormat[] = ["graph6", "sparse6"];
 
 export const encodeCommand: CommandSpec = {
   name: "encode",
-  summary: "write each graph of a source as graph6, sparse6, an edge list, the benchmark format or DIMACS",
+  summary: "write each graph of a source as graph6, sparse6, an edge list (or gset, DIMACS), for pipes",
   positionals: "<source>",
   minPositionals: 1,
   maxPositionals: 1,

@@ -67,7 +67,7 @@ export function formatFamilyReport(r: FamilyReport, detailed: boolean): string {
 
 export const familiesCommand: CommandSpec = {
   name: "families",
-  summary: "list the graph families: parameters, subgraphs each is proven free of (with citations), predicted size",
+  summary: "list graph families: parameters, subgraphs proven absent (with citations), predicted size",
   positionals: "[name | spec]",
   minPositionals: 0,
   maxPositionals: 1,

@@ -36,7 +36,7 @@ export function formatSummary(label: string, s: GraphSummary, notes: readonly st
 
 export const graphCommand: CommandSpec = {
   name: "graph",
-  summary: "structure of each graph: degrees, degeneracy, components, girth, triangle and 4-cycle counts, which of K3, K4, C4, C5 occur",
+  summary: "structure of each graph: degrees, degeneracy, girth, triangles, 4-cycles, K3/K4/C4/C5 present?",
   positionals: "<source>",
   minPositionals: 1,
   maxPositionals: 1,

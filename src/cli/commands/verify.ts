@@ -11,7 +11,7 @@ import { SourceResolver, pickGivenGraph, readAllGraphs } from "../../sources/ind
 import type { CommandSpec } from "../args.js";
 import { formatRows } from "../format.js";
 import { writeLine } from "../output.js";
-import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
+import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 
 async function readAll(path: string, stdin: NodeJS.ReadableStream): Promise<string> {
   if (path === "-") {
@@ -28,7 +28,7 @@ async function readAll(path: string, stdin: NodeJS.ReadableStream): Promise<stri
 
 export const verifyCommand: CommandSpec = {
   name: "verify",
-  summary: "re-check max-cut bracket records (from `halfplus cut --json`) against their graphs",
+  summary: "re-check bracket records from `halfplus cut --json` against their graphs",
   positionals: "<records>",
   minPositionals: 1,
   maxPositionals: 1,
@@ -37,7 +37,7 @@ export const verifyCommand: CommandSpec = {
     "Records are numbered from 1. `-` reads the records from standard input.",
   ],
   options: [
-    { name: "graph", type: "string", description: "take the graphs from this source instead of the records' own: one graph serves every record, else the k-th graph the record at position k", placeholder: "SOURCE" },
+    { name: "graph", type: "string", description: "take the graphs from this source instead of the records' own: a single graph serves every record, otherwise graph k serves the record at position k", placeholder: "SOURCE" },
     { name: "seconds", type: "number", description: "time budget for rerunning exact search on exhaustive-search certificates", default: 60, min: 0.001, max: 1e7, placeholder: "S" },
     { name: "json", type: "boolean", description: "one JSON verdict per record, one per line" },
     ...SOURCE_OPTIONS,

@@ -5,7 +5,6 @@
 import { invalidParameter } from "../../errors.js";
 import { cutValue, floorCutBound, surplusOf } from "../../graph/cut-value.js";
 import type { Graph } from "../../graph/graph.js";
-import { graphHash } from "../../graph/hash.js";
 import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
 import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";

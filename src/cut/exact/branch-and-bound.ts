@@ -11,11 +11,11 @@
 import { InputError } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
 import { Rng } from "../../random/prng.js";
-import { checkPartition, cutValue, floorCutBound } from "../../graph/cut-value.js";
+import { checkPartition, floorCutBound } from "../../graph/cut-value.js";
 import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
 import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";
-import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, improvementMargin, nowSeconds, type ExactCutRecord, type ExactOptions } from "./common.js";
+import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, exactRecord, improvementMargin, nowSeconds, type ExactCutRecord, type ExactOptions } from "./common.js";
 import { CutBlock } from "./cut-block.js";
 
 export type BranchOrder = "tail-greedy" | "degree";
@@ -432,19 +432,8 @@ function finish(
   exactSums: boolean,
   solvedTail: number,
 ): ExactCutRecord {
-  const value = cutValue(graph, partition);
   // Non-integer weights: pruning used a tolerance, so the proven bound carries it.
   const slack = exactSums ? 0 : margin;
-  return {
-    method: "exact-bnb",
-    value,
-    upper: upper === null ? value + slack : Math.max(upper, value + slack),
-    partition,
-    status,
-    graySteps: 0,
-    branchNodes: nodes,
-    seconds: nowSeconds() - t0,
-    solverSeed: seed,
-    details: { blockSize, order, integerWeights: exactSums, tolerance: slack, solvedTail },
-  };
+  const search = { status, upper, slack, graySteps: 0, branchNodes: nodes, t0, solverSeed: seed };
+  return exactRecord("exact-bnb", graph, partition, search, { blockSize, order, integerWeights: exactSums, tolerance: slack, solvedTail });
 }

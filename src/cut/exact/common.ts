@@ -3,7 +3,7 @@
 
 import type { Graph } from "../../graph/graph.js";
 import { hasIntegerWeights } from "../../graph/weights.js";
-import type { CutRecord } from "../types.js";
+import { cutRecordOf, type CutRecord } from "../types.js";
 
 /** What an exact search returns: a cut (value = cutValue(partition)) plus a proven upper bound. */
 export interface ExactCutRecord extends CutRecord {
@@ -49,6 +49,29 @@ export function improvementMargin(graph: Graph): number {
   const w = graph.weights!;
   for (let i = 0; i < w.length; i++) abs += Math.abs(w[i]);
   return Math.max(1e-12, 1e-11 * abs);
+}
+
+/**
+ * The record of an exact search: the cut of `partition` (value from cutValue) and the proven bound,
+ * never below value + slack, where slack is the pruning tolerance the search used (0 for integer
+ * weights): `upper` null means the search finished, so the bound is the value itself plus slack.
+ */
+export function exactRecord(
+  method: string,
+  graph: Graph,
+  partition: Uint8Array,
+  search: { status: "optimal" | "time-limit"; upper: number | null; slack: number; graySteps: number; branchNodes: number; t0: number; solverSeed: number },
+  details: CutRecord["details"],
+): ExactCutRecord {
+  const cut = cutRecordOf(method, graph, partition, search.status, nowSeconds() - search.t0, search.solverSeed, details);
+  const { upper, slack } = search;
+  return {
+    ...cut,
+    status: search.status,
+    upper: upper === null ? cut.value + slack : Math.max(upper, cut.value + slack),
+    graySteps: search.graySteps,
+    branchNodes: search.branchNodes,
+  };
 }
 
 /** Monotonic clock in seconds. */

@@ -4,11 +4,10 @@
 
 import { InputError } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
-import { cutValue } from "../../graph/cut-value.js";
 import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
 import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";
-import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, improvementMargin, nowSeconds, type ExactCutRecord, type ExactOptions } from "./common.js";
+import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, exactRecord, improvementMargin, nowSeconds, type ExactCutRecord, type ExactOptions } from "./common.js";
 import { CutBlock } from "./cut-block.js";
 
 /** Largest n the Gray-code enumeration accepts (2^33 patterns: tens of seconds without pruning). */
@@ -166,21 +165,10 @@ function record(
   blockSize: number,
   fixed = 0,
 ): ExactCutRecord {
-  const value = cutValue(graph, partition);
   const exactSums = hasIntegerWeights(graph);
   // Non-integer weights: the running sums are exact only up to rounding, so the proven
   // upper bound carries the same tolerance the search used.
   const slack = exactSums ? 0 : improvementMargin(graph);
-  return {
-    method: "exact-gray",
-    value,
-    upper: upper === null ? value + slack : Math.max(upper, value + slack),
-    partition,
-    status,
-    graySteps: nodes,
-    branchNodes: 0,
-    seconds: nowSeconds() - t0,
-    solverSeed: seed,
-    details: { blockSize, fixedVertex: fixed, integerWeights: exactSums, tolerance: slack },
-  };
+  const search = { status, upper, slack, graySteps: nodes, branchNodes: 0, t0, solverSeed: seed };
+  return exactRecord("exact-gray", graph, partition, search, { blockSize, fixedVertex: fixed, integerWeights: exactSums, tolerance: slack });
 }

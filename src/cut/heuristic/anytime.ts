@@ -3,7 +3,7 @@
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
-import { cutValue, floorCutBound, type Partition } from "../../graph/cut-value.js";
+import { floorCutBound } from "../../graph/cut-value.js";
 import { hasIntegerWeights } from "../../graph/weights.js";
 import { checkSeconds } from "../../validate.js";
 import type { CutRecord, SolverStatus } from "../types.js";
@@ -102,18 +102,4 @@ export class RunLimit {
   get status(): SolverStatus {
     return this.timedOut ? "time-limit" : "iteration-limit";
   }
-}
-
-/** The record an anytime searcher reports: a copy of its best partition, value confirmed by `cutValue`. */
-export function searcherRecord(
-  method: string,
-  graph: Graph,
-  bestSide: Partition,
-  status: SolverStatus,
-  seconds: number,
-  solverSeed: number,
-  details: CutRecord["details"],
-): CutRecord {
-  const partition = bestSide.slice();
-  return { method, value: cutValue(graph, partition), partition, status, seconds, solverSeed, details };
 }

@@ -12,16 +12,8 @@ import { hasIntegerWeights } from "../../graph/weights.js";
 import { checkPartition } from "../../graph/cut-value.js";
 import { FlipState } from "./flip-state.js";
 import { GainBuckets } from "./gain-buckets.js";
-import {
-  checkHeuristicBudget,
-  optimalityThreshold,
-  RunLimit,
-  type AnytimeOptions,
-  type AnytimeSearch,
-  type HeuristicBudget,
-  searcherRecord,
-} from "./anytime.js";
-import type { CutRecord, SolverStatus } from "../types.js";
+import { checkHeuristicBudget, optimalityThreshold, RunLimit, type AnytimeOptions, type AnytimeSearch, type HeuristicBudget } from "./anytime.js";
+import { cutRecordOf, type CutRecord, type SolverStatus } from "../types.js";
 
 const OWNER = "breakout search";
 
@@ -280,7 +272,7 @@ export class BreakoutSearcher implements AnytimeSearch {
   }
 
   best(): CutRecord {
-    return searcherRecord("breakout", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.solverSeed, {
+    return cutRecordOf("breakout", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.solverSeed, {
       rounds: this.rounds,
       moves: this.moveNo,
       directedJumps: this.directedJumps,

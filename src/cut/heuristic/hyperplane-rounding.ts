@@ -7,7 +7,7 @@ import { Rng } from "../../random/prng.js";
 import { checkSeed } from "../../random/seed.js";
 import { cutValue } from "../../graph/cut-value.js";
 import { FlipState } from "./flip-state.js";
-import type { CutRecord } from "../types.js";
+import { cutRecordOf, type CutRecord } from "../types.js";
 
 const OWNER = "hyperplane rounding";
 
@@ -109,20 +109,12 @@ export function hyperplaneRound(graph: Graph, vectors: Float64Array, r: number, 
       bestSide.set(side);
     }
   }
-  return {
-    method: "hyperplane-rounding",
-    value: cutValue(graph, bestSide),
-    partition: bestSide,
-    status: "completed",
-    seconds: (performance.now() - t0) / 1000,
-    solverSeed,
-    details: {
-      trials,
-      meanCut: sumRaw / trials,
-      bestRoundedCut: bestRaw,
-      meanPolishedCut: polish ? sumPolished / trials : null,
-      expectedCut: hyperplaneExpectedCut(graph, vectors, r),
-      polish,
-    },
-  };
+  return cutRecordOf("hyperplane-rounding", graph, bestSide, "completed", (performance.now() - t0) / 1000, solverSeed, {
+    trials,
+    meanCut: sumRaw / trials,
+    bestRoundedCut: bestRaw,
+    meanPolishedCut: polish ? sumPolished / trials : null,
+    expectedCut: hyperplaneExpectedCut(graph, vectors, r),
+    polish,
+  });
 }

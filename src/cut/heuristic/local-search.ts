@@ -5,16 +5,8 @@ import type { Graph } from "../../graph/graph.js";
 import { Rng } from "../../random/prng.js";
 import { checkSeed } from "../../random/seed.js";
 import { FlipState } from "./flip-state.js";
-import {
-  checkHeuristicBudget,
-  optimalityThreshold,
-  RunLimit,
-  type AnytimeOptions,
-  type AnytimeSearch,
-  type HeuristicBudget,
-  searcherRecord,
-} from "./anytime.js";
-import type { CutRecord, SolverStatus } from "../types.js";
+import { checkHeuristicBudget, optimalityThreshold, RunLimit, type AnytimeOptions, type AnytimeSearch, type HeuristicBudget } from "./anytime.js";
+import { cutRecordOf, type CutRecord, type SolverStatus } from "../types.js";
 
 const OWNER = "local search";
 
@@ -76,7 +68,7 @@ export class MultiStartSearcher implements AnytimeSearch {
   }
 
   best(): CutRecord {
-    return searcherRecord("local-search", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.solverSeed, { starts: this.starts });
+    return cutRecordOf("local-search", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.solverSeed, { starts: this.starts });
   }
 }
 

@@ -7,17 +7,8 @@ import type { Graph } from "../../graph/graph.js";
 import { Rng } from "../../random/prng.js";
 import { checkSeed } from "../../random/seed.js";
 import { FlipState } from "./flip-state.js";
-import {
-  checkHeuristicBudget,
-  CLOCK_STRIDE,
-  optimalityThreshold,
-  RunLimit,
-  type AnytimeOptions,
-  type AnytimeSearch,
-  type HeuristicBudget,
-  searcherRecord,
-} from "./anytime.js";
-import type { CutRecord, SolverStatus } from "../types.js";
+import { checkHeuristicBudget, CLOCK_STRIDE, optimalityThreshold, RunLimit, type AnytimeOptions, type AnytimeSearch, type HeuristicBudget } from "./anytime.js";
+import { cutRecordOf, type CutRecord, type SolverStatus } from "../types.js";
 
 const OWNER = "rank-2 heuristic";
 const TWO_PI = 2 * Math.PI;
@@ -246,7 +237,7 @@ export class Rank2Searcher implements AnytimeSearch {
   }
 
   best(): CutRecord {
-    return searcherRecord("rank2", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.solverSeed, { cycles: this.cycles, gradientSteps: this.gradientSteps });
+    return cutRecordOf("rank2", this.graph, this.bestSide, this.lastStatus, this.elapsed, this.solverSeed, { cycles: this.cycles, gradientSteps: this.gradientSteps });
   }
 }
 

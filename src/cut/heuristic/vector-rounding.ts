@@ -10,7 +10,7 @@ import { checkSeed } from "../../random/seed.js";
 import { cutValue, surplusOf } from "../../graph/cut-value.js";
 import { FlipState } from "./flip-state.js";
 import { checkTrials, separationProbability } from "./hyperplane-rounding.js";
-import type { CutRecord } from "../types.js";
+import { cutRecordOf, type CutRecord } from "../types.js";
 
 const OWNER = "vector method";
 
@@ -112,24 +112,16 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
   const terms = vectorEdgeTerms(graph, sets);
   const guarantee = vectorMethodGuaranteeFor(graph, sets, terms);
   const value = cutValue(graph, bestSide);
-  return {
-    method: "vector-rounding",
-    value,
-    partition: bestSide,
-    status: "completed",
-    seconds: (performance.now() - t0) / 1000,
-    solverSeed,
-    details: {
-      trials,
-      guarantee: guarantee.surplus,
-      guaranteeApplies: guarantee.applies,
-      expectedSurplus: surplusOf(graph, expectedCutFor(graph, sets, terms)),
-      meanSurplus: mean,
-      stdErr: Math.sqrt(variance / trials),
-      bestRoundedSurplus: surplusOf(graph, bestRaw),
-      bestSurplus: surplusOf(graph, value),
-      polish,
-      trialSeconds,
-    },
-  };
+  return cutRecordOf("vector-rounding", graph, bestSide, "completed", (performance.now() - t0) / 1000, solverSeed, {
+    trials,
+    guarantee: guarantee.surplus,
+    guaranteeApplies: guarantee.applies,
+    expectedSurplus: surplusOf(graph, expectedCutFor(graph, sets, terms)),
+    meanSurplus: mean,
+    stdErr: Math.sqrt(variance / trials),
+    bestRoundedSurplus: surplusOf(graph, bestRaw),
+    bestSurplus: surplusOf(graph, value),
+    polish,
+    trialSeconds,
+  });
 }
