@@ -47,7 +47,10 @@ function intervalText(lo: number | null, hi: number | null): string {
   return lo === null || hi === null ? "—" : `[${formatNumber(lo)}, ${formatNumber(hi)}]`;
 }
 
-/** Table columns for a list of rows; `withFit` adds law/response/fixed columns (several fits in one table). */
+/**
+ * Table columns for a list of rows; `withFit` adds law/response/fixed columns (several fits in one
+ * table). A single fit's table still gets a response column when its rows come from several ends.
+ */
 function rowColumns(rows: readonly FitTableRow[], withFit: boolean): Column[] {
   const level = rows[0]?.level ?? 0.95;
   const cols: Column[] = [];
@@ -55,6 +58,8 @@ function rowColumns(rows: readonly FitTableRow[], withFit: boolean): Column[] {
     cols.push({ header: "law", align: "left", cells: rows.map((r) => r.law) });
     cols.push({ header: "response", align: "left", cells: rows.map((r) => r.response) });
     if (rows.some((r) => r.fixed !== null)) cols.push({ header: "held fixed", align: "left", cells: rows.map((r) => r.fixed ?? "") });
+  } else if (new Set(rows.map((r) => r.response)).size > 1) {
+    cols.push({ header: "response", align: "left", cells: rows.map((r) => r.response) });
   }
   cols.push({ header: "term", align: "left", cells: rows.map((r) => r.term) });
   cols.push({ header: "estimate", align: "right", cells: rows.map((r) => formatNumber(r.estimate)) });
