@@ -5,7 +5,7 @@ import { fitsToLatex, formatFitTable, formatNumber, latexEscape, type FitTableRo
 function row(over: Partial<FitTableRow>): FitTableRow {
   return {
     family: "polarity",
-    law: "m",
+    law: "m-over-sqrt-d",
     response: "lower",
     degree: "degeneracy",
     term: "slope",
@@ -40,9 +40,9 @@ describe("formatFitTable", () => {
     const lines = text.trimEnd().split("\n");
     expect(lines[0]).toBe("family polarity · d = degeneracy");
     expect(lines[1]).toMatch(/^ {2}law +response +term +estimate +std\. error +95 % t-interval +95 % bootstrap +conjectured +t +p +rows +R²$/);
-    expect(lines[2]).toMatch(/^ {2}m +lower +constant +-1\.2500 +0\.0123 +\[0\.8034, 0\.8590\] .* +— +— +— +10 +0\.9991$/);
+    expect(lines[2]).toMatch(/^ {2}m-over-sqrt-d +lower +constant +-1\.2500 +0\.0123 +\[0\.8034, 0\.8590\] .* +— +— +— +10 +0\.9991$/);
     expect(lines[3]).toContain("3.1e-7");
-    expect(lines[4]).toMatch(/^ {2}m +upper +slope +0\.8500/);
+    expect(lines[4]).toMatch(/^ {2}m-over-sqrt-d +upper +slope +0\.8500/);
     expect(lines[5]).toBe("");
     expect(lines[6]).toBe("family gnp_sparse · d = degeneracy");
     expect(lines[8]).toMatch(/-1\.30 +0\.2100 +10 +0\.9991$/);
@@ -59,7 +59,9 @@ describe("formatFitTable", () => {
     expect(text).toContain("slope = 1");
     expect(text.trimEnd().split("\n").at(-1)).toBe("not fitted: family kneser (2 rows): needs at least 3 usable rows");
     expect(formatFitTable([])).toBe("no fits\n");
-    expect(formatFitTable([fit([row({ family: null })])])).toMatch(/^all rows \(no family\)/);
+    expect(formatFitTable([fit([row({ family: null })])])).toMatch(/^all rows \(no family\) · d = degeneracy\n/);
+    // The law "m" does not use d, so its table does not name a degree measure.
+    expect(formatFitTable([fit([row({ law: "m" })])])).toMatch(/^family polarity\n/);
   });
 
   it("formats numbers in fixed point inside [1e-3, 1e5) and in scientific notation outside", () => {
@@ -75,8 +77,11 @@ describe("fitsToLatex", () => {
   it("emits a booktabs tabular with one block per family and escaped text", () => {
     // booktabs rules \toprule, \midrule, \bottomrule (S. Fear, the booktabs package documentation).
     const tex = fitsToLatex([
-      fit([row({ family: "gnp_p=0.1 & more", term: "constant", estimate: -1.25, conjectured: null, t: null, pValue: null }), row({ family: "gnp_p=0.1 & more" })]),
-      fit([row({ law: "m-over-sqrt-d", estimate: 1.01, pValue: 0.41 })]),
+      fit([
+        row({ family: "gnp_p=0.1 & more", law: "m", term: "constant", estimate: -1.25, conjectured: null, t: null, pValue: null }),
+        row({ family: "gnp_p=0.1 & more", law: "m" }),
+      ]),
+      fit([row({ estimate: 1.01, pValue: 0.41 })]),
     ]);
     const lines = tex.trimEnd().split("\n");
     expect(lines[0]).toBe("% needs \\usepackage{booktabs}");

@@ -214,6 +214,9 @@ describe("fitPowerLaw", () => {
     expectInputError(() => f.interval("mExponent", 1), "`level`");
     const g = fitPowerLaw(rows);
     expectInputError(() => g.bootstrapInterval("mExponent", 0.9999), "`level`");
+    // The law "m" leaves d out, so the conjecture gives its slope no value.
+    expectInputError(() => fitPowerLaw(rows, { law: "m", bootstrap: false }).test("slope"), 'no conjectured value for "slope"');
+    expect(fitPowerLaw(rows, { law: "m", bootstrap: false, conjecture: { slope: 5 / 6 } }).test("slope").value).toBe(5 / 6);
   });
 
   itNeeds([python("scipy")], "agrees with scipy.stats.linregress on the log-log data of a one-predictor law", () => {
@@ -288,6 +291,10 @@ describe("fitSurplusBand", () => {
     expect(b.widenedLow).toBeLessThanOrEqual(band.lower.interval("mExponent").lower);
     expect(b.widenedHigh).toBeGreaterThanOrEqual(band.upper.interval("mExponent").upper);
     expect(band.summary()).toContain("band mExponent");
+    const json = JSON.parse(JSON.stringify(band));
+    expect(json.kind).toBe("halfplus/fit-band");
+    expect(json.bands[1].name).toBe("mExponent");
+    expect(json.exact.rows).toBe(12);
     expect(band.tableRows().map((r) => r.response)).toEqual(["lower", "lower", "lower", "upper", "upper", "upper", "exact", "exact", "exact"]);
     // Too few closed brackets: no exact fit, and the reason.
     const few = fitSurplusBand(rows.slice(10), { bootstrap: false });
@@ -312,5 +319,11 @@ describe("fitByFamily", () => {
     expect(fits.get("beta")!.used.map((u) => u.index).slice(9, 11)).toEqual([9, 30]);
     expect(fits.skipped).toEqual([{ family: "gamma", rows: 2, reason: 'needs at least 4 usable rows for 3 coefficients (law "m-and-d", response "lower"), got 2' }]);
     expect(fits.get("alpha")!.exponents()[0].family).toBe("alpha");
+    // JSON for the command line: one record per family plus the skipped list.
+    const json = JSON.parse(JSON.stringify(fits));
+    expect(json.fits.map((f: { family: string }) => f.family)).toEqual(["alpha", "beta"]);
+    expect(json.fits[0].kind).toBe("halfplus/fit");
+    expect(json.fits[0].terms.map((t: { name: string }) => t.name)).toEqual(["constant", "mExponent", "dExponent"]);
+    expect(json.skipped[0].family).toBe("gamma");
   });
 });

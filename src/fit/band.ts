@@ -102,6 +102,22 @@ export class SurplusBand implements Tabulable {
   latex(options: LatexOptions = {}): string {
     return fitsToLatex([this], options);
   }
+
+  /** Plain JSON-ready record (kind "halfplus/fit-band"): the bands and the three fits' records. */
+  toJSON(): Record<string, unknown> {
+    return {
+      kind: "halfplus/fit-band",
+      version: 1,
+      law: this.law,
+      family: this.family ?? null,
+      level: this.level,
+      bands: this.bands(),
+      lower: this.lower.toJSON(),
+      upper: this.upper.toJSON(),
+      exact: this.exact === null ? null : this.exact.toJSON(),
+      exactProblem: this.exactProblem,
+    };
+  }
 }
 
 /** Keep only the rows in `keep`; others get `reason` (rows already dropped keep their own reason). */

@@ -12,6 +12,11 @@ export const NO_FAMILY = "(no family)";
 /** Fits keyed by family (in alphabetical order), and the families that could not be fitted. */
 export class FamilyFits extends Map<string, PowerLawFit> {
   readonly skipped: SkippedFamily[] = [];
+
+  /** Plain JSON-ready record: each family's fit record, then the families not fitted. */
+  toJSON(): { fits: Record<string, unknown>[]; skipped: SkippedFamily[] } {
+    return { fits: [...this.values()].map((f) => f.toJSON()), skipped: this.skipped };
+  }
 }
 
 /**

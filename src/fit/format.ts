@@ -119,8 +119,10 @@ export function formatFitTable(fits: FitCollection, options: { level?: number; s
   const out: string[] = [];
   for (const [family, group] of byFamily(rows)) {
     if (out.length > 0) out.push("");
-    const degrees = [...new Set(group.map((r) => r.degree))].join(", ");
-    out.push(`${family === null ? "all rows (no family)" : `family ${family}`} · d = ${degrees}`);
+    // The law "m" does not read d, so only the other laws' rows say which degree measure they used.
+    const degrees = [...new Set(group.filter((r) => r.law !== "m").map((r) => r.degree))];
+    const title = family === null ? "all rows (no family)" : `family ${family}`;
+    out.push(degrees.length === 0 ? title : `${title} · d = ${degrees.join(", ")}`);
     out.push(...layout(rowColumns(group, true)));
   }
   const skipped = options.skipped ?? (fits as { skipped?: readonly SkippedFamily[] }).skipped ?? [];

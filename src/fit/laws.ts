@@ -73,10 +73,11 @@ export function powerLawTerms(law: PowerLaw): string[] {
 }
 
 /**
- * Conjectured exponents: surplus ≥ c·m/√d for H-free d-degenerate graphs, i.e. a = 1, b = −1/2; the
- * one-predictor laws inherit slope 1 (m/√d to the first power; for "m", linear growth at fixed d).
- * The constant C has no conjectured value.
+ * Conjectured exponents: surplus ≥ c·m/√d for H-free d-degenerate graphs, i.e. a = 1, b = −1/2 for
+ * "m-and-d" and slope 1 for "m-over-sqrt-d". The law "m" leaves d out, so the conjecture fixes no
+ * exponent for it (pass one, e.g. 5/6 for the polarity graphs); the constant C has none either.
  */
 export function defaultConjecture(law: PowerLaw): Record<string, number | null> {
-  return law === "m-and-d" ? { constant: null, mExponent: 1, dExponent: -0.5 } : { constant: null, slope: 1 };
+  if (law === "m-and-d") return { constant: null, mExponent: 1, dExponent: -0.5 };
+  return { constant: null, slope: law === "m-over-sqrt-d" ? 1 : null };
 }

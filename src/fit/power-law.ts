@@ -21,7 +21,7 @@ export interface PowerLawOptions {
   bootstrap?: BootstrapOptions | false;
   /**
    * Conjectured value per term, tested by `test(name)`. Defaults: mExponent 1, dExponent −1/2
-   * (surplus ≥ c·m/√d); slope 1 for the one-predictor laws; constant none.
+   * (surplus ≥ c·m/√d); slope 1 for "m-over-sqrt-d"; none for the slope of "m" or the constant.
    */
   conjecture?: Partial<Record<string, number | null>>;
 }
