@@ -35,11 +35,12 @@ export function relativeLuminance(hex: string): number {
   return 0.2126 * r + 0.7152 * g + 0.0722 * b;
 }
 
-// sRGB (D65) linear → CIE XYZ, IEC 61966-2-1.
+// sRGB (D65) linear → CIE XYZ: IEC 61966-2-1's primaries to seven places (as tabulated by
+// Lindbloom), so white lands on the D65 white point and has a* = b* = 0.
 const RGB_TO_XYZ = [
-  [0.4124, 0.3576, 0.1805],
-  [0.2126, 0.7152, 0.0722],
-  [0.0193, 0.1192, 0.9505],
+  [0.4124564, 0.3575761, 0.1804375],
+  [0.2126729, 0.7151522, 0.072175],
+  [0.0193339, 0.119192, 0.9503041],
 ] as const;
 const D65 = [0.95047, 1, 1.08883] as const;
 

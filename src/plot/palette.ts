@@ -2,13 +2,13 @@
 // that gives each family one colour and one marker shape for every figure.
 //
 // Why these eight colours. They were found by a seeded search over CIELAB (D65) and then fixed:
-// - Lightness carries identity in greyscale print: L* is pinned to eight levels 30, 66, 42, 76,
-//   36, 58, 48, 70 (six apart when sorted), and consecutive series alternate dark and light, so
-//   the first few families differ the most. Checked: test/plot-palette.test.ts converts to grey
-//   (CIE L* of the relative luminance) and asserts every pair is at least 5 L* apart.
+// - Lightness carries identity in greyscale print: L* is pinned to eight evenly spaced levels
+//   from 30 to 76 (6.6 apart), handed out as 30, 56, 37, 63, 43, 69, 50, 76 so consecutive
+//   series always differ by about 20. Checked: test/plot-palette.test.ts converts to grey (CIE L*
+//   of the relative luminance) and asserts every pair is at least 5 L* apart.
 // - Hue and chroma were searched to maximise the smallest pairwise CIE76 distance seen by normal
 //   vision and by simulated deuteranopes and protanopes (Machado, Oliveira & Fernandes 2009,
-//   severity 1): about 30 ΔE*ab for every pair under all three (the test asserts ≥ 25).
+//   severity 1): about 29 ΔE*ab for every pair under all three (the test asserts ≥ 25).
 // - Chroma stays between 32 and 75 so no colour shouts on screen, and no code lies within 10
 //   ΔE*ab of a widely used library or published palette (the test lists those it compares with).
 // Colour is never the only cue: each series also has its own marker shape (filled for the first
@@ -20,14 +20,14 @@ import type { LineDash, MarkerSymbol } from "./types.js";
 
 /** The eight series colours in the order they are handed out, with our names for them. */
 export const STRATA_PALETTE: readonly { name: string; hex: string }[] = [
-  { name: "wine", hex: "#762E46" },
-  { name: "azure", hex: "#28A8FC" },
-  { name: "cobalt", hex: "#005BD8" },
-  { name: "aqua", hex: "#0CD2BC" },
-  { name: "umber", hex: "#7D4800" },
-  { name: "sage", hex: "#679762" },
-  { name: "mauve", hex: "#8E629C" },
-  { name: "mustard", hex: "#C8A846" },
+  { name: "navy", hex: "#353D95" },
+  { name: "sage", hex: "#669263" },
+  { name: "plum", hex: "#853D66" },
+  { name: "cerulean", hex: "#3EA3C7" },
+  { name: "bronze", hex: "#7F620D" },
+  { name: "gold", hex: "#D1A335" },
+  { name: "azure", hex: "#0571F1" },
+  { name: "mint", hex: "#64CDBC" },
 ];
 
 /** Marker shapes in the order they are handed out: filled first, then open outlines. */

@@ -20,9 +20,9 @@ type BoundField = "bestCut" | "sdpBound" | "vectorGuarantee" | "edwardsBound";
 /** The four series, each with a fixed style (these are kinds of bound, not families). */
 export const BOUND_SERIES: readonly { field: BoundField; name: string; style: SeriesStyle }[] = [
   { field: "sdpBound", name: "SDP upper bound", style: { ...seriesStyle(0), symbol: "triangle-down" } },
-  { field: "bestCut", name: "best cut found", style: { ...seriesStyle(2), symbol: "circle" } },
-  { field: "vectorGuarantee", name: "vector rounding guarantee", style: { ...seriesStyle(7), symbol: "diamond" } },
-  { field: "edwardsBound", name: "Edwards bound", style: { ...seriesStyle(5), symbol: "square" } },
+  { field: "bestCut", name: "best cut found", style: { ...seriesStyle(6), symbol: "circle" } },
+  { field: "vectorGuarantee", name: "vector rounding guarantee", style: { ...seriesStyle(5), symbol: "diamond" } },
+  { field: "edwardsBound", name: "Edwards bound", style: { ...seriesStyle(4), symbol: "square" } },
 ];
 
 const OWNER = "boundTightnessFigure";
