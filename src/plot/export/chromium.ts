@@ -50,6 +50,8 @@ export interface ImageExporter {
   png(figure: PlotFigure, size?: ImageSize): Promise<Buffer>;
   /** A one-page vector PDF of exactly the figure's size. */
   pdf(figure: PlotFigure, size?: ImageSize): Promise<Buffer>;
+  /** The same from an SVG this exporter made at the same size (saves rendering twice). */
+  pdfFromSvg(svg: string, size?: ImageSize): Promise<Buffer>;
   /** The browser's version string, for provenance. */
   readonly browserVersion: string;
   close(): Promise<void>;
@@ -88,10 +90,28 @@ window.__hpSeed = function (seed) {
 </head><body></body></html>`;
 }
 
+/**
+ * Attributes of every start tag in alphabetical order. The browser serialises attributes in the
+ * order they were set, and plotly sets some in a different order on a page's first legend than
+ * on later ones; sorting makes the bytes depend on the figure alone. Safe on serialised SVG:
+ * every value is double-quoted with quotes and angle brackets escaped.
+ */
+export function canonicalSvg(svg: string): string {
+  return svg.replace(/<([A-Za-z][\w:.-]*)((?:\s+[\w:.-]+="[^"]*")+)\s*(\/?)>/g, (_m, name: string, attrs: string, close: string) => {
+    const list = attrs.match(/[\w:.-]+="[^"]*"/g) ?? [];
+    list.sort((a, b) => {
+      const ka = a.slice(0, a.indexOf("="));
+      const kb = b.slice(0, b.indexOf("="));
+      return ka < kb ? -1 : ka > kb ? 1 : 0;
+    });
+    return `<${name} ${list.join(" ")}${close}>`;
+  });
+}
+
 /** The SVG a Plotly data URL holds, as a file's text. */
 function svgFromDataUrl(url: string): string {
   const comma = url.indexOf(",");
-  const svg = decodeURIComponent(url.slice(comma + 1));
+  const svg = canonicalSvg(decodeURIComponent(url.slice(comma + 1)));
   return svg.endsWith("\n") ? svg : svg + "\n";
 }
 
@@ -173,9 +193,12 @@ export async function openImageExporter(options: ImageExporterOptions = {}): Pro
         return Buffer.from(url.slice(url.indexOf(",") + 1), "base64");
       },
       async pdf(figure, size) {
+        return exporter.pdfFromSvg(await exporter.svg(figure, size), size);
+      },
+      async pdfFromSvg(svg, size) {
         const s = checkSize(size);
-        const svg = await exporter.svg(figure, s);
         return serial(async () => {
+          if (closed) throw new InputError("figure export: this exporter is closed; open a new one");
           await print.setContent(
             `<!doctype html><html><head><meta charset="utf-8"><style>@page { size: ${s.width}px ${s.height}px; margin: 0 } html, body { margin: 0; padding: 0; overflow: hidden; } svg { display: block; }</style></head><body>${svg}</body></html>`,
           );

@@ -50,6 +50,7 @@ export async function exportFigures(options: ExportFiguresOptions): Promise<stri
   const total = figures.length * formats.length;
   try {
     for (const { name, figure } of figures) {
+      let svg: string | undefined;
       for (const format of formats) {
         const path = join(dir, `${name}.${format}`);
         let content: string | Buffer;
@@ -64,13 +65,14 @@ export async function exportFigures(options: ExportFiguresOptions): Promise<stri
             content = figureToCsv(figure);
             break;
           case "svg":
-            content = await exporter!.svg(figure, options.size);
+            content = svg = await exporter!.svg(figure, options.size);
             break;
           case "png":
             content = await exporter!.png(figure, options.size);
             break;
           case "pdf":
-            content = await exporter!.pdf(figure, options.size);
+            // Print the SVG already made for this figure when there is one.
+            content = svg ? await exporter!.pdfFromSvg(svg, options.size) : await exporter!.pdf(figure, options.size);
             break;
         }
         writeFileSync(path, content);
