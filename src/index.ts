@@ -10,3 +10,4 @@ export * from "./cut/index.js";
 export * from "./bounds/index.js";
 export * from "./sources/index.js";
 export * from "./fit/index.js";
+export * from "./plot/index.js";
