@@ -18,6 +18,8 @@ export interface CurvePrediction {
 export interface CurveFit {
   law: string;
   response: string;
+  /** The family the fit was made on, when it was made on one (a figure then draws it in that family's style). */
+  family?: string;
   predict(x: CurveInput, level?: number): CurvePrediction;
 }
 

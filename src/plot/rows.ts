@@ -3,12 +3,11 @@
 // field; rows that are fine but cannot be drawn (say, on log axes) are left out with a note.
 
 import { InputError, invalidParameter } from "../errors.js";
-import type { DegreeMeasure, SurplusRow } from "./types.js";
-
-export const DEGREE_MEASURES: readonly DegreeMeasure[] = ["degeneracy", "max", "average"];
+import type { DegreeMeasure } from "../fit/index.js";
+import type { SurplusRow } from "./types.js";
 
 /** The degree d of a row under a measure. */
-export function degreeOf(row: SurplusRow, measure: DegreeMeasure): number {
+export function surplusRowDegree(row: SurplusRow, measure: DegreeMeasure): number {
   switch (measure) {
     case "degeneracy":
       return row.degeneracy;

@@ -1,7 +1,10 @@
 // The shapes the figure builders read (rows from the results store, fits from src/fit) and the
 // shape they return (a plain plotly figure: traces and a layout, never a DOM node).
-// The input types are structural on purpose: src/plot sits above src/fit in the layers but does
-// not import it, so any object with these fields can be plotted.
+// Fitted curves and exponents come in the shapes src/fit defines (src/plot sits above src/fit);
+// any object with those fields can be plotted.
+
+import type { CurveFit, DegreeMeasure, ExponentEstimate } from "../fit/index.js";
+export type { CurveFit, DegreeMeasure, ExponentEstimate };
 
 /**
  * One graph's row as the results store hands it to the figures. Counts are of the graph itself;
@@ -30,28 +33,6 @@ export interface SurplusRow {
   degrees?: readonly number[];
 }
 
-/** A fitted curve that can be evaluated with an interval (a src/fit object satisfies this). */
-export interface CurveFit {
-  /** Human-readable law, e.g. "surplus = c·(m/√d)^a". */
-  law: string;
-  /** The response the fit used, e.g. "surplusLower". */
-  response: string;
-  /** Optional: the family the fit was made on; the curve then takes that family's style. */
-  family?: string;
-  /** The fitted value at x with its interval at `level` (default as the fit defines, 0.95 here). */
-  predict(x: number | { m: number; d: number }, level?: number): { estimate: number; lower: number; upper: number };
-}
-
-/** A fitted exponent with its interval and, when there is one, the conjectured value. */
-export interface ExponentEstimate {
-  family?: string;
-  name: string;
-  estimate: number;
-  lower: number;
-  upper: number;
-  conjectured: number | null;
-}
-
 /**
  * The conjectured law surplus = c·m/√d as a line of slope 1 on log–log axes, with its fitted
  * constant c (and c's interval when known).
@@ -63,9 +44,6 @@ export interface ConjectureLine {
   /** The family the constant was fitted on, if one. */
   family?: string;
 }
-
-/** Which degree d enters m/√d. */
-export type DegreeMeasure = "degeneracy" | "max" | "average";
 
 /** Plotly marker symbols the palette uses (a subset with a pgfplots mark for each). */
 export type MarkerSymbol =

@@ -4,7 +4,8 @@
 
 import { asList, conjectureConstant, conjectureLabel, curveRange } from "../curves.js";
 import { DASH, INK, familyStyles } from "../palette.js";
-import { DEGREE_MEASURES, LeftOut, checkChoice, checkLevel, checkRows, degreeOf, familiesOf, measureWords } from "../rows.js";
+import { DEGREE_MEASURES } from "../../fit/index.js";
+import { LeftOut, checkChoice, checkLevel, checkRows, familiesOf, measureWords, surplusRowDegree } from "../rows.js";
 import { axis, baseLayout, emptyNote, shortNumber } from "../theme.js";
 import type { ConjectureLine, CurveFit, DegreeMeasure, PlotFigure, PlotTrace, SurplusRow } from "../types.js";
 import { pointsTrace } from "./points.js";
@@ -35,7 +36,7 @@ export function normalisedRatioFigure(rows: readonly SurplusRow[], options: Norm
   const leftOut = new LeftOut();
   const kept = new Map<string, { row: SurplusRow; scale: number }[]>();
   for (const row of rows) {
-    const d = degreeOf(row, measure);
+    const d = surplusRowDegree(row, measure);
     if (!(d > 0)) leftOut.add(`${words.text} 0 (no m/√d)`);
     else if (!(row.m > 0)) leftOut.add("no edges");
     else {

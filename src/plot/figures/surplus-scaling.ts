@@ -5,7 +5,8 @@
 import { InputError } from "../../errors.js";
 import { asList, conjectureConstant, conjectureTrace, curveRange, fitTraces } from "../curves.js";
 import { familyStyles } from "../palette.js";
-import { DEGREE_MEASURES, LeftOut, checkChoice, checkLevel, checkRows, degreeOf, familiesOf, measureWords } from "../rows.js";
+import { DEGREE_MEASURES } from "../../fit/index.js";
+import { LeftOut, checkChoice, checkLevel, checkRows, familiesOf, measureWords, surplusRowDegree } from "../rows.js";
 import { axis, baseLayout, emptyNote } from "../theme.js";
 import type { ConjectureLine, CurveFit, DegreeMeasure, PlotFigure, PlotTrace, SurplusRow } from "../types.js";
 import { pointsTrace } from "./points.js";
@@ -55,7 +56,7 @@ export function surplusScalingFigure(rows: readonly SurplusRow[], options: Surpl
 
   const kept = new Map<string, { row: SurplusRow; x: number; y: number; d: number }[]>();
   for (const row of rows) {
-    const d = degreeOf(row, measure);
+    const d = surplusRowDegree(row, measure);
     const y = surplusAt(row, point);
     if (!(d > 0)) leftOut.add(`${words.text} 0 (no m/√d)`);
     else if (!(row.m > 0)) leftOut.add("no edges");
