@@ -40,6 +40,19 @@ describe("halfplus families", () => {
     expect(row.freeOf.map((f: { pattern: string }) => f.pattern)).toEqual(["K3"]);
   });
 
+  it("an alias shows its family and says so: cayley-zn is circulant, generalised-petersen is generalized-petersen", () => {
+    // Z_n-Cayley graphs are the circulants (definition; common practice, no source).
+    for (const [alias, name] of [["cayley-zn", "circulant"], ["generalised-petersen", "generalized-petersen"]] as const) {
+      const r = halfplus(["families", alias, "--json"]);
+      expect(r.code).toBe(0);
+      const row = JSON.parse(r.stdout);
+      expect(row.name).toBe(name);
+      expect(row.aliases).toContain(alias);
+      const g = halfplus(["graph", `${alias}:n=9,${alias === "cayley-zn" ? "s=1+3" : "k=2"}`, "--json"]);
+      expect(JSON.parse(g.stdout).notes).toContain(`${alias} is another name for ${name}`);
+    }
+  });
+
   it("shows one family in detail with its sources, and the list as readable text", () => {
     const one = halfplus(["families", "polarity"]);
     expect(one.code).toBe(0);
@@ -57,6 +70,8 @@ describe("halfplus families", () => {
       [["families", "paley:q=7"], /paley: invalid `q`: should be ≡ 1 \(mod 4\)/],
       [["families", "kneser:n=9,k=5"], /kneser: invalid `k`/],
       [["families", "a", "b"], /too many arguments/],
+      // Retired names point to the new one (our own renames; common practice, no source).
+      [["families", "regular"], /no family called "regular" \(it is now called random-regular\)/],
     ] as const) {
       const r = halfplus([...args]);
       expect(r.code).toBe(2);

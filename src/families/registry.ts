@@ -32,6 +32,11 @@ const RETIRED_NAMES: Readonly<Record<string, string>> = {
   "delete-edges": "delete-random-edges",
 };
 
+/** What replaced a retired family name (e.g. "regular" → "random-regular"), or undefined. */
+export function renamedFamily(name: string): string | undefined {
+  return Object.prototype.hasOwnProperty.call(RETIRED_NAMES, name) ? RETIRED_NAMES[name] : undefined;
+}
+
 /** Predicted size of a spec without building it (operations ask this of their nested specs). */
 export function predictedSizeOf(spec: string): PredictedSize {
   const raw = parseRawSpec(spec);
@@ -54,7 +59,7 @@ export function getFamily(name: string): FamilyDefinition | undefined {
 function lookup(name: string): FamilyDefinition {
   const def = BY_NAME.get(name);
   if (def === undefined) {
-    const now = RETIRED_NAMES[name];
+    const now = renamedFamily(name);
     throw new InputError(
       now === undefined ? `unknown family ${JSON.stringify(name)} (run halfplus families for the list)` : `unknown family ${JSON.stringify(name)}: it is now called ${now}`,
     );

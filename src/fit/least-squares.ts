@@ -89,30 +89,25 @@ export function householderQr(a: Float64Array, n: number, p: number, tau: Float6
   return deficient;
 }
 
+/** y ← H_k y for the k-th reflector stored by householderQr (H_k = I − τ_k v vᵀ, v = (1, qr below the diagonal)). */
+function applyReflector(qr: Float64Array, n: number, k: number, tau: Float64Array, y: Float64Array): void {
+  if (tau[k] === 0) return;
+  const col = k * n;
+  let dot = y[k];
+  for (let i = k + 1; i < n; i++) dot += qr[col + i] * y[i];
+  dot *= tau[k];
+  y[k] -= dot;
+  for (let i = k + 1; i < n; i++) y[i] -= dot * qr[col + i];
+}
+
 /** y ← Qᵀy using the reflectors stored by householderQr. */
 export function applyQTranspose(qr: Float64Array, n: number, p: number, tau: Float64Array, y: Float64Array): void {
-  for (let k = 0; k < p; k++) {
-    if (tau[k] === 0) continue;
-    const col = k * n;
-    let dot = y[k];
-    for (let i = k + 1; i < n; i++) dot += qr[col + i] * y[i];
-    dot *= tau[k];
-    y[k] -= dot;
-    for (let i = k + 1; i < n; i++) y[i] -= dot * qr[col + i];
-  }
+  for (let k = 0; k < p; k++) applyReflector(qr, n, k, tau, y);
 }
 
 /** y ← Qy (reflectors applied in reverse order). */
 function applyQ(qr: Float64Array, n: number, p: number, tau: Float64Array, y: Float64Array): void {
-  for (let k = p - 1; k >= 0; k--) {
-    if (tau[k] === 0) continue;
-    const col = k * n;
-    let dot = y[k];
-    for (let i = k + 1; i < n; i++) dot += qr[col + i] * y[i];
-    dot *= tau[k];
-    y[k] -= dot;
-    for (let i = k + 1; i < n; i++) y[i] -= dot * qr[col + i];
-  }
+  for (let k = p - 1; k >= 0; k--) applyReflector(qr, n, k, tau, y);
 }
 
 /** Solve R·x = b in place for the p×p upper triangle R stored in the QR array. */

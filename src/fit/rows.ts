@@ -55,7 +55,7 @@ export function lawNeedsDegree(law: PowerLaw): boolean {
   return law !== "m";
 }
 
-export function degreeOf(row: FitRow, degree: DegreeMeasure): number | undefined {
+export function degreeOf(row: Pick<FitRow, "degeneracy" | "maxDegree" | "averageDegree">, degree: DegreeMeasure): number | undefined {
   switch (degree) {
     case "degeneracy":
       return row.degeneracy;

@@ -3,19 +3,13 @@
 // field; rows that are fine but cannot be drawn (say, on log axes) are left out with a note.
 
 import { InputError, invalidParameter } from "../errors.js";
-import type { DegreeMeasure } from "../fit/index.js";
+import { degreeOf, type DegreeMeasure } from "../fit/index.js";
 import type { SurplusRow } from "./types.js";
 
-/** The degree d of a row under a measure. */
+/** The degree d of a row under a measure (the fit's own mapping from measure to field). */
 export function surplusRowDegree(row: SurplusRow, measure: DegreeMeasure): number {
-  switch (measure) {
-    case "degeneracy":
-      return row.degeneracy;
-    case "max":
-      return row.maxDegree;
-    case "average":
-      return row.averageDegree;
-  }
+  // A SurplusRow carries every degree field, so the measure is always present.
+  return degreeOf(row, measure) as number;
 }
 
 /** Words for d in titles and notes, plain and in TeX. */

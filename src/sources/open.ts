@@ -9,7 +9,7 @@ import type { BuildOptions } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { exactlyOneGraph, readGraphs, type GraphFormat } from "../graph/formats/index.js";
 import { sourceLabel, type GraphSource } from "../graph/record/source.js";
-import { familyWithInfo, getFamily } from "../families/registry.js";
+import { familyWithInfo, getFamily, renamedFamily } from "../families/registry.js";
 import { looksLikeSpec, parseRawSpec } from "../families/spec.js";
 import { checkSeed } from "../random/seed.js";
 
@@ -44,7 +44,8 @@ function classify(arg: string): Kind {
   if (looksLikeSpec(arg)) {
     const { name } = parseRawSpec(arg);
     if (getFamily(name) !== undefined) return "family";
-    throw new InputError(`${arg}: no such file, and no family called ${JSON.stringify(name)} (run halfplus families)`);
+    const now = renamedFamily(name);
+    throw new InputError(`${arg}: no such file, and no family called ${JSON.stringify(name)} (${now === undefined ? "run halfplus families" : `it is now called ${now}`})`);
   }
   throw new InputError(`${arg}: no such file`);
 }

@@ -3,7 +3,7 @@
 
 import { InputError } from "../../errors.js";
 import { familyReport, type FamilyParamReport, type FamilyReport } from "../../families/report.js";
-import { getFamily, listFamilies } from "../../families/registry.js";
+import { getFamily, listFamilies, renamedFamily } from "../../families/registry.js";
 import { parseRawSpec } from "../../families/spec.js";
 import type { ParamValue, PredictedSize } from "../../families/types.js";
 import type { CommandSpec } from "../args.js";
@@ -86,7 +86,8 @@ export const familiesCommand: CommandSpec = {
       const raw = parseRawSpec(target);
       const def = getFamily(raw.name);
       if (def === undefined) {
-        throw new InputError(`no family called ${JSON.stringify(raw.name)} (run halfplus families for the list)`);
+        const now = renamedFamily(raw.name);
+        throw new InputError(`no family called ${JSON.stringify(raw.name)} (${now === undefined ? "run halfplus families for the list" : `it is now called ${now}`})`);
       }
       const r = familyReport(def, raw.values);
       // A spec the user typed must be valid: report its error instead of a partial entry.
