@@ -9,3 +9,4 @@ export * from "./families/index.js";
 export * from "./cut/index.js";
 export * from "./bounds/index.js";
 export * from "./sources/index.js";
+export * from "./experiment/index.js";

@@ -1,0 +1,129 @@
+// Runs batches of sweep jobs on worker threads (one per core by default), or in the calling
+// thread when asked for 0 workers. Jobs cross the thread boundary as plain data: a family spec
+// (the worker builds the graph) or graphToParts arrays (graphs read from files).
+
+import { existsSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import { Worker } from "node:worker_threads";
+import { isInputError } from "../errors.js";
+import type { StoredRow } from "./columns.js";
+import { runJob, type JobInput } from "./job.js";
+
+export interface BatchRequest {
+  batch: number;
+  jobs: JobInput[];
+}
+
+export type JobResult =
+  | { key: string; row: StoredRow; solverSeconds: number; error?: undefined }
+  | { key: string; error: string; inputError: boolean; stack?: string };
+
+export interface BatchResult {
+  batch: number;
+  results: JobResult[];
+  /** Seconds the batch took inside the worker. */
+  seconds: number;
+}
+
+export interface JobRunner {
+  /** Batches that can run at once. */
+  readonly size: number;
+  submit(jobs: JobInput[]): Promise<BatchResult>;
+  close(): Promise<void>;
+}
+
+/**
+ * The compiled worker script. Under the TypeScript sources (the test runner) there is no
+ * worker.js beside this file, and Node 20 cannot start a worker from .ts: use the build.
+ */
+function workerScript(): URL {
+  const here = new URL("./worker.js", import.meta.url);
+  if (import.meta.url.endsWith(".js")) return here;
+  const built = new URL("../../dist/experiment/worker.js", import.meta.url);
+  if (!existsSync(fileURLToPath(built))) throw new Error(`sweep workers need the build: run npm run build (missing ${fileURLToPath(built)})`);
+  return built;
+}
+
+function runInline(batch: number, jobs: JobInput[]): BatchResult {
+  const t0 = performance.now();
+  const results: JobResult[] = [];
+  for (const job of jobs) {
+    try {
+      const out = runJob(job);
+      results.push({ key: job.key, row: out.row, solverSeconds: out.solverSeconds });
+    } catch (e) {
+      results.push({ key: job.key, error: e instanceof Error ? e.message : String(e), inputError: isInputError(e), stack: e instanceof Error ? e.stack : undefined });
+      break;
+    }
+  }
+  return { batch, results, seconds: (performance.now() - t0) / 1000 };
+}
+
+class InlineRunner implements JobRunner {
+  readonly size = 1;
+  private next = 0;
+
+  submit(jobs: JobInput[]): Promise<BatchResult> {
+    // Yield to the event loop first, so progress, signals and writes keep flowing.
+    return new Promise((resolve) => setImmediate(() => resolve(runInline(this.next++, jobs))));
+  }
+
+  async close(): Promise<void> {}
+}
+
+interface Slot {
+  worker: Worker;
+  pending: Map<number, { resolve: (r: BatchResult) => void; reject: (e: Error) => void }>;
+  dead: Error | null;
+}
+
+class ThreadRunner implements JobRunner {
+  private readonly slots: Slot[] = [];
+  private next = 0;
+  private closing = false;
+
+  constructor(readonly size: number) {
+    const script = workerScript();
+    for (let i = 0; i < size; i++) {
+      const slot: Slot = { worker: new Worker(script), pending: new Map(), dead: null };
+      slot.worker.on("message", (r: BatchResult) => {
+        const p = slot.pending.get(r.batch);
+        slot.pending.delete(r.batch);
+        p?.resolve(r);
+      });
+      const fail = (e: Error): void => {
+        slot.dead = e;
+        for (const p of slot.pending.values()) p.reject(e);
+        slot.pending.clear();
+      };
+      slot.worker.on("error", (e) => fail(e instanceof Error ? e : new Error(String(e))));
+      slot.worker.on("exit", (code) => {
+        if (!this.closing) fail(new Error(`a sweep worker stopped unexpectedly (exit code ${code})`));
+      });
+      this.slots.push(slot);
+    }
+  }
+
+  submit(jobs: JobInput[]): Promise<BatchResult> {
+    const alive = this.slots.filter((s) => s.dead === null);
+    if (alive.length === 0) return Promise.reject(this.slots[0].dead ?? new Error("no sweep workers"));
+    // The least busy worker takes the batch.
+    let slot = alive[0];
+    for (const s of alive) if (s.pending.size < slot.pending.size) slot = s;
+    const batch = this.next++;
+    return new Promise((resolve, reject) => {
+      slot.pending.set(batch, { resolve, reject });
+      slot.worker.postMessage({ batch, jobs } satisfies BatchRequest);
+    });
+  }
+
+  async close(): Promise<void> {
+    this.closing = true;
+    await Promise.all(this.slots.map((s) => s.worker.terminate()));
+  }
+}
+
+/** `workers` threads, or the calling thread for 0. */
+export function createRunner(workers: number): JobRunner {
+  return workers === 0 ? new InlineRunner() : new ThreadRunner(workers);
+}

@@ -1,0 +1,64 @@
+// Compact evidence for stored rows: a partition as packed bits, JSON as UTF-8, each behind a
+// one-byte codec tag (0: as is, 1: raw deflate) so short payloads are not inflated by zlib's
+// overhead. Deflate at a fixed level is deterministic, so equal inputs give equal blobs.
+
+import { deflateRawSync, inflateRawSync } from "node:zlib";
+import { InputError } from "../errors.js";
+
+const PLAIN = 0;
+const DEFLATE = 1;
+
+function wrap(payload: Uint8Array): Uint8Array {
+  const packed = payload.length >= 64 ? deflateRawSync(payload, { level: 6 }) : null;
+  const useDeflate = packed !== null && packed.length < payload.length;
+  const body = useDeflate ? packed : payload;
+  const out = new Uint8Array(body.length + 1);
+  out[0] = useDeflate ? DEFLATE : PLAIN;
+  out.set(body, 1);
+  return out;
+}
+
+function unwrap(blob: Uint8Array, what: string): Uint8Array {
+  if (blob.length === 0) throw new InputError(`${what}: empty blob`);
+  const body = blob.subarray(1);
+  if (blob[0] === PLAIN) return body;
+  if (blob[0] === DEFLATE) {
+    try {
+      return inflateRawSync(body);
+    } catch {
+      throw new InputError(`${what}: corrupt compressed data`);
+    }
+  }
+  throw new InputError(`${what}: unknown codec ${blob[0]}`);
+}
+
+/** Partition (0/1 per vertex) → bit i of byte ⌊i/8⌋ is vertex i's side, then compressed. */
+export function packPartition(partition: ArrayLike<number>): Uint8Array {
+  const n = partition.length;
+  const bits = new Uint8Array((n + 7) >> 3);
+  for (let i = 0; i < n; i++) if (partition[i] === 1) bits[i >> 3] |= 1 << (i & 7);
+  return wrap(bits);
+}
+
+/** The partition of n vertices stored by packPartition. */
+export function unpackPartition(blob: Uint8Array, n: number, what = "witness"): number[] {
+  const bits = unwrap(blob, what);
+  if (bits.length !== (n + 7) >> 3) throw new InputError(`${what}: holds ${bits.length * 8} bits, expected ${n} vertices`);
+  const out = new Array<number>(n);
+  for (let i = 0; i < n; i++) out[i] = (bits[i >> 3] >> (i & 7)) & 1;
+  return out;
+}
+
+/** Any JSON value, compressed. */
+export function packJson(value: unknown): Uint8Array {
+  return wrap(Buffer.from(JSON.stringify(value), "utf8"));
+}
+
+export function unpackJson(blob: Uint8Array, what: string): unknown {
+  const text = Buffer.from(unwrap(blob, what)).toString("utf8");
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new InputError(`${what}: not valid JSON`);
+  }
+}
