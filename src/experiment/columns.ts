@@ -113,3 +113,21 @@ export function exportColumns(options: { timing?: boolean } = {}): ColumnSpec[] 
 export function comparedColumns(): ColumnSpec[] {
   return COLUMNS.filter((c) => c.name !== "key" && c.group !== "timing" && c.group !== "provenance" && c.group !== "evidence");
 }
+
+/** Position of each column in COLUMNS (rows cross threads and reach SQLite as value arrays in this order). */
+export const COLUMN_INDEX: ReadonlyMap<string, number> = new Map(COLUMNS.map((c, i) => [c.name, i]));
+
+/** A row's values in COLUMNS order (missing columns become null); `extra` fields override the row's. */
+export function rowValues(row: StoredRow, extra?: StoredRow): CellValue[] {
+  const out = new Array<CellValue>(COLUMNS.length);
+  for (let i = 0; i < COLUMNS.length; i++) out[i] = row[COLUMNS[i].name] ?? null;
+  if (extra !== undefined) for (const k of Object.keys(extra)) out[COLUMN_INDEX.get(k)!] = extra[k];
+  return out;
+}
+
+/** The row object of a value array in COLUMNS order. */
+export function rowOfValues(values: readonly CellValue[]): StoredRow {
+  const row: StoredRow = {};
+  for (let i = 0; i < COLUMNS.length; i++) row[COLUMNS[i].name] = values[i] ?? null;
+  return row;
+}

@@ -263,6 +263,11 @@ export function runJob(job: JobInput): JobOutput {
   };
   for (const e of EVALUATORS) {
     if (!job.evaluators.includes(e.name)) continue;
+    // The triangle-free bound does not apply to a graph with a triangle: no need to evaluate it.
+    if (e.name === "triangle-free" && s.free.K3 === false) {
+      row[e.column] = null;
+      continue;
+    }
     const b = e.run(graph);
     row[e.column] = b.applies ? b.surplus : null;
   }

@@ -9,6 +9,7 @@ import { InputError } from "../errors.js";
 import { isPrimePower } from "../families/finite-field.js";
 import { GRAPH_FORMATS, type GraphFormat } from "../graph/formats/types.js";
 import { detectFromContent, formatFromExtension } from "../graph/formats/detect.js";
+import { jsonFault } from "./json-position.js";
 import {
   DEGREE_MEASURES,
   EFFORTS,
@@ -334,13 +335,6 @@ function product(keys: string[], values: ParamValue[][]): Record<string, ParamVa
 // ---------------------------------------------------------------------------------------------
 // Loading
 
-/** Line of a character offset, for JSON syntax errors. */
-function lineOf(text: string, position: number): number {
-  let line = 1;
-  for (let i = 0; i < position && i < text.length; i++) if (text.charCodeAt(i) === 10) line++;
-  return line;
-}
-
 function readPlanFile(path: string): Json {
   let text: string;
   try {
@@ -351,11 +345,9 @@ function readPlanFile(path: string): Json {
   }
   try {
     return JSON.parse(text);
-  } catch (e) {
-    const msg = (e as Error).message;
-    const pos = /position (\d+)/.exec(msg);
-    const line = pos === null ? undefined : lineOf(text, Number(pos[1]));
-    throw new InputError(`${path}${line === undefined ? "" : `:${line}`}: not valid JSON (${msg.replace(/\s*in JSON at position \d+.*$/, "")})`);
+  } catch {
+    const f = jsonFault(text);
+    throw new InputError(f === null ? `${path}: not valid JSON` : `${path}:${f.line}:${f.column}: not valid JSON: ${f.problem}`);
   }
 }
 

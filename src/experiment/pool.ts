@@ -6,16 +6,19 @@ import { existsSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
 import { isInputError } from "../errors.js";
-import type { StoredRow } from "./columns.js";
+import { rowValues, type CellValue, type StoredRow } from "./columns.js";
 import { runJob, type JobInput } from "./job.js";
 
 export interface BatchRequest {
   batch: number;
   jobs: JobInput[];
+  /** Fields every row of the sweep shares (provenance), set on each row. */
+  shared: StoredRow;
 }
 
+/** A finished job's row as values in COLUMNS order (cheaper to pass between threads than an object). */
 export type JobResult =
-  | { key: string; row: StoredRow; solverSeconds: number; error?: undefined }
+  | { key: string; values: CellValue[]; solverSeconds: number; error?: undefined }
   | { key: string; error: string; inputError: boolean; stack?: string };
 
 export interface BatchResult {
@@ -28,7 +31,7 @@ export interface BatchResult {
 export interface JobRunner {
   /** Batches that can run at once. */
   readonly size: number;
-  submit(jobs: JobInput[]): Promise<BatchResult>;
+  submit(jobs: JobInput[], shared: StoredRow): Promise<BatchResult>;
   close(): Promise<void>;
 }
 
@@ -44,28 +47,29 @@ function workerScript(): URL {
   return built;
 }
 
-function runInline(batch: number, jobs: JobInput[]): BatchResult {
+/** Run a batch's jobs in this thread (a worker's, or the main one for 0 workers); stops at the first failure. */
+export function runBatch(request: BatchRequest): BatchResult {
   const t0 = performance.now();
   const results: JobResult[] = [];
-  for (const job of jobs) {
+  for (const job of request.jobs) {
     try {
       const out = runJob(job);
-      results.push({ key: job.key, row: out.row, solverSeconds: out.solverSeconds });
+      results.push({ key: job.key, values: rowValues(out.row, request.shared), solverSeconds: out.solverSeconds });
     } catch (e) {
       results.push({ key: job.key, error: e instanceof Error ? e.message : String(e), inputError: isInputError(e), stack: e instanceof Error ? e.stack : undefined });
       break;
     }
   }
-  return { batch, results, seconds: (performance.now() - t0) / 1000 };
+  return { batch: request.batch, results, seconds: (performance.now() - t0) / 1000 };
 }
 
 class InlineRunner implements JobRunner {
   readonly size = 1;
   private next = 0;
 
-  submit(jobs: JobInput[]): Promise<BatchResult> {
+  submit(jobs: JobInput[], shared: StoredRow): Promise<BatchResult> {
     // Yield to the event loop first, so progress, signals and writes keep flowing.
-    return new Promise((resolve) => setImmediate(() => resolve(runInline(this.next++, jobs))));
+    return new Promise((resolve) => setImmediate(() => resolve(runBatch({ batch: this.next++, jobs, shared }))));
   }
 
   async close(): Promise<void> {}
@@ -104,7 +108,7 @@ class ThreadRunner implements JobRunner {
     }
   }
 
-  submit(jobs: JobInput[]): Promise<BatchResult> {
+  submit(jobs: JobInput[], shared: StoredRow): Promise<BatchResult> {
     const alive = this.slots.filter((s) => s.dead === null);
     if (alive.length === 0) return Promise.reject(this.slots[0].dead ?? new Error("no sweep workers"));
     // The least busy worker takes the batch.
@@ -113,7 +117,7 @@ class ThreadRunner implements JobRunner {
     const batch = this.next++;
     return new Promise((resolve, reject) => {
       slot.pending.set(batch, { resolve, reject });
-      slot.worker.postMessage({ batch, jobs } satisfies BatchRequest);
+      slot.worker.postMessage({ batch, jobs, shared } satisfies BatchRequest);
     });
   }
 

@@ -8,7 +8,7 @@ import { createRequire } from "node:module";
 import { existsSync, mkdirSync, readSync, openSync, closeSync, statSync } from "node:fs";
 import { dirname } from "node:path";
 import { InputError } from "../errors.js";
-import { COLUMNS, type CellValue, type ColumnSpec, type StoredRow } from "./columns.js";
+import { COLUMNS, rowValues, type CellValue, type ColumnSpec, type StoredRow } from "./columns.js";
 import type { OpenStoreOptions, ResultStore, RowFilter, SweepLogEntry } from "./store.js";
 
 /**
@@ -67,7 +67,9 @@ class SqliteStore implements ResultStore {
   private readonly present: Set<string>;
   private readonly insertStmt: Database.Statement;
   private readonly hasStmt: Database.Statement;
-  private readonly insertMany: (rows: readonly StoredRow[]) => number;
+  private readonly insertMany: (rows: readonly (readonly CellValue[])[]) => number;
+  /** For each column this store has, its position in COLUMNS (an older store may lack some). */
+  private readonly positions: number[];
 
   constructor(
     readonly path: string,
@@ -88,12 +90,14 @@ class SqliteStore implements ResultStore {
     }
     try {
       this.db.pragma("busy_timeout = 30000");
+      // A new (empty) file becomes a store; any other SQLite file must already be one.
+      const fresh = (this.db.prepare(`SELECT count(*) FROM sqlite_master`).pluck().get() as number) === 0;
+      if (!fresh || readonly) this.checkFormat();
       if (!readonly) {
         this.db.pragma("journal_mode = WAL");
         this.db.pragma("synchronous = NORMAL");
         this.createSchema();
       }
-      this.checkFormat();
     } catch (e) {
       this.db.close();
       if (e instanceof InputError) throw e;
@@ -101,13 +105,20 @@ class SqliteStore implements ResultStore {
     }
     this.present = new Set((this.db.prepare(`PRAGMA table_info(results)`).all() as { name: string }[]).map((r) => r.name));
     const cols = COLUMNS.filter((c) => this.present.has(c.name));
+    this.positions = cols.map((c) => COLUMNS.indexOf(c));
+    const all = this.positions.length === COLUMNS.length;
     this.insertStmt = readonly
       ? this.db.prepare("SELECT 1")
       : this.db.prepare(`INSERT INTO results (${cols.map((c) => q(c.name)).join(", ")}) VALUES (${cols.map(() => "?").join(", ")}) ON CONFLICT(key) DO NOTHING`);
     this.hasStmt = this.db.prepare(`SELECT 1 FROM results WHERE key = ?`).pluck();
-    this.insertMany = this.db.transaction((rows: readonly StoredRow[]) => {
+    this.insertMany = this.db.transaction((rows: readonly (readonly CellValue[])[]) => {
       let added = 0;
-      for (const r of rows) added += this.insertStmt.run(cols.map((c) => toCell(r[c.name]))).changes;
+      const cells = new Array<unknown>(this.positions.length);
+      for (const r of rows) {
+        if (r.length !== COLUMNS.length) throw new Error(`row of ${r.length} values, expected ${COLUMNS.length}`);
+        for (let i = 0; i < cells.length; i++) cells[i] = toCell(r[all ? i : this.positions[i]]);
+        added += this.insertStmt.run(...cells).changes;
+      }
       return added;
     });
   }
@@ -142,6 +153,10 @@ class SqliteStore implements ResultStore {
   }
 
   insert(rows: readonly StoredRow[]): number {
+    return this.insertValues(rows.map((r) => rowValues(r)));
+  }
+
+  insertValues(rows: readonly (readonly CellValue[])[]): number {
     if (this.readonly) throw new Error(`${this.path}: opened read-only`);
     if (rows.length === 0) return 0;
     return this.insertMany(rows);

@@ -2,7 +2,7 @@
 // `key` (columns.ts), so the SQLite binding behind it (sqlite-store.ts, better-sqlite3 today)
 // can be swapped for Node's built-in SQLite without touching sweeps, exports or merges.
 
-import type { StoredRow } from "./columns.js";
+import type { CellValue, StoredRow } from "./columns.js";
 
 export interface RowFilter {
   /** Only rows of these family labels. */
@@ -40,6 +40,8 @@ export interface ResultStore {
    * (the caller checks agreement where that matters). Returns how many rows were new.
    */
   insert(rows: readonly StoredRow[]): number;
+  /** The same for rows given as value arrays in COLUMNS order (the sweep's path: no objects per row). */
+  insertValues(rows: readonly (readonly CellValue[])[]): number;
   /** Rows in export order (family, n, m, key); `columns` limits what is read (default: all). */
   rows(filter?: RowFilter, columns?: readonly string[]): IterableIterator<StoredRow>;
   count(filter?: RowFilter): number;

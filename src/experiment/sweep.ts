@@ -5,7 +5,7 @@
 
 import { availableParallelism, hostname } from "node:os";
 import { InputError } from "../errors.js";
-import type { StoredRow } from "./columns.js";
+import { COLUMN_INDEX, type CellValue, type StoredRow } from "./columns.js";
 import type { JobInput } from "./job.js";
 import { parseShard, planJobs, shardSize, type PlannedJob, type Shard } from "./jobs.js";
 import { loadPlan, type Plan, type SweepPlan } from "./plan.js";
@@ -57,11 +57,16 @@ function nowIso(): string {
   return new Date().toISOString();
 }
 
-function ratioOf(row: StoredRow, degree: string): { upper: number; lower: number } | null {
-  const m = row.m as number;
-  const d = row[degree];
-  const su = row.surplusUpper;
-  const sl = row.surplusLower;
+const AT = (name: string): number => COLUMN_INDEX.get(name)!;
+const M = AT("m");
+const SURPLUS_UPPER = AT("surplusUpper");
+const SURPLUS_LOWER = AT("surplusLower");
+
+function ratioOf(values: readonly CellValue[], degree: number): { upper: number; lower: number } | null {
+  const m = values[M] as number;
+  const d = values[degree];
+  const su = values[SURPLUS_UPPER];
+  const sl = values[SURPLUS_LOWER];
   if (typeof d !== "number" || !(d > 0) || !(m > 0) || typeof su !== "number" || typeof sl !== "number") return null;
   const k = Math.sqrt(d) / m;
   return { upper: su * k, lower: sl * k };
@@ -100,6 +105,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
 
   const total = shardSize(p.total, shard);
   const degree = p.degrees[0];
+  const degreeAt = AT(degree);
   const t0 = performance.now();
   const elapsed = (): number => (performance.now() - t0) / 1000;
   let computed = 0;
@@ -119,7 +125,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     options.onProgress({ plan: p.name, done: computed + skipped, total, computed, skipped, elapsed: t, rate, eta: rate === null ? null : left / rate, current, degree, lowest, finished });
   };
 
-  const constant = { gitCommit: prov.gitCommit, nodeVersion: prov.nodeVersion, platform: prov.platform };
+  const shared: StoredRow = { gitCommit: prov.gitCommit, nodeVersion: prov.nodeVersion, platform: prov.platform };
   const runner = createRunner(workers);
   const slots = Math.max(1, 2 * runner.size); // two batches per worker: one running, one waiting
   const inFlight = new Set<Promise<void>>();
@@ -129,7 +135,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   const where = new Map<string, string>();
 
   const written = (r: BatchResult): void => {
-    const rows: StoredRow[] = [];
+    const rows: CellValue[][] = [];
     for (const res of r.results) {
       if (res.error !== undefined) {
         if (failure === null) {
@@ -138,14 +144,14 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
         }
         continue;
       }
-      rows.push({ ...res.row, ...constant });
+      rows.push(res.values);
       solverSeconds += res.solverSeconds;
-      const ratio = ratioOf(res.row, degree);
+      const ratio = ratioOf(res.values, degreeAt);
       if (ratio !== null && (lowest === null || ratio.upper < lowest.ratio)) {
         lowest = { ratio: ratio.upper, ratioLower: ratio.lower, key: res.key, graph: res.key.split("|")[0] };
       }
     }
-    computed += store.insert(rows);
+    computed += store.insertValues(rows);
     for (const res of r.results) where.delete(res.key);
     const ok = r.results.filter((x) => x.error === undefined).length;
     if (ok > 0) {
@@ -161,7 +167,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     const last = batch[batch.length - 1];
     current = { family: last.input.family, n: last.n };
     const done = runner
-      .submit(inputs)
+      .submit(inputs, shared)
       .then(written)
       .catch((e: Error) => {
         failure ??= e;

@@ -1,15 +1,17 @@
 // Compact evidence for stored rows: a partition as packed bits, JSON as UTF-8, each behind a
-// one-byte codec tag (0: as is, 1: raw deflate) so short payloads are not inflated by zlib's
-// overhead. Deflate at a fixed level is deterministic, so equal inputs give equal blobs.
+// one-byte codec tag (0: as is, 1: raw deflate). Payloads under 1 KB stay as they are: zlib would
+// barely shrink them and its set-up costs more than the rest of a tiny job's row. Deflate at a
+// fixed level is deterministic, so equal inputs give equal blobs.
 
 import { deflateRawSync, inflateRawSync } from "node:zlib";
 import { InputError } from "../errors.js";
 
 const PLAIN = 0;
 const DEFLATE = 1;
+const COMPRESS_FROM = 1024;
 
 function wrap(payload: Uint8Array): Uint8Array {
-  const packed = payload.length >= 64 ? deflateRawSync(payload, { level: 6 }) : null;
+  const packed = payload.length >= COMPRESS_FROM ? deflateRawSync(payload, { level: 6 }) : null;
   const useDeflate = packed !== null && packed.length < payload.length;
   const body = useDeflate ? packed : payload;
   const out = new Uint8Array(body.length + 1);
