@@ -16,19 +16,37 @@ export interface StoredBracket {
   graph: Graph;
 }
 
+function matches(row: StoredRow, filter: RowFilter | undefined): boolean {
+  if (filter === undefined) return true;
+  if (filter.family !== undefined) {
+    const fams = typeof filter.family === "string" ? [filter.family] : filter.family;
+    if (!fams.includes(String(row.family))) return false;
+  }
+  if (filter.keys !== undefined && !filter.keys.includes(String(row.key))) return false;
+  return filter.origin === undefined || row.origin === filter.origin;
+}
+
 /**
  * Every swept row as a bracket record and its graph, in export order. Imported rows carry no
- * bracket (they were measured elsewhere) and are passed over; `positions` picks rows by position.
+ * bracket (they were measured elsewhere) and are passed over. `positions` picks rows by their
+ * position in the whole store's export order (from 1), whatever the filter.
  */
 export async function* storedBrackets(store: ResultStore, filter?: RowFilter, positions?: ReadonlySet<number>): AsyncGenerator<StoredBracket> {
   let position = 0;
-  for (const row of store.rows(filter)) {
+  // Walk the light columns for positions, then read each chosen row whole.
+  const chosen: { key: string; position: number }[] = [];
+  for (const head of store.rows(undefined, ["key", "family", "origin"])) {
     position++;
     if (positions !== undefined && !positions.has(position)) continue;
-    if (row.origin !== "sweep") continue;
+    if (head.origin !== "sweep" || !matches(head, filter)) continue;
+    chosen.push({ key: String(head.key), position });
+  }
+  for (const c of chosen) {
+    const row = store.get(c.key);
+    if (row === undefined) continue; // removed meanwhile by another process
     const record = bracketRecordFromRow(row);
     const graph = await graphOfRow(row);
-    yield { key: String(row.key), position, row, record, graph };
+    yield { key: c.key, position: c.position, row, record, graph };
   }
 }
 
