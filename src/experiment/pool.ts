@@ -18,7 +18,7 @@ export interface BatchRequest {
 
 /** A finished job's row as values in COLUMNS order (cheaper to pass between threads than an object). */
 export type JobResult =
-  | { key: string; values: CellValue[]; solverSeconds: number; error?: undefined }
+  | { key: string; values: CellValue[]; solverSeconds: number; jobSeconds: number; error?: undefined }
   | { key: string; error: string; inputError: boolean; stack?: string };
 
 export interface BatchResult {
@@ -32,6 +32,8 @@ export interface JobRunner {
   /** Batches that can run at once. */
   readonly size: number;
   submit(jobs: JobInput[], shared: StoredRow): Promise<BatchResult>;
+  /** Seconds the workers have waited for work so far, summed (0 in the calling thread). */
+  idleSeconds(): number;
   close(): Promise<void>;
 }
 
@@ -53,8 +55,10 @@ export function runBatch(request: BatchRequest): BatchResult {
   const results: JobResult[] = [];
   for (const job of request.jobs) {
     try {
+      const t = performance.now();
       const out = runJob(job);
-      results.push({ key: job.key, values: rowValues(out.row, request.shared), solverSeconds: out.solverSeconds });
+      const values = rowValues(out.row, request.shared);
+      results.push({ key: job.key, values, solverSeconds: out.solverSeconds, jobSeconds: (performance.now() - t) / 1000 });
     } catch (e) {
       results.push({ key: job.key, error: e instanceof Error ? e.message : String(e), inputError: isInputError(e), stack: e instanceof Error ? e.stack : undefined });
       break;
@@ -70,6 +74,10 @@ class InlineRunner implements JobRunner {
   submit(jobs: JobInput[], shared: StoredRow): Promise<BatchResult> {
     // Yield to the event loop first, so progress, signals and writes keep flowing.
     return new Promise((resolve) => setImmediate(() => resolve(runBatch({ batch: this.next++, jobs, shared }))));
+  }
+
+  idleSeconds(): number {
+    return 0;
   }
 
   async close(): Promise<void> {}
@@ -119,6 +127,12 @@ class ThreadRunner implements JobRunner {
       slot.pending.set(batch, { resolve, reject });
       slot.worker.postMessage({ batch, jobs, shared } satisfies BatchRequest);
     });
+  }
+
+  idleSeconds(): number {
+    let idle = 0;
+    for (const s of this.slots) if (s.dead === null) idle += s.worker.performance.eventLoopUtilization().idle / 1000;
+    return idle;
   }
 
   async close(): Promise<void> {

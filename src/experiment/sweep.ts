@@ -46,6 +46,10 @@ export interface SweepSummary {
   seconds: number;
   /** Seconds spent inside bracket(), summed over jobs. */
   solverSeconds: number;
+  /** Seconds spent on whole jobs (building the graph, bracket, structure, bounds, the row), summed. */
+  jobSeconds: number;
+  /** Seconds the worker threads spent waiting for work, summed (start-up and the last jobs included). */
+  workerIdleSeconds: number;
   lowest: LowestRatio | null;
 }
 
@@ -74,16 +78,28 @@ function ratioOf(values: readonly CellValue[], degree: number): { upper: number;
 
 /** Run a plan (object, file path, or a plan already loaded) into a store. */
 export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOptions = {}): Promise<SweepSummary> {
-  const p: Plan = typeof plan === "object" && "entries" in plan ? plan : loadPlan(plan as SweepPlan | string, { base: options.base });
   const shard = options.shard === undefined || options.shard === null ? null : typeof options.shard === "string" ? parseShard(options.shard) : options.shard;
   if (shard !== null && (!Number.isInteger(shard.index) || !Number.isInteger(shard.count) || shard.count < 1 || shard.index < 0 || shard.index >= shard.count)) {
     throw new InputError(`runSweep: invalid \`shard\`: should have 0 ≤ index < count (got ${JSON.stringify(shard)})`);
   }
   const workers = options.workers ?? availableParallelism();
   if (!Number.isInteger(workers) || workers < 0 || workers > 1024) throw new InputError(`runSweep: invalid \`workers\`: should be an integer from 0 to 1024 (got ${JSON.stringify(options.workers)})`);
+  // Workers start first: loading their modules overlaps with checking the plan and opening the store.
+  const runner = createRunner(workers);
   const ownStore = typeof options.store !== "object";
-  const store: ResultStore = typeof options.store === "object" ? options.store : openStore(options.store ?? DEFAULT_STORE);
-  if (store.readonly) throw new InputError(`${store.path}: opened read-only; a sweep writes to it`);
+  let p: Plan;
+  let store: ResultStore;
+  try {
+    p = typeof plan === "object" && "entries" in plan ? plan : loadPlan(plan as SweepPlan | string, { base: options.base });
+    store = typeof options.store === "object" ? options.store : openStore(options.store ?? DEFAULT_STORE);
+  } catch (e) {
+    await runner.close();
+    throw e;
+  }
+  if (store.readonly) {
+    await runner.close();
+    throw new InputError(`${store.path}: opened read-only; a sweep writes to it`);
+  }
 
   const prov = provenance();
   const started = nowIso();
@@ -111,6 +127,8 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   let computed = 0;
   let skipped = 0;
   let solverSeconds = 0;
+  let jobSeconds = 0;
+  let workerIdleSeconds = 0;
   let lowest: LowestRatio | null = null;
   let current: SweepProgress["current"] = null;
   let lastReport = -Infinity;
@@ -126,7 +144,6 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   };
 
   const shared: StoredRow = { gitCommit: prov.gitCommit, nodeVersion: prov.nodeVersion, platform: prov.platform };
-  const runner = createRunner(workers);
   const slots = Math.max(1, 2 * runner.size); // two batches per worker: one running, one waiting
   const inFlight = new Set<Promise<void>>();
   const sent = new Set<string>();
@@ -146,6 +163,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
       }
       rows.push(res.values);
       solverSeconds += res.solverSeconds;
+      jobSeconds += res.jobSeconds;
       const ratio = ratioOf(res.values, degreeAt);
       if (ratio !== null && (lowest === null || ratio.upper < lowest.ratio)) {
         lowest = { ratio: ratio.upper, ratioLower: ratio.lower, key: res.key, graph: res.key.split("|")[0] };
@@ -207,6 +225,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     failure ??= e as Error;
     while (inFlight.size > 0) await Promise.race(inFlight);
   } finally {
+    workerIdleSeconds = runner.idleSeconds();
     await runner.close();
     log.finishedAt = nowIso();
     log.computed = computed;
@@ -216,7 +235,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   }
   if (failure !== null) throw failure;
   report(true);
-  return { plan: p.name, store: store.path, shard: shardText, workers, total, computed, skipped, stopped, seconds: elapsed(), solverSeconds, lowest };
+  return { plan: p.name, store: store.path, shard: shardText, workers, total, computed, skipped, stopped, seconds: elapsed(), solverSeconds, jobSeconds, workerIdleSeconds, lowest };
 }
 
 /** Keys of the plan's jobs (in this shard) that the store does not hold yet, in plan order. */

@@ -45,9 +45,9 @@ export const sweepCommand: CommandSpec = {
     if (store === "") throw new InputError("--store needs a file name");
     const shardText = o["shard"] as string | undefined;
     const shard = shardText === undefined ? null : parseShard(shardText);
-    const plan = loadPlan(args.positionals[0]);
+    const plan = args.positionals[0];
     if (o["list"] === true) {
-      for await (const key of pendingKeys(plan, { store, shard })) await writeLine(io.stdout, key);
+      for await (const key of pendingKeys(loadPlan(plan), { store, shard })) await writeLine(io.stdout, key);
       return 0;
     }
     const workers = (o["workers"] as number | undefined) ?? availableParallelism();
