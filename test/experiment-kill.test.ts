@@ -56,7 +56,7 @@ function checkStore(path: string): Checked {
   try {
     const integrity = db.pragma("integrity_check", { simple: true }) as string;
     const duplicates = db.prepare("select count(*) - count(distinct key) from results").pluck().get() as number;
-    const rows = db.prepare("select key, n, lower, upper, exact, witness, certificate from results").all() as { key: string; n: number; lower: number; upper: number; exact: number; witness: Buffer; certificate: Buffer }[];
+    const rows = db.prepare("select key, n, lower, upper, exact, witness, certificate from results").all() as { key: string; n: number; lower: number; upper: number; exact: number; witness: Buffer; certificate: Buffer | string }[];
     for (const r of rows) {
       expect(r.exact, r.key).toBe(1);
       expect(r.upper, r.key).toBe(r.lower);

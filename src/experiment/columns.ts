@@ -85,8 +85,8 @@ export const COLUMNS: readonly ColumnSpec[] = [
   { name: "notes", type: "text", group: "provenance", description: "notes about the graph or the row, as a JSON array" },
   // evidence
   { name: "witness", type: "blob", group: "evidence", description: "the best cut's partition: packed bits, compressed (see witness.ts)" },
-  { name: "certificate", type: "blob", group: "evidence", description: "the upper bound's certificate: JSON, compressed" },
-  { name: "runs", type: "blob", group: "evidence", description: "each method's summary: JSON, compressed" },
+  { name: "certificate", type: "blob", group: "evidence", description: "the upper bound's certificate: JSON text, compressed from 1 KB on" },
+  { name: "runs", type: "blob", group: "evidence", description: "each method's summary (with its seconds): JSON text, compressed from 1 KB on" },
   { name: "embedded", type: "text", group: "evidence", description: "the graph itself in graph6 or sparse6 (file graphs only)" },
 ];
 

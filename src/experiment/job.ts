@@ -22,7 +22,7 @@ import { triangleFreeBound } from "../bounds/triangle-free.js";
 import { vectorMethodGuarantee } from "../bounds/vector-method.js";
 import type { LowerBoundRecord } from "../bounds/types.js";
 import { resolveSourceRef, type SourceRef } from "../sources/index.js";
-import type { StoredRow } from "./columns.js";
+import { COLUMNS, type CellValue, type StoredRow } from "./columns.js";
 import { packJson, packPartition, unpackJson, unpackPartition } from "./witness.js";
 
 // ---------------------------------------------------------------------------------------------
@@ -164,13 +164,20 @@ export interface JobInput {
   graphSeed: number | null;
   solverSeed: number;
   settings: BracketSettings;
+}
+
+/** What every job of a sweep shares (sent once per batch, not once per job). */
+export interface JobContext {
   evaluators: readonly string[];
   degrees: readonly string[];
   version: string;
+  /** Values set on every row (the sweep's provenance). */
+  shared: StoredRow;
 }
 
 export interface JobOutput {
-  row: StoredRow;
+  /** The row's values in COLUMNS order. */
+  values: CellValue[];
   /** Seconds inside bracket() (the solver), for the overhead benchmark. */
   solverSeconds: number;
 }
@@ -178,8 +185,13 @@ export interface JobOutput {
 /** Node budget for the K4 and C5 searches of describeGraph: an unfinished search leaves the flag null. */
 const STRUCTURE_SEARCH_NODES = 10_000_000;
 
-/** Build the graph, bracket it, measure it: one row (without the sweep-wide provenance). */
-export function runJob(job: JobInput): JobOutput {
+/** Column positions by name: rows are filled as value arrays (a tiny job's row costs about as much as its solver). */
+const I: Readonly<Record<string, number>> = Object.fromEntries(COLUMNS.map((c, i) => [c.name, i]));
+
+const bool = (b: boolean | null): number | null => (b === null ? null : b ? 1 : 0);
+
+/** Build the graph, bracket it, measure it: one row. */
+export function runJob(job: JobInput, context: JobContext): JobOutput {
   const startedAt = new Date().toISOString();
   let graph: Graph;
   let notes: string[] = [];
@@ -201,77 +213,77 @@ export function runJob(job: JobInput): JobOutput {
   const rec = bracket(graph, { seconds: job.settings.seconds, seed: job.solverSeed, method: job.settings.effort, source });
   const solverSeconds = (performance.now() - t0) / 1000;
   const s = describeGraph(graph, { maxSearchNodes: STRUCTURE_SEARCH_NODES });
-  const keep = new Set(job.degrees);
-  const bool = (b: boolean | null): number | null => (b === null ? null : b ? 1 : 0);
+  const keep = context.degrees;
 
   // Fields the reworked bracket record will carry; read defensively so the row schema is ready for them.
   const future = rec as unknown as { budget?: { governing?: string; workUsed?: number | null }; upperKind?: string };
-  const sdp = rec.runs.find((r) => r.method === "sdp-dual" && r.role === "upper" && Number.isFinite(r.value));
+  let sdpUpper: number | null = null;
+  for (const r of rec.runs) if (r.method === "sdp-dual" && r.role === "upper" && Number.isFinite(r.value)) sdpUpper = r.value;
+  const file = job.graph.kind === "parts" ? job.graph.source : null;
 
-  const row: StoredRow = {
-    key: job.key,
-    origin: "sweep",
-    family: job.family,
-    graph: job.graph.kind === "spec" ? job.graph.spec : job.graph.hash,
-    spec: job.graph.kind === "spec" ? job.graph.spec : null,
-    params: job.params,
-    graphSeed: job.graphSeed,
-    sourcePath: job.graph.kind === "parts" ? job.graph.source.path : null,
-    sourcePosition: job.graph.kind === "parts" ? job.graph.source.position : null,
-    sourceFormat: job.graph.kind === "parts" ? job.graph.source.format : null,
-    graphHash: rec.graphHash,
-    solverSeed: rec.seed,
-    effort: rec.method,
-    budgetSeconds: job.settings.seconds,
-    workLimit: job.settings.work,
-    version: job.version,
-    n: s.n,
-    m: s.m,
-    totalWeight: s.totalWeight,
-    minDegree: keep.has("minDegree") ? s.minDegree : null,
-    maxDegree: keep.has("maxDegree") ? s.maxDegree : null,
-    averageDegree: keep.has("averageDegree") ? s.avgDegree : null,
-    degeneracy: keep.has("degeneracy") ? s.degeneracy : null,
-    triangles: s.triangles,
-    fourCycles: s.fourCycles,
-    girth: s.girth,
-    bipartite: bool(s.bipartite),
-    components: s.components,
-    freeK3: bool(s.free.K3),
-    freeK4: bool(s.free.K4),
-    freeC4: bool(s.free.C4),
-    freeC5: bool(s.free.C5),
-    lower: rec.lower,
-    upper: rec.upper,
-    surplusLower: rec.surplusLower,
-    surplusUpper: rec.surplusUpper,
-    exact: rec.exact ? 1 : 0,
-    upperKind: future.upperKind ?? (rec.upperProven ? "proven" : "estimate"),
-    lowerMethod: rec.lowerMethod,
-    upperMethod: rec.upperMethod,
-    certificateKind: rec.certificate.kind,
-    sdpUpper: sdp === undefined ? null : sdp.value,
-    budgetKind: future.budget?.governing ?? "time",
-    workUsed: future.budget?.workUsed ?? null,
-    seconds: rec.seconds,
-    startedAt,
-    notes: JSON.stringify(notes),
-    witness: packPartition(rec.partition),
-    certificate: packJson(rec.certificate),
-    runs: packJson(rec.runs),
-    embedded: job.graph.kind === "parts" ? embedGraph(graph) : null,
-  };
-  for (const e of EVALUATORS) {
-    if (!job.evaluators.includes(e.name)) continue;
-    // The triangle-free bound does not apply to a graph with a triangle: no need to evaluate it.
-    if (e.name === "triangle-free" && s.free.K3 === false) {
-      row[e.column] = null;
-      continue;
-    }
-    const b = e.run(graph);
-    row[e.column] = b.applies ? b.surplus : null;
+  const v = new Array<CellValue>(COLUMNS.length).fill(null);
+  v[I.key] = job.key;
+  v[I.origin] = "sweep";
+  v[I.family] = job.family;
+  v[I.graph] = job.graph.kind === "spec" ? job.graph.spec : job.graph.hash;
+  v[I.spec] = job.graph.kind === "spec" ? job.graph.spec : null;
+  v[I.params] = job.params;
+  v[I.graphSeed] = job.graphSeed;
+  if (file !== null) {
+    v[I.sourcePath] = file.path;
+    v[I.sourcePosition] = file.position;
+    v[I.sourceFormat] = file.format;
+    v[I.embedded] = embedGraph(graph);
   }
-  return { row, solverSeconds };
+  v[I.graphHash] = rec.graphHash;
+  v[I.solverSeed] = rec.seed;
+  v[I.effort] = rec.method;
+  v[I.budgetSeconds] = job.settings.seconds;
+  v[I.workLimit] = job.settings.work;
+  v[I.version] = context.version;
+  v[I.n] = s.n;
+  v[I.m] = s.m;
+  v[I.totalWeight] = s.totalWeight;
+  if (keep.includes("minDegree")) v[I.minDegree] = s.minDegree;
+  if (keep.includes("maxDegree")) v[I.maxDegree] = s.maxDegree;
+  if (keep.includes("averageDegree")) v[I.averageDegree] = s.avgDegree;
+  if (keep.includes("degeneracy")) v[I.degeneracy] = s.degeneracy;
+  v[I.triangles] = s.triangles;
+  v[I.fourCycles] = s.fourCycles;
+  v[I.girth] = s.girth;
+  v[I.bipartite] = bool(s.bipartite);
+  v[I.components] = s.components;
+  v[I.freeK3] = bool(s.free.K3);
+  v[I.freeK4] = bool(s.free.K4);
+  v[I.freeC4] = bool(s.free.C4);
+  v[I.freeC5] = bool(s.free.C5);
+  v[I.lower] = rec.lower;
+  v[I.upper] = rec.upper;
+  v[I.surplusLower] = rec.surplusLower;
+  v[I.surplusUpper] = rec.surplusUpper;
+  v[I.exact] = rec.exact ? 1 : 0;
+  v[I.upperKind] = future.upperKind ?? (rec.upperProven ? "proven" : "estimate");
+  v[I.lowerMethod] = rec.lowerMethod;
+  v[I.upperMethod] = rec.upperMethod;
+  v[I.certificateKind] = rec.certificate.kind;
+  v[I.sdpUpper] = sdpUpper;
+  v[I.budgetKind] = future.budget?.governing ?? "time";
+  v[I.workUsed] = future.budget?.workUsed ?? null;
+  v[I.seconds] = rec.seconds;
+  v[I.startedAt] = startedAt;
+  v[I.notes] = notes.length === 0 ? "[]" : JSON.stringify(notes);
+  v[I.witness] = packPartition(rec.partition);
+  v[I.certificate] = packJson(rec.certificate);
+  v[I.runs] = packJson(rec.runs);
+  for (const e of EVALUATORS) {
+    if (!context.evaluators.includes(e.name)) continue;
+    // The triangle-free bound does not apply to a graph with a triangle: no need to evaluate it.
+    if (e.name === "triangle-free" && s.free.K3 === false) continue;
+    const b = e.run(graph);
+    v[I[e.column]] = b.applies ? b.surplus : null;
+  }
+  for (const k of Object.keys(context.shared)) v[I[k]] = context.shared[k];
+  return { values: v, solverSeconds };
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -283,9 +295,15 @@ const num = (row: StoredRow, k: string): number => {
   return v;
 };
 
-function blob(row: StoredRow, k: string): Uint8Array {
+function evidence(row: StoredRow, k: string): Uint8Array | string {
   const v = row[k];
-  if (!(v instanceof Uint8Array)) throw new InputError(`row ${String(row.key)}: holds no ${k} (imported rows carry no evidence)`);
+  if (!(v instanceof Uint8Array) && typeof v !== "string") throw new InputError(`row ${String(row.key)}: holds no ${k} (imported rows carry no evidence)`);
+  return v;
+}
+
+function blob(row: StoredRow, k: string): Uint8Array {
+  const v = evidence(row, k);
+  if (typeof v === "string") throw new InputError(`row ${String(row.key)}: ${k} should be a blob`);
   return v;
 }
 
@@ -319,8 +337,8 @@ export function bracketRecordFromRow(row: StoredRow): BracketRecord {
     seed: num(row, "solverSeed"),
     method: String(row.effort) as Effort,
     partition: unpackPartition(blob(row, "witness"), n, `${where}: witness`),
-    certificate: unpackJson(blob(row, "certificate"), `${where}: certificate`) as BracketRecord["certificate"],
-    runs: row.runs instanceof Uint8Array ? (unpackJson(row.runs, `${where}: runs`) as BracketRecord["runs"]) : [],
+    certificate: unpackJson(evidence(row, "certificate"), `${where}: certificate`) as BracketRecord["certificate"],
+    runs: row.runs === null || row.runs === undefined ? [] : (unpackJson(evidence(row, "runs"), `${where}: runs`) as BracketRecord["runs"]),
     graphHash: String(row.graphHash),
     source: sourceOf(row),
   };

@@ -53,7 +53,6 @@ export function shardSize(total: number, shard: Shard | null): number {
 /** Every job of the plan in this shard, in plan order. */
 export async function* planJobs(plan: Plan, version: string, shard: Shard | null = null): AsyncGenerator<PlannedJob> {
   let index = 0;
-  const common = { evaluators: plan.evaluators, degrees: plan.degrees, version };
   for (const e of plan.entries) {
     if (e.kind === "specs") {
       for (const item of e.items) {
@@ -65,7 +64,6 @@ export async function* planJobs(plan: Plan, version: string, shard: Shard | null
             where: e.where,
             n: item.n,
             input: {
-              ...common,
               key: jobKey(item.spec, solverSeed, e.settings, version),
               family: item.label,
               graph: { kind: "spec", spec: item.spec },
@@ -98,7 +96,6 @@ export async function* planJobs(plan: Plan, version: string, shard: Shard | null
             where: e.where,
             n: loaded.graph.n,
             input: {
-              ...common,
               key: jobKey(hash, e.solverSeeds[k], e.settings, version),
               family: e.label,
               graph: { kind: "parts", parts, hash, source: { path: e.source, position, format: loaded.format } },

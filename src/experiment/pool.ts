@@ -6,14 +6,14 @@ import { existsSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
 import { isInputError } from "../errors.js";
-import { rowValues, type CellValue, type StoredRow } from "./columns.js";
-import { runJob, type JobInput } from "./job.js";
+import type { CellValue } from "./columns.js";
+import { runJob, type JobContext, type JobInput } from "./job.js";
 
 export interface BatchRequest {
   batch: number;
   jobs: JobInput[];
-  /** Fields every row of the sweep shares (provenance), set on each row. */
-  shared: StoredRow;
+  /** What every job shares: evaluators, degree measures, version, provenance. */
+  context: JobContext;
 }
 
 /** A finished job's row as values in COLUMNS order (cheaper to pass between threads than an object). */
@@ -31,7 +31,7 @@ export interface BatchResult {
 export interface JobRunner {
   /** Batches that can run at once. */
   readonly size: number;
-  submit(jobs: JobInput[], shared: StoredRow): Promise<BatchResult>;
+  submit(jobs: JobInput[], context: JobContext): Promise<BatchResult>;
   /** Seconds the workers have waited for work so far, summed (0 in the calling thread). */
   idleSeconds(): number;
   close(): Promise<void>;
@@ -56,9 +56,8 @@ export function runBatch(request: BatchRequest): BatchResult {
   for (const job of request.jobs) {
     try {
       const t = performance.now();
-      const out = runJob(job);
-      const values = rowValues(out.row, request.shared);
-      results.push({ key: job.key, values, solverSeconds: out.solverSeconds, jobSeconds: (performance.now() - t) / 1000 });
+      const out = runJob(job, request.context);
+      results.push({ key: job.key, values: out.values, solverSeconds: out.solverSeconds, jobSeconds: (performance.now() - t) / 1000 });
     } catch (e) {
       results.push({ key: job.key, error: e instanceof Error ? e.message : String(e), inputError: isInputError(e), stack: e instanceof Error ? e.stack : undefined });
       break;
@@ -71,9 +70,9 @@ class InlineRunner implements JobRunner {
   readonly size = 1;
   private next = 0;
 
-  submit(jobs: JobInput[], shared: StoredRow): Promise<BatchResult> {
+  submit(jobs: JobInput[], context: JobContext): Promise<BatchResult> {
     // Yield to the event loop first, so progress, signals and writes keep flowing.
-    return new Promise((resolve) => setImmediate(() => resolve(runBatch({ batch: this.next++, jobs, shared }))));
+    return new Promise((resolve) => setImmediate(() => resolve(runBatch({ batch: this.next++, jobs, context }))));
   }
 
   idleSeconds(): number {
@@ -116,7 +115,7 @@ class ThreadRunner implements JobRunner {
     }
   }
 
-  submit(jobs: JobInput[], shared: StoredRow): Promise<BatchResult> {
+  submit(jobs: JobInput[], context: JobContext): Promise<BatchResult> {
     const alive = this.slots.filter((s) => s.dead === null);
     if (alive.length === 0) return Promise.reject(this.slots[0].dead ?? new Error("no sweep workers"));
     // The least busy worker takes the batch.
@@ -125,7 +124,7 @@ class ThreadRunner implements JobRunner {
     const batch = this.next++;
     return new Promise((resolve, reject) => {
       slot.pending.set(batch, { resolve, reject });
-      slot.worker.postMessage({ batch, jobs, shared } satisfies BatchRequest);
+      slot.worker.postMessage({ batch, jobs, context } satisfies BatchRequest);
     });
   }
 

@@ -5,8 +5,8 @@
 
 import { availableParallelism, hostname } from "node:os";
 import { InputError } from "../errors.js";
-import { COLUMN_INDEX, type CellValue, type StoredRow } from "./columns.js";
-import type { JobInput } from "./job.js";
+import { COLUMN_INDEX, type CellValue } from "./columns.js";
+import type { JobContext, JobInput } from "./job.js";
 import { parseShard, planJobs, shardSize, type PlannedJob, type Shard } from "./jobs.js";
 import { loadPlan, type Plan, type SweepPlan } from "./plan.js";
 import { createRunner, type BatchResult } from "./pool.js";
@@ -56,6 +56,8 @@ export interface SweepSummary {
 /** Batches aim at this many seconds of work, so tiny jobs do not pay one message each. */
 const BATCH_TARGET_SECONDS = 0.03;
 const MAX_BATCH = 256;
+/** Stores up to this many rows have their keys read into memory at the start of a sweep. */
+const KEYS_IN_MEMORY = 250_000;
 
 function nowIso(): string {
   return new Date().toISOString();
@@ -143,7 +145,12 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     options.onProgress({ plan: p.name, done: computed + skipped, total, computed, skipped, elapsed: t, rate, eta: rate === null ? null : left / rate, current, degree, lowest, finished });
   };
 
-  const shared: StoredRow = { gitCommit: prov.gitCommit, nodeVersion: prov.nodeVersion, platform: prov.platform };
+  const context: JobContext = {
+    evaluators: p.evaluators,
+    degrees: p.degrees,
+    version: prov.version,
+    shared: { gitCommit: prov.gitCommit, nodeVersion: prov.nodeVersion, platform: prov.platform },
+  };
   const slots = Math.max(1, 2 * runner.size); // two batches per worker: one running, one waiting
   const inFlight = new Set<Promise<void>>();
   const sent = new Set<string>();
@@ -185,7 +192,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     const last = batch[batch.length - 1];
     current = { family: last.input.family, n: last.n };
     const done = runner
-      .submit(inputs, shared)
+      .submit(inputs, context)
       .then(written)
       .catch((e: Error) => {
         failure ??= e;
@@ -193,6 +200,14 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     const tracked = done.finally(() => inFlight.delete(tracked));
     inFlight.add(tracked);
   };
+
+  // The keys already stored, held in memory when there are not too many (one lookup per job
+  // otherwise); a row another process adds meanwhile is still never duplicated (the insert skips it).
+  let stored: Set<string> | null = null;
+  if (store.count() <= KEYS_IN_MEMORY) {
+    stored = new Set();
+    for (const r of store.rows(undefined, ["key"])) stored.add(String(r.key));
+  }
 
   let stopped = false;
   try {
@@ -205,7 +220,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
         break;
       }
       const key = job.input.key;
-      if (sent.has(key) || store.has(key)) {
+      if (sent.has(key) || (stored === null ? store.has(key) : stored.has(key))) {
         skipped++;
         report(false);
         continue;

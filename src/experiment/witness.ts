@@ -1,7 +1,7 @@
-// Compact evidence for stored rows: a partition as packed bits, JSON as UTF-8, each behind a
-// one-byte codec tag (0: as is, 1: raw deflate). Payloads under 1 KB stay as they are: zlib would
-// barely shrink them and its set-up costs more than the rest of a tiny job's row. Deflate at a
-// fixed level is deterministic, so equal inputs give equal blobs.
+// Compact evidence for stored rows: a partition as packed bits behind a one-byte codec tag
+// (0: as is, 1: raw deflate); JSON as text, or as a tagged blob of UTF-8 when it is 1 KB or more.
+// Short payloads stay as they are: zlib would barely shrink them and its set-up costs more than
+// the rest of a tiny job's row. Deflate at a fixed level is deterministic: equal inputs, equal blobs.
 
 import { deflateRawSync, inflateRawSync } from "node:zlib";
 import { InputError } from "../errors.js";
@@ -51,13 +51,16 @@ export function unpackPartition(blob: Uint8Array, n: number, what = "witness"): 
   return out;
 }
 
-/** Any JSON value, compressed. */
-export function packJson(value: unknown): Uint8Array {
-  return wrap(Buffer.from(JSON.stringify(value), "utf8"));
+/** Any JSON value: as JSON text when short, compressed (a blob) from 1 KB on. */
+export function packJson(value: unknown): string | Uint8Array {
+  const text = JSON.stringify(value);
+  // Short text stays text: readable in the store, and no byte copies for the many tiny rows.
+  if (text.length < COMPRESS_FROM) return text;
+  return wrap(Buffer.from(text, "utf8"));
 }
 
-export function unpackJson(blob: Uint8Array, what: string): unknown {
-  const text = Buffer.from(unwrap(blob, what)).toString("utf8");
+export function unpackJson(stored: Uint8Array | string, what: string): unknown {
+  const text = typeof stored === "string" ? stored : Buffer.from(unwrap(stored, what)).toString("utf8");
   try {
     return JSON.parse(text);
   } catch {
