@@ -144,6 +144,22 @@ describe("halfplus sweep", () => {
     }
   });
 
+  it("a bad graph in the middle of a file stops the sweep with one line naming the file and line; the rows before it stay", () => {
+    const file = join(dir, "broken.g6");
+    writeFileSync(file, `${encodeGraph6(family("cycle:n=5"))}\n${encodeGraph6(family("petersen"))}\n${encodeGraph6(family("cycle:n=7"))}\nD??zzz\n${encodeGraph6(family("cycle:n=9"))}\n`);
+    const plan = join(dir, "broken.json");
+    writeFileSync(plan, JSON.stringify({ name: "broken", bracket: { effort: "exact", seconds: 30 }, families: [{ source: "broken.g6" }] }));
+    const store = join(dir, "broken.db");
+    const r = halfplus(["sweep", plan, "--store", store, "--workers", "1", "--no-progress"]);
+    expect(r.code).toBe(2);
+    expect(r.stderr.trim().split("\n")).toHaveLength(1);
+    expect(r.stderr).toMatch(/^halfplus sweep: .*broken\.g6:4: /);
+    const st = openStore(store, { readonly: true });
+    expect(st.count()).toBe(3);
+    expect(st.sweeps().map((x) => x.status)).toEqual(["failed"]);
+    st.close();
+  });
+
   itNeeds([tool("nauty-geng")], "every connected graph on 6 vertices from nauty-geng: 112 rows (OEIS A001349), each max cut as brute force finds it", () => {
     const file = join(dir, "connected6.g6");
     const lines = gengLines(["-c", "6"]);

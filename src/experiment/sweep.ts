@@ -210,8 +210,8 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   }
 
   let stopped = false;
+  let batch: PlannedJob[] = [];
   try {
-    let batch: PlannedJob[] = [];
     const batchSize = (): number => (secondsPerJob === null ? 1 : Math.max(1, Math.min(MAX_BATCH, Math.floor(BATCH_TARGET_SECONDS / Math.max(secondsPerJob, 1e-7)))));
     for await (const job of planJobs(p, prov.version, shard)) {
       if (failure !== null) break;
@@ -236,7 +236,8 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     if (batch.length > 0 && failure === null && !stopped) dispatch(batch);
     while (inFlight.size > 0) await Promise.race(inFlight);
   } catch (e) {
-    // A bad graph in a file stream, for instance: finish what is running, then report it.
+    // A bad graph in a file stream, for instance: run the jobs read before it, then report it.
+    if (failure === null && batch.length > 0) dispatch(batch);
     failure ??= e as Error;
     while (inFlight.size > 0) await Promise.race(inFlight);
   } finally {
