@@ -183,6 +183,10 @@ describe("import", () => {
         { key: "import|mine|measured.csv:2", family: "mine", n: 10, m: 15, degeneracy: 3, surplusLower: 4.5, surplusUpper: 4.5, exact: true },
         { key: "import|mine|measured.csv:3", family: "mine", n: 20, m: 40, degeneracy: 4, surplusLower: 7, surplusUpper: 9.25, exact: false },
       ]);
+      // Imported rows without the maximum and average degree cannot be drawn on every axis: left out of SurplusRow.
+      const skipped = { count: 0 };
+      expect(surplusRowsFromStore(st, undefined, skipped)).toEqual([]);
+      expect(skipped.count).toBe(2);
       const lines = [...exportLines(st, "jsonl")].map((l) => JSON.parse(l));
       expect(lines[1]).toMatchObject({ origin: "import", lower: 27, upper: 29.25, budgetKind: "none" });
       writeFileSync(csv, "family,n,m,d,surplusLower,surplusUpper\nmine,10,15,3,4.5,4.5\nmine,20,40,4,7.5,9.25\n");

@@ -22,18 +22,21 @@ export interface FitRow {
   exact: boolean;
 }
 
-/** One bracketed graph as a figure reads it: the bracket and the closed-form bounds beside it (all as surpluses). */
+/**
+ * One bracketed graph as a figure reads it: the bracket and the closed-form bounds beside it (all
+ * as surpluses). Every field but the optional ones is present: rows lacking one are left out
+ * (see `surplusRowsFromStore`).
+ */
 export interface SurplusRow {
   key: string;
   family: string;
-  /** null for imported rows that did not give it. */
-  n: number | null;
+  n: number;
   m: number;
-  degeneracy: number | null;
-  maxDegree: number | null;
-  averageDegree: number | null;
-  surplusLower: number | null;
-  surplusUpper: number | null;
+  degeneracy: number;
+  maxDegree: number;
+  averageDegree: number;
+  surplusLower: number;
+  surplusUpper: number;
   exact: boolean;
   /** The best cut found (a cut value, not a surplus). */
   bestCut?: number;
@@ -76,20 +79,29 @@ export function fitRowsFromStore(store: ResultStore, filter?: FitRowFilter): Fit
   return out;
 }
 
-/** Rows for src/plot, in export order. */
-export function surplusRowsFromStore(store: ResultStore, filter?: FitRowFilter): SurplusRow[] {
+/**
+ * Rows for src/plot, in export order. A row without n, one of the three degree measures or one of
+ * the two surplus bounds (an imported row, a plan that kept fewer measures) cannot be drawn on
+ * every axis and is left out; `skipped` (when given) counts those.
+ */
+export function surplusRowsFromStore(store: ResultStore, filter?: FitRowFilter, skipped?: { count: number }): SurplusRow[] {
   const out: SurplusRow[] = [];
+  const need = ["n", "degeneracy", "maxDegree", "averageDegree", "surplusLower", "surplusUpper"];
   for (const r of selected(store, filter)) {
+    if (need.some((k) => typeof r[k] !== "number")) {
+      if (skipped !== undefined) skipped.count++;
+      continue;
+    }
     const row: SurplusRow = {
       key: String(r.key),
       family: String(r.family),
-      n: numOrNull(r.n),
+      n: r.n as number,
       m: r.m as number,
-      degeneracy: numOrNull(r.degeneracy),
-      maxDegree: numOrNull(r.maxDegree),
-      averageDegree: numOrNull(r.averageDegree),
-      surplusLower: numOrNull(r.surplusLower),
-      surplusUpper: numOrNull(r.surplusUpper),
+      degeneracy: r.degeneracy as number,
+      maxDegree: r.maxDegree as number,
+      averageDegree: r.averageDegree as number,
+      surplusLower: r.surplusLower as number,
+      surplusUpper: r.surplusUpper as number,
       exact: r.exact === 1,
     };
     const W = typeof r.totalWeight === "number" ? r.totalWeight : (r.m as number);
