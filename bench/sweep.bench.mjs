@@ -100,6 +100,10 @@ if (only === null || only === "overhead" || only === "scaling") {
       target: "≥ 1.7",
       // The same ratio for a bare arithmetic loop on 1 and 2 threads, measured around the run.
       machine_speedup: +((before + after) / 2).toFixed(2),
+      // Share of the run the two workers spent inside jobs (the rest: start-up, waiting for work).
+      workers_busy_pct: +((100 * two.jobSeconds) / (2 * two.wall)).toFixed(1),
+      // Seconds per job inside the solver with 2 workers against 1: above 1 when the threads get less than a core each.
+      solver_slowdown: +(two.solverSeconds / one.solverSeconds).toFixed(2),
       load: loadavg()[0].toFixed(1),
     });
     console.log(JSON.stringify(rows[rows.length - 1]));
