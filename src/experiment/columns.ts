@@ -30,7 +30,7 @@ export const COLUMNS: readonly ColumnSpec[] = [
   { name: "spec", type: "text", group: "identity", description: "canonical family spec (null for file graphs)" },
   { name: "params", type: "text", group: "identity", description: "family parameters as a JSON object (null for file graphs)" },
   { name: "graphSeed", type: "integer", group: "identity", description: "seed of a random family (null otherwise)" },
-  { name: "sourcePath", type: "text", group: "identity", description: "graph file the graph was read from" },
+  { name: "sourcePath", type: "text", group: "identity", description: "graph file the graph was read from, as the plan names it (relative to the plan's folder)" },
   { name: "sourcePosition", type: "integer", group: "identity", description: "position of the graph in its file, from 1" },
   { name: "sourceFormat", type: "text", group: "identity", description: "format of that file" },
   { name: "graphHash", type: "text", group: "identity", description: "SHA-256 of the edge list (as in bracket records)" },

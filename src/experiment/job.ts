@@ -139,7 +139,7 @@ const EMBED_LIMIT = 1 << 20;
 /** The shorter of graph6 and sparse6 text for an unweighted graph, or null when weighted or too big. */
 export function embedGraph(g: Graph): string | null {
   if (g.weighted) return null;
-  // graph6 needs about n²/12 bytes, sparse6 about m·(1 + log2 n)/3: compare before encoding.
+  // graph6 needs about n²/12 bytes, sparse6 about m·(2 + log2 n)/3: compare before encoding.
   const g6Size = (g.n * (g.n - 1)) / 12;
   const s6Size = (g.m * 2 * (2 + Math.log2(g.n + 1))) / 6;
   if (Math.min(g6Size, s6Size) > EMBED_LIMIT) return null;
