@@ -32,7 +32,7 @@ export const sweepCommand: CommandSpec = {
     },
     { name: "list", type: "boolean", description: "print the keys of the jobs still to run (one per line) and stop" },
     { name: "json", type: "boolean", description: "print the summary as one JSON object" },
-    { name: "progress", type: "boolean", description: "progress on stderr (default on; a live line on a terminal, a plain line every 10 s otherwise)", default: true },
+    { name: "progress", type: "boolean", description: "progress on stderr: a live line on a terminal, a plain line every 10 s otherwise (on by default; --no-progress turns it off)", default: true },
   ],
   examples: [
     "halfplus sweep plans/triangle-free.json",
