@@ -11,5 +11,6 @@ export * from "./families/index.js";
 export * from "./bounds/index.js";
 export * from "./cut/index.js";
 export * from "./sources/index.js";
+export * from "./experiment/index.js";
 export * from "./fit/index.js";
 export * from "./plot/index.js";

@@ -7,5 +7,9 @@ import { familiesCommand } from "./families.js";
 import { graphCommand } from "./graph.js";
 import { sdpExportCommand } from "./sdp-export.js";
 import { verifyCommand } from "./verify.js";
+import { sweepCommand } from "./sweep.js";
+import { exportCommand } from "./export.js";
+import { importCommand } from "./import.js";
+import { mergeCommand } from "./merge.js";
 
-export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, verifyCommand, sdpExportCommand];
+export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand];

@@ -12,6 +12,8 @@ import type { CommandSpec } from "../args.js";
 import { formatRows } from "../format.js";
 import { writeLine } from "../output.js";
 import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
+import { isStoreFile } from "../../experiment/index.js";
+import { verifyStore } from "./verify-store.js";
 
 async function readAll(path: string, stdin: NodeJS.ReadableStream): Promise<string> {
   if (path === "-") {
@@ -28,8 +30,8 @@ async function readAll(path: string, stdin: NodeJS.ReadableStream): Promise<stri
 
 export const verifyCommand: CommandSpec = {
   name: "verify",
-  summary: "re-check bracket records from `halfplus cut --json` against their graphs",
-  positionals: "<records>",
+  summary: "re-check bracket records (from `halfplus cut --json`, or the rows of a results store) against their graphs",
+  positionals: "<records|store.db>",
   minPositionals: 1,
   maxPositionals: 1,
   description: [
@@ -41,14 +43,20 @@ export const verifyCommand: CommandSpec = {
     { name: "seconds", type: "number", description: "time budget for rerunning exact search on exhaustive-search certificates", default: 60, min: 0.001, max: 1e7, placeholder: "S" },
     { name: "json", type: "boolean", description: "one JSON verdict per record, one per line" },
     ...SOURCE_OPTIONS,
+    // Results stores (halfplus sweep): see verify-store.ts.
+    { name: "row", type: "string", description: "store only: re-check the row with this key, or rows at these positions in export order (from 1, e.g. 3 or 2,5,9)", placeholder: "KEY|N" },
+    { name: "family", type: "string", description: "store only: re-check the rows of this family label", placeholder: "NAME" },
   ],
   examples: [
     "halfplus cut petersen --json > p.jsonl && halfplus verify p.jsonl",
     "printf 'DQc\\n' | halfplus cut - --json | halfplus verify -",
     "halfplus verify results.jsonl --graph G1.txt",
+    "halfplus verify results/halfplus.db --row 3",
   ],
   async run(args, io) {
     const path = args.positionals[0];
+    if (isStoreFile(path)) return verifyStore(path, args, io);
+    if (args.options["row"] !== undefined || args.options["family"] !== undefined) throw new InputError(`--row and --family select rows of a results store; ${path} is not one`);
     const where = path === "-" ? "stdin" : path;
     const graphArg = args.options["graph"] as string | undefined;
     const seconds = args.options["seconds"] as number;

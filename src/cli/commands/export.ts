@@ -1,0 +1,77 @@
+// `halfplus export <store>`: stored rows as CSV and/or JSON lines, in a fixed column and row
+// order (wall-clock fields only with --timing), to files or standard output ("-").
+import { closeSync, openSync, writeSync } from "node:fs";
+import { InputError } from "../../errors.js";
+import type { CommandSpec } from "../args.js";
+import { exportLines, openStore, resolveExportColumns, type ExportFormat, type ExportOptions } from "../../experiment/index.js";
+import { writeLine } from "../output.js";
+
+async function writeAll(target: string, lines: Iterable<string>, stdout: NodeJS.WritableStream): Promise<void> {
+  if (target === "-") {
+    for (const l of lines) await writeLine(stdout, l);
+    return;
+  }
+  let fd: number;
+  try {
+    fd = openSync(target, "w");
+  } catch (e) {
+    throw new InputError(`${target}: cannot write (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
+  }
+  try {
+    let buf: string[] = [];
+    let size = 0;
+    for (const l of lines) {
+      buf.push(l);
+      size += l.length + 1;
+      if (size >= 1 << 16) {
+        writeSync(fd, buf.join("\n") + "\n");
+        buf = [];
+        size = 0;
+      }
+    }
+    if (buf.length > 0) writeSync(fd, buf.join("\n") + "\n");
+  } finally {
+    closeSync(fd);
+  }
+}
+
+export const exportCommand: CommandSpec = {
+  name: "export",
+  summary: "write the rows of a results store as CSV or JSON lines (same plan, same bytes)",
+  positionals: "<store.db>",
+  minPositionals: 1,
+  maxPositionals: 1,
+  options: [
+    { name: "csv", type: "string", description: "write CSV with a header line to FILE (- for standard output)", placeholder: "FILE" },
+    { name: "jsonl", type: "string", description: "write one JSON object per row to FILE (- for standard output)", placeholder: "FILE" },
+    { name: "timing", type: "boolean", description: "include the wall-clock fields seconds and startedAt (they differ from run to run)" },
+    { name: "columns", type: "string", description: "only these columns, comma-separated, in this order", placeholder: "A,B,..." },
+    { name: "family", type: "string", description: "only rows of this family label", placeholder: "NAME" },
+  ],
+  examples: ["halfplus export results/halfplus.db --csv rows.csv", "halfplus export results/halfplus.db --jsonl - --family polarity | head"],
+  async run(args, io) {
+    const o = args.options;
+    const csv = o["csv"] as string | undefined;
+    const jsonl = o["jsonl"] as string | undefined;
+    if (csv === undefined && jsonl === undefined) throw new InputError("give --csv FILE and/or --jsonl FILE (- for standard output)");
+    if (csv === "-" && jsonl === "-") throw new InputError("--csv and --jsonl cannot both go to standard output");
+    for (const [name, v] of [["csv", csv], ["jsonl", jsonl]] as const) if (v === "") throw new InputError(`--${name} needs a file name`);
+    const columnsText = o["columns"] as string | undefined;
+    const options: ExportOptions = {
+      timing: o["timing"] === true,
+      columns: columnsText === undefined ? undefined : columnsText.split(",").map((c) => c.trim()).filter((c) => c !== ""),
+      filter: o["family"] === undefined ? undefined : { family: o["family"] as string },
+    };
+    resolveExportColumns(options); // a bad column name fails before any file is touched
+    const store = openStore(args.positionals[0], { readonly: true });
+    try {
+      const targets: [ExportFormat, string][] = [];
+      if (csv !== undefined) targets.push(["csv", csv]);
+      if (jsonl !== undefined) targets.push(["jsonl", jsonl]);
+      for (const [format, target] of targets) await writeAll(target, exportLines(store, format, options), io.stdout);
+    } finally {
+      store.close();
+    }
+    return 0;
+  },
+};

@@ -1,0 +1,31 @@
+// `halfplus merge a.db b.db --into all.db`: union of results stores. Rows with the same key must
+// agree on every result field; any disagreement refuses the merge and names the key and fields.
+import { InputError } from "../../errors.js";
+import type { CommandSpec } from "../args.js";
+import { mergeStores } from "../../experiment/index.js";
+import { writeLine } from "../output.js";
+
+export const mergeCommand: CommandSpec = {
+  name: "merge",
+  summary: "merge results stores into one (refuses rows that disagree on the same key; merging again adds nothing)",
+  positionals: "<store.db...>",
+  minPositionals: 1,
+  maxPositionals: Infinity,
+  options: [
+    { name: "into", type: "string", description: "the store to merge into (created if missing)", placeholder: "FILE" },
+    { name: "json", type: "boolean", description: "print the report as one JSON object" },
+  ],
+  examples: ["halfplus merge shard-0.db shard-1.db shard-2.db --into all.db"],
+  async run(args, io) {
+    const into = args.options["into"] as string | undefined;
+    if (into === undefined || into === "") throw new InputError("--into FILE is required: the store to merge into");
+    const report = mergeStores(args.positionals, into);
+    if (args.options["json"] === true) await writeLine(io.stdout, JSON.stringify(report));
+    else {
+      const lines = report.sources.map((s) => `${s.path}: ${s.rows} rows, ${s.added} added, ${s.alreadyThere} already in ${report.into}`);
+      lines.push(`${report.into}: ${report.total} rows`);
+      await writeLine(io.stdout, lines.join("\n"));
+    }
+    return 0;
+  },
+};

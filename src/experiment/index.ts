@@ -1,0 +1,17 @@
+// Sweeps and the results store: plans, the worker pool, the SQLite store behind a small
+// interface, export, import, merge, and rows for the fits and figures.
+export * from "./columns.js";
+export * from "./store.js";
+export { openStore, isStoreFile, DEFAULT_STORE } from "./sqlite-store.js";
+export * from "./plan.js";
+export { parseShard, jobKey, shardSize, type Shard } from "./jobs.js";
+export { EFFORTS, EVALUATOR_NAMES, DEGREE_MEASURES, WORK_BUDGETS_AVAILABLE, type BracketSettings, type DegreeMeasure, type Effort } from "./job.js";
+export * from "./sweep.js";
+export * from "./progress.js";
+export * from "./export.js";
+export * from "./import.js";
+export * from "./merge.js";
+export * from "./fit-rows.js";
+export * from "./records.js";
+export { packPartition, unpackPartition } from "./witness.js";
+export { halfplusVersion } from "./provenance.js";

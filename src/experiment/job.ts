@@ -1,0 +1,364 @@
+// The one place the experiment layer touches the records of other layers: family specs and their
+// parameters, bracket() and its record, describeGraph(), the lower-bound evaluators, graph hashes
+// and the bracket verifier. Everything else in src/experiment works with stored rows only, so a
+// change of field names in those records (e.g. `method` → `effort`, `seed` → `solverSeed`) is
+// absorbed here.
+
+import { InputError } from "../errors.js";
+import type { Graph, GraphParts } from "../graph/graph.js";
+import { graphFromParts } from "../graph/graph.js";
+import { describeGraph } from "../graph/structure/describe.js";
+import { encodeGraph6, parseGraph6 } from "../graph/formats/graph6.js";
+import { encodeSparse6, parseSparse6 } from "../graph/formats/sparse6.js";
+import type { GraphFormat } from "../graph/formats/types.js";
+import { expectedShape, familyWithInfo, getFamily } from "../families/registry.js";
+import { checkEdgeLimit } from "../families/limits.js";
+import { allParams, formatSpec, parseRawSpec, resolveParams } from "../families/spec.js";
+import type { ParamSpec, ParamValue, Params } from "../families/types.js";
+import { BRACKET_METHODS, bracket, type BracketRecord } from "../cut/bracket.js";
+import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, graphHash, verifyBracket, type BracketVerdict } from "../cut/verify.js";
+import { edwardsEdgeBound, edwardsVertexBound } from "../bounds/edwards.js";
+import { triangleFreeBound } from "../bounds/triangle-free.js";
+import { vectorMethodGuarantee } from "../bounds/vector-method.js";
+import type { LowerBoundRecord } from "../bounds/types.js";
+import { resolveSourceRef, type SourceRef } from "../sources/index.js";
+import { COLUMNS, type CellValue, type StoredRow } from "./columns.js";
+import { packJson, packPartition, unpackJson, unpackPartition } from "./witness.js";
+
+// ---------------------------------------------------------------------------------------------
+// Bracket settings
+
+export type Effort = "auto" | "exact" | "heuristic" | "quick";
+export const EFFORTS: readonly Effort[] = BRACKET_METHODS;
+
+/**
+ * Whether bracket() accepts a deterministic work budget yet. Plans may already name `work`; the
+ * store reserves `workLimit` and `workUsed`, so enabling it changes no schema.
+ */
+export const WORK_BUDGETS_AVAILABLE = false;
+
+export interface BracketSettings {
+  effort: Effort;
+  /** Wall-clock budget per graph. */
+  seconds: number;
+  /** Deterministic work budget per graph, or null for none. */
+  work: number | null;
+}
+
+/** The settings part of a row key, e.g. `effort=auto,seconds=10`. */
+export function settingsKey(s: BracketSettings): string {
+  return `effort=${s.effort},seconds=${s.seconds}${s.work === null ? "" : `,work=${s.work}`}`;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Lower-bound evaluators and degree measures a plan can ask for
+
+export interface Evaluator {
+  /** The evaluator's own name (src/bounds). */
+  name: string;
+  /** Column holding its surplus bound. */
+  column: string;
+  run: (g: Graph) => LowerBoundRecord;
+}
+
+export const EVALUATORS: readonly Evaluator[] = [
+  { name: "edwards-edges", column: "edwardsEdges", run: edwardsEdgeBound },
+  { name: "edwards-vertices", column: "edwardsVertices", run: edwardsVertexBound },
+  { name: "triangle-free", column: "triangleFree", run: triangleFreeBound },
+  { name: "vector-method", column: "vectorMethod", run: vectorMethodGuarantee },
+];
+export const EVALUATOR_NAMES: readonly string[] = EVALUATORS.map((e) => e.name);
+
+export type DegreeMeasure = "minDegree" | "maxDegree" | "averageDegree" | "degeneracy";
+export const DEGREE_MEASURES: readonly DegreeMeasure[] = ["degeneracy", "maxDegree", "averageDegree", "minDegree"];
+
+// ---------------------------------------------------------------------------------------------
+// Families
+
+export interface FamilyFacts {
+  name: string;
+  random: boolean;
+  /** Parameters a plan may set (the seed of a random family comes from graphSeeds instead). */
+  params: readonly ParamSpec[];
+}
+
+export function familyFacts(name: string): FamilyFacts | undefined {
+  const def = getFamily(name);
+  if (def === undefined) return undefined;
+  return { name: def.name, random: def.random, params: allParams(def).filter((p) => !(def.random && p.name === "seed")) };
+}
+
+export interface ResolvedSpec {
+  /** Canonical spec: every parameter written out, the seed included. */
+  spec: string;
+  family: string;
+  params: Params;
+  graphSeed: number | null;
+  /** Predicted size (for progress and the memory guard), without building. */
+  n: number;
+  m: number;
+}
+
+/** Validate, canonicalise and size a family member without building it (InputError when invalid or too big). */
+export function resolveFamily(name: string, values: Params): ResolvedSpec {
+  const def = getFamily(name);
+  if (def === undefined) throw new InputError(`unknown family ${JSON.stringify(name)} (run halfplus families for the list)`);
+  const { params } = resolveParams(def, values);
+  const spec = formatSpec(def, params);
+  const shape = expectedShape(spec);
+  checkEdgeLimit(spec, shape.m, shape.n);
+  return { spec, family: def.name, params, graphSeed: def.random ? (params.seed as number) : null, n: shape.n, m: shape.m };
+}
+
+/** Same, from a spec string such as `kneser:n=7,k=2`. */
+export function resolveSpecString(spec: string): ResolvedSpec {
+  const raw = parseRawSpec(spec);
+  const def = getFamily(raw.name);
+  if (def === undefined) throw new InputError(`${spec}: no family called ${JSON.stringify(raw.name)} (run halfplus families)`);
+  const { params } = resolveParams(def, raw.values);
+  return resolveFamily(def.name, params);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Graphs read from files
+
+export interface FileSource {
+  path: string;
+  /** Position in the file, from 1. */
+  position: number;
+  format: GraphFormat;
+}
+
+export function hashGraph(g: Graph): string {
+  return graphHash(g);
+}
+
+/** Largest graph stored inside its row (as graph6 or sparse6 text), so verify needs no file. */
+const EMBED_LIMIT = 1 << 20;
+
+/** The shorter of graph6 and sparse6 text for an unweighted graph, or null when weighted or too big. */
+export function embedGraph(g: Graph): string | null {
+  if (g.weighted) return null;
+  // graph6 needs about n²/12 bytes, sparse6 about m·(2 + log2 n)/3: compare before encoding.
+  const g6Size = (g.n * (g.n - 1)) / 12;
+  const s6Size = (g.m * 2 * (2 + Math.log2(g.n + 1))) / 6;
+  if (Math.min(g6Size, s6Size) > EMBED_LIMIT) return null;
+  return g6Size <= s6Size ? encodeGraph6(g) : encodeSparse6(g);
+}
+
+function parseEmbedded(text: string, where: string): Graph {
+  return text.startsWith(":") ? parseSparse6(text, { source: where }) : parseGraph6(text, { source: where });
+}
+
+// ---------------------------------------------------------------------------------------------
+// Running one job
+
+export type JobGraph = { kind: "spec"; spec: string } | { kind: "parts"; parts: GraphParts; hash: string; source: FileSource };
+
+export interface JobInput {
+  key: string;
+  family: string;
+  graph: JobGraph;
+  /** Family parameters as JSON text, or null for file graphs. */
+  params: string | null;
+  graphSeed: number | null;
+  solverSeed: number;
+  settings: BracketSettings;
+}
+
+/** What every job of a sweep shares (sent once per batch, not once per job). */
+export interface JobContext {
+  evaluators: readonly string[];
+  degrees: readonly string[];
+  version: string;
+  /** Values set on every row (the sweep's provenance). */
+  shared: StoredRow;
+}
+
+export interface JobOutput {
+  /** The row's values in COLUMNS order. */
+  values: CellValue[];
+  /** Seconds inside bracket() (the solver), for the overhead benchmark. */
+  solverSeconds: number;
+}
+
+/** Node budget for the K4 and C5 searches of describeGraph: an unfinished search leaves the flag null. */
+const STRUCTURE_SEARCH_NODES = 10_000_000;
+
+/** Column positions by name: rows are filled as value arrays (a tiny job's row costs about as much as its solver). */
+const I: Readonly<Record<string, number>> = Object.fromEntries(COLUMNS.map((c, i) => [c.name, i]));
+
+const bool = (b: boolean | null): number | null => (b === null ? null : b ? 1 : 0);
+
+/** Build the graph, bracket it, measure it: one row. */
+export function runJob(job: JobInput, context: JobContext): JobOutput {
+  const startedAt = new Date().toISOString();
+  let graph: Graph;
+  let notes: string[] = [];
+  let source: SourceRef;
+  if (job.graph.kind === "spec") {
+    const f = familyWithInfo(job.graph.spec);
+    graph = f.graph;
+    notes = f.notes;
+    source = { spec: f.spec };
+  } else {
+    graph = graphFromParts(job.graph.parts);
+    const s = job.graph.source;
+    source = { path: s.path, index: s.position - 1, format: s.format };
+  }
+  if (job.settings.work !== null && !WORK_BUDGETS_AVAILABLE) {
+    throw new InputError("work budgets are not available in this version of halfplus (use seconds)");
+  }
+  const t0 = performance.now();
+  const rec = bracket(graph, { seconds: job.settings.seconds, seed: job.solverSeed, method: job.settings.effort, source });
+  const solverSeconds = (performance.now() - t0) / 1000;
+  const s = describeGraph(graph, { maxSearchNodes: STRUCTURE_SEARCH_NODES });
+  const keep = context.degrees;
+
+  // Fields the reworked bracket record will carry; read defensively so the row schema is ready for them.
+  const future = rec as unknown as { budget?: { governing?: string; workUsed?: number | null }; upperKind?: string };
+  let sdpUpper: number | null = null;
+  for (const r of rec.runs) if (r.method === "sdp-dual" && r.role === "upper" && Number.isFinite(r.value)) sdpUpper = r.value;
+  const file = job.graph.kind === "parts" ? job.graph.source : null;
+
+  const v = new Array<CellValue>(COLUMNS.length).fill(null);
+  v[I.key] = job.key;
+  v[I.origin] = "sweep";
+  v[I.family] = job.family;
+  v[I.graph] = job.graph.kind === "spec" ? job.graph.spec : job.graph.hash;
+  v[I.spec] = job.graph.kind === "spec" ? job.graph.spec : null;
+  v[I.params] = job.params;
+  v[I.graphSeed] = job.graphSeed;
+  if (file !== null) {
+    v[I.sourcePath] = file.path;
+    v[I.sourcePosition] = file.position;
+    v[I.sourceFormat] = file.format;
+    v[I.embedded] = embedGraph(graph);
+  }
+  v[I.graphHash] = rec.graphHash;
+  v[I.solverSeed] = rec.seed;
+  v[I.effort] = rec.method;
+  v[I.budgetSeconds] = job.settings.seconds;
+  v[I.workLimit] = job.settings.work;
+  v[I.version] = context.version;
+  v[I.n] = s.n;
+  v[I.m] = s.m;
+  v[I.totalWeight] = s.totalWeight;
+  if (keep.includes("minDegree")) v[I.minDegree] = s.minDegree;
+  if (keep.includes("maxDegree")) v[I.maxDegree] = s.maxDegree;
+  if (keep.includes("averageDegree")) v[I.averageDegree] = s.avgDegree;
+  if (keep.includes("degeneracy")) v[I.degeneracy] = s.degeneracy;
+  v[I.triangles] = s.triangles;
+  v[I.fourCycles] = s.fourCycles;
+  v[I.girth] = s.girth;
+  v[I.bipartite] = bool(s.bipartite);
+  v[I.components] = s.components;
+  v[I.freeK3] = bool(s.free.K3);
+  v[I.freeK4] = bool(s.free.K4);
+  v[I.freeC4] = bool(s.free.C4);
+  v[I.freeC5] = bool(s.free.C5);
+  v[I.lower] = rec.lower;
+  v[I.upper] = rec.upper;
+  v[I.surplusLower] = rec.surplusLower;
+  v[I.surplusUpper] = rec.surplusUpper;
+  v[I.exact] = rec.exact ? 1 : 0;
+  v[I.upperKind] = future.upperKind ?? (rec.upperProven ? "proven" : "estimate");
+  v[I.lowerMethod] = rec.lowerMethod;
+  v[I.upperMethod] = rec.upperMethod;
+  v[I.certificateKind] = rec.certificate.kind;
+  v[I.sdpUpper] = sdpUpper;
+  v[I.budgetKind] = future.budget?.governing ?? "time";
+  v[I.workUsed] = future.budget?.workUsed ?? null;
+  v[I.seconds] = rec.seconds;
+  v[I.startedAt] = startedAt;
+  v[I.notes] = notes.length === 0 ? "[]" : JSON.stringify(notes);
+  v[I.witness] = packPartition(rec.partition);
+  v[I.certificate] = packJson(rec.certificate);
+  v[I.runs] = packJson(rec.runs);
+  for (const e of EVALUATORS) {
+    if (!context.evaluators.includes(e.name)) continue;
+    // The triangle-free bound does not apply to a graph with a triangle: no need to evaluate it.
+    if (e.name === "triangle-free" && s.free.K3 === false) continue;
+    const b = e.run(graph);
+    v[I[e.column]] = b.applies ? b.surplus : null;
+  }
+  for (const k of Object.keys(context.shared)) v[I[k]] = context.shared[k];
+  return { values: v, solverSeconds };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Reading rows back as bracket records (for verify)
+
+const num = (row: StoredRow, k: string): number => {
+  const v = row[k];
+  if (typeof v !== "number") throw new InputError(`row ${String(row.key)}: field \`${k}\` is not a number`);
+  return v;
+};
+
+function evidence(row: StoredRow, k: string): Uint8Array | string {
+  const v = row[k];
+  if (!(v instanceof Uint8Array) && typeof v !== "string") throw new InputError(`row ${String(row.key)}: holds no ${k} (imported rows carry no evidence)`);
+  return v;
+}
+
+function blob(row: StoredRow, k: string): Uint8Array {
+  const v = evidence(row, k);
+  if (typeof v === "string") throw new InputError(`row ${String(row.key)}: ${k} should be a blob`);
+  return v;
+}
+
+function sourceOf(row: StoredRow): SourceRef | null {
+  if (typeof row.spec === "string") return { spec: row.spec };
+  if (typeof row.sourcePath === "string") {
+    return { path: row.sourcePath, index: (row.sourcePosition as number) - 1, format: (row.sourceFormat ?? undefined) as GraphFormat | undefined };
+  }
+  return null;
+}
+
+/** The bracket record a sweep row was made from (partition and certificate included), for verifyBracket. */
+export function bracketRecordFromRow(row: StoredRow): BracketRecord {
+  const where = `row ${String(row.key)}`;
+  const n = num(row, "n");
+  return {
+    kind: BRACKET_RECORD_KIND,
+    version: BRACKET_RECORD_VERSION,
+    n,
+    m: num(row, "m"),
+    totalWeight: num(row, "totalWeight"),
+    lower: num(row, "lower"),
+    upper: num(row, "upper"),
+    exact: row.exact === 1,
+    upperProven: row.upperKind === "proven",
+    surplusLower: num(row, "surplusLower"),
+    surplusUpper: num(row, "surplusUpper"),
+    lowerMethod: String(row.lowerMethod),
+    upperMethod: String(row.upperMethod),
+    seconds: typeof row.seconds === "number" ? row.seconds : 0,
+    seed: num(row, "solverSeed"),
+    method: String(row.effort) as Effort,
+    partition: unpackPartition(blob(row, "witness"), n, `${where}: witness`),
+    certificate: unpackJson(evidence(row, "certificate"), `${where}: certificate`) as BracketRecord["certificate"],
+    runs: row.runs === null || row.runs === undefined ? [] : (unpackJson(evidence(row, "runs"), `${where}: runs`) as BracketRecord["runs"]),
+    graphHash: String(row.graphHash),
+    source: sourceOf(row),
+  };
+}
+
+/** The graph of a sweep row: its embedded text, its family spec, or its file and position. */
+export async function graphOfRow(row: StoredRow): Promise<Graph> {
+  const where = `row ${String(row.key)}`;
+  if (typeof row.embedded === "string") return parseEmbedded(row.embedded, where);
+  const src = sourceOf(row);
+  if (src === null) throw new InputError(`${where}: records no graph (imported rows cannot be re-checked)`);
+  return resolveSourceRef(src);
+}
+
+export type RowVerdict = BracketVerdict;
+
+/** Re-check a row's bracket against its graph (partition by cutValue, upper bound from the certificate). */
+export function verifyRowRecord(graph: Graph, record: BracketRecord, seconds: number): RowVerdict {
+  return verifyBracket(graph, record, { seconds });
+}
+
+export type { ParamValue };
+export type { BracketRecord };

@@ -1,0 +1,146 @@
+// Runs batches of sweep jobs on worker threads (one per core by default), or in the calling
+// thread when asked for 0 workers. Jobs cross the thread boundary as plain data: a family spec
+// (the worker builds the graph) or graphToParts arrays (graphs read from files).
+
+import { existsSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import { Worker } from "node:worker_threads";
+import { isInputError } from "../errors.js";
+import type { CellValue } from "./columns.js";
+import { runJob, type JobContext, type JobInput } from "./job.js";
+
+export interface BatchRequest {
+  batch: number;
+  jobs: JobInput[];
+  /** What every job shares: evaluators, degree measures, version, provenance. */
+  context: JobContext;
+}
+
+/** A finished job's row as values in COLUMNS order (cheaper to pass between threads than an object). */
+export type JobResult =
+  | { key: string; values: CellValue[]; solverSeconds: number; jobSeconds: number; error?: undefined }
+  | { key: string; error: string; inputError: boolean; stack?: string };
+
+export interface BatchResult {
+  batch: number;
+  results: JobResult[];
+  /** Seconds the batch took inside the worker. */
+  seconds: number;
+}
+
+export interface JobRunner {
+  /** Batches that can run at once. */
+  readonly size: number;
+  submit(jobs: JobInput[], context: JobContext): Promise<BatchResult>;
+  /** Seconds the workers have waited for work so far, summed (0 in the calling thread). */
+  idleSeconds(): number;
+  close(): Promise<void>;
+}
+
+/**
+ * The compiled worker script. Under the TypeScript sources (the test runner) there is no
+ * worker.js beside this file, and Node 20 cannot start a worker from .ts: use the build.
+ */
+function workerScript(): URL {
+  const here = new URL("./worker.js", import.meta.url);
+  if (import.meta.url.endsWith(".js")) return here;
+  const built = new URL("../../dist/experiment/worker.js", import.meta.url);
+  if (!existsSync(fileURLToPath(built))) throw new Error(`sweep workers need the build: run npm run build (missing ${fileURLToPath(built)})`);
+  return built;
+}
+
+/** Run a batch's jobs in this thread (a worker's, or the main one for 0 workers); stops at the first failure. */
+export function runBatch(request: BatchRequest): BatchResult {
+  const t0 = performance.now();
+  const results: JobResult[] = [];
+  for (const job of request.jobs) {
+    try {
+      const t = performance.now();
+      const out = runJob(job, request.context);
+      results.push({ key: job.key, values: out.values, solverSeconds: out.solverSeconds, jobSeconds: (performance.now() - t) / 1000 });
+    } catch (e) {
+      results.push({ key: job.key, error: e instanceof Error ? e.message : String(e), inputError: isInputError(e), stack: e instanceof Error ? e.stack : undefined });
+      break;
+    }
+  }
+  return { batch: request.batch, results, seconds: (performance.now() - t0) / 1000 };
+}
+
+class InlineRunner implements JobRunner {
+  readonly size = 1;
+  private next = 0;
+
+  submit(jobs: JobInput[], context: JobContext): Promise<BatchResult> {
+    // Yield to the event loop first, so progress, signals and writes keep flowing.
+    return new Promise((resolve) => setImmediate(() => resolve(runBatch({ batch: this.next++, jobs, context }))));
+  }
+
+  idleSeconds(): number {
+    return 0;
+  }
+
+  async close(): Promise<void> {}
+}
+
+interface Slot {
+  worker: Worker;
+  pending: Map<number, { resolve: (r: BatchResult) => void; reject: (e: Error) => void }>;
+  dead: Error | null;
+}
+
+class ThreadRunner implements JobRunner {
+  private readonly slots: Slot[] = [];
+  private next = 0;
+  private closing = false;
+
+  constructor(readonly size: number) {
+    const script = workerScript();
+    for (let i = 0; i < size; i++) {
+      const slot: Slot = { worker: new Worker(script), pending: new Map(), dead: null };
+      slot.worker.on("message", (r: BatchResult) => {
+        const p = slot.pending.get(r.batch);
+        slot.pending.delete(r.batch);
+        p?.resolve(r);
+      });
+      const fail = (e: Error): void => {
+        slot.dead = e;
+        for (const p of slot.pending.values()) p.reject(e);
+        slot.pending.clear();
+      };
+      slot.worker.on("error", (e) => fail(e instanceof Error ? e : new Error(String(e))));
+      slot.worker.on("exit", (code) => {
+        if (!this.closing) fail(new Error(`a sweep worker stopped unexpectedly (exit code ${code})`));
+      });
+      this.slots.push(slot);
+    }
+  }
+
+  submit(jobs: JobInput[], context: JobContext): Promise<BatchResult> {
+    const alive = this.slots.filter((s) => s.dead === null);
+    if (alive.length === 0) return Promise.reject(this.slots[0].dead ?? new Error("no sweep workers"));
+    // The least busy worker takes the batch.
+    let slot = alive[0];
+    for (const s of alive) if (s.pending.size < slot.pending.size) slot = s;
+    const batch = this.next++;
+    return new Promise((resolve, reject) => {
+      slot.pending.set(batch, { resolve, reject });
+      slot.worker.postMessage({ batch, jobs, context } satisfies BatchRequest);
+    });
+  }
+
+  idleSeconds(): number {
+    let idle = 0;
+    for (const s of this.slots) if (s.dead === null) idle += s.worker.performance.eventLoopUtilization().idle / 1000;
+    return idle;
+  }
+
+  async close(): Promise<void> {
+    this.closing = true;
+    await Promise.all(this.slots.map((s) => s.worker.terminate()));
+  }
+}
+
+/** `workers` threads, or the calling thread for 0. */
+export function createRunner(workers: number): JobRunner {
+  return workers === 0 ? new InlineRunner() : new ThreadRunner(workers);
+}

@@ -1,0 +1,226 @@
+// The results store in an embedded SQLite file (better-sqlite3): one table of rows keyed by
+// `key`, one log of sweeps, one table of facts about the file. WAL journal with synchronous =
+// NORMAL: a committed transaction survives the process being killed at any moment (it is in the
+// WAL file before commit returns), and a kill mid-transaction leaves nothing of it.
+
+import type Database from "better-sqlite3";
+import { createRequire } from "node:module";
+import { existsSync, mkdirSync, readSync, openSync, closeSync, statSync } from "node:fs";
+import { dirname } from "node:path";
+import { InputError } from "../errors.js";
+import { COLUMNS, rowValues, type CellValue, type ColumnSpec, type StoredRow } from "./columns.js";
+import type { OpenStoreOptions, ResultStore, RowFilter, SweepLogEntry } from "./store.js";
+
+/**
+ * The native binding is loaded on first use, so commands that never open a store (graph, cut, ...)
+ * neither pay for it nor fail where it could not be built.
+ */
+let driver: typeof Database | undefined;
+function sqlite(): typeof Database {
+  driver ??= createRequire(import.meta.url)("better-sqlite3") as typeof Database;
+  return driver;
+}
+
+/** Where `halfplus sweep` writes when no --store is given. */
+export const DEFAULT_STORE = "results/halfplus.db";
+
+const FORMAT = "halfplus-results";
+const SCHEMA_VERSION = "1";
+
+const SQL_TYPE: Record<ColumnSpec["type"], string> = { integer: "INTEGER", real: "REAL", text: "TEXT", boolean: "INTEGER", blob: "BLOB" };
+
+/** Identifiers are our own column names (letters only), quoted anyway. */
+const q = (name: string): string => `"${name}"`;
+
+const SWEEP_FIELDS = ["id", "plan", "planText", "startedAt", "finishedAt", "shard", "workers", "version", "gitCommit", "computed", "status"] as const;
+
+/** Does the file start with SQLite's header? (An empty or missing file is a new store.) */
+function looksLikeSqlite(path: string): boolean {
+  const fd = openSync(path, "r");
+  try {
+    const head = Buffer.alloc(16);
+    const got = readSync(fd, head, 0, 16, 0);
+    return got === 16 && head.toString("latin1") === "SQLite format 3\u0000";
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** True when `path` is an SQLite file (used by verify to tell a store from a JSON record file). */
+export function isStoreFile(path: string): boolean {
+  try {
+    return statSync(path).isFile() && looksLikeSqlite(path);
+  } catch {
+    return false;
+  }
+}
+
+function toCell(v: CellValue | boolean | undefined): unknown {
+  if (v === undefined || v === null) return null;
+  if (typeof v === "boolean") return v ? 1 : 0;
+  if (v instanceof Uint8Array && !Buffer.isBuffer(v)) return Buffer.from(v.buffer, v.byteOffset, v.byteLength);
+  return v;
+}
+
+class SqliteStore implements ResultStore {
+  private readonly db: Database.Database;
+  private readonly present: Set<string>;
+  private readonly insertStmt: Database.Statement;
+  private readonly hasStmt: Database.Statement;
+  private readonly insertMany: (rows: readonly (readonly CellValue[])[]) => number;
+  /** For each column this store has, its position in COLUMNS (an older store may lack some). */
+  private readonly positions: number[];
+
+  constructor(
+    readonly path: string,
+    readonly readonly: boolean,
+  ) {
+    if (readonly) {
+      if (!existsSync(path)) throw new InputError(`${path}: no such results store`);
+      if (!statSync(path).isFile()) throw new InputError(`${path}: is a directory, expected a results store`);
+    } else if (!existsSync(path)) {
+      mkdirSync(dirname(path), { recursive: true });
+    }
+    if (existsSync(path) && statSync(path).size > 0 && !looksLikeSqlite(path)) throw new InputError(`${path}: not a halfplus results store (not an SQLite file)`);
+    try {
+      const Driver = sqlite();
+      this.db = new Driver(path, { readonly, fileMustExist: readonly });
+    } catch (e) {
+      throw new InputError(`${path}: cannot open results store (${(e as Error).message})`);
+    }
+    try {
+      this.db.pragma("busy_timeout = 30000");
+      // A new (empty) file becomes a store; any other SQLite file must already be one.
+      const fresh = (this.db.prepare(`SELECT count(*) FROM sqlite_master`).pluck().get() as number) === 0;
+      if (!fresh || readonly) this.checkFormat();
+      if (!readonly) {
+        this.db.pragma("journal_mode = WAL");
+        this.db.pragma("synchronous = NORMAL");
+        this.createSchema();
+      }
+    } catch (e) {
+      this.db.close();
+      if (e instanceof InputError) throw e;
+      throw new InputError(`${path}: not a usable results store (${(e as Error).message})`);
+    }
+    this.present = new Set((this.db.prepare(`PRAGMA table_info(results)`).all() as { name: string }[]).map((r) => r.name));
+    const cols = COLUMNS.filter((c) => this.present.has(c.name));
+    this.positions = cols.map((c) => COLUMNS.indexOf(c));
+    const all = this.positions.length === COLUMNS.length;
+    this.insertStmt = readonly
+      ? this.db.prepare("SELECT 1")
+      : this.db.prepare(`INSERT INTO results (${cols.map((c) => q(c.name)).join(", ")}) VALUES (${cols.map(() => "?").join(", ")}) ON CONFLICT(key) DO NOTHING`);
+    this.hasStmt = this.db.prepare(`SELECT 1 FROM results WHERE key = ?`).pluck();
+    this.insertMany = this.db.transaction((rows: readonly (readonly CellValue[])[]) => {
+      let added = 0;
+      const cells = new Array<unknown>(this.positions.length);
+      for (const r of rows) {
+        if (r.length !== COLUMNS.length) throw new Error(`row of ${r.length} values, expected ${COLUMNS.length}`);
+        for (let i = 0; i < cells.length; i++) cells[i] = toCell(r[all ? i : this.positions[i]]);
+        added += this.insertStmt.run(...cells).changes;
+      }
+      return added;
+    });
+  }
+
+  private createSchema(): void {
+    this.db.exec(`CREATE TABLE IF NOT EXISTS meta (name TEXT PRIMARY KEY, value TEXT NOT NULL)`);
+    const cols = COLUMNS.map((c) => `${q(c.name)} ${SQL_TYPE[c.type]}${c.name === "key" ? " PRIMARY KEY NOT NULL" : ""}`);
+    this.db.exec(`CREATE TABLE IF NOT EXISTS results (${cols.join(", ")})`);
+    // A store made by an older halfplus lacks newer columns: add them (their values read as null).
+    const have = new Set((this.db.prepare(`PRAGMA table_info(results)`).all() as { name: string }[]).map((r) => r.name));
+    for (const c of COLUMNS) if (!have.has(c.name)) this.db.exec(`ALTER TABLE results ADD COLUMN ${q(c.name)} ${SQL_TYPE[c.type]}`);
+    this.db.exec(`CREATE TABLE IF NOT EXISTS sweeps (${SWEEP_FIELDS.map((f) => `${q(f)} ${f === "workers" || f === "computed" ? "INTEGER" : "TEXT"}${f === "id" ? " PRIMARY KEY" : ""}`).join(", ")})`);
+    this.db.prepare(`INSERT OR IGNORE INTO meta (name, value) VALUES ('format', ?), ('schema', ?)`).run(FORMAT, SCHEMA_VERSION);
+  }
+
+  private checkFormat(): void {
+    let format: string | undefined;
+    try {
+      format = this.db.prepare(`SELECT value FROM meta WHERE name = 'format'`).pluck().get() as string | undefined;
+    } catch {
+      format = undefined; // no meta table: some other SQLite file
+    }
+    if (format !== FORMAT) throw new InputError(`${this.path}: an SQLite file, but not a halfplus results store`);
+  }
+
+  has(key: string): boolean {
+    return this.hasStmt.get(key) !== undefined;
+  }
+
+  get(key: string): StoredRow | undefined {
+    return this.db.prepare(`SELECT * FROM results WHERE key = ?`).get(key) as StoredRow | undefined;
+  }
+
+  insert(rows: readonly StoredRow[]): number {
+    return this.insertValues(rows.map((r) => rowValues(r)));
+  }
+
+  insertValues(rows: readonly (readonly CellValue[])[]): number {
+    if (this.readonly) throw new Error(`${this.path}: opened read-only`);
+    if (rows.length === 0) return 0;
+    return this.insertMany(rows);
+  }
+
+  private where(filter: RowFilter | undefined): { sql: string; args: unknown[] } {
+    const parts: string[] = [];
+    const args: unknown[] = [];
+    if (filter?.family !== undefined) {
+      const fams = typeof filter.family === "string" ? [filter.family] : [...filter.family];
+      parts.push(`family IN (${fams.map(() => "?").join(", ") || "NULL"})`);
+      args.push(...fams);
+    }
+    if (filter?.keys !== undefined) {
+      parts.push(`key IN (${filter.keys.map(() => "?").join(", ") || "NULL"})`);
+      args.push(...filter.keys);
+    }
+    if (filter?.origin !== undefined) {
+      parts.push(`origin = ?`);
+      args.push(filter.origin);
+    }
+    return { sql: parts.length === 0 ? "" : ` WHERE ${parts.join(" AND ")}`, args };
+  }
+
+  *rows(filter?: RowFilter, columns?: readonly string[]): IterableIterator<StoredRow> {
+    const wanted = columns ?? COLUMNS.map((c) => c.name);
+    const have = wanted.filter((c) => this.present.has(c));
+    const missing = wanted.filter((c) => !this.present.has(c));
+    const w = this.where(filter);
+    const sel = have.length === 0 ? "key" : have.map(q).join(", ");
+    // BINARY collation compares text bytewise: the same order on every machine.
+    const stmt = this.db.prepare(`SELECT ${sel} FROM results${w.sql} ORDER BY family, n, m, key`);
+    for (const r of stmt.iterate(...w.args) as IterableIterator<StoredRow>) {
+      for (const c of missing) r[c] = null;
+      yield r;
+    }
+  }
+
+  count(filter?: RowFilter): number {
+    const w = this.where(filter);
+    return this.db.prepare(`SELECT count(*) FROM results${w.sql}`).pluck().get(...w.args) as number;
+  }
+
+  transaction<T>(fn: () => T): T {
+    return this.db.transaction(fn)();
+  }
+
+  logSweep(e: SweepLogEntry): void {
+    if (this.readonly) throw new Error(`${this.path}: opened read-only`);
+    this.db
+      .prepare(`INSERT INTO sweeps (${SWEEP_FIELDS.map(q).join(", ")}) VALUES (${SWEEP_FIELDS.map(() => "?").join(", ")}) ON CONFLICT(id) DO UPDATE SET finishedAt = excluded.finishedAt, computed = excluded.computed, status = excluded.status`)
+      .run(SWEEP_FIELDS.map((f) => e[f]));
+  }
+
+  sweeps(): SweepLogEntry[] {
+    return this.db.prepare(`SELECT * FROM sweeps ORDER BY startedAt, id`).all() as SweepLogEntry[];
+  }
+
+  close(): void {
+    if (this.db.open) this.db.close();
+  }
+}
+
+/** Open (or create, unless read-only) a results store; the folder is created as needed. */
+export function openStore(path: string = DEFAULT_STORE, options: OpenStoreOptions = {}): ResultStore {
+  return new SqliteStore(path, options.readonly === true);
+}

@@ -1,0 +1,58 @@
+// The results store as the rest of halfplus sees it: a small interface over rows keyed by
+// `key` (columns.ts), so the SQLite binding behind it (sqlite-store.ts, better-sqlite3 today)
+// can be swapped for Node's built-in SQLite without touching sweeps, exports or merges.
+
+import type { CellValue, StoredRow } from "./columns.js";
+
+export interface RowFilter {
+  /** Only rows of these family labels. */
+  family?: string | readonly string[];
+  /** Only these keys. */
+  keys?: readonly string[];
+  origin?: "sweep" | "import";
+}
+
+/** One sweep run, logged in the store with its plan (provenance; not part of any row). */
+export interface SweepLogEntry {
+  id: string;
+  plan: string;
+  planText: string;
+  startedAt: string;
+  finishedAt: string | null;
+  shard: string | null;
+  workers: number;
+  version: string;
+  gitCommit: string | null;
+  /** Rows this run added. */
+  computed: number;
+  /** running, finished, stopped (interrupted) or failed. */
+  status: string;
+}
+
+export interface ResultStore {
+  /** The file, as opened. */
+  readonly path: string;
+  readonly readonly: boolean;
+  has(key: string): boolean;
+  get(key: string): StoredRow | undefined;
+  /**
+   * Write rows in one transaction: all of them or none. A key already stored is left as it is
+   * (the caller checks agreement where that matters). Returns how many rows were new.
+   */
+  insert(rows: readonly StoredRow[]): number;
+  /** The same for rows given as value arrays in COLUMNS order (the sweep's path: no objects per row). */
+  insertValues(rows: readonly (readonly CellValue[])[]): number;
+  /** Rows in export order (family, n, m, key); `columns` limits what is read (default: all). */
+  rows(filter?: RowFilter, columns?: readonly string[]): IterableIterator<StoredRow>;
+  count(filter?: RowFilter): number;
+  /** Run fn in one transaction (nested calls join it). */
+  transaction<T>(fn: () => T): T;
+  logSweep(entry: SweepLogEntry): void;
+  sweeps(): SweepLogEntry[];
+  close(): void;
+}
+
+export interface OpenStoreOptions {
+  /** Open for reading only; the file must exist. */
+  readonly?: boolean;
+}
