@@ -1,5 +1,5 @@
 // Sweep plans: field checks (one line naming the field), grid expansion, seeds, keys and shards.
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { mkdtempSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
@@ -63,6 +63,20 @@ describe("plan checks", () => {
     expect(p.name).toBe("good");
     expect(p.total).toBe(2);
     expect(p.entries[0]).toMatchObject({ kind: "source", source: "two.g6", label: "two", format: "graph6", count: 2 });
+  });
+});
+
+describe("the plans shipped in plans/", () => {
+  it("every plan loads: its families exist under their current names and every member resolves", () => {
+    // The shipped plans are examples users copy; a renamed family or parameter must not break them
+    // (common practice, no source).
+    const root = join(__dirname, "..", "plans");
+    const names = readdirSync(root).filter((f) => f.endsWith(".json"));
+    expect(names.length).toBeGreaterThanOrEqual(4);
+    for (const name of names) {
+      const plan = loadPlan(join(root, name));
+      expect(plan.total, name).toBeGreaterThan(0);
+    }
   });
 });
 

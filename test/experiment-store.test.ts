@@ -19,6 +19,7 @@ import type { SweepPlan } from "../src/experiment/plan.js";
 import { packJson, packPartition, unpackJson, unpackPartition } from "../src/experiment/witness.js";
 import { family } from "../src/families/registry.js";
 import { Rng } from "../src/random/prng.js";
+import { boundTightnessFigure } from "../src/plot/figures/bound-tightness.js";
 import { bruteForceMaxCut } from "./helpers/maxcut.js";
 
 const dir = mkdtempSync(join(tmpdir(), "halfplus-store-"));
@@ -249,8 +250,15 @@ describe("rows for fits and figures", () => {
       const fit = fitRowsFromStore(st, { family: "petersen" });
       expect(fit).toEqual([{ key: expect.stringMatching(/^petersen\|/), family: "petersen", n: 10, m: 15, degeneracy: 3, maxDegree: 3, averageDegree: 3, surplusLower: 4.5, surplusUpper: 4.5, exact: true }]);
       const plot = surplusRowsFromStore(st, { family: "petersen" });
-      expect(plot[0]).toMatchObject({ bestCut: 12, edwardsBound: 1.25, exact: true, degeneracy: 3 });
+      // Figures read cut values: Edwards' bound m/2 + (√(8m+1) − 1)/8 = 7.5 + 1.25 for m = 15 (Edwards 1973).
+      expect(plot[0]).toMatchObject({ bestCut: 12, edwardsBound: 8.75, exact: true, degeneracy: 3 });
+      expect(plot[0].totalWeight).toBeUndefined(); // unweighted: W = m
       expect(typeof plot[0].vectorGuarantee).toBe("number");
+      // The bound-tightness figure draws them as surpluses again: the store and the figure agree on units.
+      const fig = boundTightnessFigure(plot);
+      const surplusOf = (name: string): number | undefined => fig.data.find((t) => t.name === name)?.y?.[0] as number | undefined;
+      expect(surplusOf("Edwards bound")).toBeCloseTo(1.25, 12);
+      expect(surplusOf("best cut found")).toBe(4.5);
       expect(fitRowsFromStore(st, { exactOnly: true })).toHaveLength(JOBS);
       expect(fitRowsFromStore(st, { family: ["andrasfai", "gnp"] })).toHaveLength(9);
     } finally {

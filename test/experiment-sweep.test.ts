@@ -11,7 +11,7 @@ import { openStore } from "../src/experiment/sqlite-store.js";
 import { runSweep } from "../src/experiment/sweep.js";
 import { encodeGraph6, parseGraph6 } from "../src/graph/formats/graph6.js";
 import { parseSparse6 } from "../src/graph/formats/sparse6.js";
-import { graphHash } from "../src/cut/verify.js";
+import { graphHash } from "../src/graph/hash.js";
 import { family } from "../src/families/registry.js";
 import { ensureBuilt, halfplus } from "./helpers/cli.js";
 import { bruteForceMaxCut } from "./helpers/maxcut.js";

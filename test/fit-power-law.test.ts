@@ -117,9 +117,9 @@ describe("fitPowerLaw", () => {
     ]);
     expect(f.notes.join("\n")).toContain("2 × surplusLower ≤ 0 (no logarithm)");
     expect(f.summary()).toContain("4 rows used, 6 dropped");
-    // The law "m" does not need d; "max" degree reads maxDegree.
+    // The law "m" does not need d; the measure "maxDegree" reads the row field of that name.
     expect(fitPowerLaw(rows, { law: "m", bootstrap: false }).used.map((u) => u.index)).toEqual([0, 2, 5, 7, 9]);
-    expect(fitPowerLaw(rows, { degree: "max", law: "m-over-sqrt-d", bootstrap: false }).used).toHaveLength(5);
+    expect(fitPowerLaw(rows, { degree: "maxDegree", law: "m-over-sqrt-d", bootstrap: false }).used).toHaveLength(5);
     // response "upper" reads the other end; "exact" only closed brackets.
     expect(fitPowerLaw(rows, { response: "upper", bootstrap: false }).used).toHaveLength(8);
     const closed = good.map((r, i) => (i < 5 ? { ...r, exact: true, surplusUpper: r.surplusLower } : r));
@@ -133,7 +133,7 @@ describe("fitPowerLaw", () => {
     // (common practice, no source).
     const rows = simulate(new Rng(6), 40, { C: 1, a: 1, b: -0.5, sigma: 0.2 });
     const a = fitPowerLaw(rows, { bootstrap: false });
-    const b = fitPowerLaw(rows, { degree: "max", bootstrap: false });
+    const b = fitPowerLaw(rows, { degree: "maxDegree", bootstrap: false });
     expect(b.coefficient("dExponent").estimate).toBeCloseTo(a.coefficient("dExponent").estimate, 10);
     expect(b.coefficient("constant").estimate).toBeCloseTo(a.coefficient("constant").estimate - a.coefficient("dExponent").estimate * Math.log(2), 10);
   });

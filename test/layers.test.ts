@@ -106,6 +106,31 @@ describe("import layering of src/", () => {
     expect(cycles).toEqual([]);
   });
 
+  it("the row shapes (src/experiment/rows.ts) import nothing; src/fit and src/plot reach into src/experiment only there", () => {
+    // The store produces the rows, so their shapes live with it; fits and figures must not load the
+    // store's machinery (SQLite, workers) to read them (project decision, common practice, no source).
+    expect(edges.get("src/experiment/rows.ts")).toEqual([]);
+    const bad: string[] = [];
+    for (const [from, targets] of edges) {
+      if (!from.startsWith("src/fit/") && !from.startsWith("src/plot/")) continue;
+      for (const to of targets) if (to.startsWith("src/experiment/") && to !== "src/experiment/rows.ts") bad.push(`${from} → ${to}`);
+    }
+    expect(bad).toEqual([]);
+  });
+
+  it("src/fit imports nothing but errors.ts, random/, the row shapes and its own modules, and re-exports each", () => {
+    const bad: string[] = [];
+    const fit = files.filter((f) => f.startsWith("src/fit/"));
+    for (const f of fit) {
+      for (const to of edges.get(f) ?? []) {
+        if (!(to.startsWith("src/fit/") || to === "src/errors.ts" || to.startsWith("src/random/") || to === "src/experiment/rows.ts")) bad.push(`${f} → ${to}`);
+      }
+    }
+    expect(bad).toEqual([]);
+    const index = edges.get("src/fit/index.ts") ?? [];
+    expect(fit.filter((f) => f !== "src/fit/index.ts" && !index.includes(f))).toEqual([]);
+  });
+
   it("kernel-helpers/ imports only the package's public entry point", () => {
     const dir = join(ROOT, "kernel-helpers");
     const bad: string[] = [];

@@ -110,9 +110,9 @@ describe("surplus against m/√d", () => {
   });
 
   it("uses the selected degree measure for d", () => {
-    for (const [measure, field] of [["max", "maxDegree"], ["average", "averageDegree"]] as const) {
-      const f = surplusScalingFigure(rows, { measure });
-      expect(f.layout.xaxis.title.text).toContain(measure === "max" ? "maximum degree" : "average degree");
+    for (const field of ["maxDegree", "averageDegree"] as const) {
+      const f = surplusScalingFigure(rows, { degree: field });
+      expect(f.layout.xaxis.title.text).toContain(field === "maxDegree" ? "maximum degree" : "average degree");
       const byKey = rowByKey(rows);
       for (const t of role(f, "points")) t.x.forEach((x, i) => close(x!, byKey.get(t.text![i])!.m / Math.sqrt(byKey.get(t.text![i])![field])));
     }
@@ -174,7 +174,7 @@ describe("surplus against m/√d", () => {
   it("refuses bad rows and options with one line naming the row or the parameter", () => {
     expectInputError(() => surplusScalingFigure([{ ...rows[0], m: Number.NaN }]), "row 1 (kneser:n=16): `m`");
     expectInputError(() => surplusScalingFigure([rows[0], { ...rows[1], surplusLower: 9, surplusUpper: 3 }]), "row 2");
-    expectInputError(() => surplusScalingFigure(rows, { measure: "median" as never }), "`measure`");
+    expectInputError(() => surplusScalingFigure(rows, { degree: "median" as never }), "`degree`");
     expectInputError(() => surplusScalingFigure(rows, { level: 1.5 }), "`level`");
     expectInputError(() => surplusScalingFigure(rows, { point: "top" as never }), "`point`");
     try {

@@ -1,52 +1,10 @@
-// Stored rows in the shapes the fits and the figures read: FitRow (surplus bounds with m and the
-// degree measures) and SurplusRow (the same plus the bounds a figure sets against the bracket).
-// src/fit and src/plot declare structurally identical types; nothing here imports them.
+// Stored rows in the shapes the fits and the figures read (declared in rows.ts): FitRow (surplus
+// bounds with m and the degree measures) and SurplusRow (the same plus the bounds a figure sets
+// against the bracket, as cut values).
 
 import type { StoredRow } from "./columns.js";
+import type { FitRow, SurplusRow } from "./rows.js";
 import type { ResultStore, RowFilter } from "./store.js";
-
-/** One bracketed graph as a fit reads it. */
-export interface FitRow {
-  key?: string;
-  family?: string;
-  n?: number;
-  m: number;
-  degeneracy?: number;
-  maxDegree?: number;
-  averageDegree?: number;
-  /** Best cut − W/2; null when unknown. */
-  surplusLower: number | null;
-  /** Certified upper bound − W/2; null when unknown. */
-  surplusUpper: number | null;
-  /** The bracket is closed by proof. */
-  exact: boolean;
-}
-
-/**
- * One bracketed graph as a figure reads it: the bracket and the closed-form bounds beside it (all
- * as surpluses). Every field but the optional ones is present: rows lacking one are left out
- * (see `surplusRowsFromStore`).
- */
-export interface SurplusRow {
-  key: string;
-  family: string;
-  n: number;
-  m: number;
-  degeneracy: number;
-  maxDegree: number;
-  averageDegree: number;
-  surplusLower: number;
-  surplusUpper: number;
-  exact: boolean;
-  /** The best cut found (a cut value, not a surplus). */
-  bestCut?: number;
-  /** Surplus bound from the certified SDP dual, when the SDP ran. */
-  sdpBound?: number;
-  /** Surplus guaranteed by the explicit vector method. */
-  vectorGuarantee?: number;
-  /** Edwards' surplus bound (√(8m+1) − 1)/8. */
-  edwardsBound?: number;
-}
 
 export interface FitRowFilter extends RowFilter {
   /** Closed brackets only. */
@@ -104,11 +62,13 @@ export function surplusRowsFromStore(store: ResultStore, filter?: FitRowFilter, 
       surplusUpper: r.surplusUpper as number,
       exact: r.exact === 1,
     };
+    // The bound columns hold surpluses; a figure reads cut values (surplus + W/2).
     const W = typeof r.totalWeight === "number" ? r.totalWeight : (r.m as number);
+    if (W !== r.m) row.totalWeight = W;
     if (typeof r.lower === "number") row.bestCut = r.lower;
-    if (typeof r.sdpUpper === "number") row.sdpBound = r.sdpUpper - W / 2;
-    if (typeof r.vectorMethod === "number") row.vectorGuarantee = r.vectorMethod;
-    if (typeof r.edwardsEdges === "number") row.edwardsBound = r.edwardsEdges;
+    if (typeof r.sdpUpper === "number") row.sdpBound = r.sdpUpper;
+    if (typeof r.vectorMethod === "number") row.vectorGuarantee = r.vectorMethod + W / 2;
+    if (typeof r.edwardsEdges === "number") row.edwardsBound = r.edwardsEdges + W / 2;
     out.push(row);
   }
   return out;

@@ -8,8 +8,7 @@ import { basename } from "node:path";
 import { InputError } from "../errors.js";
 import type { StoredRow } from "./columns.js";
 import { parseCsv } from "./csv.js";
-import type { DegreeMeasure } from "./job.js";
-import { DEGREE_MEASURES } from "./job.js";
+import { STORED_DEGREES, type StoredDegree } from "./rows.js";
 import { disagreements } from "./merge.js";
 import type { ResultStore } from "./store.js";
 
@@ -38,7 +37,7 @@ export interface ImportOptions {
   /** Family label for rows without a `family` column (default: the file name without extension). */
   family?: string;
   /** What a `d` column means (default degeneracy). */
-  dIs?: DegreeMeasure;
+  dIs?: StoredDegree;
   /** Leave out columns halfplus does not know, and say which (default: refuse them). */
   skipUnknown?: boolean;
 }
@@ -68,7 +67,7 @@ export function importRows(text: string, file: string, options: ImportOptions = 
     throw new InputError(`${file}:1: needs surplus bounds: surplusLower and/or surplusUpper (or surplus, or lower/upper cut values)`);
   }
   const dIs = options.dIs ?? "degeneracy";
-  if (!DEGREE_MEASURES.includes(dIs)) throw new InputError(`import: invalid \`dIs\`: should be one of ${DEGREE_MEASURES.join(", ")} (got ${JSON.stringify(dIs)})`);
+  if (!STORED_DEGREES.includes(dIs)) throw new InputError(`import: invalid \`dIs\`: should be one of ${STORED_DEGREES.join(", ")} (got ${JSON.stringify(dIs)})`);
   if (header.includes("d") && header.includes(dIs)) throw new InputError(`${file}:1: has both \`d\` and \`${dIs}\`, which d stands for`);
   const familyDefault = options.family ?? basename(file).replace(/\.[^.]*$/, "");
   const base = basename(file);
@@ -127,7 +126,7 @@ export function importRows(text: string, file: string, options: ImportOptions = 
     const key = text("key") ?? `import|${family}|${base}:${rec.line}`;
     if (keys.has(key)) throw new InputError(`${at}: key ${JSON.stringify(key)} repeats an earlier row`);
     keys.add(key);
-    const degree = (measure: DegreeMeasure): number | null => number(measure === dIs && cell.has("d") ? "d" : measure, measure !== "averageDegree", 0);
+    const degree = (measure: StoredDegree): number | null => number(measure === dIs && cell.has("d") ? "d" : measure, measure !== "averageDegree", 0);
     let notes: string[] = [`imported from ${base}:${rec.line}`];
     const given = text("notes");
     if (given !== null) notes = [...notes, given];

@@ -1,11 +1,12 @@
 // Sweeps and the results store: plans, the worker pool, the SQLite store behind a small
-// interface, export, import, merge, and rows for the fits and figures.
+// interface, export, import, merge, and rows for the fits and figures (their shapes in rows.ts).
 export * from "./columns.js";
 export * from "./store.js";
 export { openStore, isStoreFile, DEFAULT_STORE } from "./sqlite-store.js";
 export * from "./plan.js";
 export { parseShard, jobKey, shardSize, type Shard } from "./jobs.js";
-export { EFFORTS, EVALUATOR_NAMES, DEGREE_MEASURES, WORK_BUDGETS_AVAILABLE, type BracketSettings, type DegreeMeasure, type Effort } from "./job.js";
+export { EFFORTS, EVALUATOR_NAMES, WORK_BUDGETS_AVAILABLE, type BracketSettings, type Effort } from "./job.js";
+export * from "./rows.js";
 export * from "./sweep.js";
 export * from "./progress.js";
 export * from "./export.js";

@@ -7,29 +7,30 @@
 import { InputError } from "../errors.js";
 import type { Graph, GraphParts } from "../graph/graph.js";
 import { graphFromParts } from "../graph/graph.js";
+import { graphHash } from "../graph/hash.js";
 import { describeGraph } from "../graph/structure/describe.js";
-import { encodeGraph6, parseGraph6 } from "../graph/formats/graph6.js";
-import { encodeSparse6, parseSparse6 } from "../graph/formats/sparse6.js";
 import type { GraphFormat } from "../graph/formats/types.js";
-import { expectedShape, familyWithInfo, getFamily } from "../families/registry.js";
+import { embedGraph } from "../graph/record/embed.js";
+import type { EmbeddedGraph, GraphSource } from "../graph/record/source.js";
+import { familyWithInfo, getFamily, predictedSizeOf } from "../families/registry.js";
 import { checkEdgeLimit } from "../families/limits.js";
 import { allParams, formatSpec, parseRawSpec, resolveParams } from "../families/spec.js";
 import type { ParamSpec, ParamValue, Params } from "../families/types.js";
-import { BRACKET_METHODS, bracket, type BracketRecord } from "../cut/bracket.js";
-import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, graphHash, verifyBracket, type BracketVerdict } from "../cut/verify.js";
+import { BRACKET_EFFORTS, BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, bracket, type BracketEffort, type BracketRecord } from "../cut/bracket/index.js";
+import { verifyBracket, type BracketVerdict } from "../cut/bracket/verify.js";
 import { edwardsEdgeBound, edwardsVertexBound } from "../bounds/edwards.js";
 import { triangleFreeBound } from "../bounds/triangle-free.js";
-import { vectorMethodGuarantee } from "../bounds/vector-method.js";
+import { vectorMethodGuarantee } from "../bounds/vector-guarantee.js";
 import type { LowerBoundRecord } from "../bounds/types.js";
-import { resolveSourceRef, type SourceRef } from "../sources/index.js";
+import { SourceResolver } from "../sources/index.js";
 import { COLUMNS, type CellValue, type StoredRow } from "./columns.js";
 import { packJson, packPartition, unpackJson, unpackPartition } from "./witness.js";
 
 // ---------------------------------------------------------------------------------------------
 // Bracket settings
 
-export type Effort = "auto" | "exact" | "heuristic" | "quick";
-export const EFFORTS: readonly Effort[] = BRACKET_METHODS;
+export type Effort = BracketEffort;
+export const EFFORTS: readonly Effort[] = BRACKET_EFFORTS;
 
 /**
  * Whether bracket() accepts a deterministic work budget yet. Plans may already name `work`; the
@@ -69,9 +70,6 @@ export const EVALUATORS: readonly Evaluator[] = [
 ];
 export const EVALUATOR_NAMES: readonly string[] = EVALUATORS.map((e) => e.name);
 
-export type DegreeMeasure = "minDegree" | "maxDegree" | "averageDegree" | "degeneracy";
-export const DEGREE_MEASURES: readonly DegreeMeasure[] = ["degeneracy", "maxDegree", "averageDegree", "minDegree"];
-
 // ---------------------------------------------------------------------------------------------
 // Families
 
@@ -105,7 +103,7 @@ export function resolveFamily(name: string, values: Params): ResolvedSpec {
   if (def === undefined) throw new InputError(`unknown family ${JSON.stringify(name)} (run halfplus families for the list)`);
   const { params } = resolveParams(def, values);
   const spec = formatSpec(def, params);
-  const shape = expectedShape(spec);
+  const shape = predictedSizeOf(spec);
   checkEdgeLimit(spec, shape.m, shape.n);
   return { spec, family: def.name, params, graphSeed: def.random ? (params.seed as number) : null, n: shape.n, m: shape.m };
 }
@@ -133,21 +131,20 @@ export function hashGraph(g: Graph): string {
   return graphHash(g);
 }
 
-/** Largest graph stored inside its row (as graph6 or sparse6 text), so verify needs no file. */
+/** Largest graph text stored inside its row (file graphs), so verify needs no file: 1 MiB. */
 const EMBED_LIMIT = 1 << 20;
 
-/** The shorter of graph6 and sparse6 text for an unweighted graph, or null when weighted or too big. */
-export function embedGraph(g: Graph): string | null {
-  if (g.weighted) return null;
-  // graph6 needs about n²/12 bytes, sparse6 about m·(2 + log2 n)/3: compare before encoding.
-  const g6Size = (g.n * (g.n - 1)) / 12;
-  const s6Size = (g.m * 2 * (2 + Math.log2(g.n + 1))) / 6;
-  if (Math.min(g6Size, s6Size) > EMBED_LIMIT) return null;
-  return g6Size <= s6Size ? encodeGraph6(g) : encodeSparse6(g);
+/**
+ * The graph as the row's `embedded` text (graph6 or sparse6, whichever is shorter; an edge list
+ * when weighted), or null when longer than EMBED_LIMIT. The format is told by the text itself.
+ */
+export function embeddedText(g: Graph): string | null {
+  return embedGraph(g, EMBED_LIMIT)?.text ?? null;
 }
 
-function parseEmbedded(text: string, where: string): Graph {
-  return text.startsWith(":") ? parseSparse6(text, { source: where }) : parseGraph6(text, { source: where });
+/** The embedded text back as a graph: sparse6 starts with ':', an edge list has spaces, graph6 has neither. */
+function embeddedOfText(text: string): EmbeddedGraph {
+  return { format: text.startsWith(":") ? "sparse6" : /\s/.test(text) ? "edgelist" : "graph6", text };
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -195,28 +192,28 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
   const startedAt = new Date().toISOString();
   let graph: Graph;
   let notes: string[] = [];
-  let source: SourceRef;
+  let source: GraphSource;
   if (job.graph.kind === "spec") {
     const f = familyWithInfo(job.graph.spec);
     graph = f.graph;
     notes = f.notes;
-    source = { spec: f.spec };
+    source = { spec: f.spec, graphSeed: f.graphSeed };
   } else {
     graph = graphFromParts(job.graph.parts);
     const s = job.graph.source;
-    source = { path: s.path, index: s.position - 1, format: s.format };
+    source = { path: s.path, position: s.position, format: s.format, graphSeed: null };
   }
   if (job.settings.work !== null && !WORK_BUDGETS_AVAILABLE) {
     throw new InputError("work budgets are not available in this version of halfplus (use seconds)");
   }
   const t0 = performance.now();
-  const rec = bracket(graph, { seconds: job.settings.seconds, seed: job.solverSeed, method: job.settings.effort, source });
+  const rec = bracket(graph, { seconds: job.settings.seconds, solverSeed: job.solverSeed, effort: job.settings.effort, source });
   const solverSeconds = (performance.now() - t0) / 1000;
   const s = describeGraph(graph, { maxSearchNodes: STRUCTURE_SEARCH_NODES });
   const keep = context.degrees;
 
-  // Fields the reworked bracket record will carry; read defensively so the row schema is ready for them.
-  const future = rec as unknown as { budget?: { governing?: string; workUsed?: number | null }; upperKind?: string };
+  // The record's `budget` field comes with work budgets; read defensively so the row schema is ready for it.
+  const future = rec as unknown as { budget?: { governing?: string; workUsed?: number | null } };
   let sdpUpper: number | null = null;
   for (const r of rec.runs) if (r.method === "sdp-dual" && r.role === "upper" && Number.isFinite(r.value)) sdpUpper = r.value;
   const file = job.graph.kind === "parts" ? job.graph.source : null;
@@ -233,11 +230,11 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
     v[I.sourcePath] = file.path;
     v[I.sourcePosition] = file.position;
     v[I.sourceFormat] = file.format;
-    v[I.embedded] = embedGraph(graph);
+    v[I.embedded] = embeddedText(graph);
   }
   v[I.graphHash] = rec.graphHash;
-  v[I.solverSeed] = rec.seed;
-  v[I.effort] = rec.method;
+  v[I.solverSeed] = rec.solverSeed;
+  v[I.effort] = rec.effort;
   v[I.budgetSeconds] = job.settings.seconds;
   v[I.workLimit] = job.settings.work;
   v[I.version] = context.version;
@@ -262,7 +259,7 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
   v[I.surplusLower] = rec.surplusLower;
   v[I.surplusUpper] = rec.surplusUpper;
   v[I.exact] = rec.exact ? 1 : 0;
-  v[I.upperKind] = future.upperKind ?? (rec.upperProven ? "proven" : "estimate");
+  v[I.upperKind] = rec.upperKind;
   v[I.lowerMethod] = rec.lowerMethod;
   v[I.upperMethod] = rec.upperMethod;
   v[I.certificateKind] = rec.certificate.kind;
@@ -307,12 +304,20 @@ function blob(row: StoredRow, k: string): Uint8Array {
   return v;
 }
 
-function sourceOf(row: StoredRow): SourceRef | null {
-  if (typeof row.spec === "string") return { spec: row.spec };
-  if (typeof row.sourcePath === "string") {
-    return { path: row.sourcePath, index: (row.sourcePosition as number) - 1, format: (row.sourceFormat ?? undefined) as GraphFormat | undefined };
+/** The row's GraphSource: its spec, or its file and position; the embedded text when it has one. */
+function sourceOf(row: StoredRow): GraphSource {
+  const source: GraphSource = {};
+  if (typeof row.spec === "string") {
+    source.spec = row.spec;
+    source.graphSeed = typeof row.graphSeed === "number" ? row.graphSeed : null;
+  } else if (typeof row.sourcePath === "string") {
+    source.path = row.sourcePath;
+    source.position = row.sourcePosition as number;
+    if (typeof row.sourceFormat === "string") source.format = row.sourceFormat as GraphFormat;
+    source.graphSeed = null;
   }
-  return null;
+  if (typeof row.embedded === "string") source.embedded = embeddedOfText(row.embedded);
+  return source;
 }
 
 /** The bracket record a sweep row was made from (partition and certificate included), for verifyBracket. */
@@ -328,29 +333,31 @@ export function bracketRecordFromRow(row: StoredRow): BracketRecord {
     lower: num(row, "lower"),
     upper: num(row, "upper"),
     exact: row.exact === 1,
-    upperProven: row.upperKind === "proven",
+    upperKind: String(row.upperKind) as BracketRecord["upperKind"],
     surplusLower: num(row, "surplusLower"),
     surplusUpper: num(row, "surplusUpper"),
     lowerMethod: String(row.lowerMethod),
     upperMethod: String(row.upperMethod),
     seconds: typeof row.seconds === "number" ? row.seconds : 0,
-    seed: num(row, "solverSeed"),
-    method: String(row.effort) as Effort,
+    solverSeed: num(row, "solverSeed"),
+    effort: String(row.effort) as Effort,
     partition: unpackPartition(blob(row, "witness"), n, `${where}: witness`),
     certificate: unpackJson(evidence(row, "certificate"), `${where}: certificate`) as BracketRecord["certificate"],
     runs: row.runs === null || row.runs === undefined ? [] : (unpackJson(evidence(row, "runs"), `${where}: runs`) as BracketRecord["runs"]),
+    notes: typeof row.notes === "string" ? (unpackJson(row.notes, `${where}: notes`) as string[]) : [],
     graphHash: String(row.graphHash),
     source: sourceOf(row),
   };
 }
 
 /** The graph of a sweep row: its embedded text, its family spec, or its file and position. */
-export async function graphOfRow(row: StoredRow): Promise<Graph> {
+export async function graphOfRow(row: StoredRow, resolver: SourceResolver = new SourceResolver()): Promise<Graph> {
   const where = `row ${String(row.key)}`;
-  if (typeof row.embedded === "string") return parseEmbedded(row.embedded, where);
-  const src = sourceOf(row);
-  if (src === null) throw new InputError(`${where}: records no graph (imported rows cannot be re-checked)`);
-  return resolveSourceRef(src);
+  const source = sourceOf(row);
+  if (source.embedded === undefined && source.spec === undefined && source.path === undefined) {
+    throw new InputError(`${where}: records no graph (imported rows cannot be re-checked)`);
+  }
+  return resolver.resolve(source, where);
 }
 
 export type RowVerdict = BracketVerdict;

@@ -10,8 +10,8 @@ import { isPrimePower } from "../families/finite-field.js";
 import { GRAPH_FORMATS, type GraphFormat } from "../graph/formats/types.js";
 import { detectFromContent, formatFromExtension } from "../graph/formats/detect.js";
 import { jsonFault } from "./json-position.js";
+import { STORED_DEGREES, type StoredDegree } from "./rows.js";
 import {
-  DEGREE_MEASURES,
   EFFORTS,
   EVALUATOR_NAMES,
   familyFacts,
@@ -19,7 +19,6 @@ import {
   resolveSpecString,
   WORK_BUDGETS_AVAILABLE,
   type BracketSettings,
-  type DegreeMeasure,
   type Effort,
   type ParamValue,
   type ResolvedSpec,
@@ -95,7 +94,7 @@ export interface SweepPlan {
   /** Lower-bound evaluators to record (default: all). */
   evaluators?: string[];
   /** Degree measures to keep (default: all); the first is the d of the progress line's surplus/(m/√d). */
-  degrees?: DegreeMeasure[];
+  degrees?: StoredDegree[];
   families: PlanEntry[];
 }
 
@@ -141,7 +140,7 @@ export interface Plan {
   where: string;
   notes: string[];
   evaluators: string[];
-  degrees: DegreeMeasure[];
+  degrees: StoredDegree[];
   entries: CheckedEntry[];
   /** Jobs in the whole plan (before sharding and before skipping stored rows). */
   total: number;
@@ -416,7 +415,7 @@ export function loadPlan(input: string | SweepPlan, options: { base?: string; wh
   const defaults = f.bracket("bracket", top.bracket, { effort: "auto", seconds: DEFAULT_SWEEP_SECONDS, work: null });
   const solverSeeds = top.solverSeeds === undefined ? [0] : f.seeds("solverSeeds", top.solverSeeds);
   const evaluators = top.evaluators === undefined ? [...EVALUATOR_NAMES] : f.strings("evaluators", top.evaluators, EVALUATOR_NAMES);
-  const degrees = (top.degrees === undefined ? [...DEGREE_MEASURES] : f.strings("degrees", top.degrees, DEGREE_MEASURES)) as DegreeMeasure[];
+  const degrees = (top.degrees === undefined ? [...STORED_DEGREES] : f.strings("degrees", top.degrees, STORED_DEGREES)) as StoredDegree[];
   if (degrees.length === 0) f.fail("degrees", "should keep at least one degree measure");
   if (!Array.isArray(top.families) || top.families.length === 0) f.fail("families", "should be a non-empty list of families, specs or sources");
 

@@ -3,6 +3,7 @@
 // certificate are in the row, the graph is embedded in it or rebuilt from its spec or file.
 
 import type { Graph } from "../graph/graph.js";
+import { SourceResolver } from "../sources/index.js";
 import type { StoredRow } from "./columns.js";
 import { bracketRecordFromRow, graphOfRow, verifyRowRecord, type BracketRecord, type RowVerdict } from "./job.js";
 import type { ResultStore, RowFilter } from "./store.js";
@@ -41,11 +42,12 @@ export async function* storedBrackets(store: ResultStore, filter?: RowFilter, po
     if (head.origin !== "sweep" || !matches(head, filter)) continue;
     chosen.push({ key: String(head.key), position });
   }
+  const resolver = new SourceResolver();
   for (const c of chosen) {
     const row = store.get(c.key);
     if (row === undefined) continue; // removed meanwhile by another process
     const record = bracketRecordFromRow(row);
-    const graph = await graphOfRow(row);
+    const graph = await graphOfRow(row, resolver);
     yield { key: c.key, position: c.position, row, record, graph };
   }
 }

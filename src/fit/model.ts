@@ -7,6 +7,7 @@ import { describeFitText, fitsToLatex, type LatexOptions } from "./format.js";
 import type { LawSpec } from "./laws.js";
 import { leastSquares } from "./least-squares.js";
 import { checkLevel } from "./options.js";
+import { DEGREE_WORDS } from "../experiment/rows.js";
 import { droppedCounts, type DegreeMeasure, type DroppedRow, type ScreenedRows, type SurplusResponse, type UsedRow } from "./rows.js";
 import { studentTQuantile, studentTTwoSided } from "./student-t.js";
 import type { CurveInput, CurvePrediction, FitTableRow } from "./types.js";
@@ -343,7 +344,7 @@ export class LogLinearFit {
   }
 
   protected headline(): string {
-    const d = this.spec.predictorNames.some((n) => n.includes("d")) ? `, d = ${this.degree === "degeneracy" ? "degeneracy" : `${this.degree} degree`}` : "";
+    const d = this.spec.predictorNames.some((n) => n.includes("d")) ? `, d = ${DEGREE_WORDS[this.degree]}` : "";
     const fixed = this.fixedText();
     const what = fixed === null ? `surplus ≈ ${this.spec.formula}` : `surplus ≈ ${this.spec.formula} with ${fixed} held fixed`;
     const fam = this.family === undefined ? "" : `family ${this.family}: `;

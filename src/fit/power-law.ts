@@ -13,7 +13,7 @@ export interface PowerLawOptions {
   law?: PowerLaw;
   /** Bracket end to fit: "lower" (default), "upper", or "exact" (closed brackets only). */
   response?: SurplusResponse;
-  /** d is the degeneracy (default), the maximum degree ("max") or the average degree ("average"). */
+  /** d is the degeneracy (default), the maximum degree ("maxDegree") or the average degree ("averageDegree"): the row fields. */
   degree?: DegreeMeasure;
   /** Default level of intervals and bands (default 0.95). */
   level?: number;

@@ -2,24 +2,9 @@
 // fit can take, and the screening that decides which rows a fit uses and why the others are dropped.
 
 import { InputError } from "../errors.js";
+import { DEGREE_MEASURES, type DegreeMeasure, type FitRow } from "../experiment/rows.js";
 
-/** One bracketed graph, as the results store or an imported CSV hands it to a fit. */
-export interface FitRow {
-  /** The store's key for the row (or any label); carried into `used` and `dropped`. */
-  key?: string;
-  family?: string;
-  n?: number;
-  m: number;
-  degeneracy?: number;
-  maxDegree?: number;
-  averageDegree?: number;
-  /** maxcut lower bound − m/2 (weighted graphs: − W/2); null when unknown. */
-  surplusLower: number | null;
-  /** maxcut upper bound − m/2; null when unknown. */
-  surplusUpper: number | null;
-  /** True when the bracket is closed (surplusLower = surplusUpper = the surplus). */
-  exact: boolean;
-}
+export { DEGREE_MEASURES, type DegreeMeasure, type FitRow };
 
 /**
  * The growth laws a fit can take, all fitted on the log scale (ln = natural log):
@@ -33,10 +18,6 @@ export const POWER_LAWS: readonly PowerLaw[] = ["m-and-d", "m", "m-over-sqrt-d"]
 /** Which end of the bracket is the response: the certified lower end, the upper end, or closed brackets only. */
 export type SurplusResponse = "lower" | "upper" | "exact";
 export const SURPLUS_RESPONSES: readonly SurplusResponse[] = ["lower", "upper", "exact"];
-
-/** Which degree measure stands for d. */
-export type DegreeMeasure = "degeneracy" | "max" | "average";
-export const DEGREE_MEASURES: readonly DegreeMeasure[] = ["degeneracy", "max", "average"];
 
 /** A row a fit left out, with the reason in words. `index` is the row's position in the input array (0-based). */
 export interface DroppedRow {
@@ -54,19 +35,6 @@ export interface UsedRow {
 export function lawNeedsDegree(law: PowerLaw): boolean {
   return law !== "m";
 }
-
-export function degreeOf(row: Pick<FitRow, "degeneracy" | "maxDegree" | "averageDegree">, degree: DegreeMeasure): number | undefined {
-  switch (degree) {
-    case "degeneracy":
-      return row.degeneracy;
-    case "max":
-      return row.maxDegree;
-    case "average":
-      return row.averageDegree;
-  }
-}
-
-const DEGREE_FIELD: Record<DegreeMeasure, string> = { degeneracy: "degeneracy", max: "maxDegree", average: "averageDegree" };
 
 /** The row's position in a user's eyes: "row 3" or "row 3 (key …)"; rows are numbered from 1. */
 export function rowLabel(index: number, key?: string): string {
@@ -154,8 +122,8 @@ export function screenRows(rows: readonly FitRow[], options: ScreenOptions): Scr
     }
     let ld = NaN;
     if (needsDegree) {
-      const d = degreeOf(row, degree);
-      const name = DEGREE_FIELD[degree];
+      const d = row[degree];
+      const name = degree;
       if (d === undefined || d === null) {
         drop(`${name} missing`);
         continue;

@@ -4,7 +4,6 @@ export * from "./colour.js";
 export * from "./palette.js";
 export * from "./tex.js";
 export { axis, baseLayout, emptyNote, shortNumber } from "./theme.js";
-export { surplusRowDegree, measureWords } from "./rows.js";
 export { logSpaced, conjectureConstant } from "./curves.js";
 export * from "./figures/index.js";
 export * from "./export/index.js";

@@ -1,28 +1,9 @@
-// Checking the rows and options a figure is asked to draw, and the degree measure d of m/√d.
+// Checking the rows and options a figure is asked to draw.
 // Bad rows stop with one line naming the row (1-based, like every position in halfplus) and the
 // field; rows that are fine but cannot be drawn (say, on log axes) are left out with a note.
 
 import { InputError, invalidParameter } from "../errors.js";
-import { degreeOf, type DegreeMeasure } from "../fit/index.js";
 import type { SurplusRow } from "./types.js";
-
-/** The degree d of a row under a measure (the fit's own mapping from measure to field). */
-export function surplusRowDegree(row: SurplusRow, measure: DegreeMeasure): number {
-  // A SurplusRow carries every degree field, so the measure is always present.
-  return degreeOf(row, measure) as number;
-}
-
-/** Words for d in titles and notes, plain and in TeX. */
-export function measureWords(measure: DegreeMeasure): { text: string; tex: string } {
-  switch (measure) {
-    case "degeneracy":
-      return { text: "degeneracy", tex: "degeneracy" };
-    case "max":
-      return { text: "maximum degree", tex: "maximum degree" };
-    case "average":
-      return { text: "average degree", tex: "average degree" };
-  }
-}
 
 /** Throws unless `value` is one of `allowed`. */
 export function checkChoice<T extends string>(owner: string, name: string, value: T | undefined, allowed: readonly T[], fallback: T): T {
@@ -63,6 +44,8 @@ export function checkRows(owner: string, rows: readonly SurplusRow[]): void {
     }
     if (row.surplusLower > row.surplusUpper)
       throw new InputError(`${where(owner, i, row)}: \`surplusLower\` ${row.surplusLower} is above \`surplusUpper\` ${row.surplusUpper}`);
+    if (row.totalWeight !== undefined && !(typeof row.totalWeight === "number" && Number.isFinite(row.totalWeight)))
+      throw new InputError(`${where(owner, i, row)}: \`totalWeight\` should be a finite number when given (got ${JSON.stringify(row.totalWeight)})`);
     for (const f of OPTIONAL_CUT_FIELDS) {
       const v = row[f];
       if (v !== undefined && !(typeof v === "number" && Number.isFinite(v)))

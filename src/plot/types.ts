@@ -1,37 +1,11 @@
-// The shapes the figure builders read (rows from the results store, fits from src/fit) and the
-// shape they return (a plain plotly figure: traces and a layout, never a DOM node).
+// The shapes the figure builders read (rows as the results store hands them, declared in
+// src/experiment/rows.ts; fits from src/fit) and the shape they return (a plain plotly figure: traces and a layout, never a DOM node).
 // Fitted curves and exponents come in the shapes src/fit defines (src/plot sits above src/fit);
 // any object with those fields can be plotted.
 
-import type { CurveFit, DegreeMeasure, ExponentEstimate } from "../fit/index.js";
-export type { CurveFit, DegreeMeasure, ExponentEstimate };
-
-/**
- * One graph's row as the results store hands it to the figures. Counts are of the graph itself;
- * `surplusLower`/`surplusUpper` are the bracket on maxcut − m/2. `bestCut`, `sdpBound`,
- * `vectorGuarantee` and `edwardsBound` are cut values (same units as maxcut, not surplus):
- * the best cut found, the certified SDP upper bound, the explicit vector rounding's guaranteed
- * expected cut and the Edwards lower bound. `degrees` (one per vertex) feeds the degree
- * distribution figure and may be left out.
- */
-export interface SurplusRow {
-  /** A short label for the graph (the store's key or spec), shown on hover and in exports. */
-  key?: string;
-  family: string;
-  n: number;
-  m: number;
-  degeneracy: number;
-  maxDegree: number;
-  averageDegree: number;
-  surplusLower: number;
-  surplusUpper: number;
-  exact: boolean;
-  bestCut?: number;
-  sdpBound?: number;
-  vectorGuarantee?: number;
-  edwardsBound?: number;
-  degrees?: readonly number[];
-}
+import type { CurveFit, ExponentEstimate } from "../fit/index.js";
+import type { DegreeMeasure, SurplusRow } from "../experiment/rows.js";
+export type { CurveFit, DegreeMeasure, ExponentEstimate, SurplusRow };
 
 /**
  * The conjectured law surplus = c·m/√d as a line of slope 1 on log–log axes, with its fitted

@@ -2,7 +2,7 @@
 // n and degree measures when known) become store rows that fits and figures read like swept ones.
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
-import { DEGREE_MEASURES, IMPORT_COLUMNS, importCsvFile, openStore, type DegreeMeasure } from "../../experiment/index.js";
+import { STORED_DEGREES, IMPORT_COLUMNS, importCsvFile, openStore, type StoredDegree } from "../../experiment/index.js";
 import { writeLine } from "../output.js";
 
 export const importCommand: CommandSpec = {
@@ -14,7 +14,7 @@ export const importCommand: CommandSpec = {
   options: [
     { name: "into", type: "string", description: "the results store (created if missing)", placeholder: "FILE" },
     { name: "family", type: "string", description: "family label for rows without a family column (default: the file name)", placeholder: "NAME" },
-    { name: "d-is", type: "string", description: "what a `d` column holds", default: "degeneracy", choices: DEGREE_MEASURES, placeholder: "MEASURE" },
+    { name: "d-is", type: "string", description: "what a `d` column holds", default: "degeneracy", choices: STORED_DEGREES, placeholder: "MEASURE" },
     { name: "skip-unknown", type: "boolean", description: "leave out columns halfplus does not know (and list them) instead of refusing the file" },
   ],
   examples: [`halfplus import measured.csv --into results/halfplus.db --family my-graphs   # columns: ${IMPORT_COLUMNS.slice(2, 6).join(", ")}, surplusLower, surplusUpper, ...`],
@@ -24,7 +24,7 @@ export const importCommand: CommandSpec = {
     if (into === undefined || into === "") throw new InputError("--into FILE is required: the store to import into");
     const store = openStore(into);
     try {
-      const r = importCsvFile(store, args.positionals[0], { family: o["family"] as string | undefined, dIs: o["d-is"] as DegreeMeasure, skipUnknown: o["skip-unknown"] === true });
+      const r = importCsvFile(store, args.positionals[0], { family: o["family"] as string | undefined, dIs: o["d-is"] as StoredDegree, skipUnknown: o["skip-unknown"] === true });
       const skipped = r.skippedColumns.length > 0 ? `; columns left out: ${r.skippedColumns.join(", ")}` : "";
       await writeLine(io.stdout, `${r.file}: ${r.rows} rows, ${r.added} added, ${r.alreadyThere} already in ${into}${skipped}`);
     } finally {

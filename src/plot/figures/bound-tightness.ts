@@ -1,6 +1,6 @@
 // Figure 4: how tight the bounds are, graph by graph — the best cut found, the certified SDP
 // upper bound, the explicit vector rounding's guarantee and the Edwards bound, all as surplus
-// (value − m/2) on a log axis, one column of marks per graph.
+// (value − W/2) on a log axis, one column of marks per graph.
 
 import { familyStyles, seriesStyle, type SeriesStyle } from "../palette.js";
 import { checkRows } from "../rows.js";
@@ -52,7 +52,7 @@ export function boundTightnessFigure(rows: readonly SurplusRow[], options: Bound
     graphs.forEach((r, i) => {
       const v = r[series.field];
       if (v === undefined) return void missing++;
-      const surplus = v - r.m / 2;
+      const surplus = v - (r.totalWeight ?? r.m) / 2;
       if (!(surplus > 0)) return void nonPositive++;
       xs.push(i);
       ys.push(surplus);
@@ -70,11 +70,11 @@ export function boundTightnessFigure(rows: readonly SurplusRow[], options: Bound
   const layout = baseLayout(
     options.title ?? "How tight the bounds are",
     axis("graph", "linear", { tickvals: ticks, ticktext: ticks.map((i) => labels[i]), tickangle: -40, showgrid: false, range: [-0.6, Math.max(graphs.length - 0.4, 0.4)] }),
-    axis("surplus  (value − m/2)", "log"),
+    axis("surplus  (value − W/2)", "log"),
     {
       figure: "bound-tightness",
       notes,
-      tex: { x: "graph", y: "surplus (value $- m/2$)" },
+      tex: { x: "graph", y: "surplus (value $- W/2$)" },
       columns: { x: "graph_index", y: "surplus" },
     },
   );

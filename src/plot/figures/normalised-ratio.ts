@@ -4,15 +4,15 @@
 
 import { asList, conjectureConstant, conjectureLabel, curveRange } from "../curves.js";
 import { DASH, INK, familyStyles } from "../palette.js";
-import { DEGREE_MEASURES } from "../../fit/index.js";
-import { LeftOut, checkChoice, checkLevel, checkRows, familiesOf, measureWords, surplusRowDegree } from "../rows.js";
+import { DEGREE_MEASURES, DEGREE_WORDS } from "../../experiment/rows.js";
+import { LeftOut, checkChoice, checkLevel, checkRows, familiesOf } from "../rows.js";
 import { axis, baseLayout, emptyNote, shortNumber } from "../theme.js";
 import type { ConjectureLine, CurveFit, DegreeMeasure, PlotFigure, PlotTrace, SurplusRow } from "../types.js";
 import { pointsTrace } from "./points.js";
 import { surplusAt, type SurplusPoint } from "./surplus-scaling.js";
 
 export interface NormalisedRatioOptions {
-  measure?: DegreeMeasure;
+  degree?: DegreeMeasure;
   point?: SurplusPoint;
   /** Draw c of the conjectured law as a horizontal line. */
   conjecture?: ConjectureLine | CurveFit | readonly (ConjectureLine | CurveFit)[];
@@ -28,16 +28,16 @@ const OWNER = "normalisedRatioFigure";
 /** surplus/(m/√d) against m, one trace per family. */
 export function normalisedRatioFigure(rows: readonly SurplusRow[], options: NormalisedRatioOptions = {}): PlotFigure {
   checkRows(OWNER, rows);
-  const measure = checkChoice(OWNER, "measure", options.measure, DEGREE_MEASURES, "degeneracy");
+  const degree = checkChoice(OWNER, "degree", options.degree, DEGREE_MEASURES, "degeneracy");
   const point = checkChoice<SurplusPoint>(OWNER, "point", options.point, ["lower", "midpoint", "upper"], "lower");
   const mAxis = checkChoice<"log" | "linear">(OWNER, "mAxis", options.mAxis, ["log", "linear"], "log");
   const level = checkLevel(OWNER, options.level);
-  const words = measureWords(measure);
+  const words = DEGREE_WORDS[degree];
   const leftOut = new LeftOut();
   const kept = new Map<string, { row: SurplusRow; scale: number }[]>();
   for (const row of rows) {
-    const d = surplusRowDegree(row, measure);
-    if (!(d > 0)) leftOut.add(`${words.text} 0 (no m/√d)`);
+    const d = row[degree];
+    if (!(d > 0)) leftOut.add(`${words} 0 (no m/√d)`);
     else if (!(row.m > 0)) leftOut.add("no edges");
     else {
       const list = kept.get(row.family) ?? [];
@@ -98,11 +98,11 @@ export function normalisedRatioFigure(rows: readonly SurplusRow[], options: Norm
   const layout = baseLayout(
     options.title ?? "Normalised surplus against m",
     axis("m  (edges)", mAxis),
-    axis(`surplus / (m/√d)   (d = ${words.text})`, "linear", { rangemode: "tozero" }),
+    axis(`surplus / (m/√d)   (d = ${words})`, "linear", { rangemode: "tozero" }),
     {
       figure: "normalised-ratio",
       notes,
-      tex: { x: "$m$ (edges)", y: `surplus$/(m/\\sqrt{d})$ ($d$ = ${words.tex})` },
+      tex: { x: "$m$ (edges)", y: `surplus$/(m/\\sqrt{d})$ ($d$ = ${words})` },
       columns: { x: "m", y: "surplus_over_m_over_sqrt_d" },
     },
   );

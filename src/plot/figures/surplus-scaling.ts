@@ -5,8 +5,8 @@
 import { InputError } from "../../errors.js";
 import { asList, conjectureConstant, conjectureTrace, curveRange, fitTraces } from "../curves.js";
 import { familyStyles } from "../palette.js";
-import { DEGREE_MEASURES } from "../../fit/index.js";
-import { LeftOut, checkChoice, checkLevel, checkRows, familiesOf, measureWords, surplusRowDegree } from "../rows.js";
+import { DEGREE_MEASURES, DEGREE_WORDS } from "../../experiment/rows.js";
+import { LeftOut, checkChoice, checkLevel, checkRows, familiesOf } from "../rows.js";
 import { axis, baseLayout, emptyNote } from "../theme.js";
 import type { ConjectureLine, CurveFit, DegreeMeasure, PlotFigure, PlotTrace, SurplusRow } from "../types.js";
 import { pointsTrace } from "./points.js";
@@ -15,8 +15,8 @@ export type SurplusPoint = "lower" | "midpoint" | "upper";
 const POINTS: readonly SurplusPoint[] = ["lower", "midpoint", "upper"];
 
 export interface SurplusScalingOptions {
-  /** d in m/√d: "degeneracy" (default), "max" or "average" degree. */
-  measure?: DegreeMeasure;
+  /** d in m/√d: "degeneracy" (default), "maxDegree" or "averageDegree" (the row fields). */
+  degree?: DegreeMeasure;
   /** Where a graph's marker sits inside its bracket; the bar always spans the whole bracket. Default "lower" (the best cut found). */
   point?: SurplusPoint;
   /** Fitted curves, evaluated by `predict(m/√d, level)`; a fit with `family` takes that family's style and x range. */
@@ -46,19 +46,19 @@ export function surplusAt(row: SurplusRow, point: SurplusPoint): number {
  */
 export function surplusScalingFigure(rows: readonly SurplusRow[], options: SurplusScalingOptions = {}): PlotFigure {
   checkRows(OWNER, rows);
-  const measure = checkChoice(OWNER, "measure", options.measure, DEGREE_MEASURES, "degeneracy");
+  const degree = checkChoice(OWNER, "degree", options.degree, DEGREE_MEASURES, "degeneracy");
   const point = checkChoice(OWNER, "point", options.point, POINTS, "lower");
   const level = checkLevel(OWNER, options.level);
   const samples = options.samples ?? 64;
   if (!Number.isInteger(samples) || samples < 2 || samples > 10_000) throw new InputError(`${OWNER}: invalid \`samples\`: an integer from 2 to 10000 (got ${JSON.stringify(options.samples)})`);
-  const words = measureWords(measure);
+  const words = DEGREE_WORDS[degree];
   const leftOut = new LeftOut();
 
   const kept = new Map<string, { row: SurplusRow; x: number; y: number; d: number }[]>();
   for (const row of rows) {
-    const d = surplusRowDegree(row, measure);
+    const d = row[degree];
     const y = surplusAt(row, point);
-    if (!(d > 0)) leftOut.add(`${words.text} 0 (no m/√d)`);
+    if (!(d > 0)) leftOut.add(`${words} 0 (no m/√d)`);
     else if (!(row.m > 0)) leftOut.add("no edges");
     else if (!(y > 0)) leftOut.add(`surplus ${point === "midpoint" ? "midpoint" : `${point} end`} ≤ 0 (log axis)`);
     else {
@@ -122,12 +122,12 @@ export function surplusScalingFigure(rows: readonly SurplusRow[], options: Surpl
 
   const layout = baseLayout(
     options.title ?? "Surplus against m/√d",
-    axis(`m / √d   (d = ${words.text})`, "log"),
+    axis(`m / √d   (d = ${words})`, "log"),
     axis("surplus  (max cut − m/2)", "log"),
     {
       figure: "surplus-scaling",
       notes,
-      tex: { x: `$m/\\sqrt{d}$ ($d$ = ${words.tex})`, y: "surplus $\\mathrm{mc}(G) - m/2$" },
+      tex: { x: `$m/\\sqrt{d}$ ($d$ = ${words})`, y: "surplus $\\mathrm{mc}(G) - m/2$" },
       columns: { x: "m_over_sqrt_d", y: "surplus" },
     },
   );
