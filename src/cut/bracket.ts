@@ -10,13 +10,15 @@ import { PROOF_SHIFT_METHODS, certifyDual } from "./certificate.js";
 import { eigenvalueUpperBound } from "./eigen-bound.js";
 import { cutValue } from "./evaluate.js";
 import { exactMaxCut } from "./exact.js";
-import { checkSeedOption, improvementMargin, integerWeights, nowSeconds, positiveWeightSum, type ExactCutRecord, type ExactProgress } from "./exact-common.js";
+import { checkSeedOption, integerWeights, nowSeconds, positiveWeightBound, type ExactCutRecord, type ExactProgress } from "./exact-common.js";
+import { exactSearchSlack } from "./exact-slack.js";
+import { roundUp } from "../linalg/rounding.js";
 import { localSearch } from "./local-search.js";
 import { hyperplaneRound } from "./rounding.js";
 import { solveSdp } from "./sdp.js";
 import type { CutRecord, DualCertificate, UpperBoundRecord } from "./types.js";
 import { vectorMethodRound } from "./vector-method.js";
-import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, graphHash } from "./verify.js";
+import { BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, closingTolerance, graphHash } from "./verify.js";
 
 /**
  * auto: exact search when the graph is small, heuristics and certified bounds otherwise;
@@ -49,7 +51,11 @@ export interface BracketOptions {
   source?: SourceRef | null;
 }
 
-/** How `upper` is proven. `floored`: integer weights, so the bound was rounded down to an integer. */
+/**
+ * How `upper` is proven. `floored`: exact integer weights, so the bound was rounded down to an
+ * integer. `tolerance`: how far `upper` may sit above `lower` in a closed bracket (0 for exact
+ * integer weights); informational only: `verify` derives its own from the graph and never reads it.
+ */
 export type BracketCertificate =
   | { kind: "psd-dual"; y: number[]; shift: number; shiftMethod: string; floored: boolean; tolerance: number }
   | { kind: "exhaustive"; search: string; nodes: number; floored: boolean; tolerance: number }
@@ -97,6 +103,8 @@ export interface BracketRecord {
   runs: BracketRun[];
   graphHash: string;
   source: SourceRef | null;
+  /** Present (true) when SIGINT/SIGTERM stopped the run: the best record at that moment. */
+  interrupted?: true;
 }
 
 /** A seed per method, derived from the bracket's seed so every run is reproducible. */
@@ -116,7 +124,9 @@ class BracketState {
   readonly graph: Graph;
   readonly integral: boolean;
   /** Non-integer weights: how far `upper` may sit above `lower` in a closed bracket (see offerExact). */
-  tolerance: number;
+  readonly tolerance: number;
+  /** Non-integer weights: the exact search's slack (src/cut/exact-slack.ts), 0 otherwise. */
+  readonly slack: number;
   readonly t0: number;
   readonly deadline: number;
   lower = -Infinity;
@@ -133,15 +143,24 @@ class BracketState {
   constructor(graph: Graph, seconds: number, onProgress?: (p: BracketProgress) => void) {
     this.graph = graph;
     this.integral = integerWeights(graph);
-    this.tolerance = this.integral ? 0 : improvementMargin(graph);
+    this.slack = this.integral ? 0 : exactSearchSlack(graph);
+    this.tolerance = closingTolerance(graph);
     this.t0 = nowSeconds();
     this.deadline = this.t0 + seconds;
     this.onProgress = onProgress;
     this.partition = new Uint8Array(graph.n);
     this.lower = cutValue(graph, this.partition);
     this.lowerMethod = "all-on-one-side";
-    this.upper = this.round(positiveWeightSum(graph));
-    this.certificate = { kind: "positive-weights", floored: this.integral, tolerance: this.tolerance };
+    this.upper = positiveWeightBound(graph);
+    this.certificate = { kind: "positive-weights", floored: false, tolerance: this.tolerance };
+  }
+
+  private hash_: string | null = null;
+
+  /** The graph's hash, computed once (snapshots ask for it again). */
+  hash(): string {
+    if (this.hash_ === null) this.hash_ = graphHash(this.graph);
+    return this.hash_;
   }
 
   left(): number {
@@ -152,9 +171,18 @@ class BracketState {
     return nowSeconds() - this.t0;
   }
 
-  /** Integer weights: every cut is an integer, so a bound may be rounded down. */
+  /** Exact integer weights: every cut is an integer, so a proven bound may be rounded down (as verify does). */
   round(bound: number): number {
-    return this.integral ? Math.floor(bound + 1e-9) : bound;
+    return this.integral ? Math.floor(bound) : bound;
+  }
+
+  /**
+   * What to publish for an exact search's proven bound: for non-integer weights the bound plus twice
+   * the search's slack, so that verify's own re-run (whose cut may differ by up to the slack) proves
+   * a bound no higher than the published one.
+   */
+  searchBound(upper: number): number {
+    return this.integral ? Math.floor(upper) : roundUp(upper + 2 * this.slack, 2);
   }
 
   closed(): boolean {
@@ -208,22 +236,16 @@ class BracketState {
     this.takeCut(r);
     if (r.status === "optimal") {
       this.exact = true;
-      // The search on a disconnected graph sums one margin per component, which can exceed the
-      // whole graph's margin: record the slack it actually proved, so verify accepts the closed
-      // bracket (fixes the ten-triangle case in test/bracket.test.ts).
-      if (!this.integral) {
-        this.tolerance = Math.max(this.tolerance, r.upper - r.value);
-        this.certificate = { ...this.certificate, tolerance: this.tolerance };
-      }
-      // Non-integer weights: the search proves value + tolerance, which an earlier certificate may beat.
-      if (r.upper <= this.upper || !this.upperProven) {
-        this.upper = r.upper;
+      // Non-integer weights: the search proves value + slack, which an earlier certificate may beat.
+      const bound = this.searchBound(r.upper);
+      if (bound <= this.upper || !this.upperProven) {
+        this.upper = bound;
         this.upperMethod = r.method;
         this.upperProven = true;
         this.certificate = { kind: "exhaustive", search: r.method, nodes: r.nodes, floored: false, tolerance: this.tolerance };
       }
     } else {
-      const bound = this.round(r.upper);
+      const bound = this.searchBound(r.upper);
       if (bound < this.upper) {
         this.upper = bound;
         this.upperMethod = r.method;
@@ -384,8 +406,18 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
     state.upperMethod = "positive-weights";
   }
 
+  return recordOf(state, seed, method, options.source ?? null);
+}
+
+/** The record of a bracket state: at the end of a run, or as a snapshot while it runs. */
+function recordOf(state: BracketState, seed: number, method: BracketMethod, source: SourceRef | null): BracketRecord {
+  const graph = state.graph;
   const W = graph.totalWeight;
   const exact = state.closed();
+  // Never publish upper < lower. With exact integer weights a proven bound rounded down can't fall
+  // below a cut; with other weights a rounded-up dual bound may still sit an ulp under a cut value
+  // that rounded up, and then the cut's value is itself a bound the certificate proves.
+  const upper = Math.max(state.upper, state.lower);
   return {
     kind: BRACKET_RECORD_KIND,
     version: BRACKET_RECORD_VERSION,
@@ -393,11 +425,11 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
     m: graph.m,
     totalWeight: W,
     lower: state.lower,
-    upper: state.upper,
+    upper,
     exact,
     upperProven: state.upperProven,
     surplusLower: state.lower - W / 2,
-    surplusUpper: state.upper - W / 2,
+    surplusUpper: upper - W / 2,
     lowerMethod: state.lowerMethod,
     upperMethod: state.upperMethod,
     seconds: state.elapsed(),
@@ -405,8 +437,8 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
     method,
     partition: Array.from(state.partition),
     certificate: state.certificate,
-    runs: state.runs,
-    graphHash: graphHash(graph),
-    source: options.source ?? null,
+    runs: state.runs.slice(),
+    graphHash: state.hash(),
+    source,
   };
 }

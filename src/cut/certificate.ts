@@ -45,10 +45,17 @@ export interface CertifyOptions {
 const OWNER = "certifyDual";
 const DEFAULT_DENSE_LIMIT = 3000;
 
+/**
+ * Largest |y_i| (and |shift|) accepted in a dual certificate: squares and sums of n such entries
+ * stay far inside the double range, so Lanczos and the eigensolver never overflow (an entry of
+ * 1e200 used to crash both). Meaningful duals are of the order of the weighted degrees.
+ */
+export const MAX_DUAL_ENTRY = 1e120;
+
 function checkY(graph: Graph, y: ArrayLike<number>, owner: string): void {
   if (y.length !== graph.n) throw new InputError(`${owner}: \`y\` has ${y.length} entries but the graph has ${graph.n} vertices`);
   for (let i = 0; i < y.length; i++) {
-    if (!Number.isFinite(y[i])) throw new InputError(`${owner}: \`y\`[${i}] is ${y[i]}, expected a finite number`);
+    if (!(Math.abs(y[i]) <= MAX_DUAL_ENTRY)) throw new InputError(`${owner}: \`y\`[${i}] is ${y[i]}, expected a finite number with |y| ≤ ${MAX_DUAL_ENTRY}`);
   }
 }
 
@@ -274,9 +281,9 @@ export function verifyCertificate(graph: Graph, certificate: DualCertificate, op
   if (y === null || typeof y !== "object" || typeof (y as ArrayLike<number>).length !== "number") return rejected(method, "`y` is not an array");
   if (y.length !== graph.n) return rejected(method, `\`y\` has ${y.length} entries but the graph has ${graph.n} vertices`);
   for (let i = 0; i < y.length; i++) {
-    if (typeof y[i] !== "number" || !Number.isFinite(y[i])) return rejected(method, `\`y\`[${i}] is ${String(y[i])}, expected a finite number`);
+    if (typeof y[i] !== "number" || !(Math.abs(y[i]) <= MAX_DUAL_ENTRY)) return rejected(method, `\`y\`[${i}] is ${String(y[i])}, expected a finite number with |y| ≤ ${MAX_DUAL_ENTRY}`);
   }
-  if (typeof shift !== "number" || !Number.isFinite(shift)) return rejected(method, `shift is ${String(shift)}, expected a finite number`);
+  if (typeof shift !== "number" || !(Math.abs(shift) <= MAX_DUAL_ENTRY)) return rejected(method, `shift is ${String(shift)}, expected a finite number with |shift| ≤ ${MAX_DUAL_ENTRY}`);
   const value = dualBoundValue(y, shift);
   if (graph.n === 0) return { ok: true, proven: true, value, recomputedShift: 0, method, message: "empty graph" };
 

@@ -25,6 +25,8 @@ import {
   type ExactCutRecord,
   type ExactOptions,
 } from "./exact-common.js";
+import { graphSlack } from "./exact-slack.js";
+import { roundUp } from "../linalg/rounding.js";
 
 export type BranchOrder = "tail-greedy" | "degree";
 
@@ -85,9 +87,17 @@ function tailGreedyOrder(graph: Graph): Int32Array {
   return order;
 }
 
+/** Vertices by degree, largest first, ties by id: a stable counting sort (O(n), no boxed arrays for large n). */
 function degreeOrder(graph: Graph): Int32Array {
-  const idx = Array.from({ length: graph.n }, (_, v) => v).sort((a, b) => graph.degree(b) - graph.degree(a) || a - b);
-  return Int32Array.from(idx);
+  const n = graph.n;
+  let maxDeg = 0;
+  for (let v = 0; v < n; v++) maxDeg = Math.max(maxDeg, graph.degree(v));
+  const start = new Int32Array(maxDeg + 2);
+  for (let v = 0; v < n; v++) start[maxDeg - graph.degree(v) + 1]++;
+  for (let d = 1; d <= maxDeg + 1; d++) start[d] += start[d - 1];
+  const order = new Int32Array(n);
+  for (let v = 0; v < n; v++) order[start[maxDeg - graph.degree(v)]++] = v;
+  return order;
 }
 
 function positioned(graph: Graph, order: Int32Array): Positioned {
@@ -128,7 +138,7 @@ function positioned(graph: Graph, order: Int32Array): Positioned {
  * Greedy 1-flip ascent on the subgraph induced by positions ≥ from: flip the best improving
  * vertex until none improves by more than `eps`. Returns the cut of that subgraph.
  */
-function flipAscent(P: Positioned, side: Uint8Array, from: number, gain: Float64Array, eps: number): number {
+function flipAscent(P: Positioned, side: Uint8Array, from: number, gain: Float64Array, eps: number, stopAt: number): number {
   const { n, off, nbr, w } = P;
   let cut = 0;
   for (let p = from; p < n; p++) {
@@ -144,7 +154,10 @@ function flipAscent(P: Positioned, side: Uint8Array, from: number, gain: Float64
     }
     gain[p] = g;
   }
-  for (;;) {
+  // Each flip scans every free vertex: on a large graph an ascent can outlast the budget, so
+  // it checks the clock (the cut stays that of `side` whenever it stops).
+  for (let flips = 1; ; flips++) {
+    if ((flips & 255) === 0 && nowSeconds() > stopAt) return cut;
     let pick = -1;
     let bestGain = eps;
     for (let p = from; p < n; p++) {
@@ -216,12 +229,13 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   const bestSide = new Uint8Array(n); // best partition found for the current tail problem
   const tailSide = new Uint8Array(n); // optimal partition of the previous (shorter) tail
 
+  const deadline = t0 + seconds;
   // First incumbent for the whole graph: the caller's partition and seeded 1-flip restarts.
   const rng = new Rng(seed);
   const globalSide = new Uint8Array(n);
   let globalBest = -Infinity;
   const trySide = (cand: Uint8Array): void => {
-    const c = flipAscent(P, cand, 0, scratch, margin / 2);
+    const c = flipAscent(P, cand, 0, scratch, margin / 2, deadline);
     if (c > globalBest) {
       globalBest = c;
       globalSide.set(cand);
@@ -232,7 +246,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
     for (let p = 0; p < n; p++) cand[p] = options.initial[order[p]];
     trySide(cand);
   }
-  for (let r = 0; r < restarts; r++) {
+  for (let r = 0; r < restarts && nowSeconds() <= deadline; r++) {
     for (let p = 0; p < n; p++) cand[p] = rng.nextU32() & 1;
     trySide(cand);
   }
@@ -247,7 +261,6 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   let nodes = 0;
   let work = 0;
   let nextCheck = 4096;
-  const deadline = t0 + seconds;
   const onProgress = options.onProgress;
   let nextReport = t0 + PROGRESS_INTERVAL;
   let stopped = false;
@@ -259,6 +272,10 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   let sumMax = 0;
   const leafCost = Math.max(1, (1 << b) >>> 6);
 
+  // Each forward arc saves the sum it changes, so backtracking restores every sum bit for bit:
+  // with non-integer weights, rounding then depends on the current path only, never on the
+  // number of nodes visited (the slack of src/cut/exact-slack.ts relies on this).
+  const savedSum = new Float64Array(fwdOff[n]);
   const assign = (x: number, s: number): void => {
     const ax = toOne[x], bx = toZero[x];
     cutF += s === 0 ? ax : bx;
@@ -270,10 +287,12 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
       const old = a > c ? a : c;
       let now: number;
       if (s === 1) {
+        savedSum[i] = a;
         const a2 = a + fwdW[i];
         toOne[v] = a2;
         now = a2 > c ? a2 : c;
       } else {
+        savedSum[i] = c;
         const c2 = c + fwdW[i];
         toZero[v] = c2;
         now = a > c2 ? a : c2;
@@ -285,8 +304,8 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   const unassign = (x: number, s: number, d: number): void => {
     for (let i = fwdOff[x]; i < fwdOff[x + 1]; i++) {
       const v = fwdNbr[i];
-      if (s === 1) toOne[v] -= fwdW[i];
-      else toZero[v] -= fwdW[i];
+      if (s === 1) toOne[v] = savedSum[i];
+      else toZero[v] = savedSum[i];
     }
     cutF = savedCut[d];
     sumMax = savedMax[d];
@@ -358,7 +377,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
       else w0 += fwdW[i];
     }
     side[k] = w1 >= w0 ? 0 : 1;
-    best = flipAscent(P, side, k, scratch, margin / 2);
+    best = flipAscent(P, side, k, scratch, margin / 2, deadline);
     bestSide.set(side);
     if (k === 0 && globalBest > best) {
       best = globalBest;
@@ -414,7 +433,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
       }
       side[p] = w1 >= w0 ? 0 : 1;
     }
-    const extended = flipAscent(P, side, 0, scratch, margin / 2);
+    const extended = flipAscent(P, side, 0, scratch, margin / 2, deadline);
     if (extended >= globalBest) partitionByPos.set(side);
     else partitionByPos.set(globalSide);
     upper = Math.min(chain, positiveWeightSum(graph));
@@ -441,12 +460,14 @@ function finish(
   solvedTail: number,
 ): ExactCutRecord {
   const value = cutValue(graph, partition);
-  // Non-integer weights: pruning used a tolerance, so the proven bound carries it.
-  const slack = exactSums ? 0 : margin;
+  // Non-integer weights: pruning used a tolerance and sums round, so the proven bound carries the
+  // search's slack (src/cut/exact-slack.ts), rounded up.
+  const slack = exactSums ? 0 : graphSlack(graph);
+  const base = upper === null ? value : Math.max(upper, value);
   return {
     method: "exact-bnb",
     value,
-    upper: upper === null ? value + slack : Math.max(upper, value + slack),
+    upper: exactSums ? base : roundUp(base + slack, 2),
     partition,
     status,
     nodes,

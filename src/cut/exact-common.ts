@@ -4,6 +4,7 @@
 
 import { InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
+import { gamma, roundUp } from "../linalg/rounding.js";
 import type { CutRecord } from "./types.js";
 
 /** What an exact search returns: a cut (value = cutValue(partition)) plus a proven upper bound. */
@@ -52,7 +53,7 @@ export function checkSeedOption(owner: string, seed: number | undefined): number
   return s;
 }
 
-/** Sum of the positive edge weights: every cut is at most this. */
+/** Sum of the positive edge weights: every cut is at most this (as computed; see positiveWeightBound). */
 export function positiveWeightSum(graph: Graph): number {
   if (graph.weights === null) return graph.m;
   let s = 0;
@@ -61,12 +62,37 @@ export function positiveWeightSum(graph: Graph): number {
   return s / 2;
 }
 
-/** True when every weight is an integer (then every cut value is an integer and pruning can round). */
+/**
+ * The positive-weight bound as a proven number: the sum itself for exact integer weights, else
+ * rounded up past the rounding of a sum of 2m terms (γ_{2m}, Higham §3.1). The bracket publishes
+ * it and `verify` re-derives it, both through this function.
+ */
+export function positiveWeightBound(graph: Graph): number {
+  const s = positiveWeightSum(graph);
+  if (integerWeights(graph)) return s;
+  return roundUp(s + gamma(2 * graph.m + 2) * s, 2);
+}
+
+/**
+ * Largest Σ|w| (over both arcs of every edge) for which integer weights make every partial sum of
+ * the searches exact in doubles: sums of at most twice the total weight stay below 2^53.
+ */
+export const EXACT_INTEGER_TOTAL = 2 ** 52;
+
+/**
+ * True when every weight is an integer and the weights are small enough that every cut value and
+ * partial sum is an exact integer in floating point (then bounds may be rounded down and pruning
+ * needs no tolerance). Huge integer weights count as non-integer: their sums round.
+ */
 export function integerWeights(graph: Graph): boolean {
-  if (graph.weights === null) return true;
+  if (graph.weights === null) return 2 * graph.m <= EXACT_INTEGER_TOTAL;
   const w = graph.weights;
-  for (let i = 0; i < w.length; i++) if (!Number.isInteger(w[i])) return false;
-  return true;
+  let abs = 0;
+  for (let i = 0; i < w.length; i++) {
+    if (!Number.isInteger(w[i])) return false;
+    abs += Math.abs(w[i]);
+  }
+  return abs <= EXACT_INTEGER_TOTAL;
 }
 
 /**

@@ -11,13 +11,14 @@ import {
   PROGRESS_INTERVAL,
   checkSeconds,
   checkSeedOption,
-  improvementMargin,
   integerWeights,
   nowSeconds,
   positiveWeightSum,
   type ExactCutRecord,
   type ExactOptions,
 } from "./exact-common.js";
+import { GRAY_RESYNC_STEPS, graphSlack } from "./exact-slack.js";
+import { roundUp } from "../linalg/rounding.js";
 
 /** Largest n the Gray-code enumeration accepts (2^33 patterns: tens of seconds without pruning). */
 export const GRAY_MAX_VERTICES = 34;
@@ -138,7 +139,8 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
       }
     }
     done = s + 1;
-    if (!exactSums && (s & 1023) === 1023) resync();
+    // The slack of src/cut/exact-slack.ts assumes at most GRAY_RESYNC_STEPS steps of drift.
+    if (!exactSums && s % GRAY_RESYNC_STEPS === GRAY_RESYNC_STEPS - 1) resync();
     if (s % checkEvery === 0) {
       const now = nowSeconds();
       if (now > deadline && s + 1 < steps) {
@@ -176,13 +178,14 @@ function record(
 ): ExactCutRecord {
   const value = cutValue(graph, partition);
   const exactSums = integerWeights(graph);
-  // Non-integer weights: the running sums are exact only up to rounding, so the proven
-  // upper bound carries the same tolerance the search used.
-  const slack = exactSums ? 0 : improvementMargin(graph);
+  // Non-integer weights: the running sums are exact only up to rounding, so the proven upper
+  // bound carries the search's slack (src/cut/exact-slack.ts), rounded up.
+  const slack = exactSums ? 0 : graphSlack(graph);
+  const base = upper === null ? value : Math.max(upper, value);
   return {
     method: "exact-gray",
     value,
-    upper: upper === null ? value + slack : Math.max(upper, value + slack),
+    upper: exactSums ? base : roundUp(base + slack, 2),
     partition,
     status,
     nodes,

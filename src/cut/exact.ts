@@ -11,12 +11,14 @@ import {
   DEFAULT_EXACT_SECONDS,
   checkSeconds,
   checkSeedOption,
+  integerWeights,
   nowSeconds,
   type ExactCutRecord,
   type ExactOptions,
   type ExactProgress,
 } from "./exact-common.js";
 import { GRAY_MAX_VERTICES, grayCodeMaxCut } from "./exact-gray.js";
+import { gamma, roundUp } from "../linalg/rounding.js";
 
 export type ExactMethod = "auto" | "gray" | "bnb";
 
@@ -68,10 +70,20 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   if (options.initial !== undefined) checkPartition(graph, options.initial, `${owner}: initial`);
 
   const comps = connectedComponents(graph);
-  const members: number[][] = Array.from({ length: comps.count }, () => []);
-  for (let v = 0; v < graph.n; v++) members[comps.label[v]].push(v);
+  // Vertices grouped by component in typed arrays (a graph of 10^8 mostly isolated vertices must
+  // not become 10^8 small JS arrays): component c holds byComp[start[c] .. start[c + 1]).
+  const start = new Int32Array(comps.count + 1);
+  for (let c = 0; c < comps.count; c++) start[c + 1] = start[c] + comps.sizes[c];
+  const byComp = new Int32Array(graph.n);
   const local = new Int32Array(graph.n);
-  for (const list of members) list.forEach((v, i) => (local[v] = i));
+  {
+    const fill = start.slice(0, comps.count);
+    for (let v = 0; v < graph.n; v++) {
+      const c = comps.label[v];
+      local[v] = fill[c] - start[c];
+      byComp[fill[c]++] = v;
+    }
+  }
 
   const partition = new Uint8Array(graph.n);
   let upper = 0;
@@ -82,11 +94,12 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   let tolerance = 0;
   const used = new Set<string>();
   const deadline = t0 + seconds;
-  for (const list of members) {
-    if (list.length <= 1) continue; // an isolated vertex contributes nothing
-    largest = Math.max(largest, list.length);
-    const verts = Int32Array.from(list);
-    const sub = list.length === graph.n ? graph : inducedSubgraph(graph, verts, local);
+  for (let c = 0; c < comps.count; c++) {
+    const size = start[c + 1] - start[c];
+    if (size <= 1) continue; // an isolated vertex contributes nothing
+    largest = Math.max(largest, size);
+    const verts = byComp.subarray(start[c], start[c + 1]);
+    const sub = size === graph.n ? graph : inducedSubgraph(graph, verts, local);
     // Every component gets what is left of the budget; a late one may get almost nothing and
     // then reports a (valid, weak) bracket instead of an optimum.
     const left = Math.max(1e-3, deadline - nowSeconds());
@@ -112,11 +125,13 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
     if (r.status === "timeout") status = "timeout";
   }
   const value = cutValue(graph, partition);
+  // Each component's bound is proven (its slack included); their sum is rounded up past its own
+  // rounding unless every partial sum is an exact integer.
+  const total = integerWeights(graph) ? upper : roundUp(upper + gamma(comps.count + 1) * Math.abs(upper), 2);
   return {
     method: used.size === 1 ? [...used][0] : used.size === 0 ? "exact-trivial" : "exact-mixed",
     value,
-    // Sums of component bounds can differ from the sum of values by rounding; never report upper < value.
-    upper: Math.max(upper, value),
+    upper: Math.max(total, value),
     partition,
     status,
     nodes,

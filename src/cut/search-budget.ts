@@ -5,6 +5,7 @@ import { invalidParameter } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { assertSeed } from "../random/prng.js";
 import { cutValue, type Partition } from "./evaluate.js";
+import { integerWeights } from "./exact-common.js";
 import type { CutRecord, SolverStatus } from "./types.js";
 
 /** How much more work a `run` call may do. Either or both; omitting both means one second. */
@@ -60,12 +61,9 @@ export function checkSeed(owner: string, seed: number | undefined): number {
   return s;
 }
 
-/** True when every weight is an integer (so gains and cut values are exact in doubles). */
+/** True when every weight is an integer small enough that gains and cut values are exact in doubles. */
 export function hasIntegerWeights(graph: Graph): boolean {
-  const w = graph.weights;
-  if (w === null) return true;
-  for (let i = 0; i < w.length; i++) if (!Number.isInteger(w[i])) return false;
-  return true;
+  return integerWeights(graph);
 }
 
 /**

@@ -106,11 +106,27 @@ export async function openSingleGraph(arg: string, options: OpenSourceOptions = 
   return first;
 }
 
+/**
+ * Refuse anything but a regular file as the graph behind a stored record: a record naming
+ * /dev/zero or a pipe must not make `verify` read forever. `what` names the record field.
+ */
+export function requireRegularFile(path: string, what: string): void {
+  let ok = false;
+  try {
+    ok = statSync(path).isFile();
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    throw new InputError(`${what} ${JSON.stringify(path)}: ${code === "ENOENT" ? "no such file" : `cannot read (${code ?? String(e)})`}`);
+  }
+  if (!ok) throw new InputError(`${what} ${JSON.stringify(path)}: is not a regular file`);
+}
+
 /** Rebuild the graph a stored record points to (used by `verify` and the results store). */
 export async function resolveSourceRef(ref: SourceRef, options: OpenSourceOptions = {}): Promise<Graph> {
   if (ref.spec !== undefined) return familyWithInfo(ref.spec).graph;
   if (ref.path === undefined) throw new InputError("source reference has neither a spec nor a path");
   if (ref.path === "-") throw new InputError("the graph came from standard input; pass it again with --graph FILE");
+  requireRegularFile(ref.path, "source.path");
   const want = ref.index ?? 0;
   for await (const g of openSource(ref.path, { ...options, format: ref.format ?? options.format })) {
     if (g.ref.index === want) return g.graph;
