@@ -3,7 +3,7 @@
 // User mistakes (InputError) print one line and exit 2; anything else is a bug and
 // prints its stack.
 
-import { isInputError } from "../errors.js";
+import { echo, isInputError, oneLine } from "../errors.js";
 import { commandHelp, parseArgs, type CommandIO, type CommandSpec } from "./args.js";
 import { COMMANDS } from "./commands/index.js";
 
@@ -34,7 +34,7 @@ export async function runCli(argv: readonly string[], io: CommandIO): Promise<nu
   }
   const cmd: CommandSpec | undefined = COMMANDS.find((c) => c.name === name);
   if (cmd === undefined) {
-    io.stderr.write(`halfplus: unknown command ${JSON.stringify(name)} (run halfplus --help)\n`);
+    io.stderr.write(`halfplus: unknown command ${oneLine(echo(name))} (run halfplus --help)\n`);
     return 2;
   }
   if (rest.includes("--help") || rest.includes("-h")) {
@@ -45,7 +45,7 @@ export async function runCli(argv: readonly string[], io: CommandIO): Promise<nu
     return await cmd.run(parseArgs(cmd, rest), io);
   } catch (e) {
     if (isInputError(e)) {
-      io.stderr.write(`halfplus ${cmd.name}: ${e.message}\n`);
+      io.stderr.write(`halfplus ${cmd.name}: ${oneLine(e.message)}\n`);
       return 2;
     }
     throw e;

@@ -1,7 +1,7 @@
 // The family registry: looks a spec up, validates it, guards memory, and builds the graph
 // with a PRNG seeded from the spec. `family("kneser:n=8,k=3")` is the one entry point.
 
-import { InputError } from "../errors.js";
+import { InputError, echo } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { Rng } from "../random/prng.js";
 import { RANDOM_FAMILIES } from "./catalog-random.js";
@@ -19,14 +19,35 @@ for (const def of ALL) {
   BY_NAME.set(def.name, def);
 }
 
-/** Predicted shape of a spec without building it (operations ask this of their nested specs). */
-export function expectedShape(spec: string): ExpectedShape {
-  const raw = parseRawSpec(spec);
-  const def = lookup(raw.name);
-  return def.expected(resolveParams(def, raw.values).params, SHAPES);
+/**
+ * One resolution of a spec and everything nested in it: each nested spec is parsed and sized once
+ * (re-parsing at every level made deep nesting cubic in the depth).
+ */
+interface Resolution {
+  shapes: Map<string, ExpectedShape>;
+  context: ShapeContext;
 }
 
-const SHAPES: ShapeContext = { expectedOf: expectedShape };
+function newResolution(): Resolution {
+  const res: Resolution = { shapes: new Map(), context: { expectedOf: (spec) => expectedShapeIn(spec, res) } };
+  return res;
+}
+
+function expectedShapeIn(spec: string, res: Resolution): ExpectedShape {
+  let shape = res.shapes.get(spec);
+  if (shape === undefined) {
+    const raw = parseRawSpec(spec);
+    const def = lookup(raw.name);
+    shape = def.expected(resolveParams(def, raw.values).params, res.context);
+    res.shapes.set(spec, shape);
+  }
+  return shape;
+}
+
+/** Predicted shape of a spec without building it (operations ask this of their nested specs). */
+export function expectedShape(spec: string): ExpectedShape {
+  return expectedShapeIn(spec, newResolution());
+}
 
 export function listFamilies(): readonly FamilyDefinition[] {
   return ALL;
@@ -43,34 +64,38 @@ export function isFamilyName(name: string): boolean {
 function lookup(name: string): FamilyDefinition {
   const def = BY_NAME.get(name);
   if (def === undefined) {
-    throw new InputError(`unknown family ${JSON.stringify(name)} (run halfplus families for the list)`);
+    throw new InputError(`unknown family ${echo(name)} (run halfplus families for the list)`);
   }
   return def;
 }
 
-function buildResolved(def: FamilyDefinition, params: Params, defaulted: string[]): FamilyGraph {
-  const shape = def.expected(params, SHAPES);
+function buildResolved(def: FamilyDefinition, params: Params, defaulted: string[], res: Resolution): FamilyGraph {
+  const shape = def.expected(params, res.context);
   checkEdgeLimit(formatSpec(def, params), shape.m, shape.n);
   const seed = def.random ? (params.seed as number) : null;
   const notes: string[] = [];
   if (def.random && defaulted.includes("seed")) notes.push("no seed given: using seed 0");
-  const graph = def.build(params, { rng: new Rng(seed ?? 0), resolve: family, note: (msg) => notes.push(msg) });
+  const graph = def.build(params, { rng: new Rng(seed ?? 0), resolve: (nested) => familyIn(nested, res).graph, note: (msg) => notes.push(msg) });
   return { graph, spec: formatSpec(def, params), family: def.name, params, seed, notes };
+}
+
+function familyIn(spec: string, res: Resolution): FamilyGraph {
+  const raw = parseRawSpec(spec);
+  const def = lookup(raw.name);
+  const { params, defaulted } = resolveParams(def, raw.values);
+  return buildResolved(def, params, defaulted, res);
 }
 
 /** Build a family graph from a spec string, with its canonical spec and notes. */
 export function familyWithInfo(spec: string): FamilyGraph {
-  const raw = parseRawSpec(spec);
-  const def = lookup(raw.name);
-  const { params, defaulted } = resolveParams(def, raw.values);
-  return buildResolved(def, params, defaulted);
+  return familyIn(spec, newResolution());
 }
 
 /** Build a family graph from typed parameters, e.g. `buildFamily("kneser", { n: 8, k: 3 })`. */
 export function buildFamily(name: string, params: Params = {}): FamilyGraph {
   const def = lookup(name);
   const r = resolveParams(def, params);
-  return buildResolved(def, r.params, r.defaulted);
+  return buildResolved(def, r.params, r.defaulted, newResolution());
 }
 
 /** Just the graph: `family("polarity:q=7")`. */

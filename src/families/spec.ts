@@ -1,7 +1,7 @@
 // Family spec strings: `name` or `name:key=value,key=value`. The same string is accepted by
 // the CLI, `family()`, sweep plans and stored results, so parsing lives only here.
 
-import { InputError, invalidParameter } from "../errors.js";
+import { InputError, echo, invalidParameter } from "../errors.js";
 import type { FamilyDefinition, ParamSpec, ParamValue, Params } from "./types.js";
 
 export interface RawSpec {
@@ -29,13 +29,13 @@ export function splitTopLevel(whole: string, body: string, sep: string): string[
     if (c === "[") depth++;
     else if (c === "]") {
       depth--;
-      if (depth < 0) throw new InputError(`family spec ${JSON.stringify(whole)}: unmatched ]`);
+      if (depth < 0) throw new InputError(`family spec ${echo(whole)}: unmatched ]`);
     } else if (c === sep && depth === 0) {
       parts.push(body.slice(start, i));
       start = i + 1;
     }
   }
-  if (depth !== 0) throw new InputError(`family spec ${JSON.stringify(whole)}: unmatched [`);
+  if (depth !== 0) throw new InputError(`family spec ${echo(whole)}: unmatched [`);
   parts.push(body.slice(start));
   return parts;
 }
@@ -47,10 +47,26 @@ function unbracket(owner: string, name: string, item: string): string {
   return t.slice(1, -1);
 }
 
+/** Deepest nesting of bracketed specs (`complement:of=[blowup:of=[...],t=2]`): each level builds a graph. */
+export const MAX_SPEC_DEPTH = 32;
+
+/** Refuse specs nested deeper than MAX_SPEC_DEPTH, in one pass, before any level is parsed. */
+function checkDepth(spec: string): void {
+  let depth = 0;
+  for (let i = 0; i < spec.length; i++) {
+    const c = spec.charCodeAt(i);
+    if (c === 91 && ++depth > MAX_SPEC_DEPTH) {
+      throw new InputError(`family spec ${echo(spec)}: nested more than ${MAX_SPEC_DEPTH} levels deep (at most ${MAX_SPEC_DEPTH} levels of [...] are supported)`);
+    } else if (c === 93) depth--;
+  }
+}
+
 export function parseRawSpec(spec: string): RawSpec {
+  if (typeof spec !== "string") throw new InputError(`family spec should be a string (got ${echo(spec)})`);
+  checkDepth(spec);
   const colon = spec.indexOf(":");
   const name = (colon < 0 ? spec : spec.slice(0, colon)).trim();
-  if (!NAME_RE.test(name)) throw new InputError(`family spec ${JSON.stringify(spec)}: bad family name ${JSON.stringify(name)}`);
+  if (!NAME_RE.test(name)) throw new InputError(`family spec ${echo(spec)}: bad family name ${echo(name)}`);
   const values = new Map<string, string>();
   if (colon >= 0) {
     const body = spec.slice(colon + 1);
@@ -65,9 +81,9 @@ export function parseRawSpec(spec: string): RawSpec {
         values.set(last, `${values.get(last)},${part.trim()}`);
         continue;
       }
-      if (eq <= 0) throw new InputError(`family spec ${JSON.stringify(spec)}: expected key=value, got ${JSON.stringify(part)}`);
+      if (eq <= 0) throw new InputError(`family spec ${echo(spec)}: expected key=value, got ${echo(part)}`);
       const key = part.slice(0, eq).trim();
-      if (values.has(key)) throw new InputError(`family spec ${JSON.stringify(spec)}: parameter \`${key}\` given twice`);
+      if (values.has(key)) throw new InputError(`family spec ${echo(spec)}: parameter \`${key}\` given twice`);
       values.set(key, part.slice(eq + 1).trim());
       last = key;
     }

@@ -4,7 +4,7 @@
 // a known family name → family; anything else is an error naming the argument.
 
 import { existsSync, fstatSync, statSync } from "node:fs";
-import { InputError } from "../errors.js";
+import { InputError, echo } from "../errors.js";
 import type { BuildOptions } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { readGraphs, type GraphFormat } from "../graph/formats/index.js";
@@ -48,7 +48,7 @@ function classify(arg: string): Kind {
   if (looksLikeSpec(arg)) {
     const { name } = parseRawSpec(arg);
     if (isFamilyName(name)) return "family";
-    throw new InputError(`${arg}: no such file, and no family called ${JSON.stringify(name)} (run halfplus families)`);
+    throw new InputError(`${echo(arg)}: no such file, and no family called ${echo(name)} (run halfplus families)`);
   }
   throw new InputError(`${arg}: no such file`);
 }

@@ -122,6 +122,7 @@ export const cutCommand: CommandSpec = {
         else await writeLine(io.stdout, (first ? "" : "\n") + formatBracket(item.label, record, item.notes));
         first = false;
       }
+      if (first && args.positionals[0] !== "-") io.stderr.write(`halfplus cut: no graphs read from ${args.positionals[0]}\n`);
     } finally {
       if (fd !== null) closeSync(fd);
     }
