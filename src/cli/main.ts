@@ -69,6 +69,8 @@ if (isMain) {
   runCli(process.argv.slice(2), { stdout: process.stdout, stderr: process.stderr, stdin: process.stdin }).then(
     (code) => {
       process.exitCode = code;
+      // Stopped by a signal: leave now, whatever else (a half-read stdin) still holds the event loop.
+      if (code === 130 || code === 143) process.exit(code);
     },
     (e: unknown) => {
       process.stderr.write(`halfplus: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);

@@ -38,6 +38,8 @@ export interface BracketProgress {
   lower: number;
   upper: number;
   elapsed: number;
+  /** The record as it stands now (a verifiable partial result), built only when called. */
+  snapshot: () => BracketRecord;
 }
 
 export interface BracketOptions {
@@ -140,7 +142,12 @@ class BracketState {
   readonly runs: BracketRun[] = [];
   private readonly onProgress?: (p: BracketProgress) => void;
 
-  constructor(graph: Graph, seconds: number, onProgress?: (p: BracketProgress) => void) {
+  constructor(
+    graph: Graph,
+    seconds: number,
+    onProgress: ((p: BracketProgress) => void) | undefined,
+    readonly meta: { seed: number; method: BracketMethod; source: SourceRef | null },
+  ) {
     this.graph = graph;
     this.integral = integerWeights(graph);
     this.slack = this.integral ? 0 : exactSearchSlack(graph);
@@ -192,7 +199,7 @@ class BracketState {
   }
 
   progress(method: string): void {
-    this.onProgress?.({ method, lower: this.lower, upper: this.upper, elapsed: this.elapsed() });
+    this.onProgress?.({ method, lower: this.lower, upper: this.upper, elapsed: this.elapsed(), snapshot: () => recordOf(this) });
   }
 
   offerCut(r: CutRecord, role: BracketRun["role"] = "lower"): void {
@@ -228,7 +235,7 @@ class BracketState {
 
   /** Progress callback for an exact search: shows it is alive, and its incumbent when that is better. */
   exactProgress(method: string): (p: ExactProgress) => void {
-    return (p) => this.onProgress?.({ method, lower: Math.max(this.lower, p.lower), upper: this.upper, elapsed: this.elapsed() });
+    return (p) => this.onProgress?.({ method, lower: Math.max(this.lower, p.lower), upper: this.upper, elapsed: this.elapsed(), snapshot: () => recordOf(this) });
   }
 
   offerExact(r: ExactCutRecord): void {
@@ -254,6 +261,22 @@ class BracketState {
       }
     }
     this.progress(r.method);
+  }
+
+  /**
+   * Run an optional method; when it refuses this graph (it would not fit in memory, or the graph is
+   * too large for it: an InputError), log it as skipped with the reason and go on without it.
+   */
+  attempt(method: string, role: BracketRun["role"], run: () => void): boolean {
+    try {
+      run();
+      return true;
+    } catch (e) {
+      if (!(e instanceof InputError)) throw e;
+      this.runs.push({ method, role, value: 0, status: "skipped", seconds: 0, seed: null, details: { reason: e.message } });
+      this.progress(method);
+      return false;
+    }
   }
 
   /** Keep r's partition if it beats the best cut (re-evaluated with cutValue), without logging a run. */
@@ -329,7 +352,7 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
 
   // The eigenvalue bound (the dual certificate with y = 0): one Lanczos run, or a small dense proof.
   const tEigen0 = nowSeconds();
-  state.offerDual(eigenvalueUpperBound(g, { tolerance, denseLimit: denseLimitFor(0.05) }));
+  state.attempt("eigenvalue", "upper", () => state.offerDual(eigenvalueUpperBound(g, { tolerance, denseLimit: denseLimitFor(0.05) })));
   const eigenSeconds = nowSeconds() - tEigen0;
   if (state.closed()) return;
 
@@ -339,25 +362,31 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
   const certifyCost = dense > 0 ? denseProofSeconds(n) + eigenSeconds : 2.5 * eigenSeconds;
   const forSdp = (quick ? 0.3 : 0.45) * phaseLeft() - certifyCost;
   if (forSdp > Math.min(0.5, 0.05 * total) || n <= 64) {
-    const sdp = solveSdp(g, {
+    let sdp: ReturnType<typeof solveSdp> | null = null;
+    state.attempt("sdp-mixing", "relaxation", () => {
+      sdp = solveSdp(g, {
       seed: methodSeed(seed, 2),
       seconds: Math.max(1e-3, forSdp),
       maxSweeps: quick ? 300 : undefined,
       // Large graphs: a low rank affords many more sweeps in the same time, which matters more
       // than the rank (bench/bracket: rank 24 beats the default rank 201 at 10^6 edges).
       rank: g.m > 100_000 ? Math.min(24, n) : undefined,
+      });
     });
-    state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, seed: sdp.seed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
-    state.offerDual(certifyDual(g, sdp.y, { tolerance, denseLimit: dense, name: "sdp-dual" }));
-    if (state.closed()) return;
-    const trials = quick ? 8 : n <= 5000 ? 64 : 16;
-    state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, seed: methodSeed(seed, 3), polish: true }));
-    if (state.closed()) return;
+    if (sdp !== null) {
+      const x: ReturnType<typeof solveSdp> = sdp;
+      state.runs.push({ method: x.method, role: "relaxation", value: x.value, status: x.status, seconds: x.seconds, seed: x.seed, details: { sweeps: x.sweeps, rank: x.rank } });
+      state.attempt("sdp-dual", "upper", () => state.offerDual(certifyDual(g, x.y, { tolerance, denseLimit: dense, name: "sdp-dual" })));
+      if (state.closed()) return;
+      const trials = quick ? 8 : n <= 5000 ? 64 : 16;
+      state.offerCut(hyperplaneRound(g, x.vectors, x.rank, { trials, seed: methodSeed(seed, 3), polish: true }));
+      if (state.closed()) return;
+    }
   }
   if (quick) return;
   // Sparse vector rounding: its set-up (the exact guarantee) costs about one Lanczos run.
   if (phaseLeft() > 3 * eigenSeconds) {
-    state.offerCut(vectorMethodRound(g, { trials: n <= 5000 ? 32 : 8, seed: methodSeed(seed, 4), polish: true }));
+    state.attempt("vector-method", "lower", () => state.offerCut(vectorMethodRound(g, { trials: n <= 5000 ? 32 : 8, seed: methodSeed(seed, 4), polish: true })));
     if (state.closed()) return;
   }
   // Breakout gets what is left of the phase; the round cap (≈ 50 n² rounds, a few µs each at
@@ -381,13 +410,13 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
   if (!BRACKET_METHODS.includes(method)) {
     throw new InputError(`${owner}: invalid \`method\`: should be one of ${BRACKET_METHODS.join(", ")} (got ${JSON.stringify(method)})`);
   }
-  const state = new BracketState(graph, seconds, options.onProgress);
+  const state = new BracketState(graph, seconds, options.onProgress, { seed, method, source: options.source ?? null });
   state.progress("start");
 
   if (graph.m > 0) {
     if (method === "exact") {
       state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, onProgress: state.exactProgress("exact search") }));
-      if (!state.closed()) state.offerDual(eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 }));
+      if (!state.closed()) state.attempt("eigenvalue", "upper", () => state.offerDual(eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 })));
     } else if (method === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
       state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), seed, onProgress: state.exactProgress("exact search") }));
       if (!state.closed()) heuristicPhase(state, seed, false, 1);
@@ -406,11 +435,12 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
     state.upperMethod = "positive-weights";
   }
 
-  return recordOf(state, seed, method, options.source ?? null);
+  return recordOf(state);
 }
 
 /** The record of a bracket state: at the end of a run, or as a snapshot while it runs. */
-function recordOf(state: BracketState, seed: number, method: BracketMethod, source: SourceRef | null): BracketRecord {
+function recordOf(state: BracketState): BracketRecord {
+  const { seed, method, source } = state.meta;
   const graph = state.graph;
   const W = graph.totalWeight;
   const exact = state.closed();

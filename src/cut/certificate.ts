@@ -15,6 +15,7 @@
 // constant, so its eigenvalues cannot be turned into a proof without one.
 
 import { InputError, invalidParameter } from "../errors.js";
+import { checkMemory } from "../limits/memory.js";
 import type { Graph } from "../graph/graph.js";
 import { provePsdByCholesky, type PsdProof } from "../linalg/cholesky.js";
 import { lanczosExtreme } from "../linalg/lanczos.js";
@@ -121,6 +122,7 @@ export function proveShift(graph: Graph, y: ArrayLike<number>, shift: number): P
   if (!Number.isFinite(shift)) throw new InputError(`proveShift: \`shift\` is ${shift}, expected a finite number`);
   const { n, offsets, neighbors, weights } = graph;
   if (n > 46000) throw new InputError(`proveShift: n = ${n} is too large for a dense Cholesky proof (at most 46000)`);
+  checkMemory(8 * n * n, `proveShift: a dense Cholesky proof at n = ${n}`);
   const a = new Float64Array(n * n);
   const { d, abs } = rowSums(graph);
   let diagError = 0;

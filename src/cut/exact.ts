@@ -4,7 +4,6 @@
 import { InputError } from "../errors.js";
 import { buildGraph } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
-import { connectedComponents } from "../graph/structure/components.js";
 import { checkPartition, cutValue } from "./evaluate.js";
 import { branchAndBoundMaxCut } from "./exact-bnb.js";
 import {
@@ -54,6 +53,58 @@ function inducedSubgraph(graph: Graph, vertices: Int32Array, local: Int32Array):
   return buildGraph(vertices.length, us, vs, ws).graph;
 }
 
+interface EdgeComponents {
+  /** Components with at least one edge. */
+  count: number;
+  /** Component c holds verts[start[c] .. start[c + 1]), in increasing vertex order. */
+  start: Int32Array;
+  verts: Int32Array;
+  /** local[v]: v's position in its component (0 for isolated vertices). */
+  local: Int32Array;
+  /** Vertices without edges: they add nothing to any cut and are never visited again. */
+  isolated: number;
+}
+
+/**
+ * Connected components of the vertices that have edges. A graph of 10^8 mostly isolated vertices
+ * costs one pass over the degrees plus the work on its edges: no per-vertex label fill, no per-vertex
+ * JS arrays (fresh typed arrays are zero pages until written).
+ */
+function edgeComponents(graph: Graph): EdgeComponents {
+  const { n, offsets, neighbors } = graph;
+  let withEdges = 0;
+  for (let v = 0; v < n; v++) if (offsets[v + 1] > offsets[v]) withEdges++;
+  const verts = new Int32Array(withEdges);
+  const starts = new Int32Array(withEdges + 1);
+  const seen = new Uint8Array(n);
+  const local = new Int32Array(n);
+  let tail = 0;
+  let count = 0;
+  for (let s = 0; s < n; s++) {
+    if (seen[s] === 1 || offsets[s + 1] === offsets[s]) continue;
+    const first = tail;
+    starts[count] = first;
+    seen[s] = 1;
+    verts[tail++] = s;
+    for (let head = first; head < tail; head++) {
+      const u = verts[head];
+      for (let i = offsets[u]; i < offsets[u + 1]; i++) {
+        const v = neighbors[i];
+        if (seen[v] === 0) {
+          seen[v] = 1;
+          verts[tail++] = v;
+        }
+      }
+    }
+    const members = verts.subarray(first, tail);
+    members.sort();
+    for (let i = 0; i < members.length; i++) local[members[i]] = i;
+    count++;
+  }
+  starts[count] = tail;
+  return { count, start: starts.subarray(0, count + 1), verts, local, isolated: n - withEdges };
+}
+
 export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): ExactCutRecord {
   const t0 = nowSeconds();
   const owner = "exactMaxCut";
@@ -69,22 +120,8 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   }
   if (options.initial !== undefined) checkPartition(graph, options.initial, `${owner}: initial`);
 
-  const comps = connectedComponents(graph);
-  // Vertices grouped by component in typed arrays (a graph of 10^8 mostly isolated vertices must
-  // not become 10^8 small JS arrays): component c holds byComp[start[c] .. start[c + 1]).
-  const start = new Int32Array(comps.count + 1);
-  for (let c = 0; c < comps.count; c++) start[c + 1] = start[c] + comps.sizes[c];
-  const byComp = new Int32Array(graph.n);
-  const local = new Int32Array(graph.n);
-  {
-    const fill = start.slice(0, comps.count);
-    for (let v = 0; v < graph.n; v++) {
-      const c = comps.label[v];
-      local[v] = fill[c] - start[c];
-      byComp[fill[c]++] = v;
-    }
-  }
-
+  const comps = edgeComponents(graph);
+  const { start, verts: byComp, local } = comps;
   const partition = new Uint8Array(graph.n);
   let upper = 0;
   let nodes = 0;
@@ -96,7 +133,6 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   const deadline = t0 + seconds;
   for (let c = 0; c < comps.count; c++) {
     const size = start[c + 1] - start[c];
-    if (size <= 1) continue; // an isolated vertex contributes nothing
     largest = Math.max(largest, size);
     const verts = byComp.subarray(start[c], start[c + 1]);
     const sub = size === graph.n ? graph : inducedSubgraph(graph, verts, local);
@@ -137,6 +173,6 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
     nodes,
     seconds: nowSeconds() - t0,
     seed,
-    details: { components: comps.count, largestComponent: largest, methods: [...used].sort().join("+") || "none", tolerance },
+    details: { components: comps.count + comps.isolated, largestComponent: largest, methods: [...used].sort().join("+") || "none", tolerance },
   };
 }

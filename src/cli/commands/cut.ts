@@ -4,7 +4,8 @@ import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
 import { openSource } from "../../sources/index.js";
-import { BRACKET_METHODS, DEFAULT_BRACKET_SECONDS, bracket, type BracketMethod, type BracketProgress, type BracketRecord } from "../../cut/bracket.js";
+import { BRACKET_METHODS, DEFAULT_BRACKET_SECONDS, type BracketMethod, type BracketProgress, type BracketRecord } from "../../cut/bracket.js";
+import { runBracket, type RunningBracket } from "../../cut/bracket-runner.js";
 import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 import { writeLine } from "../output.js";
 
@@ -49,6 +50,9 @@ export function formatBracket(label: string, r: BracketRecord, notes: string[]):
   for (const n of notes) out.push(`  note: ${n}`);
   return out.join("\n");
 }
+
+/** Conventional exit statuses of a run stopped by a signal: 128 + the signal number. */
+export const SIGNAL_EXIT: Readonly<Record<"SIGINT" | "SIGTERM", number>> = Object.freeze({ SIGINT: 130, SIGTERM: 143 });
 
 /** Progress on stderr: rewritten in place on a terminal, one line per update (at most 4/s) otherwise. */
 function progressWriter(stderr: NodeJS.WritableStream, label: string): { update: (p: BracketProgress) => void; done: () => void } {
@@ -100,30 +104,72 @@ export const cutCommand: CommandSpec = {
     const outPath = o["out"] as string | undefined;
     if (outPath === "") throw new InputError("--out needs a file name");
     let fd: number | null = null;
+    // SIGINT/SIGTERM: the bracket runs in a worker, so this thread can stop it at once and write
+    // the best record so far (marked `interrupted`) before exiting with 128 + the signal number.
+    let running: RunningBracket | null = null;
+    let caught: "SIGINT" | "SIGTERM" | null = null;
+    const onSignal = (sig: "SIGINT" | "SIGTERM"): void => {
+      caught = sig;
+      if (running !== null) running.stop();
+      else {
+        // Nothing running (reading input): stop now; records written so far are complete.
+        if (fd !== null) closeSync(fd);
+        process.exit(SIGNAL_EXIT[sig]);
+      }
+    };
+    const onInt = (): void => onSignal("SIGINT");
+    const onTerm = (): void => onSignal("SIGTERM");
+    process.on("SIGINT", onInt);
+    process.on("SIGTERM", onTerm);
+    const writeRecord = async (record: BracketRecord, label: string, notes: string[], first: boolean): Promise<void> => {
+      const line = JSON.stringify(record);
+      if (outPath !== undefined) {
+        // Opened only once the first graph is read, so a bad source leaves no empty file behind.
+        if (fd === null) {
+          try {
+            fd = openSync(outPath, "w");
+          } catch (e) {
+            throw new InputError(`--out ${outPath}: cannot write (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
+          }
+        }
+        writeSync(fd, line + "\n");
+      }
+      if (json) await writeLine(io.stdout, line);
+      else await writeLine(io.stdout, (first ? "" : "\n") + formatBracket(label, record, notes));
+    };
     try {
       let first = true;
       for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
         const progress = wantProgress ? progressWriter(io.stderr, item.label) : null;
-        const record = bracket(item.graph, { seconds, seed, method, source: item.ref, onProgress: progress?.update });
-        progress?.done();
-        const line = JSON.stringify(record);
-        if (outPath !== undefined) {
-          // Opened only once the first graph is read, so a bad source leaves no empty file behind.
-          if (fd === null) {
-            try {
-              fd = openSync(outPath, "w");
-            } catch (e) {
-              throw new InputError(`--out ${outPath}: cannot write (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
-            }
-          }
-          writeSync(fd, line + "\n");
+        running = runBracket(item.graph, { seconds, seed, method, source: item.ref, onProgress: progress?.update });
+        let outcome: Awaited<RunningBracket["done"]>;
+        try {
+          outcome = await running.done;
+        } catch (e) {
+          // Name the graph: a method may refuse it (too large for memory) without knowing its file.
+          if (e instanceof InputError) throw new InputError(`${item.label}: ${e.message}`);
+          throw e;
+        } finally {
+          running = null;
+          progress?.done();
         }
-        if (json) await writeLine(io.stdout, line);
-        else await writeLine(io.stdout, (first ? "" : "\n") + formatBracket(item.label, record, item.notes));
+        if (outcome.stopped || caught !== null) {
+          const sig: "SIGINT" | "SIGTERM" = caught ?? "SIGINT";
+          if (outcome.record !== null) {
+            const rec: BracketRecord = { ...outcome.record, interrupted: true };
+            await writeRecord(rec, item.label, [...item.notes, `interrupted by ${sig}: the best bracket found so far`], first);
+          }
+          io.stderr.write(`halfplus cut: interrupted by ${sig}${outcome.record !== null ? `; wrote the best record so far for ${item.label}` : ""}\n`);
+          return SIGNAL_EXIT[sig];
+        }
+        const record = outcome.record!;
+        await writeRecord(record, item.label, item.notes, first);
         first = false;
       }
       if (first && args.positionals[0] !== "-") io.stderr.write(`halfplus cut: no graphs read from ${args.positionals[0]}\n`);
     } finally {
+      process.off("SIGINT", onInt);
+      process.off("SIGTERM", onTerm);
       if (fd !== null) closeSync(fd);
     }
     return 0;

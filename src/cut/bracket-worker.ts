@@ -1,0 +1,42 @@
+// Worker-thread entry of `runBracket` (src/cut/bracket-runner.ts): runs one bracket and posts its
+// progress, a snapshot of the record whenever the bracket improves, and the final record. The main
+// thread stays free to answer signals while this thread computes.
+
+import { parentPort } from "node:worker_threads";
+import { InputError } from "../errors.js";
+import { graphFromParts, type GraphParts } from "../graph/graph.js";
+import { bracket, type BracketOptions } from "./bracket.js";
+
+export type BracketWorkerRequest = { parts: GraphParts; options: Omit<BracketOptions, "onProgress"> };
+
+export type BracketWorkerMessage =
+  | { type: "progress"; method: string; lower: number; upper: number; elapsed: number }
+  | { type: "snapshot"; record: ReturnType<typeof bracket> }
+  | { type: "done"; record: ReturnType<typeof bracket> }
+  | { type: "error"; input: boolean; message: string };
+
+const port = parentPort;
+if (port !== null) {
+  port.once("message", (req: BracketWorkerRequest) => {
+    try {
+      const graph = graphFromParts(req.parts);
+      let lastKey = "";
+      const record = bracket(graph, {
+        ...req.options,
+        onProgress: (p) => {
+          port.postMessage({ type: "progress", method: p.method, lower: p.lower, upper: p.upper, elapsed: p.elapsed } satisfies BracketWorkerMessage);
+          // A snapshot costs O(n) to copy: send one only when the bracket itself changed.
+          const snap = p.snapshot();
+          const key = `${snap.lower}|${snap.upper}|${snap.certificate.kind}|${snap.exact}|${snap.runs.length}`;
+          if (key !== lastKey) {
+            lastKey = key;
+            port.postMessage({ type: "snapshot", record: snap } satisfies BracketWorkerMessage);
+          }
+        },
+      });
+      port.postMessage({ type: "done", record } satisfies BracketWorkerMessage);
+    } catch (e) {
+      port.postMessage({ type: "error", input: e instanceof InputError, message: e instanceof Error ? (e.stack ?? e.message) : String(e) } satisfies BracketWorkerMessage);
+    }
+  });
+}
