@@ -1,5 +1,6 @@
 // The public API: each folder's index re-exports its modules, so this file is the map.
 export * from "./errors.js";
+export * from "./decimal.js";
 export * from "./limits/index.js";
 export * from "./random/index.js";
 export * from "./graph/index.js";

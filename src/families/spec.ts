@@ -2,6 +2,7 @@
 // the CLI, `family()`, sweep plans and stored results, so parsing lives only here.
 
 import { InputError, echo, invalidParameter } from "../errors.js";
+import { parseDecimal } from "../decimal.js";
 import type { FamilyDefinition, ParamSpec, ParamValue, Params } from "./types.js";
 
 export interface RawSpec {
@@ -10,7 +11,6 @@ export interface RawSpec {
 }
 
 const NAME_RE = /^[a-z][a-z0-9-]*$/;
-const DECIMAL_RE = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
 /** Does this look like a family spec (as opposed to a file path)? */
 export function looksLikeSpec(s: string): boolean {
@@ -106,16 +106,17 @@ function convert(owner: string, p: ParamSpec, raw: string): ParamValue {
       return splitTopLevel(raw, raw, "+").map((x) => unbracket(owner, p.name, x));
     case "integer-list": {
       const items = raw.split(/[+;]/).filter((x) => x !== "");
-      const out = items.map((x) => Number(x));
+      const out = items.map((x) => parseDecimal(x));
       if (out.length === 0 || out.some((x) => !Number.isInteger(x))) {
         throw invalidParameter(owner, p.name, "should be integers separated by +", raw);
       }
       return out;
     }
     default: {
-      // Plain decimal notation only: Number() would also take "0x3" or "" without a word.
-      if (!DECIMAL_RE.test(raw)) throw invalidParameter(owner, p.name, "should be a number", raw);
-      return Number(raw);
+      // Plain decimal notation only (src/decimal.ts): Number() would also take "0x3" or "" without a word.
+      const x = parseDecimal(raw);
+      if (Number.isNaN(x)) throw invalidParameter(owner, p.name, "should be a number", raw);
+      return x;
     }
   }
 }

@@ -158,6 +158,7 @@ async function* nautyStream(chunks: Chunks, source: string, build: BuildOptions 
 }
 
 async function wholeFile(chunks: Chunks, source: string, format: GraphFormat, options: ReadOptions): Promise<LoadedGraph> {
+  const explicit = options.format !== undefined;
   const parts: Buffer[] = [];
   let size = 0;
   let nextCheck = 2 ** 26;
@@ -174,7 +175,11 @@ async function wholeFile(chunks: Chunks, source: string, format: GraphFormat, op
   const buf = parts.length === 1 ? parts[0] : Buffer.concat(parts, size);
   const opts = { source, build: options.build };
   const r =
-    format === "edgelist" ? parseEdgeList(buf, { ...opts, base: options.base }) : format === "gset" ? parseGset(buf, opts) : parseDimacs(buf, opts);
+    format === "edgelist"
+      ? parseEdgeList(buf, { ...opts, base: options.base, refuseCountHeader: !explicit })
+      : format === "gset"
+        ? parseGset(buf, opts)
+        : parseDimacs(buf, opts);
   return { graph: r.graph, source, index: 0, line: 1, format, report: r.report };
 }
 
