@@ -5,7 +5,8 @@
 export class InputError extends Error {
   override readonly name = "InputError";
   constructor(message: string) {
-    super(message);
+    // One line however the message was assembled: a file name or parameter may hold a newline.
+    super(oneLine(message));
   }
 }
 
