@@ -227,8 +227,14 @@ describe("bracket: review fixes", () => {
     const r = bracket(g, { method: "quick", seconds: 0.5 });
     expect(r.lower).toBeLessThanOrEqual(40000);
     expect(r.upper).toBeGreaterThanOrEqual(r.lower);
-    if (r.exact) expect(r.upperProven).toBe(true);
-    expect(verifyBracket(g, roundTrip(r)).ok).toBe(true);
+    // Asserted whichever way the budget fell (the dense proof may or may not fit): the record's
+    // proof flag follows its certificate, and an estimate never closes the bracket.
+    const estimated = r.certificate.kind === "psd-dual" && r.certificate.shiftMethod === "lanczos-ritz-residual";
+    expect(r.upperProven).toBe(!estimated);
+    expect(r.exact && !r.upperProven).toBe(false);
+    const v = verifyBracket(g, roundTrip(r));
+    expect(v.ok).toBe(true);
+    expect(v.upperKind).toBe(estimated ? "estimate" : "proven");
   });
 
   it("unproven: verify rejects an exact claim resting on an estimated shift", () => {
@@ -248,8 +254,9 @@ describe("bracket: a stopped exact search is re-proven by verify", () => {
     // Oracle: verify's own exact search from the record's partition (common practice, no source).
     const g = family("gnp:n=70,p=0.3,seed=1");
     const base = bracket(g, { method: "heuristic", seconds: 0.5, seed: 3 });
-    const stopped = exactMaxCut(g, { seconds: 0.5, seed: 3, initial: base.partition });
-    expect(stopped.status).toBe("timeout");
+    // A work budget stops it the same way on any machine.
+    const stopped = exactMaxCut(g, { work: 200_000, seed: 3, initial: base.partition });
+    expect(stopped.status).toBe("budget");
     const upper = Math.floor(stopped.upper + 1e-9);
     const W = g.totalWeight;
     const record: BracketRecord = {

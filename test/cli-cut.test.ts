@@ -6,7 +6,8 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { ensureBuilt, halfplus, hasTool } from "./helpers/cli.js";
+import { ensureBuilt, halfplus } from "./helpers/cli.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
 beforeAll(ensureBuilt);
 const dir = mkdtempSync(join(tmpdir(), "halfplus-cli-cut-"));
@@ -57,7 +58,7 @@ describe("halfplus cut", () => {
     }
   });
 
-  it.skipIf(!hasTool("nauty-geng"))("reads a graph6 stream: one record per graph; verify matches them to --graph by index", () => {
+  itNeeds([tool("nauty-geng")], "reads a graph6 stream: one record per graph; verify matches them to --graph by index", () => {
     // nauty-geng -c 5 emits the 21 connected graphs on 5 vertices (OEIS A001349).
     const g6 = spawnSync("nauty-geng", ["-cq", "5"]).stdout;
     const file = join(dir, "c5.g6");

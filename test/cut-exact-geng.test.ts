@@ -8,11 +8,11 @@ import { exactMaxCut } from "../src/cut/exact.js";
 import { cutValue } from "../src/cut/evaluate.js";
 import { edwardsEdgeBound, edwardsVertexBound } from "../src/bounds/edwards.js";
 import { gengLines } from "./helpers/nauty.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
-const hasGeng = spawnSync("which", ["nauty-geng"]).status === 0;
 
 describe("exact max cut on all small connected graphs (nauty-geng -c)", () => {
-  it.skipIf(!hasGeng)("meets both Edwards bounds, with √(8m+1) equality exactly for odd complete graphs", () => {
+  itNeeds([tool("nauty-geng")], "meets both Edwards bounds, with √(8m+1) equality exactly for odd complete graphs", () => {
     // Counts of connected graphs on n = 1..8 vertices: OEIS A001349 (1, 1, 2, 6, 21, 112, 853, 11117).
     const connectedCounts = [1, 1, 2, 6, 21, 112, 853, 11117];
     for (let n = 1; n <= 8; n++) {

@@ -7,9 +7,9 @@ import { describe, expect, it } from "vitest";
 import { parseGset } from "../src/graph/formats/gset.js";
 import { cutValue } from "../src/cut/evaluate.js";
 import { breakoutSearch } from "../src/cut/breakout.js";
+import { describeNeeds, file } from "./helpers/requirements.js";
 
 const GSET = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..", "shared", "reference", "gset");
-const present = existsSync(join(GSET, "best-known.csv"));
 
 function bestKnown(name: string): number {
   const row = readFileSync(join(GSET, "best-known.csv"), "utf8").split("\n").find((l) => l.startsWith(`${name},`));
@@ -17,7 +17,7 @@ function bestKnown(name: string): number {
   return Number(row.split(",")[1]);
 }
 
-describe.skipIf(!present)("breakout search on benchmark graphs (best-known.csv)", () => {
+describeNeeds([file(join(GSET, "best-known.csv"), "../shared/reference/gset/best-known.csv")], "breakout search on benchmark graphs (best-known.csv)", () => {
   it("G48 (toroidal grid, bipartite): cuts all 6000 edges and proves it with upperBound = m", () => {
     const g = parseGset(readFileSync(join(GSET, "G48.txt")), { source: "G48.txt" }).graph;
     // best-known.csv: 6000; the graph is bipartite (README), so the max cut is m.

@@ -168,11 +168,10 @@ describe("anytime searchers", () => {
     for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThan(seen[i - 1]);
   });
 
-  it("stop on a time budget with status timeout", () => {
+  it("stop on a time budget with status timeout (how promptly they stop is measured in bench/budgets)", () => {
+    // 1 ns is over at the first clock check on any machine, so no speed decides the outcome.
     for (const s of [new BreakoutSearcher(g, { seed: 1 }), new Rank2Searcher(g, { seed: 1 }), new MultiStartSearcher(g, { seed: 1 })]) {
-      const t0 = performance.now();
-      expect(s.run({ seconds: 0.05 })).toBe("timeout");
-      expect(performance.now() - t0).toBeLessThan(1000);
+      expect(s.run({ seconds: 1e-9 })).toBe("timeout");
       expectSound(g, s.best());
       expect(s.best().status).toBe("timeout");
     }

@@ -20,9 +20,9 @@ import { bipartition, connectedComponents, countTriangles } from "../src/graph/s
 import { Rng } from "../src/random/prng.js";
 import { expectInputError } from "./helpers/errors.js";
 import { genspecialLines, labelgLines } from "./helpers/nauty.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
-const has = (tool: string): boolean => spawnSync("which", [tool]).status === 0;
-const haveNauty = has("nauty-labelg") && has("nauty-genspecialg") && has("nauty-complg");
+const NAUTY = [tool("nauty-labelg"), tool("nauty-genspecialg"), tool("nauty-complg")];
 
 const canonical = (graph6: string): string => labelgLines([graph6.trim()]).join("\n");
 const genspecial = (...args: string[]): string => genspecialLines(args).join("\n");
@@ -38,7 +38,7 @@ const petersenEdges: [number, number][] = [
 const petersen = graphFromEdges(10, petersenEdges);
 
 describe("blow-up", () => {
-  it.skipIf(!haveNauty)("of K2 by t is K_{t,t} (nauty genspecialg -b)", () => {
+  itNeeds(NAUTY, "of K2 by t is K_{t,t} (nauty genspecialg -b)", () => {
     // Outside source: nauty-genspecialg -bt,t builds K_{t,t}; compared by nauty-labelg canonical form.
     for (const t of [1, 2, 3, 5]) {
       const g = blowUp(completeGraph(2), t);
@@ -94,7 +94,7 @@ describe("complement", () => {
     expect(complement(graphFromEdges(0, [])).n).toBe(0);
   });
 
-  it.skipIf(!haveNauty)("matches nauty-complg, and C5 is self-complementary", () => {
+  itNeeds(NAUTY, "matches nauty-complg, and C5 is self-complementary", () => {
     // Outside source: nauty-complg; C5 ≅ its complement (a standard fact, from memory).
     for (let seed = 0; seed < 10; seed++) {
       const g = gnp(12, 0.4, seed);

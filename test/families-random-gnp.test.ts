@@ -14,6 +14,7 @@ import { buildFamily, family, familyWithInfo } from "../src/families/registry.js
 import { Rng } from "../src/random/prng.js";
 import { expectInputError } from "./helpers/errors.js";
 import { chiSquare } from "./helpers/stats.js";
+import { file, itNeeds } from "./helpers/requirements.js";
 
 // Upper 0.1% points of the chi-square distribution with k degrees of freedom: NIST/SEMATECH
 // e-Handbook of Statistical Methods, §1.3.6.7.4 (table of upper critical values of the
@@ -226,7 +227,7 @@ const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
 const distRegistry = resolve(root, "dist/families/registry.js");
 
 describe("determinism across threads", () => {
-  it.skipIf(!existsSync(distRegistry))("builds byte-identical graphs in a worker thread and here", async () => {
+  itNeeds([file(distRegistry, "the build in dist/ (npm run build)")], "builds byte-identical graphs in a worker thread and here", async () => {
     // A spec + seed must give the same bytes in every isolate (integer PRNG, no dependence on
     // hash iteration order): common practice, no source.
     const specs = ["gnp:n=500,p=0.02,seed=9", "gnm:n=400,m=3000,seed=4", "gnm:n=40,m=700,seed=4", "bipartite-gnp:a=50,b=60,p=0.1,seed=2"];

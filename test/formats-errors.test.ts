@@ -22,10 +22,10 @@ import {
   writeGraph,
   type ReadOptions,
 } from "../src/graph/formats/index.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
 const tmp = mkdtempSync(join(tmpdir(), "halfplus-formats-errors-"));
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
-const HAS_SHOWG = spawnSync("which", ["nauty-showg"]).status === 0;
 
 /** Write `text` to a temp file, read it through readGraphs, and return the error (or fail). */
 async function errorOf(name: string, text: string, options: ReadOptions = {}): Promise<InputError> {
@@ -91,7 +91,7 @@ describe("graph6 and sparse6 lines", () => {
     expect([g.n, g.m]).toEqual([2, 1]);
   });
 
-  it.skipIf(!HAS_SHOWG)("nauty decodes the hand-made multigraph line to the same loop and edge", () => {
+  itNeeds([tool("nauty-showg")], "nauty decodes the hand-made multigraph line to the same loop and edge", () => {
     // Source: nauty-showg -e lists the (set of) edges nauty reads from the line: "0 0  0 1".
     const r = spawnSync("nauty-showg", ["-q", "-e"], { input: MULTI + "\n" });
     expect(r.status).toBe(0);

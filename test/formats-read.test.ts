@@ -23,10 +23,8 @@ import {
   type LoadedGraph,
   type ReadOptions,
 } from "../src/graph/formats/index.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
-const has = (tool: string) => spawnSync("which", [tool]).status === 0;
-const GENG = has("nauty-geng");
-const COPYG = has("nauty-copyg");
 const tmp = mkdtempSync(join(tmpdir(), "halfplus-formats-read-"));
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
 
@@ -89,7 +87,7 @@ describe("detectFormat", () => {
     expect(() => detectFormat("x.txt", "  \n")).toThrow(/empty input/);
   });
 
-  it.skipIf(!GENG || !COPYG)("detects what nauty writes", () => {
+  itNeeds([tool("nauty-geng"), tool("nauty-copyg")], "detects what nauty writes", () => {
     // Source: nauty-geng (graph6) and nauty-copyg -s (sparse6) output.
     const g6 = execFileSync("nauty-geng", ["-q", "5"]).toString();
     expect(detectFormat("stdin", g6)).toBe("graph6");
@@ -98,7 +96,7 @@ describe("detectFormat", () => {
 });
 
 describe("readGraphs", () => {
-  it.skipIf(!GENG)("gives the same graphs, indexes and lines however the stream is chunked", async () => {
+  itNeeds([tool("nauty-geng")], "gives the same graphs, indexes and lines however the stream is chunked", async () => {
     // Source: nauty-geng 6 writes the 156 graphs on 6 vertices (OEIS A000088), one per line.
     const text = execFileSync("nauty-geng", ["-q", "6"]).toString("latin1");
     const lines = text.trim().split("\n");

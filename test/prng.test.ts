@@ -4,6 +4,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { Rng } from "../src/random/prng.js";
+import { check, itNeeds } from "./helpers/requirements.js";
 
 // Source: the xoshiro128** reference C code published by Blackman & Vigna (2018), public
 // domain; retyped here from the paper's algorithm and compiled with the system C compiler.
@@ -35,7 +36,7 @@ function hasCompiler(): boolean {
 }
 
 describe("xoshiro128**", () => {
-  it.skipIf(!hasCompiler())("matches the reference C implementation for 1000 outputs", () => {
+  itNeeds([check("a C compiler, cc (gcc)", hasCompiler)], "matches the reference C implementation for 1000 outputs", () => {
     const dir = mkdtempSync(join(tmpdir(), "halfplus-prng-"));
     writeFileSync(join(dir, "x.c"), REFERENCE_C);
     execFileSync("cc", ["-O1", "-o", join(dir, "x"), join(dir, "x.c")]);

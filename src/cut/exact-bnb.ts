@@ -18,6 +18,7 @@ import {
   PROGRESS_INTERVAL,
   checkSeconds,
   checkSeedOption,
+  checkWork,
   improvementMargin,
   integerWeights,
   nowSeconds,
@@ -183,6 +184,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   const owner = "branchAndBoundMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
   const seed = checkSeedOption(owner, options.seed);
+  const workLimit = checkWork(owner, options.work);
   const n = graph.n;
   const restarts = options.restarts ?? 16;
   if (!Number.isInteger(restarts) || restarts < 0 || restarts > 100000) {
@@ -264,6 +266,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   const onProgress = options.onProgress;
   let nextReport = t0 + PROGRESS_INTERVAL;
   let stopped = false;
+  let outOfWork = false;
   let openUpper = -Infinity; // max bound over subtrees left unexplored by a timeout
   let k = first - 1; // the tail problem being solved
   let best = -Infinity;
@@ -330,6 +333,10 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   // Positions k..d-1 are fixed and the bound of this node allows an improvement.
   const search = (d: number, bound: number): void => {
     nodes++;
+    if (work >= workLimit && !stopped) {
+      stopped = true;
+      outOfWork = true;
+    }
     if (++work >= nextCheck) {
       nextCheck = work + 4096;
       const now = nowSeconds();
@@ -416,9 +423,9 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
 
   const partitionByPos = new Uint8Array(n);
   let upper: number | null = null;
-  let status: "optimal" | "timeout" = "optimal";
+  let status: "optimal" | "timeout" | "budget" = "optimal";
   if (stopped) {
-    status = "timeout";
+    status = outOfWork ? "budget" : "timeout";
     // Extend the stopped tail's best partition to the prefix greedily, polish, and keep the
     // better of that and the global incumbent. The bound chains MC[j] ≤ MC[j+1] + positive weight of v_j's forward edges.
     const stoppedK = k;
@@ -442,13 +449,13 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   }
   const partition = new Uint8Array(n);
   for (let p = 0; p < n; p++) partition[order[p]] = partitionByPos[p];
-  return finish(graph, partition, status, upper, nodes, t0, seed, b, orderKind, margin, exactSums, solvedK);
+  return finish(graph, partition, status, upper, nodes, t0, seed, b, orderKind, margin, exactSums, solvedK, work);
 }
 
 function finish(
   graph: Graph,
   partition: Uint8Array,
-  status: "optimal" | "timeout",
+  status: "optimal" | "timeout" | "budget",
   upper: number | null,
   nodes: number,
   t0: number,
@@ -458,6 +465,7 @@ function finish(
   margin: number,
   exactSums: boolean,
   solvedTail: number,
+  workUsed = 0,
 ): ExactCutRecord {
   const value = cutValue(graph, partition);
   // Non-integer weights: pruning used a tolerance and sums round, so the proven bound carries the
@@ -473,6 +481,6 @@ function finish(
     nodes,
     seconds: nowSeconds() - t0,
     seed,
-    details: { blockSize, order, integerWeights: exactSums, tolerance: slack, solvedTail },
+    details: { blockSize, order, integerWeights: exactSums, tolerance: slack, solvedTail, workUsed },
   };
 }

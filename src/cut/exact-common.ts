@@ -9,7 +9,8 @@ import type { CutRecord } from "./types.js";
 
 /** What an exact search returns: a cut (value = cutValue(partition)) plus a proven upper bound. */
 export interface ExactCutRecord extends CutRecord {
-  status: "optimal" | "timeout";
+  /** optimal: proven; timeout / budget: stopped by `seconds` / by `work`, with a valid bracket. */
+  status: "optimal" | "timeout" | "budget";
   /** Proven upper bound on the max cut: equal to `value` when optimal, the best bracket so far on timeout. */
   upper: number;
   /** Search nodes visited (outer Gray steps, or branch-and-bound nodes), for the record. */
@@ -30,6 +31,20 @@ export interface ExactOptions {
   seed?: number;
   /** Called about every half second during a long search. */
   onProgress?: (p: ExactProgress) => void;
+  /**
+   * Deterministic work budget (default: none): branch-and-bound nodes, each tabulated leaf counting
+   * max(1, 2^b/64), or Gray-code steps. On expiry the record has status "budget" and a valid bracket;
+   * the record's details say how much was used (`workUsed`).
+   */
+  work?: number;
+}
+
+export function checkWork(owner: string, work: number | undefined): number {
+  if (work === undefined) return Infinity;
+  if (typeof work !== "number" || !(Number.isInteger(work) && work > 0)) {
+    throw new InputError(`${owner}: invalid \`work\`: should be a positive integer (got ${JSON.stringify(work)})`);
+  }
+  return work;
 }
 
 /** Seconds between `onProgress` calls. */

@@ -11,6 +11,7 @@ import {
   PROGRESS_INTERVAL,
   checkSeconds,
   checkSeedOption,
+  checkWork,
   integerWeights,
   nowSeconds,
   positiveWeightSum,
@@ -33,6 +34,7 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
   const owner = "grayCodeMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
   const seed = checkSeedOption(owner, options.seed);
+  const workLimit = checkWork(owner, options.work);
   const n = graph.n;
   if (n > GRAY_MAX_VERTICES) {
     throw new InputError(`${owner}: graph has ${n} vertices; exhaustive enumeration supports at most ${GRAY_MAX_VERTICES}`);
@@ -100,12 +102,16 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
   let bestStep = 0;
   let bestPattern = 0;
   const deadline = t0 + seconds;
-  let status: "optimal" | "timeout" = "optimal";
+  let status: "optimal" | "timeout" | "budget" = "optimal";
   let done = 0;
   const checkEvery = Math.max(1, Math.floor(2 ** 16 / (1 << b)));
   const onProgress = options.onProgress;
   let nextReport = t0 + PROGRESS_INTERVAL;
   for (let s = 0; s < steps; s++) {
+    if (s >= workLimit) {
+      status = "budget";
+      break;
+    }
     if (s > 0) {
       // Gray step s flips the outer vertex at the position of s's lowest set bit.
       const j = 31 - Math.clz32(s & -s);
@@ -168,7 +174,7 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
 function record(
   graph: Graph,
   partition: Uint8Array,
-  status: "optimal" | "timeout",
+  status: "optimal" | "timeout" | "budget",
   upper: number | null,
   nodes: number,
   t0: number,
@@ -191,6 +197,6 @@ function record(
     nodes,
     seconds: nowSeconds() - t0,
     seed,
-    details: { blockSize, fixedVertex: fixed, integerWeights: exactSums, tolerance: slack },
+    details: { blockSize, fixedVertex: fixed, integerWeights: exactSums, tolerance: slack, workUsed: nodes },
   };
 }

@@ -10,6 +10,7 @@ import {
   DEFAULT_EXACT_SECONDS,
   checkSeconds,
   checkSeedOption,
+  checkWork,
   integerWeights,
   nowSeconds,
   type ExactCutRecord,
@@ -110,6 +111,8 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   const owner = "exactMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
   const seed = checkSeedOption(owner, options.seed);
+  const workLimit = checkWork(owner, options.work);
+  let workUsed = 0;
   const method = options.method ?? "auto";
   if (method !== "auto" && method !== "gray" && method !== "bnb") {
     throw new InputError(`${owner}: invalid \`method\`: should be one of auto, gray, bnb (got ${JSON.stringify(method)})`);
@@ -126,7 +129,7 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   let upper = 0;
   let nodes = 0;
   let finishedValue = 0;
-  let status: "optimal" | "timeout" = "optimal";
+  let status: "optimal" | "timeout" | "budget" = "optimal";
   let largest = 0;
   let tolerance = 0;
   const used = new Set<string>();
@@ -151,14 +154,17 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
     // Progress of a component search, reported as a cut of the whole graph: finished components' values plus its own.
     const done = finishedValue;
     const onProgress = options.onProgress === undefined ? undefined : (p: ExactProgress) => options.onProgress!({ ...p, lower: done + p.lower, nodes: nodes + p.nodes, seconds: nowSeconds() - t0 });
-    const r = useGray ? grayCodeMaxCut(sub, { seconds: left, seed, onProgress }) : branchAndBoundMaxCut(sub, { seconds: left, seed, initial, onProgress });
+    // A work budget is shared the same way: each component gets what the earlier ones left.
+    const work = workLimit === Infinity ? undefined : Math.max(1, workLimit - workUsed);
+    const r = useGray ? grayCodeMaxCut(sub, { seconds: left, seed, onProgress, work }) : branchAndBoundMaxCut(sub, { seconds: left, seed, initial, onProgress, work });
+    workUsed += Number(r.details?.workUsed ?? 0);
     used.add(r.method);
     for (let i = 0; i < sub.n; i++) partition[verts[i]] = r.partition[i];
     upper += r.upper;
     nodes += r.nodes;
     finishedValue += r.value;
     tolerance += Number(r.details?.tolerance ?? 0);
-    if (r.status === "timeout") status = "timeout";
+    if (r.status !== "optimal" && status === "optimal") status = r.status;
   }
   const value = cutValue(graph, partition);
   // Each component's bound is proven (its slack included); their sum is rounded up past its own
@@ -173,6 +179,6 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
     nodes,
     seconds: nowSeconds() - t0,
     seed,
-    details: { components: comps.count + comps.isolated, largestComponent: largest, methods: [...used].sort().join("+") || "none", tolerance },
+    details: { workUsed, components: comps.count + comps.isolated, largestComponent: largest, methods: [...used].sort().join("+") || "none", tolerance },
   };
 }
