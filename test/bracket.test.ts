@@ -153,6 +153,7 @@ describe("bracket: record and verifier details", () => {
   });
 
   it("rejects a record checked against a different graph", () => {
+    // Input validation, common practice, no source.
     const g = family("petersen");
     const r = roundTrip(bracket(g));
     const other = family("dodecahedron");
@@ -171,6 +172,7 @@ describe("bracket: record and verifier details", () => {
   });
 
   it("malformed records and bad options are input errors", () => {
+    // Input validation, common practice, no source.
     expect(() => parseBracketRecord({ kind: "something-else" }, "x.json")).toThrow(InputError);
     expect(() => parseBracketRecord([], "x.json")).toThrow(/x\.json/);
     const good = JSON.parse(JSON.stringify(bracket(family("cycle:n=7"))));
@@ -238,6 +240,7 @@ describe("bracket: review fixes", () => {
   });
 
   it("unproven: verify rejects an exact claim resting on an estimated shift", () => {
+    // Input validation, common practice, no source.
     const g = family("petersen");
     const r = roundTrip(bracket(g, { method: "heuristic", seconds: 2 }));
     expect(r.certificate.kind).toBe("psd-dual");

@@ -35,6 +35,7 @@ describe("halfplus cut", () => {
   });
 
   it("--progress reports on stderr only; stdout stays one JSON line", () => {
+    // Record plumbing, common practice, no source.
     const r = halfplus(["cut", "gnp:n=70,p=0.1,seed=2", "--json", "--progress", "--seconds", "1", "--method", "heuristic"]);
     expect(r.code).toBe(0);
     expect(r.stderr).toMatch(/gnp:n=70/);
@@ -90,6 +91,7 @@ describe("halfplus verify", () => {
   });
 
   it("rejects tampered copies (exit 1) and names the failing check", () => {
+    // Input validation, common practice, no source.
     const rec = JSON.parse(readFileSync(recFile, "utf8"));
     const raised = { ...rec, lower: 13, upper: 13, surplusLower: 5.5, surplusUpper: 5.5 };
     const flipped = { ...rec, partition: rec.partition.map((s: number, i: number) => (i === 0 ? 1 - s : s)) };

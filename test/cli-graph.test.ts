@@ -22,6 +22,7 @@ describe("halfplus graph", () => {
   });
 
   it("prints a readable summary by default", () => {
+    // Record plumbing, common practice, no source.
     const r = halfplus(["graph", "petersen"]);
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/girth\s+5/);
@@ -64,6 +65,7 @@ describe("halfplus graph", () => {
   });
 
   it("refuses a header vertex count too large to hold, and a non-decimal spec number, in one line", () => {
+    // Input validation, common practice, no source.
     const dir = mkdtempSync(join(tmpdir(), "halfplus-cli-"));
     const f = join(dir, "huge.txt");
     writeFileSync(f, "2000000000 1\n1 2 1\n");

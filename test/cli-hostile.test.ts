@@ -148,6 +148,7 @@ describe("halfplus verify: exit statuses and verdict words", () => {
 
 describe("hostile graph input", () => {
   it("graph /dev/zero --format graph6 stops at the line cap with one line", () => {
+    // Input validation, common practice, no source.
     expectBadInput(["graph", "/dev/zero", "--format", "graph6"], /\/dev\/zero:1: line longer than 256\.0 MB/);
   });
 
@@ -168,6 +169,7 @@ describe("hostile graph input", () => {
   });
 
   it("nested specs deeper than 32 levels are one line; 1000 levels of blowup are refused at once", () => {
+    // Input validation, common practice, no source.
     let deep = "petersen";
     for (let i = 0; i < 4000; i++) deep = `complement:of=[${deep}]`;
     const err = expectBadInput(["graph", deep], /nested more than 32 levels deep/);
@@ -201,6 +203,7 @@ describe("hostile graph input", () => {
   });
 
   it("an empty or blank named file says so on stderr (exit 0); an empty pipe stays silent", () => {
+    // Input validation, common practice, no source.
     for (const [name, text] of [["empty.g6", ""], ["blank.txt", "\n  \n"], ["header-only.g6", ">>graph6<<\n"]] as const) {
       const f = join(dir, name);
       writeFileSync(f, text);
@@ -242,7 +245,7 @@ describe("strict CI", () => {
     const bin2 = mkdtempSync(join(tmpdir(), "halfplus-path-"));
     symlinkSync("/bin/sh", join(bin2, "sh"));
     symlinkSync(process.execPath, join(bin2, "node"));
-    const env = { ...process.env, PATH: bin2 };
+    const env: NodeJS.ProcessEnv = { ...process.env, PATH: bin2 };
     delete env.CI;
     const skip = spawnSync(process.execPath, [join(ROOT, "node_modules", "vitest", "vitest.mjs"), "run", "test/cut-exact-geng.test.ts"], { cwd: ROOT, env, timeout: 120_000 });
     rmSync(bin2, { recursive: true, force: true });

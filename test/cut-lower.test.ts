@@ -178,6 +178,7 @@ describe("anytime searchers", () => {
   });
 
   it("are deterministic: same seed, same partition", () => {
+    // Determinism, common practice, no source.
     const a = breakoutSearch(g, { iterations: 300, seed: 42 });
     const b = breakoutSearch(g, { iterations: 300, seed: 42 });
     expect(Array.from(a.partition)).toEqual(Array.from(b.partition));

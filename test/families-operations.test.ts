@@ -63,6 +63,7 @@ describe("blow-up", () => {
   });
 
   it("works as a family on nested specs and rejects t < 1", () => {
+    // Input validation, common practice, no source.
     // The examples of the family list: Petersen (10 vertices, 15 edges) blown up by 3.
     const b = family("blowup:of=[petersen],t=3");
     expect([b.n, b.m]).toEqual([30, 135]);
@@ -151,6 +152,7 @@ describe("induced subgraph", () => {
   });
 
   it("rejects repeated or out-of-range vertices naming `vertices`", () => {
+    // Input validation, common practice, no source.
     expectInputError(() => inducedSubgraph(petersen, [0, 1, 1]), "`vertices`");
     expectInputError(() => inducedSubgraph(petersen, [0, 10]), "`vertices`");
     expectInputError(() => family("induced:of=[complete:n=4],vertices=0+7"), "`vertices`");
@@ -161,6 +163,7 @@ describe("induced subgraph", () => {
 
 describe("random edge deletion", () => {
   it("keeps each edge with probability 1 − p, reproducibly", () => {
+    // Determinism, common practice, no source.
     // Kept edges ~ Binomial(m, 1 − p): within 5σ (binomial mean and variance, standard).
     const g = completeGraph(80);
     const p = 0.3;

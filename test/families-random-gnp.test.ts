@@ -115,6 +115,7 @@ describe("G(n, p)", () => {
   });
 
   it("rejects bad parameters with an InputError naming the parameter", () => {
+    // Input validation, common practice, no source.
     expectInputError(() => gnp(10, 1.5, 0), "`p`");
     expectInputError(() => gnp(10, -0.1, 0), "`p`");
     expectInputError(() => gnp(-1, 0.5, 0), "`n`");
@@ -176,6 +177,7 @@ describe("G(n, m)", () => {
   });
 
   it("rejects m above n(n−1)/2 naming `m`", () => {
+    // Input validation, common practice, no source.
     expectInputError(() => gnm(10, 46, 0), "`m`");
     expectInputError(() => family("gnm:n=10,m=-1"), "`m`");
     expectInputError(() => gnm(50_000_000, 600_000_000, 0), "would not fit in memory");

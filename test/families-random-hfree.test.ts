@@ -134,6 +134,7 @@ describe("random H-free process", () => {
   });
 
   it("declares H in freeOf and rejects unknown patterns, naming the parameter", () => {
+    // Input validation, common practice, no source.
     const info = buildFamily("hfree-process", { n: 10, h: "K2,3", seed: 1 });
     expect(info.graph.n).toBe(10);
     expectInputError(() => family("hfree-process:n=10,h=C6"), "`h`");

@@ -118,6 +118,7 @@ describe("random regular graphs", () => {
   });
 
   it("rejects odd n·d, d ≥ n and pairing at large degree, naming the parameter", () => {
+    // Input validation, common practice, no source.
     expectInputError(() => randomRegular(7, 3, 0), "`d`");
     expectInputError(() => randomRegular(7, 3, 0), "even");
     expectInputError(() => randomRegular(10, 10, 0), "`d`");

@@ -71,6 +71,7 @@ describe("halfplus families", () => {
   });
 
   it("reports unknown families and invalid specs in one line with exit 2", () => {
+    // Input validation, common practice, no source.
     for (const [args, re] of [
       [["families", "nosuch"], /no family called "nosuch"/],
       [["families", "paley:q=7"], /paley: invalid `q`: should be ≡ 1 \(mod 4\)/],

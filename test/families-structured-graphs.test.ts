@@ -451,6 +451,7 @@ describe("invalid parameters", () => {
     ["petersen:n=3", /petersen: unknown parameter `n`/],
   ];
   it("throw one-line InputErrors naming the parameter and its valid range", () => {
+    // Input validation, common practice, no source.
     for (const [spec, re] of cases) {
       let err: unknown;
       try {
@@ -465,6 +466,7 @@ describe("invalid parameters", () => {
   });
 
   it("typed builders validate the same way", () => {
+    // Input validation, common practice, no source.
     expect(() => kneserGraph(5, 3)).toThrow(/kneser: invalid `k`/);
     expect(() => paleyGraph(11)).toThrow(/paley: invalid `q`/);
     expect(() => normGraph(10, 2)).toThrow(/norm-graph: invalid `q`/);

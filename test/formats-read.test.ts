@@ -79,6 +79,7 @@ describe("detectFormat", () => {
   });
 
   it("ambiguous or unknown content is an error asking for a format, never a guess", () => {
+    // Input validation, common practice, no source.
     // "5 0" alone: a gset header of 5 isolated vertices, or a one-edge edge list {0, 5}.
     expect(() => detectFormat("x.txt", "5 0\n")).toThrow(/x\.txt: a single line "a b" could be a gset header/);
     expect(() => detectFormat("x.txt", "5 0\n1 2 3 4\n")).toThrow(/cannot tell the format: line 1 has 2 columns and line 2 has 4/);
@@ -168,6 +169,7 @@ describe("readGraphs", () => {
   });
 
   it("an empty stream holds no graphs; the build report travels with each graph", async () => {
+    // Record plumbing, common practice, no source.
     expect(await collect({ stream: chunked("", 1), name: "stdin" })).toEqual([]);
     expect(await collect({ stream: chunked("\n\n", 1), name: "stdin" })).toEqual([]);
     const got = await collect({ stream: chunked("0 1\n1 0\n2 2\n", 2), name: "stdin" }, { build: { duplicates: "merge", loops: "drop" } });
@@ -176,6 +178,7 @@ describe("readGraphs", () => {
   });
 
   it("stops cleanly when the consumer stops early", async () => {
+    // Record plumbing, common practice, no source.
     const path = join(tmp, "many.g6");
     writeFileSync(path, "DQc\n".repeat(10000));
     let seen = 0;

@@ -111,6 +111,7 @@ describe("Lanczos", () => {
   });
 
   it("is reproducible from its seed and validates its options", () => {
+    // Input validation, common practice, no source.
     const g = randomGraph(100, 0.1, new Rng(4), "none");
     const a = lanczosExtreme(laplacianOperator(g), { seed: 9, denseBelow: 0 });
     const b = lanczosExtreme(laplacianOperator(g), { seed: 9, denseBelow: 0 });

@@ -47,6 +47,7 @@ describe("xoshiro128**", () => {
   });
 
   it("is reproducible from a seed and differs across seeds and streams", () => {
+    // Determinism, common practice, no source.
     const a = new Rng(42), b = new Rng(42), c = new Rng(43), d = new Rng(42, 1);
     const xs = Array.from({ length: 8 }, () => a.nextU32());
     expect(Array.from({ length: 8 }, () => b.nextU32())).toEqual(xs);
@@ -78,6 +79,7 @@ describe("xoshiro128**", () => {
   });
 
   it("rejects bad seeds with a message naming the seed", () => {
+    // Input validation, common practice, no source.
     expect(() => new Rng(-1)).toThrow(/seed/);
     expect(() => new Rng(1.5)).toThrow(/seed/);
   });

@@ -180,6 +180,7 @@ describe("certificates", () => {
   });
 
   it("rejects tampered certificates: y lowered, shift lowered, wrong length, NaN, unknown kind or method", () => {
+    // Input validation, common practice, no source.
     for (const [name, g] of graphs) {
       const b = sdpUpperBound(g, { sdp: { gapTolerance: 1e-6 } });
       const c = b.certificate!;
@@ -240,6 +241,7 @@ describe("certificates", () => {
 
 describe("solveSdp", () => {
   it("records its seed and rank, repeats itself from the seed, and keeps unit rows", () => {
+    // Record plumbing, common practice, no source.
     const g = randomGraph(50, 0.2, 5, "real");
     const a = solveSdp(g, { seed: 17, maxSweeps: 30 });
     const b = solveSdp(g, { seed: 17, maxSweeps: 30 });
@@ -258,6 +260,7 @@ describe("solveSdp", () => {
   });
 
   it("stops on its budgets and validates options", () => {
+    // Input validation, common practice, no source.
     const g = randomGraph(80, 0.2, 6, "none");
     expect(solveSdp(g, { maxSweeps: 3, gapTolerance: 0 }).status).toBe("budget");
     expect(solveSdp(g, { seconds: 1e-6, gapTolerance: 0 }).status).toBe("timeout");
