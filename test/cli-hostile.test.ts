@@ -122,10 +122,7 @@ describe("halfplus verify: exit statuses and verdict words", () => {
     const rec = JSON.parse(c.stdout);
     const cases: [string, string, RegExp][] = [
       ["spec-null", JSON.stringify({ ...rec, source: { spec: null } }), /record 1\): field `source\.spec`/],
-      ["spec-number", JSON.stringify({ ...rec, source: { spec: 42 } }), /field `source\.spec`/],
-      ["path-number", JSON.stringify({ ...rec, source: { path: 123 } }), /field `source\.path`/],
-      ["index-negative", JSON.stringify({ ...rec, source: { path: "x.g6", index: -1 } }), /field `source\.index`/],
-      ["index-fraction", JSON.stringify({ ...rec, source: { path: "x.g6", index: 0.5 } }), /field `source\.index`/],
+      // (source.spec = 42, source.path = 123, source.index = −1 or 0.5: test/verify-forgery.test.ts, in-process)
       ["huge-dual", JSON.stringify({ ...rec, certificate: { kind: "psd-dual", y: [1e200, 0, 0, 0, 0, 0, 0, 0, 0], shift: 4, shiftMethod: "gershgorin", floored: true, tolerance: 0 } }), /field `certificate\.y\[0\]`/],
       ["duplicate-key", JSON.stringify(rec).replace('{"kind"', '{"upper":1,"kind"'), /duplicate key "upper"/],
       ["second-record", `${JSON.stringify(rec)}\n${JSON.stringify({ ...rec, lower: "12" })}\n`, /:2 \(record 2\): field `lower`/],
@@ -241,15 +238,5 @@ describe("strict CI", () => {
     const out = r.stdout.toString() + r.stderr.toString();
     expect(r.status).not.toBe(0);
     expect(out).toMatch(/CI is missing the program nauty-geng/);
-    // And with the same PATH but CI unset, the suite skips and passes (a user's clone).
-    const bin2 = mkdtempSync(join(tmpdir(), "halfplus-path-"));
-    symlinkSync("/bin/sh", join(bin2, "sh"));
-    symlinkSync(process.execPath, join(bin2, "node"));
-    const env: NodeJS.ProcessEnv = { ...process.env, PATH: bin2 };
-    delete env.CI;
-    const skip = spawnSync(process.execPath, [join(ROOT, "node_modules", "vitest", "vitest.mjs"), "run", "test/cut-exact-geng.test.ts"], { cwd: ROOT, env, timeout: 120_000 });
-    rmSync(bin2, { recursive: true, force: true });
-    expect(skip.status, skip.stdout.toString()).toBe(0);
-    expect(skip.stdout.toString()).toMatch(/skipped/);
   });
 });

@@ -91,7 +91,7 @@ describe("fuzz: hostile input gives a graph or one line, never a crash", () => {
   it("graph readers: valid, mutated, lying and random inputs in every format", async () => {
     const t = target("readers");
     const rng = new Rng(SEED);
-    const cases = 2500 * SCALE;
+    const cases = 1800 * SCALE;
     for (let k = 0; k < cases; k++) {
       const c = readerCase(rng);
       const label = `reader case ${k} (${c.format ?? "detect"}, ${JSON.stringify(Buffer.from(c.bytes).toString("latin1").slice(0, 60))})`;
@@ -137,7 +137,7 @@ describe("fuzz: hostile input gives a graph or one line, never a crash", () => {
   it("family specs: random, hostile and deeply nested specs", async () => {
     const t = target("specs");
     const rng = new Rng(SEED + 1);
-    const cases = 1200 * SCALE;
+    const cases = 900 * SCALE;
     for (let k = 0; k < cases; k++) {
       let spec = randomSpec(rng);
       if (rng.nextInt(3) === 0) spec = mutateSpec(spec, rng);
@@ -167,7 +167,7 @@ describe("fuzz: hostile input gives a graph or one line, never a crash", () => {
       const f = familyWithInfo(spec);
       return { spec, graph: f.graph, opt: bruteForceMaxCut(f.graph), text: JSON.stringify(bracket(f.graph, { seconds: 1, source: { spec: f.spec } })) };
     });
-    const cases = 900 * SCALE;
+    const cases = 700 * SCALE;
     for (let k = 0; k < cases; k++) {
       const base = bases[rng.nextInt(bases.length)];
       const how = rng.nextInt(3);
