@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { buildGraph } from "../src/graph/builder.js";
 import type { Graph } from "../src/graph/graph.js";
 import { family } from "../src/families/registry.js";
-import { bracket, type BracketProgress, type BracketRecord } from "../src/cut/bracket.js";
+import { bracket, bracketSnapshot, recordFromSnapshot, recordJson, type BracketProgress, type BracketRecord } from "../src/cut/bracket.js";
 import { graphHash, parseBracketRecord, verifyBracket } from "../src/cut/verify.js";
 import { exactMaxCut } from "../src/cut/exact.js";
 import { cutValue } from "../src/cut/evaluate.js";
@@ -150,6 +150,19 @@ describe("bracket: record and verifier details", () => {
     expect(r.surplusUpper).toBe(r.upper - g.totalWeight / 2);
     expect(r.runs.length).toBeGreaterThan(3);
     expect(JSON.parse(JSON.stringify(r))).toEqual(r); // plain data: survives JSON unchanged
+  });
+
+  it("a snapshot's JSON (typed partition, written natively) is the plain record's JSON, byte for byte", () => {
+    // Common practice, no source: two writers of one format must agree.
+    for (const spec of ["petersen", "gnp:n=60,p=0.2,seed=4", "path:n=1"]) {
+      const g = family(spec);
+      const snap = bracketSnapshot(g, { seconds: 1, source: { spec } });
+      expect(snap.partition).toBeInstanceOf(Uint8Array);
+      const plain = recordFromSnapshot(snap);
+      expect(recordJson(snap)).toBe(JSON.stringify(plain));
+      expect(recordJson(plain)).toBe(JSON.stringify(plain));
+      expect(verifyBracket(g, roundTrip(plain)).ok).toBe(true);
+    }
   });
 
   it("rejects a record checked against a different graph", () => {

@@ -10,14 +10,14 @@ import { InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { graphToParts } from "../graph/graph.js";
 import { graphBytes, memoryRoom } from "../limits/memory.js";
-import { bracket, type BracketOptions, type BracketRecord } from "./bracket.js";
+import { bracketSnapshot, type BracketOptions, type BracketSnapshot } from "./bracket.js";
 import type { BracketWorkerMessage, BracketWorkerRequest } from "./bracket-worker.js";
 
 export interface RunningBracket {
   /** The final record; or, after `stop()`, the best snapshot (null when none had arrived). */
-  readonly done: Promise<{ record: BracketRecord | null; stopped: boolean }>;
+  readonly done: Promise<{ record: BracketSnapshot | null; stopped: boolean }>;
   /** The latest snapshot (null before the first). */
-  latest(): BracketRecord | null;
+  latest(): BracketSnapshot | null;
   /** End the run now; `done` then resolves with the latest snapshot. */
   stop(): void;
   /** False when the bracket runs in this thread (then `stop` takes effect only after it returns). */
@@ -33,8 +33,8 @@ export function runBracket(graph: Graph, options: BracketOptions = {}): RunningB
   // The worker gets a copy of the graph: only when that copy fits beside the original.
   const copyFits = graphBytes(graph.n, graph.m, graph.weighted) < 64 * 2 ** 20 || graphBytes(graph.n, graph.m, graph.weighted) < memoryRoom().bytes;
   if (!existsSync(workerFile) || !copyFits) {
-    let last: BracketRecord | null = null;
-    const record = bracket(graph, {
+    let last: BracketSnapshot | null = null;
+    const record = bracketSnapshot(graph, {
       ...options,
       onProgress: (p) => {
         onProgress?.(p);
@@ -44,10 +44,10 @@ export function runBracket(graph: Graph, options: BracketOptions = {}): RunningB
     return { done: Promise.resolve({ record, stopped: false }), latest: () => last ?? record, stop: () => {}, inWorker: false };
   }
   const worker = new Worker(WORKER_URL);
-  let latest: BracketRecord | null = null;
-  let settle: ((v: { record: BracketRecord | null; stopped: boolean }) => void) | null = null;
+  let latest: BracketSnapshot | null = null;
+  let settle: ((v: { record: BracketSnapshot | null; stopped: boolean }) => void) | null = null;
   let fail: ((e: Error) => void) | null = null;
-  const done = new Promise<{ record: BracketRecord | null; stopped: boolean }>((resolve, reject) => {
+  const done = new Promise<{ record: BracketSnapshot | null; stopped: boolean }>((resolve, reject) => {
     settle = resolve;
     fail = reject;
   });

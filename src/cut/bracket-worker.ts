@@ -5,14 +5,14 @@
 import { parentPort } from "node:worker_threads";
 import { InputError } from "../errors.js";
 import { graphFromParts, type GraphParts } from "../graph/graph.js";
-import { bracket, type BracketOptions } from "./bracket.js";
+import { bracketSnapshot, type BracketOptions, type BracketSnapshot } from "./bracket.js";
 
 export type BracketWorkerRequest = { parts: GraphParts; options: Omit<BracketOptions, "onProgress"> };
 
 export type BracketWorkerMessage =
   | { type: "progress"; method: string; lower: number; upper: number; elapsed: number }
-  | { type: "snapshot"; record: ReturnType<typeof bracket> }
-  | { type: "done"; record: ReturnType<typeof bracket> }
+  | { type: "snapshot"; record: BracketSnapshot }
+  | { type: "done"; record: BracketSnapshot }
   | { type: "error"; input: boolean; message: string };
 
 const port = parentPort;
@@ -21,11 +21,11 @@ if (port !== null) {
     try {
       const graph = graphFromParts(req.parts);
       let lastKey = "";
-      const record = bracket(graph, {
+      const record = bracketSnapshot(graph, {
         ...req.options,
         onProgress: (p) => {
           port.postMessage({ type: "progress", method: p.method, lower: p.lower, upper: p.upper, elapsed: p.elapsed } satisfies BracketWorkerMessage);
-          // A snapshot costs O(n) to copy: send one only when the bracket itself changed.
+          // A snapshot costs O(n) to copy (a typed array, never a JS array): send one only when the bracket changed.
           const snap = p.snapshot();
           const key = `${snap.lower}|${snap.upper}|${snap.certificate.kind}|${snap.exact}|${snap.runs.length}`;
           if (key !== lastKey) {

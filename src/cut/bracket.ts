@@ -39,7 +39,7 @@ export interface BracketProgress {
   upper: number;
   elapsed: number;
   /** The record as it stands now (a verifiable partial result), built only when called. */
-  snapshot: () => BracketRecord;
+  snapshot: () => BracketSnapshot;
 }
 
 export interface BracketOptions {
@@ -107,6 +107,26 @@ export interface BracketRecord {
   source: SourceRef | null;
   /** Present (true) when SIGINT/SIGTERM stopped the run: the best record at that moment. */
   interrupted?: true;
+}
+
+/**
+ * A bracket record whose partition is a typed array: cheap to copy between threads and to write
+ * (`recordJson`) even at 10^8 vertices, where a JS array of the partition would fill the heap.
+ */
+export type BracketSnapshot = Omit<BracketRecord, "partition"> & { partition: Uint8Array };
+
+/** The plain record of a snapshot (the partition as an array of 0/1). */
+export function recordFromSnapshot(s: BracketSnapshot): BracketRecord {
+  return { ...s, partition: Array.from(s.partition) };
+}
+
+/** The record's JSON text (one line), the same as JSON.stringify of its plain form, without building the plain partition. */
+export function recordJson(r: BracketSnapshot | BracketRecord): string {
+  if (!(r.partition instanceof Uint8Array)) return JSON.stringify(r);
+  // A marker no JSON value can contain unescaped, replaced by the partition written natively.
+  const marker = "\u0000partition\u0000";
+  const text = JSON.stringify({ ...r, partition: marker });
+  return text.replace(JSON.stringify(marker), `[${r.partition.join(",")}]`);
 }
 
 /** A seed per method, derived from the bracket's seed so every run is reproducible. */
@@ -199,7 +219,7 @@ class BracketState {
   }
 
   progress(method: string): void {
-    this.onProgress?.({ method, lower: this.lower, upper: this.upper, elapsed: this.elapsed(), snapshot: () => recordOf(this) });
+    this.onProgress?.({ method, lower: this.lower, upper: this.upper, elapsed: this.elapsed(), snapshot: () => snapshotOf(this) });
   }
 
   offerCut(r: CutRecord, role: BracketRun["role"] = "lower"): void {
@@ -235,7 +255,7 @@ class BracketState {
 
   /** Progress callback for an exact search: shows it is alive, and its incumbent when that is better. */
   exactProgress(method: string): (p: ExactProgress) => void {
-    return (p) => this.onProgress?.({ method, lower: Math.max(this.lower, p.lower), upper: this.upper, elapsed: this.elapsed(), snapshot: () => recordOf(this) });
+    return (p) => this.onProgress?.({ method, lower: Math.max(this.lower, p.lower), upper: this.upper, elapsed: this.elapsed(), snapshot: () => snapshotOf(this) });
   }
 
   offerExact(r: ExactCutRecord): void {
@@ -400,6 +420,11 @@ function exactLooksFeasible(g: Graph): boolean {
 }
 
 export function bracket(graph: Graph, options: BracketOptions = {}): BracketRecord {
+  return recordFromSnapshot(bracketSnapshot(graph, options));
+}
+
+/** `bracket`, returning the record with its partition as a typed array (see BracketSnapshot). */
+export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): BracketSnapshot {
   const owner = "bracket";
   const seconds = options.seconds ?? DEFAULT_BRACKET_SECONDS;
   if (typeof seconds !== "number" || !(seconds > 0) || !Number.isFinite(seconds)) {
@@ -435,11 +460,11 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
     state.upperMethod = "positive-weights";
   }
 
-  return recordOf(state);
+  return snapshotOf(state);
 }
 
 /** The record of a bracket state: at the end of a run, or as a snapshot while it runs. */
-function recordOf(state: BracketState): BracketRecord {
+function snapshotOf(state: BracketState): BracketSnapshot {
   const { seed, method, source } = state.meta;
   const graph = state.graph;
   const W = graph.totalWeight;
@@ -465,7 +490,7 @@ function recordOf(state: BracketState): BracketRecord {
     seconds: state.elapsed(),
     seed,
     method,
-    partition: Array.from(state.partition),
+    partition: state.partition.slice(),
     certificate: state.certificate,
     runs: state.runs.slice(),
     graphHash: state.hash(),

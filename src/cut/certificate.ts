@@ -232,6 +232,11 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
 export function certifyDual(graph: Graph, y: ArrayLike<number>, options: CertifyOptions = {}): UpperBoundRecord {
   checkY(graph, y, OWNER);
   checkCertifyOptions(options);
+  // Every method starts from a Lanczos estimate with a basis of at least 12 vectors in 1 GiB
+  // (src/linalg/lanczos.ts): refuse before copying y when that cannot fit.
+  if (graph.n > 12 && 12 * 8 * graph.n > 2 ** 30) {
+    throw new InputError(`${OWNER}: n = ${graph.n} vertices is too many for the Lanczos estimate of the shift (a basis of 12 vectors would exceed 1 GiB)`);
+  }
   const t0 = performance.now();
   const yy = Float64Array.from(y);
   const s = establishShift(graph, yy, options);

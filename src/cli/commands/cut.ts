@@ -4,7 +4,7 @@ import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
 import { openSource } from "../../sources/index.js";
-import { BRACKET_METHODS, DEFAULT_BRACKET_SECONDS, type BracketMethod, type BracketProgress, type BracketRecord } from "../../cut/bracket.js";
+import { BRACKET_METHODS, DEFAULT_BRACKET_SECONDS, recordJson, type BracketMethod, type BracketProgress, type BracketRecord, type BracketSnapshot } from "../../cut/bracket.js";
 import { runBracket, type RunningBracket } from "../../cut/bracket-runner.js";
 import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 import { writeLine } from "../output.js";
@@ -15,7 +15,10 @@ function num(x: number): string {
   return x.toFixed(4).replace(/\.?0+$/, "");
 }
 
-function certificateText(r: BracketRecord): string {
+/** What the summary shows: every field but the partition. */
+type Shown = Omit<BracketRecord, "partition">;
+
+function certificateText(r: Shown): string {
   const c = r.certificate;
   switch (c.kind) {
     case "exhaustive":
@@ -30,7 +33,7 @@ function certificateText(r: BracketRecord): string {
 }
 
 /** Our own layout: the bracket first, then where each side of it came from. */
-export function formatBracket(label: string, r: BracketRecord, notes: string[]): string {
+export function formatBracket(label: string, r: Shown, notes: string[]): string {
   const gap = r.upper - r.lower;
   const rows: [string, string][] = [];
   if (r.exact) {
@@ -121,8 +124,8 @@ export const cutCommand: CommandSpec = {
     const onTerm = (): void => onSignal("SIGTERM");
     process.on("SIGINT", onInt);
     process.on("SIGTERM", onTerm);
-    const writeRecord = async (record: BracketRecord, label: string, notes: string[], first: boolean): Promise<void> => {
-      const line = JSON.stringify(record);
+    const writeRecord = async (record: BracketSnapshot, label: string, notes: string[], first: boolean): Promise<void> => {
+      const line = recordJson(record);
       if (outPath !== undefined) {
         // Opened only once the first graph is read, so a bad source leaves no empty file behind.
         if (fd === null) {
@@ -156,7 +159,7 @@ export const cutCommand: CommandSpec = {
         if (outcome.stopped || caught !== null) {
           const sig: "SIGINT" | "SIGTERM" = caught ?? "SIGINT";
           if (outcome.record !== null) {
-            const rec: BracketRecord = { ...outcome.record, interrupted: true };
+            const rec: BracketSnapshot = { ...outcome.record, interrupted: true };
             await writeRecord(rec, item.label, [...item.notes, `interrupted by ${sig}: the best bracket found so far`], first);
           }
           io.stderr.write(`halfplus cut: interrupted by ${sig}${outcome.record !== null ? `; wrote the best record so far for ${item.label}` : ""}\n`);
