@@ -27,8 +27,8 @@ const gc = () => globalThis.gc?.();
 const g22 = join(SHARED_REFERENCE, "gset", "G22.txt");
 if (hasShared() && existsSync(g22)) {
   const buf = readFileSync(g22);
-  for (let i = 0; i < 5; i++) parseGset(buf, { source: "G22.txt" }); // warm-up
-  const t = timeBest(() => parseGset(buf, { source: "G22.txt" }), 20);
+  for (let i = 0; i < 5; i++) parseGset(buf, { file: "G22.txt" }); // warm-up
+  const t = timeBest(() => parseGset(buf, { file: "G22.txt" }), 20);
   rows.push({ case: "parseGset G22 (2000 v, 19990 e), Buffer", ms: +t.ms.toFixed(2), target: "< 50 ms", ok: t.ms < 50 });
   let best = Infinity;
   for (let i = 0; i < 10; i++) {

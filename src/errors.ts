@@ -5,7 +5,8 @@
 export class InputError extends Error {
   override readonly name = "InputError";
   constructor(message: string) {
-    super(message);
+    // One line however the message was assembled: a file name or parameter may hold a newline.
+    super(oneLine(message));
   }
 }
 
@@ -17,7 +18,31 @@ export function inputErrorAt(where: string | undefined, line: number | undefined
 
 /** A parameter outside its valid range, named the way the user wrote it. */
 export function invalidParameter(owner: string, name: string, expected: string, got: unknown): InputError {
-  return new InputError(`${owner}: invalid \`${name}\`: ${expected} (got ${JSON.stringify(got)})`);
+  return new InputError(`${owner}: invalid \`${name}\`: ${expected} (got ${echo(got)})`);
+}
+
+/**
+ * A value quoted for a one-line message: JSON (so control characters come out escaped) and, past
+ * `max` characters, cut with the full length said, so a 100 KB spec is not echoed in full.
+ */
+export function echo(value: unknown, max = 120): string {
+  let text: string;
+  try {
+    text = JSON.stringify(value) ?? String(value);
+  } catch {
+    text = String(value);
+  }
+  return text.length <= max ? text : `${text.slice(0, max)}... (${text.length} characters)`;
+}
+
+/** Longest message the CLI prints; the rest is cut with a note. */
+export const MAX_MESSAGE_LENGTH = 2000;
+
+/** A message as one printable line: control characters escaped (a file name may hold a newline), long ones cut. */
+export function oneLine(message: string): string {
+  // eslint-disable-next-line no-control-regex
+  const flat = message.replace(/[\u0000-\u001f\u007f]/g, (c) => (c === "\n" ? "\\n" : c === "\t" ? "\\t" : c === "\r" ? "\\r" : `\\x${c.charCodeAt(0).toString(16).padStart(2, "0")}`));
+  return flat.length <= MAX_MESSAGE_LENGTH ? flat : `${flat.slice(0, MAX_MESSAGE_LENGTH)}... (message cut at ${MAX_MESSAGE_LENGTH} characters)`;
 }
 
 export function isInputError(e: unknown): e is InputError {

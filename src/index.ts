@@ -1,6 +1,8 @@
 // The public API, in layer order (each layer imports only those above it in this list): each
 // folder's index re-exports its public modules, so this file is the map.
 export * from "./errors.js";
+export * from "./decimal.js";
+export * from "./limits/index.js";
 export * from "./random/index.js";
 export * from "./graph/index.js";
 export * from "./graph/formats/index.js";

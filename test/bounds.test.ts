@@ -1,6 +1,5 @@
 // Closed-form max-cut lower bounds (Edwards, triangle-free, the vector-method guarantee) against
 // brute-force max cuts of every small graph nauty-geng generates, plus the report's gaps.
-import { spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { graphFromEdges } from "../src/graph/builder.js";
 import type { Graph } from "../src/graph/graph.js";
@@ -11,9 +10,8 @@ import { vectorMethodGuarantee } from "../src/bounds/vector-guarantee.js";
 import { lowerBoundReport, lowerBounds } from "../src/bounds/report.js";
 import { bruteForceMaxCut } from "./helpers/maxcut.js";
 import { gengLines } from "./helpers/nauty.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
-const hasTool = (name: string) => spawnSync("which", [name]).status === 0;
-const hasGeng = hasTool("nauty-geng");
 
 const geng = (args: string[]): Graph[] => gengLines(args).map((l) => parseGraph6(l));
 
@@ -32,7 +30,7 @@ function componentCount(g: Graph): number {
 const isComplete = (g: Graph) => g.m === (g.n * (g.n - 1)) / 2;
 
 describe("Edwards bounds on every connected graph with n ≤ 7 (nauty-geng -c)", () => {
-  it.skipIf(!hasGeng)("brute-force max cut ≥ both bounds; the √(8m+1) form is tight exactly for complete graphs of odd order", () => {
+  itNeeds([tool("nauty-geng")], "brute-force max cut ≥ both bounds; the √(8m+1) form is tight exactly for complete graphs of odd order", () => {
     // Edwards (1973): maxcut ≥ m/2 + (√(8m+1) − 1)/8, with equality iff G is a complete graph of odd order;
     // Edwards (1975): maxcut ≥ m/2 + (n−1)/4 for connected G.
     // Count check: connected graphs on 1..7 vertices number 1, 1, 2, 6, 21, 112, 853 (OEIS A001349).
@@ -59,7 +57,7 @@ describe("Edwards bounds on every connected graph with n ≤ 7 (nauty-geng -c)",
 });
 
 describe("Edwards per-component form on all graphs with n ≤ 6 (nauty-geng, disconnected included)", () => {
-  it.skipIf(!hasGeng)("maxcut ≥ m/2 + (n − c)/4 with c components", () => {
+  itNeeds([tool("nauty-geng")], "maxcut ≥ m/2 + (n − c)/4 with c components", () => {
     // Graphs on 1..6 vertices: 1, 2, 4, 11, 34, 156 (OEIS A000088).
     const counts = [1, 2, 4, 11, 34, 156];
     for (let n = 1; n <= 6; n++) {
@@ -84,7 +82,7 @@ describe("Edwards per-component form on all graphs with n ≤ 6 (nauty-geng, dis
 });
 
 describe("triangle-free bound (1/2π)Σ√d_i", () => {
-  it.skipIf(!hasGeng)("holds on every connected triangle-free graph with n ≤ 9 (nauty-geng -ct)", () => {
+  itNeeds([tool("nauty-geng")], "holds on every connected triangle-free graph with n ≤ 9 (nauty-geng -ct)", () => {
     // Connected triangle-free graphs on 1..9 vertices: 1, 1, 1, 3, 6, 19, 59, 267, 1380 (OEIS A024607).
     const counts = [1, 1, 1, 3, 6, 19, 59, 267, 1380];
     for (let n = 1; n <= 9; n++) {
@@ -101,7 +99,7 @@ describe("triangle-free bound (1/2π)Σ√d_i", () => {
     }
   });
 
-  it.skipIf(!hasGeng)("does not apply to graphs with a triangle; the general guarantee still holds (n ≤ 7)", () => {
+  itNeeds([tool("nauty-geng")], "does not apply to graphs with a triangle; the general guarantee still holds (n ≤ 7)", () => {
     let withTriangles = 0;
     for (const g of geng(["-c", "7"])) {
       const b = triangleFreeBound(g);

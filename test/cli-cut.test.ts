@@ -6,7 +6,8 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { ensureBuilt, halfplus, hasTool } from "./helpers/cli.js";
+import { ensureBuilt, halfplus } from "./helpers/cli.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
 beforeAll(ensureBuilt);
 const dir = mkdtempSync(join(tmpdir(), "halfplus-cli-cut-"));
@@ -34,6 +35,7 @@ describe("halfplus cut", () => {
   });
 
   it("--progress reports on stderr only; stdout stays one JSON line", () => {
+    // Record plumbing, common practice, no source.
     const r = halfplus(["cut", "gnp:n=70,p=0.1,seed=2", "--json", "--progress", "--seconds", "1", "--effort", "heuristic"]);
     expect(r.code).toBe(0);
     expect(r.stderr).toMatch(/gnp:n=70/);
@@ -59,7 +61,7 @@ describe("halfplus cut", () => {
     }
   });
 
-  it.skipIf(!hasTool("nauty-geng"))("reads a graph6 stream: one record per graph; verify matches them to --graph by position", () => {
+  itNeeds([tool("nauty-geng")], "reads a graph6 stream: one record per graph; verify matches them to --graph by position", () => {
     // nauty-geng -c 5 emits the 21 connected graphs on 5 vertices (OEIS A001349).
     const g6 = spawnSync("nauty-geng", ["-cq", "5"]).stdout;
     const file = join(dir, "c5.g6");
@@ -91,6 +93,7 @@ describe("halfplus verify", () => {
   });
 
   it("rejects tampered copies (exit 1) and names the failing check", () => {
+    // Input validation, common practice, no source.
     const rec = JSON.parse(readFileSync(recFile, "utf8"));
     const raised = { ...rec, lower: 13, upper: 13, surplusLower: 5.5, surplusUpper: 5.5 };
     const flipped = { ...rec, partition: rec.partition.map((s: number, i: number) => (i === 0 ? 1 - s : s)) };

@@ -3,7 +3,8 @@ import { closeSync, mkdtempSync, openSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
-import { BIN, ensureBuilt, halfplus, hasTool } from "./helpers/cli.js";
+import { BIN, ensureBuilt, halfplus } from "./helpers/cli.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
 beforeAll(ensureBuilt);
 
@@ -21,12 +22,13 @@ describe("halfplus graph", () => {
   });
 
   it("prints a readable summary by default", () => {
+    // Record plumbing, common practice, no source.
     const r = halfplus(["graph", "petersen"]);
     expect(r.code).toBe(0);
     expect(r.stdout).toMatch(/girth\s+5/);
   });
 
-  it.skipIf(!hasTool("nauty-geng"))("reads a graph6 stream from stdin: one JSON line per graph, as many as nauty-geng emits", () => {
+  itNeeds([tool("nauty-geng")], "reads a graph6 stream from stdin: one JSON line per graph, as many as nauty-geng emits", () => {
     // Source: nauty-geng itself reports how many graphs it generated (on stderr).
     const geng = spawnSync("nauty-geng", ["-c", "-t", "8"]);
     const reported = Number(/(\d+) graphs generated/.exec(geng.stderr.toString())![1]);
@@ -63,6 +65,7 @@ describe("halfplus graph", () => {
   });
 
   it("refuses a header vertex count too large to hold, and a non-decimal spec number, in one line", () => {
+    // Input validation, common practice, no source.
     const dir = mkdtempSync(join(tmpdir(), "halfplus-cli-"));
     const f = join(dir, "huge.txt");
     writeFileSync(f, "2000000000 1\n1 2 1\n");

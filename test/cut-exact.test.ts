@@ -16,17 +16,22 @@ import { grayCodeMaxCut } from "../src/cut/exact/gray-code.js";
 import { InputError } from "../src/errors.js";
 import { Rng } from "../src/random/prng.js";
 import { randomGraph } from "./helpers/graphs.js";
+import { cutOfPartition } from "./helpers/maxcut.js";
+import { check, itNeeds } from "./helpers/requirements.js";
 
 const has = (tool: string): boolean => spawnSync("which", [tool]).status === 0;
 
-/** Every bipartition with vertex 0 on side 0, each valued by cutValue: the plainest possible oracle. */
+/**
+ * Every bipartition with vertex 0 on side 0, each valued edge by edge with the test folder's own
+ * evaluator (test/helpers/maxcut.ts), not with the cutValue under test: the plainest possible oracle.
+ */
 function bruteForce(g: Graph): number {
   if (g.n <= 1) return 0;
   const side = new Uint8Array(g.n);
   let best = -Infinity;
   for (let mask = 0; mask < 2 ** (g.n - 1); mask++) {
     for (let i = 1; i < g.n; i++) side[i] = (mask >>> (i - 1)) & 1;
-    best = Math.max(best, cutValue(g, side));
+    best = Math.max(best, cutOfPartition(g, side));
   }
   return best;
 }
@@ -130,12 +135,14 @@ describe("exact max cut: methods agree", () => {
   });
 });
 
-describe("exact max cut: timeouts give valid brackets", () => {
+describe("exact max cut: stopped searches give valid brackets", () => {
+  // Stopped by a work budget, so the outcome is the same on any machine; speed is bench/ (bench/budgets).
   it("branch and bound on K_44 stopped early brackets ⌊44²/4⌋ = 484", () => {
-    // K_n max cut ⌊n²/4⌋ (from memory); the search cannot finish in 0.2 s, so it must report a bracket.
+    // K_n max cut ⌊n²/4⌋ (from memory); 20,000 nodes are far too few to finish, so it must report a bracket.
     const g = family("complete:n=44");
-    const r = branchAndBoundMaxCut(g, { seconds: 0.2 });
-    expect(r.status).toBe("time-limit");
+    const r = branchAndBoundMaxCut(g, { work: 20_000 });
+    expect(r.status).toBe("work-limit");
+    expect(r.details?.workUsed).toBeLessThanOrEqual(20_000 + 64);
     expectConsistent(g, r);
     expect(r.value).toBeLessThanOrEqual(484);
     expect(r.upper).toBeGreaterThanOrEqual(484);
@@ -144,8 +151,9 @@ describe("exact max cut: timeouts give valid brackets", () => {
 
   it("Gray code on K_34 stopped early brackets 289", () => {
     const g = family("complete:n=34");
-    const r = grayCodeMaxCut(g, { seconds: 0.1 });
-    expect(r.status).toBe("time-limit");
+    const r = grayCodeMaxCut(g, { work: 1000 });
+    expect(r.status).toBe("work-limit");
+    expect(r.graySteps).toBe(1000);
     expectConsistent(g, r);
     expect(r.value).toBeLessThanOrEqual(289);
     expect(r.upper).toBeGreaterThanOrEqual(289);
@@ -156,11 +164,20 @@ describe("exact max cut: timeouts give valid brackets", () => {
     const us: number[] = [], vs: number[] = [];
     for (let c = 0; c < 2; c++) for (let i = 0; i < 40; i++) for (let j = i + 1; j < 40; j++) us.push(40 * c + i), vs.push(40 * c + j);
     const g = buildGraph(80, us, vs).graph;
-    const r = exactMaxCut(g, { seconds: 0.2 });
-    expect(r.status).toBe("time-limit");
+    const r = exactMaxCut(g, { work: 50_000 });
+    expect(r.status).toBe("work-limit");
     expectConsistent(g, r);
     expect(r.value).toBeLessThanOrEqual(800);
     expect(r.upper).toBeGreaterThanOrEqual(800);
+  });
+
+  it("a search given almost no time reports status time-limit with a valid bracket", () => {
+    // 1 ns cannot hold even the first clock check's 4096 nodes on any machine (common practice, no source).
+    const g = family("complete:n=44");
+    const r = branchAndBoundMaxCut(g, { seconds: 1e-9 });
+    expect(r.status).toBe("time-limit");
+    expectConsistent(g, r);
+    expect(r.upper).toBeGreaterThanOrEqual(484);
   });
 });
 
@@ -174,6 +191,8 @@ describe("exact max cut: bad input", () => {
     expect(() => branchAndBoundMaxCut(g, { blockSize: -1 })).toThrow(/blockSize/);
     expect(() => grayCodeMaxCut(family("complete:n=35"))).toThrow(/at most 34/);
     expect(() => exactMaxCut(g, { initial: [0, 1] })).toThrow(/initial/);
+    expect(() => exactMaxCut(g, { work: 0 })).toThrow(/work/);
+    expect(() => grayCodeMaxCut(g, { work: 1.5 })).toThrow(/work/);
   });
 });
 
@@ -226,7 +245,7 @@ function solveMilp(g: Graph, name: string): number {
 }
 
 describe("exact max cut agrees with a MILP solver", () => {
-  it.skipIf(milpSolver === null)("50 random graphs with n ≤ 30 (cbc, else glpsol, from the Debian archive)", () => {
+  itNeeds([check("a MILP solver, cbc (coinor-cbc) or glpsol (glpk-utils)", () => milpSolver !== null)], "50 random graphs with n ≤ 30 (cbc, else glpsol, from the Debian archive)", () => {
     // Source: the MILP optimum from an independent solver (coinor-cbc / glpk-utils).
     const rng = new Rng(5150);
     for (let t = 0; t < 50; t++) {

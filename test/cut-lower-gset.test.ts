@@ -1,15 +1,14 @@
 // Breakout search on two classic benchmark graphs from ../shared/reference/gset, compared with
 // the best cuts published for them (best-known.csv); skipped when the reference folder is absent.
-import { existsSync, readFileSync } from "node:fs";
-import { dirname, join, resolve } from "node:path";
-import { fileURLToPath } from "node:url";
-import { describe, expect, it } from "vitest";
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+import { expect, it } from "vitest";
 import { parseGset } from "../src/graph/formats/gset.js";
 import { cutValue } from "../src/graph/cut-value.js";
 import { breakoutSearch } from "../src/cut/heuristic/breakout.js";
+import { describeNeeds, file, REFERENCE } from "./helpers/requirements.js";
 
-const GSET = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..", "shared", "reference", "gset");
-const present = existsSync(join(GSET, "best-known.csv"));
+const GSET = join(REFERENCE, "gset");
 
 function bestKnown(name: string): number {
   const row = readFileSync(join(GSET, "best-known.csv"), "utf8").split("\n").find((l) => l.startsWith(`${name},`));
@@ -17,7 +16,7 @@ function bestKnown(name: string): number {
   return Number(row.split(",")[1]);
 }
 
-describe.skipIf(!present)("breakout search on benchmark graphs (best-known.csv)", () => {
+describeNeeds([file(join(GSET, "best-known.csv"), "../shared/reference/gset/best-known.csv")], "breakout search on benchmark graphs (best-known.csv)", () => {
   it("G48 (toroidal grid, bipartite): cuts all 6000 edges and proves it with upperBound = m", () => {
     const g = parseGset(readFileSync(join(GSET, "G48.txt")), { file: "G48.txt" }).graph;
     // best-known.csv: 6000; the graph is bipartite (README), so the max cut is m.

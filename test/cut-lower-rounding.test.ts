@@ -81,6 +81,7 @@ describe("hyperplane rounding (Goemans–Williamson)", () => {
   });
 
   it("polishing never lowers the best cut, and the same seed gives the same partition", () => {
+    // Determinism, common practice, no source.
     const rng = new Rng(8);
     const g = graphFromEdges(40, randomEdges(40, 0.2, rng));
     const vectors = new Float64Array(40 * 4);
@@ -95,6 +96,7 @@ describe("hyperplane rounding (Goemans–Williamson)", () => {
   });
 
   it("rejects malformed vectors and options", () => {
+    // Input validation, common practice, no source.
     const g = cycle(5);
     expect(() => hyperplaneRound(g, new Float64Array(9), 2)).toThrow(InputError);
     expect(() => hyperplaneRound(g, new Float64Array(9), 2)).toThrow(/`vectors`: should be a Float64Array of n·r = 10/);
@@ -249,6 +251,7 @@ describe("the explicit vector method", () => {
   });
 
   it("is deterministic per seed, and polishing only raises the best cut", () => {
+    // Determinism, common practice, no source.
     const g = petersen();
     const a = vectorMethodRound(g, { trials: 50, solverSeed: 9 });
     const b = vectorMethodRound(g, { trials: 50, solverSeed: 9 });
@@ -259,6 +262,7 @@ describe("the explicit vector method", () => {
   });
 
   it("rejects sets that are not neighbourhood subsets and ε out of range, naming the parameter", () => {
+    // Input validation, common practice, no source.
     const g = cycle(5);
     const ok = [[1, 4], [0, 2], [1, 3], [2, 4], [3, 0]];
     expect(() => vectorMethodGuarantee(g, { sets: ok })).not.toThrow();

@@ -168,17 +168,17 @@ describe("anytime searchers", () => {
     for (let i = 1; i < seen.length; i++) expect(seen[i]).toBeGreaterThan(seen[i - 1]);
   });
 
-  it("stop on a time budget with status timeout", () => {
+  it("stop on a time budget with status time-limit (how promptly they stop is measured in bench/budgets)", () => {
+    // 1 ns is over at the first clock check on any machine, so no speed decides the outcome.
     for (const s of [new BreakoutSearcher(g, { solverSeed: 1 }), new Rank2Searcher(g, { solverSeed: 1 }), new MultiStartSearcher(g, { solverSeed: 1 })]) {
-      const t0 = performance.now();
-      expect(s.run({ seconds: 0.05 })).toBe("time-limit");
-      expect(performance.now() - t0).toBeLessThan(1000);
+      expect(s.run({ seconds: 1e-9 })).toBe("time-limit");
       expectSound(g, s.best());
       expect(s.best().status).toBe("time-limit");
     }
   });
 
   it("are deterministic: same seed, same partition", () => {
+    // Determinism, common practice, no source.
     const a = breakoutSearch(g, { iterations: 300, solverSeed: 42 });
     const b = breakoutSearch(g, { iterations: 300, solverSeed: 42 });
     expect(Array.from(a.partition)).toEqual(Array.from(b.partition));

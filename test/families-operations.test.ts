@@ -1,7 +1,7 @@
 // Graph operations: blow-up, disjoint union, complement, induced subgraph, random edge
 // deletion — as typed functions and as families on nested specs; canonical forms compared with
 // nauty (genspecialg, complg, labelg) where it has the same construction.
-import { execFileSync, spawnSync } from "node:child_process";
+import { execFileSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { gnp } from "../src/families/gnp.js";
 import { blowUp, blowUpFamily } from "../src/families/operations/blow-up.js";
@@ -20,9 +20,9 @@ import { bipartition, connectedComponents, countTriangles } from "../src/graph/s
 import { Rng } from "../src/random/prng.js";
 import { expectInputError } from "./helpers/errors.js";
 import { genspecialLines, labelgLines } from "./helpers/nauty.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
-const has = (tool: string): boolean => spawnSync("which", [tool]).status === 0;
-const haveNauty = has("nauty-labelg") && has("nauty-genspecialg") && has("nauty-complg");
+const NAUTY = [tool("nauty-labelg"), tool("nauty-genspecialg"), tool("nauty-complg")];
 
 const canonical = (graph6: string): string => labelgLines([graph6.trim()]).join("\n");
 const genspecial = (...args: string[]): string => genspecialLines(args).join("\n");
@@ -38,7 +38,7 @@ const petersenEdges: [number, number][] = [
 const petersen = graphFromEdges(10, petersenEdges);
 
 describe("blow-up", () => {
-  it.skipIf(!haveNauty)("of K2 by t is K_{t,t} (nauty genspecialg -b)", () => {
+  itNeeds(NAUTY, "of K2 by t is K_{t,t} (nauty genspecialg -b)", () => {
     // Outside source: nauty-genspecialg -bt,t builds K_{t,t}; compared by nauty-labelg canonical form.
     for (const t of [1, 2, 3, 5]) {
       const g = blowUp(completeGraph(2), t);
@@ -63,6 +63,7 @@ describe("blow-up", () => {
   });
 
   it("works as a family on nested specs and rejects t < 1", () => {
+    // Input validation, common practice, no source.
     // The examples of the family list: Petersen (10 vertices, 15 edges) blown up by 3.
     const b = family("blow-up:of=[petersen],t=3");
     expect([b.n, b.m]).toEqual([30, 135]);
@@ -94,7 +95,7 @@ describe("complement", () => {
     expect(complement(graphFromEdges(0, [])).n).toBe(0);
   });
 
-  it.skipIf(!haveNauty)("matches nauty-complg, and C5 is self-complementary", () => {
+  itNeeds(NAUTY, "matches nauty-complg, and C5 is self-complementary", () => {
     // Outside source: nauty-complg; C5 ≅ its complement (a standard fact, from memory).
     for (let seed = 0; seed < 10; seed++) {
       const g = gnp(12, 0.4, seed);
@@ -151,6 +152,7 @@ describe("induced subgraph", () => {
   });
 
   it("rejects repeated or out-of-range vertices naming `vertices`", () => {
+    // Input validation, common practice, no source.
     expectInputError(() => inducedSubgraph(petersen, [0, 1, 1]), "`vertices`");
     expectInputError(() => inducedSubgraph(petersen, [0, 10]), "`vertices`");
     expectInputError(() => family("induced-subgraph:of=[complete:n=4],vertices=0+7"), "`vertices`");
@@ -161,6 +163,7 @@ describe("induced subgraph", () => {
 
 describe("random edge deletion", () => {
   it("keeps each edge with probability 1 − p, reproducibly", () => {
+    // Determinism, common practice, no source.
     // Kept edges ~ Binomial(m, 1 − p): within 5σ (binomial mean and variance, standard).
     const g = completeGraph(80);
     const p = 0.3;

@@ -1,7 +1,6 @@
 // G(n, p), G(n, m) and bipartite G(a, b, p): edge-count laws, exact distributions on tiny
 // vertex sets (chi-square), determinism (same seed → same bytes, also in a worker thread) and
 // parameter errors.
-import { existsSync } from "node:fs";
 import { dirname, resolve } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
@@ -14,6 +13,7 @@ import { buildFamily, family, familyWithInfo } from "../src/families/registry.js
 import { Rng } from "../src/random/prng.js";
 import { expectInputError } from "./helpers/errors.js";
 import { chiSquare } from "./helpers/stats.js";
+import { file, itNeeds } from "./helpers/requirements.js";
 
 // Upper 0.1% points of the chi-square distribution with k degrees of freedom: NIST/SEMATECH
 // e-Handbook of Statistical Methods, §1.3.6.7.4 (table of upper critical values of the
@@ -114,6 +114,7 @@ describe("G(n, p)", () => {
   });
 
   it("rejects bad parameters with an InputError naming the parameter", () => {
+    // Input validation, common practice, no source.
     expectInputError(() => gnp(10, 1.5, 0), "`p`");
     expectInputError(() => gnp(10, -0.1, 0), "`p`");
     expectInputError(() => gnp(-1, 0.5, 0), "`n`");
@@ -175,6 +176,7 @@ describe("G(n, m)", () => {
   });
 
   it("rejects m above n(n−1)/2 naming `m`", () => {
+    // Input validation, common practice, no source.
     expectInputError(() => gnm(10, 46, 0), "`m`");
     expectInputError(() => family("gnm:n=10,m=-1"), "`m`");
     expectInputError(() => gnm(50_000_000, 600_000_000, 0), "would not fit in memory");
@@ -226,7 +228,7 @@ const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
 const distRegistry = resolve(root, "dist/families/registry.js");
 
 describe("determinism across threads", () => {
-  it.skipIf(!existsSync(distRegistry))("builds byte-identical graphs in a worker thread and here", async () => {
+  itNeeds([file(distRegistry, "the build in dist/ (npm run build)")], "builds byte-identical graphs in a worker thread and here", async () => {
     // A spec + seed must give the same bytes in every isolate (integer PRNG, no dependence on
     // hash iteration order): common practice, no source.
     const specs = ["gnp:n=500,p=0.02,seed=9", "gnm:n=400,m=3000,seed=4", "gnm:n=40,m=700,seed=4", "bipartite-gnp:a=50,b=60,p=0.1,seed=2"];

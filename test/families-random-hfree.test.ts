@@ -69,6 +69,7 @@ for case in json.load(sys.stdin):
     out.append({"free": free, "maximal": maximal})
 print(json.dumps(out))
 `;
+import { check, itNeeds } from "./helpers/requirements.js";
 
 describe("random H-free process", () => {
   it("gives H-free graphs to which no non-edge can be added (structure checks)", () => {
@@ -88,7 +89,7 @@ describe("random H-free process", () => {
     }
   });
 
-  it.skipIf(python === null)("agrees with networkx: H-free and maximal", () => {
+  itNeeds([check("python3 with networkx (Debian python3-networkx)", () => python !== null)], "agrees with networkx: H-free and maximal", () => {
     // Outside check: networkx's VF2 monomorphism (see NX_SCRIPT).
     const cases: { n: number; edges: [number, number][]; h: HFreePattern }[] = [];
     for (const h of HFREE_PATTERNS) for (let seed = 10; seed < 13; seed++) cases.push({ n: 11, edges: edgesOf(hfreeProcess(11, h, seed)), h });
@@ -133,6 +134,7 @@ describe("random H-free process", () => {
   });
 
   it("declares H in freeOf and rejects unknown patterns, naming the parameter", () => {
+    // Input validation, common practice, no source.
     const info = buildFamily("hfree-process", { n: 10, h: "K2,3", seed: 1 });
     expect(info.graph.n).toBe(10);
     expectInputError(() => family("hfree-process:n=10,h=C6"), "`h`");

@@ -1,7 +1,7 @@
 // Random d-regular graphs: exactly simple and d-regular over many (n, d) and seeds, uniform
 // over labelled graphs for tiny cases (chi-square), isomorphism-type frequencies checked
 // against nauty's list of cubic graphs weighted by automorphism group sizes.
-import { execFileSync, spawnSync } from "node:child_process";
+import { execFileSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { randomRegular, type RegularSampler } from "../src/families/random-regular.js";
 import { family } from "../src/families/registry.js";
@@ -10,9 +10,9 @@ import type { Graph } from "../src/graph/graph.js";
 import { expectInputError } from "./helpers/errors.js";
 import { gengLines, labelgLines } from "./helpers/nauty.js";
 import { chiSquare } from "./helpers/stats.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
-const has = (tool: string): boolean => spawnSync("which", [tool]).status === 0;
-const haveNauty = has("nauty-geng") && has("nauty-labelg") && has("nauty-countg");
+const NAUTY = [tool("nauty-geng"), tool("nauty-labelg"), tool("nauty-countg")];
 
 /** Number of failures of "simple and d-regular": loops, repeats (lists must be strictly increasing), wrong degree. */
 function regularityDefects(g: Graph, d: number): number {
@@ -68,7 +68,7 @@ describe("random regular graphs", () => {
     expect(chiSquare(observed, observed.map(() => S / 70))).toBeLessThan(111.055);
   });
 
-  it.skipIf(!haveNauty)("hits each cubic graph on 8 vertices with frequency 8!/|Aut| / 19355 (and the 4-regular complements)", () => {
+  itNeeds(NAUTY, "hits each cubic graph on 8 vertices with frequency 8!/|Aut| / 19355 (and the 4-regular complements)", () => {
     // The cubic graphs on 8 vertices up to isomorphism: `nauty-geng -d3 -D3 8`; their automorphism
     // group orders: `nauty-countg --a`. A uniform labelled cubic graph has type T with probability
     // (8!/|Aut T|) / L, where L = 19355 is the number of labelled cubic graphs on 8 vertices
@@ -100,7 +100,7 @@ describe("random regular graphs", () => {
     }
   });
 
-  it.skipIf(!haveNauty)("Steger–Wormald reaches every cubic graph type on 8 vertices", () => {
+  itNeeds(NAUTY, "Steger–Wormald reaches every cubic graph type on 8 vertices", () => {
     // Only asymptotically uniform (Steger & Wormald 1999), so only its support is checked here
     // against nauty's list (geng -d3 -D3 8).
     const types = labelgLines(gengLines(["-d3", "-D3", "8"]));
@@ -118,6 +118,7 @@ describe("random regular graphs", () => {
   });
 
   it("rejects odd n·d, d ≥ n and pairing at large degree, naming the parameter", () => {
+    // Input validation, common practice, no source.
     expectInputError(() => randomRegular(7, 3, 0), "`d`");
     expectInputError(() => randomRegular(7, 3, 0), "even");
     expectInputError(() => randomRegular(10, 10, 0), "`d`");

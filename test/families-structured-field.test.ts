@@ -213,6 +213,7 @@ describe("larger fields", () => {
 
 describe("invalid orders", () => {
   it("throw InputError naming the parameter", () => {
+    // Input validation, common practice, no source.
     for (const q of [0, 1, 6, 12, 100, 1.5]) {
       expect(() => finiteField(q)).toThrow(InputError);
       expect(() => finiteField(q)).toThrow(/invalid `q`: should be a prime power/);

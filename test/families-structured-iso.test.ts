@@ -2,7 +2,7 @@
 // genspecialg, networkx's named generators, and independent constructions written here from the
 // definitions. Equality is decided by nauty-labelg's canonical graph6 (same canonical form ⇔ isomorphic).
 import { spawnSync } from "node:child_process";
-import { describe, expect, it } from "vitest";
+import { expect, it } from "vitest";
 import { EdgeBuffer } from "../src/graph/builder.js";
 import { encodeGraph6 } from "../src/graph/formats/graph6.js";
 import type { Graph } from "../src/graph/graph.js";
@@ -23,13 +23,11 @@ import { path } from "../src/families/path.js";
 import { polarity } from "../src/families/polarity.js";
 import { family } from "../src/families/registry.js";
 import { genspecialLines, labelgLines } from "./helpers/nauty.js";
+import { describeNeeds, python, tool } from "./helpers/requirements.js";
 
-function hasTool(name: string): boolean {
-  return spawnSync("which", [name]).status === 0;
-}
 
-const HAVE_NAUTY = hasTool("nauty-labelg") && hasTool("nauty-genspecialg");
-const HAVE_NETWORKX = hasTool("python3") && spawnSync("python3", ["-c", "import networkx"]).status === 0;
+
+const NAUTY = [tool("nauty-labelg"), tool("nauty-genspecialg")];
 
 /** Canonical graph6 of each input line (graph6 or sparse6), via nauty-labelg. */
 function canonical(lines: string[]): string[] {
@@ -50,7 +48,7 @@ function edgeGraph(n: number, adjacent: (u: number, v: number) => boolean): Grap
   return buf.build(n).graph;
 }
 
-describe.skipIf(!HAVE_NAUTY)("against nauty-genspecialg", () => {
+describeNeeds(NAUTY, "against nauty-genspecialg", () => {
   it("hypercube Q_d equals genspecialg -Q d for d = 1..7", () => {
     const ds = [1, 2, 3, 4, 5, 6, 7];
     const theirs = genspecialLines(ds.map((d) => `-Q${d}`));
@@ -130,7 +128,7 @@ function networkx(exprs: string[]): string[] {
   return r.stdout.toString().trim().split("\n");
 }
 
-describe.skipIf(!HAVE_NAUTY || !HAVE_NETWORKX)("against networkx's generators", () => {
+describeNeeds([...NAUTY, python("networkx")], "against networkx's generators", () => {
   it("named graphs: Petersen, dodecahedron, Heawood, Hoffman–Singleton, Chvátal, Grötzsch; Mycielski of a given graph", () => {
     const cases: [string, Graph, string][] = [
       ["petersen", petersen(), "nx.petersen_graph()"],
@@ -169,7 +167,7 @@ describe.skipIf(!HAVE_NAUTY || !HAVE_NETWORKX)("against networkx's generators", 
   });
 });
 
-describe.skipIf(!HAVE_NAUTY)("against constructions written here from the definitions", () => {
+describeNeeds(NAUTY, "against constructions written here from the definitions", () => {
   it("ER_p for primes p: brute force over pairs of normalised vectors, x·y ≡ 0 (mod p)", () => {
     // Definition of the orthogonal-polarity graph (Erdős–Rényi 1962; Brown 1966), integer arithmetic mod p.
     const pairs = [2, 3, 5, 7, 11].map((p) => {

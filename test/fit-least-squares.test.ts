@@ -5,9 +5,9 @@ import { resolve } from "node:path";
 import { describe, expect, it } from "vitest";
 import { leastSquares } from "../src/fit/least-squares.js";
 import { expectInputError } from "./helpers/errors.js";
-import { file, itNeeds } from "./helpers/requirements.js";
+import { file, itNeeds, REFERENCE } from "./helpers/requirements.js";
 
-const NIST = resolve(__dirname, "..", "..", "shared", "reference", "nist-strd");
+const NIST = resolve(REFERENCE, "nist-strd");
 
 const rel = (a: number, b: number): number => Math.abs(a - b) / Math.abs(b);
 

@@ -22,10 +22,10 @@ import {
   writeGraph,
   type ReadOptions,
 } from "../src/graph/formats/index.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
 const tmp = mkdtempSync(join(tmpdir(), "halfplus-formats-errors-"));
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
-const HAS_SHOWG = spawnSync("which", ["nauty-showg"]).status === 0;
 
 /** Write `text` to a temp file, read it through readGraphs, and return the error (or fail). */
 async function errorOf(name: string, text: string, options: ReadOptions = {}): Promise<InputError> {
@@ -48,6 +48,7 @@ describe("graph6 and sparse6 lines", () => {
   // DQc is formats.txt's graph6 example (5 vertices, edges 0-2 0-4 1-3 3-4; from memory);
   // each check below breaks one rule of formats.txt's graph6/sparse6 definitions.
   it("a truncated graph6 line is an error naming file and line, not a smaller graph", async () => {
+    // Input validation, common practice, no source.
     const e = await errorOf("trunc.g6", "DQc\nDQ\nDQc\n");
     expect(e.message.startsWith(at("trunc.g6", 2))).toBe(true);
     expect(e.message).toMatch(/truncated graph6 line: n = 5 needs 2 data characters/);
@@ -91,7 +92,7 @@ describe("graph6 and sparse6 lines", () => {
     expect([g.n, g.m]).toEqual([2, 1]);
   });
 
-  it.skipIf(!HAS_SHOWG)("nauty decodes the hand-made multigraph line to the same loop and edge", () => {
+  itNeeds([tool("nauty-showg")], "nauty decodes the hand-made multigraph line to the same loop and edge", () => {
     // Source: nauty-showg -e lists the (set of) edges nauty reads from the line: "0 0  0 1".
     const r = spawnSync("nauty-showg", ["-q", "-e"], { input: MULTI + "\n" });
     expect(r.status).toBe(0);
@@ -122,6 +123,7 @@ describe("text formats", () => {
   });
 
   it("edge list header: ids beyond n, edge count beyond m, malformed fields, a conflicting base", async () => {
+    // Input validation, common practice, no source.
     expect((await errorOf("h1.edges", "# edgelist n=3\n0 1\n2 3\n")).message).toMatch(/h1\.edges:3: vertex id 3 out of range: the header says n = 3/);
     expect((await errorOf("h2.edges", "# edgelist n=3 m=1\n0 1\n1 2\n")).message).toMatch(/h2\.edges:1: edge-list header says m = 1 but the file has 2/);
     expect((await errorOf("h3.edges", "# edgelist n=x\n")).message).toMatch(/h3\.edges:1: edge-list header: expected n/);
@@ -164,6 +166,7 @@ describe("text formats", () => {
 
 describe("reading files", () => {
   it("readGraphFile wants exactly one graph; a missing file is an InputError", async () => {
+    // Input validation, common practice, no source.
     const two = join(tmp, "two.g6");
     writeFileSync(two, "DQc\nDQc\n");
     await expect(readGraphFile(two)).rejects.toThrow(/two\.g6: holds more than one graph \(the second starts on line 2\)/);
@@ -175,6 +178,7 @@ describe("reading files", () => {
   });
 
   it("invalid reader options are named", async () => {
+    // Input validation, common practice, no source.
     await expect(readGraphFile(join(tmp, "two.g6"), { format: "csv" as never })).rejects.toThrow(/readGraphs: invalid `format`/);
     await expect(readGraphFile(join(tmp, "two.g6"), { base: 2 as never })).rejects.toThrow(/readGraphs: invalid `base`/);
   });

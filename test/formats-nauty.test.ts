@@ -1,7 +1,7 @@
 // graph6/sparse6 against nauty itself: counts of what geng emits, byte-identical round trips
 // with copyg and genspecialg, edge lists from showg, and larger random graphs through both formats.
 
-import { execFileSync, spawn, spawnSync } from "node:child_process";
+import { execFileSync, spawn } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { graphFromEdges } from "../src/graph/builder.js";
 import type { Graph } from "../src/graph/graph.js";
@@ -17,12 +17,6 @@ import {
 import { Rng } from "../src/random/prng.js";
 import { edgeStrings, randomGraph as gnp } from "./helpers/graphs.js";
 
-const has = (tool: string) => spawnSync("which", [tool]).status === 0;
-const GENG = has("nauty-geng");
-const COPYG = has("nauty-copyg");
-const SHOWG = has("nauty-showg");
-const SPECIAL = has("nauty-genspecialg");
-const NETWORKX = has("python3") && spawnSync("python3", ["-c", "import networkx"]).status === 0;
 
 // For each sparse6 line on stdin: networkx's decoding (n, edges) and networkx's own sparse6 of it.
 const NX_SPARSE6 = `
@@ -33,6 +27,7 @@ for line in sys.stdin.read().split():
     s6 = nx.to_sparse6_bytes(g, header=False).decode().strip()
     print(json.dumps({"n": g.number_of_nodes(), "edges": ["%d-%d" % e for e in edges], "s6": s6}))
 `;
+import { itNeeds, python, tool } from "./helpers/requirements.js";
 
 function run(tool: string, args: string[], input?: string): string {
   return execFileSync(tool, args, { input, maxBuffer: 1 << 30, stdio: ["pipe", "pipe", "ignore"] }).toString("latin1");
@@ -72,7 +67,7 @@ describe("N(n), the size field", () => {
     expect(() => encodeGraphSize(2 ** 36)).toThrow(/2\^36/);
   });
 
-  it.skipIf(!SPECIAL)("agrees with genspecialg's empty graphs in all three forms", () => {
+  itNeeds([tool("nauty-genspecialg")], "agrees with genspecialg's empty graphs in all three forms", () => {
     // Source: nauty-genspecialg -e (empty graph), sparse6 output ":" N(n) with no edge bits.
     for (const n of [1, 62, 63, 258047, 258048, 300000]) {
       const out = run("nauty-genspecialg", ["-q", "-s", `-e${n}`]).trimEnd();
@@ -82,19 +77,19 @@ describe("N(n), the size field", () => {
 });
 
 describe("counting what geng emits, read as a stream", () => {
-  it.skipIf(!GENG)("all graphs on n = 1..8 vertices (OEIS A000088)", async () => {
+  itNeeds([tool("nauty-geng")], "all graphs on n = 1..8 vertices (OEIS A000088)", async () => {
     // OEIS A000088: 1, 2, 4, 11, 34, 156, 1044, 12346 for n = 1..8.
     const expected = [1, 2, 4, 11, 34, 156, 1044, 12346];
     for (let n = 1; n <= 8; n++) expect(await countGeng([String(n)])).toBe(expected[n - 1]);
   });
 
-  it.skipIf(!GENG)("connected graphs on 7 and 8 vertices (OEIS A001349)", async () => {
+  itNeeds([tool("nauty-geng")], "connected graphs on 7 and 8 vertices (OEIS A001349)", async () => {
     // OEIS A001349: 853 for n = 7, 11117 for n = 8.
     expect(await countGeng(["-c", "7"])).toBe(853);
     expect(await countGeng(["-c", "8"])).toBe(11117);
   });
 
-  it.skipIf(!GENG)("triangle-free graphs on 7 and 8 vertices (OEIS A006785)", async () => {
+  itNeeds([tool("nauty-geng")], "triangle-free graphs on 7 and 8 vertices (OEIS A006785)", async () => {
     // OEIS A006785: 107 for n = 7, 410 for n = 8.
     expect(await countGeng(["-t", "7"])).toBe(107);
     expect(await countGeng(["-t", "8"])).toBe(410);
@@ -102,14 +97,14 @@ describe("counting what geng emits, read as a stream", () => {
 });
 
 describe("round trips with nauty", () => {
-  it.skipIf(!GENG)("graph6: re-encoding every graph of geng 7 and 8 gives geng's line byte for byte", () => {
+  itNeeds([tool("nauty-geng")], "graph6: re-encoding every graph of geng 7 and 8 gives geng's line byte for byte", () => {
     // Source: nauty-geng output lines (graph6).
     for (const n of ["7", "8"]) {
       for (const line of lines(run("nauty-geng", ["-q", n]))) expect(encodeGraph6(parseGraph6(line))).toBe(line);
     }
   });
 
-  it.skipIf(!GENG || !COPYG)("sparse6: our encoding equals nauty-copyg -s on every graph of geng 7 and 8", () => {
+  itNeeds([tool("nauty-geng"), tool("nauty-copyg")], "sparse6: our encoding equals nauty-copyg -s on every graph of geng 7 and 8", () => {
     // Source: nauty-copyg -s converts graph6 to sparse6; n = 8 = 2^3 exercises the padding special case.
     for (const n of ["7", "8"]) {
       const g6 = run("nauty-geng", ["-q", n]);
@@ -124,7 +119,7 @@ describe("round trips with nauty", () => {
     }
   });
 
-  it.skipIf(!GENG || !SHOWG)("parsed edges agree with nauty-showg -e on a sample", () => {
+  itNeeds([tool("nauty-geng"), tool("nauty-showg")], "parsed edges agree with nauty-showg -e on a sample", () => {
     // Source: nauty-showg -e prints "Graph k, order n." then "n m" then the edge pairs.
     const sample = lines(run("nauty-geng", ["-q", "8"])).filter((_, i) => i % 97 === 0);
     const shown = run("nauty-showg", ["-e"], sample.join("\n") + "\n");
@@ -143,7 +138,7 @@ describe("round trips with nauty", () => {
     });
   });
 
-  it.skipIf(!COPYG)("larger random graphs (n = 63, 64, 65, 258, 300, 1000) round-trip through both formats and copyg", () => {
+  itNeeds([tool("nauty-copyg")], "larger random graphs (n = 63, 64, 65, 258, 300, 1000) round-trip through both formats and copyg", () => {
     // Source: nauty-copyg -s / -g as the reference encoder of each format (4-byte N(n) from n = 63).
     const cases: [number, number][] = [[63, 0.3], [64, 0.5], [65, 0.1], [258, 0.05], [300, 0.02], [1000, 0.003]];
     cases.forEach(([n, p], t) => {
@@ -157,7 +152,7 @@ describe("round trips with nauty", () => {
     });
   });
 
-  it.skipIf(!NETWORKX)("sparse6 with the 8-byte N(n) form (n = 258048) agrees with networkx both ways", () => {
+  itNeeds([python("networkx")], "sparse6 with the 8-byte N(n) form (n = 258048) agrees with networkx both ways", () => {
     // Source: networkx from_sparse6_bytes / to_sparse6_bytes (python3-networkx), an independent
     // implementation of formats.txt. (nauty-copyg needs a dense matrix, far too slow at this n.)
     const ours: Graph[] = [];
@@ -186,7 +181,7 @@ describe("round trips with nauty", () => {
     });
   });
 
-  it.skipIf(!NETWORKX)("networkx's sparse6 (its own padding choice) decodes to the same graphs, n = 2^k included", () => {
+  itNeeds([python("networkx")], "networkx's sparse6 (its own padding choice) decodes to the same graphs, n = 2^k included", () => {
     // Source: networkx to_sparse6_bytes pads with a leading 0 when n = 2^k (formats.txt rule, its variant).
     const ours = [[16, 0.3, 1], [32, 0.2, 2], [64, 0.1, 3], [64, 0.9, 4], [128, 0.05, 5], [2, 1, 6], [4, 0.7, 7]].map(([n, p, s]) => randomGraph(n, p, s));
     const theirs = lines(run("python3", ["-c", NX_SPARSE6], ours.map((g) => encodeSparse6(g)).join("\n") + "\n")).map((l) => JSON.parse(l));
@@ -198,7 +193,7 @@ describe("round trips with nauty", () => {
     });
   });
 
-  it.skipIf(!SPECIAL)("genspecialg's cycles, paths, cubes and complete graphs decode and re-encode exactly", () => {
+  itNeeds([tool("nauty-genspecialg")], "genspecialg's cycles, paths, cubes and complete graphs decode and re-encode exactly", () => {
     // Source: nauty-genspecialg; structure from the definitions (C_n: n edges, 2-regular;
     // P_n: n−1 edges; Q_d: 2^d vertices, d-regular; K_n: n(n−1)/2 edges).
     const cases: [string[], number, number, number][] = [

@@ -2,7 +2,7 @@
 // ambiguous input is refused, and that streams are read lazily and identically whatever the
 // chunking, with each graph's index and line recorded.
 
-import { execFileSync, spawnSync } from "node:child_process";
+import { execFileSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -23,10 +23,8 @@ import {
   type LoadedGraph,
   type ReadOptions,
 } from "../src/graph/formats/index.js";
+import { itNeeds, tool } from "./helpers/requirements.js";
 
-const has = (tool: string) => spawnSync("which", [tool]).status === 0;
-const GENG = has("nauty-geng");
-const COPYG = has("nauty-copyg");
 const tmp = mkdtempSync(join(tmpdir(), "halfplus-formats-read-"));
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
 
@@ -81,6 +79,7 @@ describe("detectFormat", () => {
   });
 
   it("ambiguous or unknown content is an error asking for a format, never a guess", () => {
+    // Input validation, common practice, no source.
     // "5 0" alone: a gset header of 5 isolated vertices, or a one-edge edge list {0, 5}.
     expect(() => detectFormat("x.txt", "5 0\n")).toThrow(/x\.txt: a single line "a b" could be a gset header/);
     expect(() => detectFormat("x.txt", "5 0\n1 2 3 4\n")).toThrow(/cannot tell the format: line 1 has 2 columns and line 2 has 4/);
@@ -89,7 +88,7 @@ describe("detectFormat", () => {
     expect(() => detectFormat("x.txt", "  \n")).toThrow(/empty input/);
   });
 
-  it.skipIf(!GENG || !COPYG)("detects what nauty writes", () => {
+  itNeeds([tool("nauty-geng"), tool("nauty-copyg")], "detects what nauty writes", () => {
     // Source: nauty-geng (graph6) and nauty-copyg -s (sparse6) output.
     const g6 = execFileSync("nauty-geng", ["-q", "5"]).toString();
     expect(detectFormat("stdin", g6)).toBe("graph6");
@@ -98,7 +97,7 @@ describe("detectFormat", () => {
 });
 
 describe("readGraphs", () => {
-  it.skipIf(!GENG)("gives the same graphs, positions and lines however the stream is chunked", async () => {
+  itNeeds([tool("nauty-geng")], "gives the same graphs, positions and lines however the stream is chunked", async () => {
     // Source: nauty-geng 6 writes the 156 graphs on 6 vertices (OEIS A000088), one per line.
     const text = execFileSync("nauty-geng", ["-q", "6"]).toString("latin1");
     const lines = text.trim().split("\n");
@@ -170,6 +169,7 @@ describe("readGraphs", () => {
   });
 
   it("an empty stream holds no graphs; the build report travels with each graph", async () => {
+    // Record plumbing, common practice, no source.
     expect(await collect({ stream: chunked("", 1), name: "stdin" })).toEqual([]);
     expect(await collect({ stream: chunked("\n\n", 1), name: "stdin" })).toEqual([]);
     const got = await collect({ stream: chunked("0 1\n1 0\n2 2\n", 2), name: "stdin" }, { build: { duplicates: "merge", loops: "drop" } });
@@ -178,6 +178,7 @@ describe("readGraphs", () => {
   });
 
   it("stops cleanly when the consumer stops early", async () => {
+    // Record plumbing, common practice, no source.
     const path = join(tmp, "many.g6");
     writeFileSync(path, "DQc\n".repeat(10000));
     let seen = 0;

@@ -2,11 +2,10 @@
 // benchmark files in ../shared/reference, networkx's edge lists, nauty's DIMACS converter, and
 // ECMAScript's own decimal conversion for weights.
 
-import { execFileSync, spawnSync } from "node:child_process";
-import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { execFileSync } from "node:child_process";
+import { mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
-import { dirname, join, resolve } from "node:path";
-import { fileURLToPath } from "node:url";
+import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { graphFromEdges } from "../src/graph/builder.js";
 import type { Graph } from "../src/graph/graph.js";
@@ -24,12 +23,7 @@ import {
 import { Rng } from "../src/random/prng.js";
 import { edgeStrings, randomGraph as gnp } from "./helpers/graphs.js";
 
-const here = dirname(fileURLToPath(import.meta.url));
-const GSET = resolve(here, "..", "..", "shared", "reference", "gset");
-const HAS_GSET = existsSync(GSET);
-const has = (tool: string) => spawnSync("which", [tool]).status === 0;
-const NETWORKX = has("python3") && spawnSync("python3", ["-c", "import networkx"]).status === 0;
-const DIMACS2G = has("nauty-dimacs2g");
+const GSET = join(REFERENCE, "gset");
 
 const tmp = mkdtempSync(join(tmpdir(), "halfplus-formats-text-"));
 afterAll(() => rmSync(tmp, { recursive: true, force: true }));
@@ -46,7 +40,7 @@ function splitReadGset(text: string) {
 }
 
 describe("the Max-Cut benchmark files (../shared/reference/gset)", () => {
-  it.skipIf(!HAS_GSET)("G22: n = 2000, m = 19990 and the weight total of the file's third column", async () => {
+  itNeeds([file(GSET, "the benchmark graphs in ../shared/reference/gset")], "G22: n = 2000, m = 19990 and the weight total of the file's third column", async () => {
     // Source: the G22 file itself (first line "2000 19990"), read here by a split-based reader.
     const path = join(GSET, "G22.txt");
     const ref = splitReadGset(readFileSync(path, "utf8"));
@@ -59,7 +53,7 @@ describe("the Max-Cut benchmark files (../shared/reference/gset)", () => {
     expect(graph.totalWeight).toBe(ref.total);
   });
 
-  it.skipIf(!HAS_GSET)("every G*.txt file: each edge and weight as the split reader sees it (CRLF and ±1 weights included)", async () => {
+  itNeeds([file(GSET, "the benchmark graphs in ../shared/reference/gset")], "every G*.txt file: each edge and weight as the split reader sees it (CRLF and ±1 weights included)", async () => {
     // Source: the reference files; G11 has weights ±1 (README), others weight 1.
     const files = readdirSync(GSET).filter((f) => /^G\d+\.txt$/.test(f));
     expect(files.length).toBeGreaterThan(0);
@@ -104,9 +98,10 @@ for seed in range(6):
     out.append({"base": base, "text": text, "g6": nx.to_graph6_bytes(g, header=False).decode().strip(), "weights": weights})
 print(json.dumps(out))
 `;
+import { file, itNeeds, python, tool, REFERENCE } from "./helpers/requirements.js";
 
 describe("edge lists", () => {
-  it.skipIf(!NETWORKX)("read networkx's weighted edge lists (0- and 1-based) as the same graphs and exact weights", () => {
+  itNeeds([python("networkx")], "read networkx's weighted edge lists (0- and 1-based) as the same graphs and exact weights", () => {
     // Source: networkx generate_edgelist(data=["weight"]) and to_graph6_bytes (python3-networkx);
     // weights are Python reprs, which round-trip doubles exactly.
     const cases = JSON.parse(execFileSync("python3", ["-c", NX_EDGELISTS]).toString()) as {
@@ -198,7 +193,7 @@ describe("gset", () => {
 });
 
 describe("DIMACS", () => {
-  it.skipIf(!DIMACS2G)("reads what nauty-dimacs2g reads, and nauty reads what we write", () => {
+  itNeeds([tool("nauty-dimacs2g")], "reads what nauty-dimacs2g reads, and nauty reads what we write", () => {
     // Source: nauty-dimacs2g converts DIMACS edge files to sparse6.
     const files: [string, string][] = [
       ["hand.dimacs", "c a comment\nc another\np edge 6 5\ne 1 2\ne 2 3\nc mid-file comment\ne 6 1\ne 4 5\ne 3 6\n"],

@@ -9,7 +9,7 @@ import { ROOT } from "./helpers/cli.js";
 
 /** Layers from the bottom up: [rank, folder group, path test]. Same rank, different group = siblings. */
 const LAYERS: readonly [number, string, (p: string) => boolean][] = [
-  [0, "base", (p) => p === "src/errors.ts" || p === "src/validate.ts" || p.startsWith("src/random/")],
+  [0, "base", (p) => p === "src/errors.ts" || p === "src/validate.ts" || p === "src/decimal.ts" || p.startsWith("src/random/") || p.startsWith("src/limits/")],
   [1, "graph", (p) => /^src\/graph\/[^/]+\.ts$/.test(p)],
   [2, "graph/formats", (p) => p.startsWith("src/graph/formats/")],
   [3, "graph/record", (p) => p.startsWith("src/graph/record/")],

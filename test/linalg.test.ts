@@ -17,10 +17,9 @@ import {
 } from "../src/linalg/operator.js";
 import { roundoffGamma, nextUp, UNIT_ROUNDOFF } from "../src/linalg/float-rounding.js";
 import { Rng } from "../src/random/prng.js";
-import { hasTool } from "./helpers/cli.js";
 import { randomGraph as gnp } from "./helpers/graphs.js";
+import { itNeeds, python } from "./helpers/requirements.js";
 
-const hasNumpy = hasTool("python3") && spawnSync("python3", ["-c", "import numpy"]).status === 0;
 
 function randomSymmetric(n: number, rng: Rng): Float64Array {
   const a = new Float64Array(n * n);
@@ -112,6 +111,7 @@ describe("Lanczos", () => {
   });
 
   it("is reproducible from its seed and validates its options", () => {
+    // Input validation, common practice, no source.
     const g = randomGraph(100, 0.1, new Rng(4), "none");
     const a = lanczosExtreme(laplacianOperator(g), { solverSeed: 9, denseBelow: 0 });
     const b = lanczosExtreme(laplacianOperator(g), { solverSeed: 9, denseBelow: 0 });
@@ -123,7 +123,7 @@ describe("Lanczos", () => {
     expect(() => lanczosExtreme(laplacianOperator(g), { maxMemoryBytes: 1000 })).toThrow(/maxMemoryBytes/);
   });
 
-  it.skipIf(!hasNumpy)("matches numpy.linalg.eigvalsh (LAPACK) on a random weighted Laplacian", () => {
+  itNeeds([python("numpy")], "matches numpy.linalg.eigvalsh (LAPACK) on a random weighted Laplacian", () => {
     const g = randomGraph(200, 0.05, new Rng(21), "real");
     const a = operatorToDense(laplacianOperator(g));
     const script = "import sys, json, numpy as np\nd = json.load(sys.stdin)\nA = np.array(d['a']).reshape(d['n'], d['n'])\nw = np.linalg.eigvalsh(A)\nprint(json.dumps([w[0], w[1], w[-2], w[-1]]))";

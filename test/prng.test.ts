@@ -4,6 +4,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { Rng } from "../src/random/prng.js";
+import { check, itNeeds } from "./helpers/requirements.js";
 
 // Source: the xoshiro128** reference C code published by Blackman & Vigna (2018), public
 // domain; retyped here from the paper's algorithm and compiled with the system C compiler.
@@ -35,7 +36,7 @@ function hasCompiler(): boolean {
 }
 
 describe("xoshiro128**", () => {
-  it.skipIf(!hasCompiler())("matches the reference C implementation for 1000 outputs", () => {
+  itNeeds([check("a C compiler, cc (gcc)", hasCompiler)], "matches the reference C implementation for 1000 outputs", () => {
     const dir = mkdtempSync(join(tmpdir(), "halfplus-prng-"));
     writeFileSync(join(dir, "x.c"), REFERENCE_C);
     execFileSync("cc", ["-O1", "-o", join(dir, "x"), join(dir, "x.c")]);
@@ -46,6 +47,7 @@ describe("xoshiro128**", () => {
   });
 
   it("is reproducible from a seed and differs across seeds and streams", () => {
+    // Determinism, common practice, no source.
     const a = new Rng(42), b = new Rng(42), c = new Rng(43), d = new Rng(42, 1);
     const xs = Array.from({ length: 8 }, () => a.nextU32());
     expect(Array.from({ length: 8 }, () => b.nextU32())).toEqual(xs);
@@ -77,6 +79,7 @@ describe("xoshiro128**", () => {
   });
 
   it("rejects bad seeds with a message naming the seed", () => {
+    // Input validation, common practice, no source.
     expect(() => new Rng(-1)).toThrow(/seed/);
     expect(() => new Rng(1.5)).toThrow(/seed/);
   });

@@ -4,10 +4,9 @@ import { spawnSync } from "node:child_process";
 import { describe, expect, it } from "vitest";
 import { graphFromEdges } from "../src/graph/builder.js";
 import { extremeEigenvalues } from "../src/linalg/spectrum.js";
-import { hasTool } from "./helpers/cli.js";
 import { complete, cycle, petersen, randomBipartite, randomGraph } from "./helpers/graphs.js";
+import { describeNeeds, python } from "./helpers/requirements.js";
 
-const hasNetworkx = hasTool("python3") && spawnSync("python3", ["-c", "import networkx, numpy, scipy"]).status === 0;
 
 describe("extremeEigenvalues: standard spectra", () => {
   it("K_n adjacency: n − 1 once and −1 (Brouwer & Haemers, Spectra of Graphs, §1.4.1)", () => {
@@ -82,7 +81,7 @@ describe("options", () => {
   });
 });
 
-describe.skipIf(!hasNetworkx)("against networkx", () => {
+describeNeeds([python("networkx"), python("numpy"), python("scipy")], "against networkx", () => {
   it("Laplacian and adjacency extremes of G(420, 0.03) match nx.laplacian_spectrum / eigvalsh of nx.to_numpy_array", () => {
     const g = randomGraph(420, 0.03, 5);
     const edges: [number, number][] = [];

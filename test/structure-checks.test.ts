@@ -504,6 +504,7 @@ describe("weighted graphs, patterns and input errors", () => {
     }
   });
   it("rejects out-of-range parameters, naming them", () => {
+    // Input validation, common practice, no source.
     const g = petersen();
     expect(() => findClique(g, 0)).toThrow(/`r`/);
     expect(() => findCycle(g, 2)).toThrow(/`k`/);

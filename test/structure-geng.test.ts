@@ -1,7 +1,6 @@
 // Every graph on n ≤ 8 vertices, classified against nauty's geng filters: the lines of
 // `geng -t/-f/-tf/-k/-b/-c/-d2 n` must be exactly the lines of `geng n` that we accept.
-import { execFileSync } from "node:child_process";
-import { describe, expect, it } from "vitest";
+import { expect, it } from "vitest";
 import type { Graph } from "../src/graph/graph.js";
 import { parseGraph6 } from "../src/graph/formats/graph6.js";
 import {
@@ -17,17 +16,9 @@ import {
   patternGraph,
 } from "../src/graph/structure/index.js";
 import { gengLines } from "./helpers/nauty.js";
+import { describeNeeds, tool } from "./helpers/requirements.js";
 
-function has(tool: string): boolean {
-  try {
-    execFileSync("which", [tool], { stdio: "ignore" });
-    return true;
-  } catch {
-    return false;
-  }
-}
 const GENG = "nauty-geng";
-const haveGeng = has(GENG);
 
 const geng = (flags: string[], n: number): string[] => gengLines([...flags, String(n)]);
 
@@ -41,7 +32,7 @@ interface Classified {
   minDegree: number;
 }
 
-describe.skipIf(!haveGeng)("all graphs on n ≤ 8 vertices vs nauty-geng filters", () => {
+describeNeeds([tool(GENG)], "all graphs on n ≤ 8 vertices vs nauty-geng filters", () => {
   // Source: nauty-geng (Debian nauty) options -t, -f, -k, -b, -c, -d# as documented by `geng -help`.
   // geng's filtered output uses the same labelling as its unfiltered output, so the sets compare line by line.
   const K3 = patternGraph("K3"), C4 = patternGraph("C4"), K4 = patternGraph("K4");

@@ -1,7 +1,8 @@
 // A small declarative option parser: each command lists its options once, and the same
 // list drives parsing, validation (one-line errors naming the option) and `--help` text.
 
-import { InputError } from "../errors.js";
+import { InputError, echo } from "../errors.js";
+import { parseDecimal } from "../decimal.js";
 
 export type OptionType = "boolean" | "string" | "number" | "integer";
 
@@ -56,9 +57,10 @@ function parseValue(spec: OptionSpec, raw: string): string | number {
     }
     return raw;
   }
-  const x = Number(raw);
-  if (raw.trim() === "" || !Number.isFinite(x)) {
-    throw new InputError(`--${spec.name} must be a number (got ${JSON.stringify(raw)})`);
+  // Decimal notation only, the same rule as spec strings: "0x10", " 5" and "Infinity" are refused.
+  const x = parseDecimal(raw);
+  if (!Number.isFinite(x)) {
+    throw new InputError(`--${spec.name} must be a decimal number (got ${echo(raw)})`);
   }
   if (spec.type === "integer" && !Number.isInteger(x)) {
     throw new InputError(`--${spec.name} must be an integer (got ${JSON.stringify(raw)})`);

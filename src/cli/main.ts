@@ -3,7 +3,7 @@
 // User mistakes (InputError) print one line and exit 2; anything else is a bug and
 // prints its stack.
 
-import { isInputError } from "../errors.js";
+import { echo, isInputError, oneLine } from "../errors.js";
 import { commandHelp, parseArgs, type CommandIO, type CommandSpec } from "./args.js";
 import { COMMANDS } from "./commands/index.js";
 
@@ -40,7 +40,7 @@ export async function runCli(argv: readonly string[], io: CommandIO): Promise<nu
   }
   const cmd: CommandSpec | undefined = COMMANDS.find((c) => c.name === name);
   if (cmd === undefined) {
-    io.stderr.write(`halfplus: unknown command ${JSON.stringify(name)} (run halfplus --help)\n`);
+    io.stderr.write(`halfplus: unknown command ${oneLine(echo(name))} (run halfplus --help)\n`);
     return 2;
   }
   if (rest.includes("--help") || rest.includes("-h")) {
@@ -51,7 +51,7 @@ export async function runCli(argv: readonly string[], io: CommandIO): Promise<nu
     return await cmd.run(parseArgs(cmd, rest), io);
   } catch (e) {
     if (isInputError(e)) {
-      io.stderr.write(`halfplus ${cmd.name}: ${e.message}\n`);
+      io.stderr.write(`halfplus ${cmd.name}: ${oneLine(e.message)}\n`);
       return 2;
     }
     throw e;
@@ -75,6 +75,8 @@ if (isMain) {
   runCli(process.argv.slice(2), { stdout: process.stdout, stderr: process.stderr, stdin: process.stdin }).then(
     (code) => {
       process.exitCode = code;
+      // Stopped by a signal: leave now, whatever else (a half-read stdin) still holds the event loop.
+      if (code === 130 || code === 143) process.exit(code);
     },
     (e: unknown) => {
       process.stderr.write(`halfplus: internal error: ${e instanceof Error ? (e.stack ?? e.message) : String(e)}\n`);

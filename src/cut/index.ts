@@ -1,6 +1,7 @@
 // Max cut, one sub-folder per job: exact search, heuristic search, the relaxation and its
 // certificates, and the bracket that combines them into one checkable record.
 export * from "./types.js";
+export * from "./positive-weights.js";
 export * from "./exact/index.js";
 export * from "./heuristic/index.js";
 export * from "./relaxation/index.js";

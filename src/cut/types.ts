@@ -9,10 +9,11 @@ import type { Graph } from "../graph/graph.js";
 /**
  * Why a method stopped. optimal: proven optimum. converged: an iterative method met its
  * tolerance. completed: it did the fixed amount of work asked for (all rounding trials), with no
- * optimality claim. time-limit: its wall-clock budget ran out. iteration-limit: its count of
- * iterations (restarts, rounds, sweeps) ran out.
+ * optimality claim. time-limit: its wall-clock budget (`seconds`) ran out. iteration-limit: its
+ * count of iterations (restarts, rounds, sweeps) ran out. work-limit: its deterministic work
+ * budget (`work`, e.g. an exact search's nodes) ran out.
  */
-export type SolverStatus = "optimal" | "converged" | "completed" | "time-limit" | "iteration-limit";
+export type SolverStatus = "optimal" | "converged" | "completed" | "time-limit" | "iteration-limit" | "work-limit";
 
 /** A cut found by some method: the value is `cutValue(graph, partition)`. */
 export interface CutRecord {

@@ -215,7 +215,7 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
   // The record's `budget` field comes with work budgets; read defensively so the row schema is ready for it.
   const future = rec as unknown as { budget?: { governing?: string; workUsed?: number | null } };
   let sdpUpper: number | null = null;
-  for (const r of rec.runs) if (r.method === "sdp-dual" && r.role === "upper" && Number.isFinite(r.value)) sdpUpper = r.value;
+  for (const r of rec.runs) if (r.method === "sdp-certified" && r.role === "upper" && Number.isFinite(r.value)) sdpUpper = r.value;
   const file = job.graph.kind === "parts" ? job.graph.source : null;
 
   const v = new Array<CellValue>(COLUMNS.length).fill(null);

@@ -3,6 +3,7 @@
 
 import { InputError } from "../errors.js";
 import { MAX_VERTICES } from "../graph/builder.js";
+import { checkMemory, graphBuildBytes } from "../limits/memory.js";
 
 /**
  * Above this many edges building would need more than about 14 GB (two Int32 endpoint arrays,
@@ -21,4 +22,6 @@ export function checkEdgeLimit(owner: string, m: number, n = 0): void {
   if (n > MAX_FAMILY_VERTICES) {
     throw new InputError(`${owner}: about ${n.toExponential(2)} vertices would not fit in memory (limit ${MAX_FAMILY_VERTICES.toExponential(0)})`);
   }
+  // Generators gather edges in a growing buffer (up to twice the edges) before the builder runs.
+  checkMemory(graphBuildBytes(n, m, false) + 16 * m, owner);
 }

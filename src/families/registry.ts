@@ -1,7 +1,7 @@
 // The family registry: looks a spec up (aliases included), validates it, guards memory, and builds
 // the graph with a PRNG seeded from the spec. `family("kneser:n=8,k=3")` is the one entry point.
 
-import { InputError } from "../errors.js";
+import { InputError, echo } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { Rng } from "../random/prng.js";
 import { OPERATION_FAMILIES } from "./catalog-operations.js";
@@ -37,14 +37,35 @@ export function renamedFamily(name: string): string | undefined {
   return Object.prototype.hasOwnProperty.call(RETIRED_NAMES, name) ? RETIRED_NAMES[name] : undefined;
 }
 
-/** Predicted size of a spec without building it (operations ask this of their nested specs). */
-export function predictedSizeOf(spec: string): PredictedSize {
-  const raw = parseRawSpec(spec);
-  const def = lookup(raw.name);
-  return def.predictedSize(resolveParams(def, raw.values).params, SIZES);
+/**
+ * One resolution of a spec and everything nested in it: each nested spec is parsed and sized once
+ * (re-parsing at every level made deep nesting cubic in the depth).
+ */
+interface Resolution {
+  sizes: Map<string, PredictedSize>;
+  context: SizeContext;
 }
 
-const SIZES: SizeContext = { predictedSizeOf };
+function newResolution(): Resolution {
+  const res: Resolution = { sizes: new Map(), context: { predictedSizeOf: (spec) => predictedSizeIn(spec, res) } };
+  return res;
+}
+
+function predictedSizeIn(spec: string, res: Resolution): PredictedSize {
+  let size = res.sizes.get(spec);
+  if (size === undefined) {
+    const raw = parseRawSpec(spec);
+    const def = lookup(raw.name);
+    size = def.predictedSize(resolveParams(def, raw.values).params, res.context);
+    res.sizes.set(spec, size);
+  }
+  return size;
+}
+
+/** Predicted size of a spec without building it (operations ask this of their nested specs). */
+export function predictedSizeOf(spec: string): PredictedSize {
+  return predictedSizeIn(spec, newResolution());
+}
 
 /** Every family, each once, in catalogue order. */
 export function listFamilies(): readonly FamilyDefinition[] {
@@ -61,37 +82,41 @@ function lookup(name: string): FamilyDefinition {
   if (def === undefined) {
     const now = renamedFamily(name);
     throw new InputError(
-      now === undefined ? `unknown family ${JSON.stringify(name)} (run halfplus families for the list)` : `unknown family ${JSON.stringify(name)}: it is now called ${now}`,
+      now === undefined ? `unknown family ${echo(name)} (run halfplus families for the list)` : `unknown family ${echo(name)}: it is now called ${now}`,
     );
   }
   return def;
 }
 
-function buildResolved(def: FamilyDefinition, params: Params, defaulted: string[], usedName: string): FamilyGraph {
-  const size = def.predictedSize(params, SIZES);
+function buildResolved(def: FamilyDefinition, params: Params, defaulted: string[], usedName: string, res: Resolution): FamilyGraph {
+  const size = def.predictedSize(params, res.context);
   const spec = formatSpec(def, params);
   checkEdgeLimit(spec, size.m, size.n);
   const graphSeed = def.random ? (params.seed as number) : null;
   const notes: string[] = [];
   if (usedName !== def.name) notes.push(`${usedName} is another name for ${def.name}`);
   if (def.random && defaulted.includes("seed")) notes.push("no seed given: using graph seed 0");
-  const graph = def.build(params, { rng: new Rng(graphSeed ?? 0), resolve: family, note: (msg) => notes.push(msg) });
+  const graph = def.build(params, { rng: new Rng(graphSeed ?? 0), resolve: (nested) => familyIn(nested, res).graph, note: (msg) => notes.push(msg) });
   return { graph, spec, family: def.name, params, graphSeed, notes };
+}
+
+function familyIn(spec: string, res: Resolution): FamilyGraph {
+  const raw = parseRawSpec(spec);
+  const def = lookup(raw.name);
+  const { params, defaulted } = resolveParams(def, raw.values);
+  return buildResolved(def, params, defaulted, raw.name, res);
 }
 
 /** Build a family graph from a spec string, with its canonical spec and notes. */
 export function familyWithInfo(spec: string): FamilyGraph {
-  const raw = parseRawSpec(spec);
-  const def = lookup(raw.name);
-  const { params, defaulted } = resolveParams(def, raw.values);
-  return buildResolved(def, params, defaulted, raw.name);
+  return familyIn(spec, newResolution());
 }
 
 /** Build a family graph from parameters by name, e.g. `buildFamily("kneser", { n: 8, k: 3 })`. */
 export function buildFamily(name: string, params: Params = {}): FamilyGraph {
   const def = lookup(name);
   const r = resolveParams(def, params);
-  return buildResolved(def, r.params, r.defaulted, name);
+  return buildResolved(def, r.params, r.defaulted, name, newResolution());
 }
 
 /** Just the graph: `family("polarity:q=7")`. */

@@ -1,7 +1,8 @@
 // Family spec strings: `name` or `name:key=value,key=value`. The same string is accepted by
 // the CLI, `family()`, sweep plans and stored results, so parsing lives only here.
 
-import { InputError, invalidParameter } from "../errors.js";
+import { InputError, echo, invalidParameter } from "../errors.js";
+import { parseDecimal } from "../decimal.js";
 import { MAX_SEED } from "../random/seed.js";
 import type { FamilyDefinition, ParamSpec, ParamValue, Params } from "./types.js";
 
@@ -11,7 +12,6 @@ export interface RawSpec {
 }
 
 const NAME_RE = /^[a-z][a-z0-9-]*$/;
-const DECIMAL_RE = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
 /** Does this look like a family spec (as opposed to a file path)? */
 export function looksLikeSpec(s: string): boolean {
@@ -30,13 +30,13 @@ export function splitTopLevel(whole: string, body: string, sep: string): string[
     if (c === "[") depth++;
     else if (c === "]") {
       depth--;
-      if (depth < 0) throw new InputError(`family spec ${JSON.stringify(whole)}: unmatched ]`);
+      if (depth < 0) throw new InputError(`family spec ${echo(whole)}: unmatched ]`);
     } else if (c === sep && depth === 0) {
       parts.push(body.slice(start, i));
       start = i + 1;
     }
   }
-  if (depth !== 0) throw new InputError(`family spec ${JSON.stringify(whole)}: unmatched [`);
+  if (depth !== 0) throw new InputError(`family spec ${echo(whole)}: unmatched [`);
   parts.push(body.slice(start));
   return parts;
 }
@@ -48,10 +48,26 @@ function unbracket(owner: string, name: string, item: string): string {
   return t.slice(1, -1);
 }
 
+/** Deepest nesting of bracketed specs (`complement:of=[blowup:of=[...],t=2]`): each level builds a graph. */
+export const MAX_SPEC_DEPTH = 32;
+
+/** Refuse specs nested deeper than MAX_SPEC_DEPTH, in one pass, before any level is parsed. */
+function checkDepth(spec: string): void {
+  let depth = 0;
+  for (let i = 0; i < spec.length; i++) {
+    const c = spec.charCodeAt(i);
+    if (c === 91 && ++depth > MAX_SPEC_DEPTH) {
+      throw new InputError(`family spec ${echo(spec)}: nested more than ${MAX_SPEC_DEPTH} levels deep (at most ${MAX_SPEC_DEPTH} levels of [...] are supported)`);
+    } else if (c === 93) depth--;
+  }
+}
+
 export function parseRawSpec(spec: string): RawSpec {
+  if (typeof spec !== "string") throw new InputError(`family spec should be a string (got ${echo(spec)})`);
+  checkDepth(spec);
   const colon = spec.indexOf(":");
   const name = (colon < 0 ? spec : spec.slice(0, colon)).trim();
-  if (!NAME_RE.test(name)) throw new InputError(`family spec ${JSON.stringify(spec)}: bad family name ${JSON.stringify(name)}`);
+  if (!NAME_RE.test(name)) throw new InputError(`family spec ${echo(spec)}: bad family name ${echo(name)}`);
   const values = new Map<string, string>();
   if (colon >= 0) {
     const body = spec.slice(colon + 1);
@@ -66,9 +82,9 @@ export function parseRawSpec(spec: string): RawSpec {
         values.set(last, `${values.get(last)},${part.trim()}`);
         continue;
       }
-      if (eq <= 0) throw new InputError(`family spec ${JSON.stringify(spec)}: expected key=value, got ${JSON.stringify(part)}`);
+      if (eq <= 0) throw new InputError(`family spec ${echo(spec)}: expected key=value, got ${echo(part)}`);
       const key = part.slice(0, eq).trim();
-      if (values.has(key)) throw new InputError(`family spec ${JSON.stringify(spec)}: parameter \`${key}\` given twice`);
+      if (values.has(key)) throw new InputError(`family spec ${echo(spec)}: parameter \`${key}\` given twice`);
       values.set(key, part.slice(eq + 1).trim());
       last = key;
     }
@@ -91,16 +107,17 @@ function convert(owner: string, p: ParamSpec, raw: string): ParamValue {
       return splitTopLevel(raw, raw, "+").map((x) => unbracket(owner, p.name, x));
     case "integer-list": {
       const items = raw.split(/[+;]/).filter((x) => x !== "");
-      const out = items.map((x) => Number(x));
+      const out = items.map((x) => parseDecimal(x));
       if (out.length === 0 || out.some((x) => !Number.isInteger(x))) {
         throw invalidParameter(owner, p.name, "should be integers separated by +", raw);
       }
       return out;
     }
     default: {
-      // Plain decimal notation only: Number() would also take "0x3" or "" without a word.
-      if (!DECIMAL_RE.test(raw)) throw invalidParameter(owner, p.name, "should be a number", raw);
-      return Number(raw);
+      // Plain decimal notation only (src/decimal.ts): Number() would also take "0x3" or "" without a word.
+      const x = parseDecimal(raw);
+      if (Number.isNaN(x)) throw invalidParameter(owner, p.name, "should be a number", raw);
+      return x;
     }
   }
 }

@@ -3,10 +3,17 @@
 // Every parser and generator goes through here, so validation lives in one place.
 
 import { InputError } from "../errors.js";
+import { checkMemory, graphBuildBytes } from "../limits/memory.js";
 import { Graph } from "./graph.js";
 
 /** Largest vertex count a Graph may have: per-vertex Int32 arrays stay well under a few GB. */
 export const MAX_VERTICES = 100_000_000;
+
+/**
+ * Largest |weight| accepted: totals, squares in the eigensolvers and dual certificates stay far
+ * inside the double range (weights near 1e308 made totals overflow to Infinity).
+ */
+export const MAX_EDGE_WEIGHT = 1e100;
 
 export interface BuildOptions {
   /** What to do with a repeated edge: "error" (default) or "merge" (weights add up; unweighted keeps one copy). */
@@ -66,6 +73,7 @@ export function buildGraph(
     throw new InputError(`edge arrays differ in length (${us.length}, ${vs.length}${weights ? `, ${weights.length}` : ""})`);
   }
   if (2 * count > 0x7fffffff) throw new InputError(`too many edges (${count}): at most 2^30 fit in a CSR graph`);
+  checkMemory(graphBuildBytes(n, count, weights !== null), `a graph with n = ${n} vertices and m = ${count} edges`);
 
   // Pass 1: validate and count degrees. `keep` marks dropped loops only when needed.
   const deg = new Int32Array(n + 1);
@@ -80,8 +88,8 @@ export function buildGraph(
     if (u < 0 || u >= n || v < 0 || v >= n) {
       throw new GraphBuildError(`${describe(e)}: vertex id out of range (got ${u}, ${v}; graph has ${n} vertices)`, e);
     }
-    if (weights !== null && !Number.isFinite(weights[e])) {
-      throw new GraphBuildError(`${describe(e)}: weight must be a finite number (got ${fmtId(weights[e])})`, e);
+    if (weights !== null && !(Math.abs(weights[e]) <= MAX_EDGE_WEIGHT)) {
+      throw new GraphBuildError(`${describe(e)}: weight must be a finite number of magnitude at most ${MAX_EDGE_WEIGHT} (got ${fmtId(weights[e])})`, e);
     }
     if (u === v) {
       if (loops === "error") throw new GraphBuildError(`${describe(e)}: self-loop at vertex ${u}`, e);

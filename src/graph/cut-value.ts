@@ -39,10 +39,12 @@ export function surplusOf(graph: Graph, cut: number): number {
 }
 
 /**
- * An upper bound on the max cut of a graph with integer weights, rounded down to the integer
- * below: every cut value is then an integer. The 1e-9 absorbs a bound computed in floating point
- * that lands a hair above an integer it equals. Callers decide integrality (`hasIntegerWeights`).
+ * An upper bound on the max cut of a graph with exact integer weights, rounded down to the integer
+ * below: every cut value is then an integer. The bound must be proven as computed (every bound in
+ * halfplus is rounded up past its own rounding), so the plain floor is sound; a tolerance here
+ * would let a bound a hair below an integer round up past a cut it does not prove. Callers decide
+ * integrality (`hasIntegerWeights`).
  */
 export function floorCutBound(bound: number): number {
-  return Math.floor(bound + 1e-9);
+  return Math.floor(bound);
 }

@@ -4,7 +4,7 @@
 // family; anything else is an error naming the argument. Each graph comes with its GraphSource.
 
 import { existsSync, fstatSync, statSync } from "node:fs";
-import { InputError } from "../errors.js";
+import { InputError, echo } from "../errors.js";
 import type { BuildOptions } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { exactlyOneGraph, readGraphs, type GraphFormat } from "../graph/formats/index.js";
@@ -45,7 +45,7 @@ function classify(arg: string): Kind {
     const { name } = parseRawSpec(arg);
     if (getFamily(name) !== undefined) return "family";
     const now = renamedFamily(name);
-    throw new InputError(`${arg}: no such file, and no family called ${JSON.stringify(name)} (${now === undefined ? "run halfplus families" : `it is now called ${now}`})`);
+    throw new InputError(`${echo(arg)}: no such file, and no family called ${echo(name)} (${now === undefined ? "run halfplus families" : `it is now called ${now}`})`);
   }
   throw new InputError(`${arg}: no such file`);
 }

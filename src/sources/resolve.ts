@@ -2,6 +2,7 @@
 // family spec, else the file and position. A resolver reads each file once, however many records
 // point into it (a results file of a whole graph6 stream re-reads nothing).
 
+import { statSync } from "node:fs";
 import { InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { readEmbeddedGraph } from "../graph/record/embed.js";
@@ -21,7 +22,7 @@ export class SourceResolver {
     if (source.spec !== undefined) return familyWithInfo(source.spec).graph;
     if (source.path === "-") throw new InputError(`${where}: the graph came from standard input and the record has no embedded copy; pass it with --graph`);
     if (source.path === undefined) throw new InputError(`${where}: \`source\` names no spec, file or embedded graph; pass the graph with --graph`);
-    const graphs = await this.file(source);
+    const graphs = await this.file(source, where);
     const position = source.position ?? 1;
     if (!(Number.isInteger(position) && position >= 1 && position <= graphs.length)) {
       throw new InputError(`${where}: ${sourceLabel(source)}: the file holds ${graphs.length} graph(s), not a graph at position ${position}`);
@@ -29,15 +30,31 @@ export class SourceResolver {
     return graphs[position - 1];
   }
 
-  private async file(source: GraphSource): Promise<Graph[]> {
+  private async file(source: GraphSource, where: string): Promise<Graph[]> {
     const path = source.path!;
     let all = this.files.get(path);
     if (all === undefined) {
+      requireRegularFile(path, `${where}: source.path`);
       all = await readAllGraphs(path, { ...this.options, format: source.format ?? this.options.format });
       this.files.set(path, all);
     }
     return all;
   }
+}
+
+/**
+ * Refuse anything but a regular file as the graph behind a stored record: a record naming
+ * /dev/zero or a pipe must not make `verify` read forever. `what` names the record field.
+ */
+export function requireRegularFile(path: string, what: string): void {
+  let ok = false;
+  try {
+    ok = statSync(path).isFile();
+  } catch (e) {
+    const code = (e as NodeJS.ErrnoException).code;
+    throw new InputError(`${what} ${JSON.stringify(path)}: ${code === "ENOENT" ? "no such file" : `cannot read (${code ?? String(e)})`}`);
+  }
+  if (!ok) throw new InputError(`${what} ${JSON.stringify(path)}: is not a regular file`);
 }
 
 /** Every graph of a source argument, in order; none is an error. */

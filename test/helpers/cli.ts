@@ -6,8 +6,6 @@ import { fileURLToPath } from "node:url";
 
 export const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), "..", "..");
 export const BIN = join(ROOT, "dist", "cli", "main.js");
-export const SHARED_REFERENCE = resolve(ROOT, "..", "shared", "reference");
-export const hasShared = existsSync(SHARED_REFERENCE);
 
 function newestSourceMtime(dir: string): number {
   let t = 0;
@@ -22,10 +20,6 @@ function newestSourceMtime(dir: string): number {
 export function ensureBuilt(): void {
   if (existsSync(BIN) && statSync(BIN).mtimeMs >= newestSourceMtime(join(ROOT, "src"))) return;
   execSync("npx tsc -p tsconfig.build.json", { cwd: ROOT, stdio: "inherit" });
-}
-
-export function hasTool(name: string): boolean {
-  return spawnSync("sh", ["-c", `command -v ${name}`]).status === 0;
 }
 
 export interface CliResult {

@@ -25,3 +25,15 @@ export function bruteForceMaxCut(g: Graph): number {
   }
   return best;
 }
+
+/**
+ * Cut of a 0/1 partition, edge by edge from the graph's own edge walk (common practice, no source):
+ * written apart from src/cut/evaluate.ts so it can check `cutValue` and the records built on it.
+ */
+export function cutOfPartition(g: Graph, side: ArrayLike<number>): number {
+  let cut = 0;
+  g.forEachEdge((u, v, w) => {
+    if (side[u] !== side[v]) cut += w;
+  });
+  return cut;
+}

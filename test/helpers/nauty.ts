@@ -1,5 +1,5 @@
 // Runs nauty's Debian tools (geng, labelg, genspecialg) and collects their graph6 output lines;
-// callers check availability first (hasTool / which) and skip when a tool is missing.
+// callers declare the tool with itNeeds / describeNeeds (test/helpers/requirements.ts).
 import { spawnSync } from "node:child_process";
 
 function run(tool: string, args: string[], input?: string): string[] {

@@ -3,7 +3,15 @@
 // under CI (CI=true) it fails and names what is missing, so a broken install cannot pass as green.
 import { spawnSync } from "node:child_process";
 import { existsSync } from "node:fs";
+import { dirname, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
 import { describe, it } from "vitest";
+
+/**
+ * The shared reference data (G-set graphs and tables, NIST StRD): `../shared/reference` beside the
+ * repository, or wherever HALFPLUS_REFERENCE points (a CI machine that keeps it elsewhere).
+ */
+export const REFERENCE = process.env.HALFPLUS_REFERENCE ?? resolve(dirname(fileURLToPath(import.meta.url)), "..", "..", "..", "shared", "reference");
 
 /** CI sets CI=true; there a missing requirement is a failure, not a skip. */
 export const STRICT = process.env.CI === "true" || process.env.CI === "1";

@@ -1,9 +1,12 @@
 // `halfplus cut <source>`: a certified max-cut bracket for each graph a source denotes, as a short
 // readable summary or one JSON record per line (--json); progress goes to stderr, never stdout.
+// Each bracket runs in a worker thread, so Ctrl-C (SIGINT) or SIGTERM can stop it at once and still
+// write the best verifiable record so far, marked `interrupted`, before exiting with 130 / 143.
 import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
-import { DEFAULT_BRACKET_SECONDS, bracket, type BracketProgress } from "../../cut/bracket/bracket.js";
-import { BRACKET_EFFORTS, type BracketEffort, type BracketRecord } from "../../cut/bracket/record.js";
+import { DEFAULT_BRACKET_SECONDS, type BracketProgress } from "../../cut/bracket/bracket.js";
+import { BracketRunner, type RunningBracket } from "../../cut/bracket/bracket-runner.js";
+import { BRACKET_EFFORTS, recordJson, type BracketEffort, type BracketRecord, type BracketSnapshot } from "../../cut/bracket/record.js";
 import { MAX_SEED } from "../../random/seed.js";
 import { openSource } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
@@ -38,7 +41,10 @@ function words(method: string): string {
   return METHOD_WORDS[method] ?? method;
 }
 
-function certificateText(r: BracketRecord): string {
+/** What the summary shows: every field but the partition. */
+type Shown = Omit<BracketRecord, "partition">;
+
+function certificateText(r: Shown): string {
   const c = r.certificate;
   const rounded = c.roundedDown ? ", rounded down to an integer (integer weights make every cut an integer)" : "";
   switch (c.kind) {
@@ -54,7 +60,7 @@ function certificateText(r: BracketRecord): string {
 }
 
 /** Our own layout: the bracket first, then where each side of it came from. */
-export function formatBracket(label: string, r: BracketRecord): string {
+export function formatBracket(label: string, r: Shown): string {
   const gap = r.upper - r.lower;
   const rows: [string, string][] = [];
   if (r.exact) {
@@ -69,11 +75,15 @@ export function formatBracket(label: string, r: BracketRecord): string {
   rows.push(["cut found by", words(r.lowerMethod)]);
   rows.push(["upper bound", certificateText(r)]);
   if (r.upperKind !== "proven") rows.push(["caution", `the upper bound is ${r.upperKind === "estimate" ? "an estimate" : "probable"}, not a proof`]);
+  if (r.interrupted === true) rows.push(["caution", "interrupted: the best bracket found before the run was stopped"]);
   rows.push(["time", `${num(r.seconds)} s (effort ${r.effort}, solver seed ${r.solverSeed})`]);
   const out = [label, ...formatRows(rows)];
   for (const n of r.notes) out.push(`  note: ${n}`);
   return out.join("\n");
 }
+
+/** Conventional exit statuses of a run stopped by a signal: 128 + the signal number. */
+export const SIGNAL_EXIT: Readonly<Record<"SIGINT" | "SIGTERM", number>> = Object.freeze({ SIGINT: 130, SIGTERM: 143 });
 
 /** Progress on stderr: rewritten in place on a terminal, one line per update (at most 4/s) otherwise. */
 function progressWriter(stderr: NodeJS.WritableStream, label: string): { update: (p: BracketProgress) => void; done: () => void } {
@@ -103,6 +113,7 @@ export const cutCommand: CommandSpec = {
   description: [
     "The lower end is a cut anyone can re-evaluate (the partition is in the record); the upper end comes with a certificate: exhaustive search on small graphs, else a dual certificate of the Goemans–Williamson relaxation. The surplus is max cut − W/2, W the total edge weight (m when unweighted).",
     "Two seeds: --solver-seed seeds the randomised solvers (which cuts are tried); --graph-seed picks which random graph a random family builds. Both are recorded (solverSeed, source.graphSeed).",
+    "Ctrl-C (SIGINT) or SIGTERM stops the run at once: the best bracket found so far is written (to standard output and --out), marked `interrupted: true`, and the command exits with 130 (SIGINT) or 143 (SIGTERM). The record verifies like any other.",
     SOURCE_HELP,
   ],
   options: [
@@ -142,29 +153,75 @@ export const cutCommand: CommandSpec = {
     const outPath = o["out"] as string | undefined;
     if (outPath === "") throw new InputError("--out needs a file name");
     let fd: number | null = null;
+    // SIGINT/SIGTERM: the bracket runs in a worker, so this thread can stop it at once and write
+    // the best record so far (marked `interrupted`) before exiting with 128 + the signal number.
+    const runner = new BracketRunner();
+    let running: RunningBracket | null = null;
+    let caught: "SIGINT" | "SIGTERM" | null = null;
+    const onSignal = (sig: "SIGINT" | "SIGTERM"): void => {
+      caught = sig;
+      if (running !== null) running.stop();
+      else {
+        // Nothing running (reading input): stop now; records written so far are complete.
+        runner.close();
+        if (fd !== null) closeSync(fd);
+        process.exit(SIGNAL_EXIT[sig]);
+      }
+    };
+    const onInt = (): void => onSignal("SIGINT");
+    const onTerm = (): void => onSignal("SIGTERM");
+    process.on("SIGINT", onInt);
+    process.on("SIGTERM", onTerm);
+    const writeRecord = async (record: BracketSnapshot, label: string, first: boolean): Promise<void> => {
+      const line = recordJson(record);
+      if (outPath !== undefined) {
+        // Opened only once the first graph is read, so a bad source leaves no empty file behind.
+        if (fd === null) {
+          try {
+            fd = openSync(outPath, "w");
+          } catch (e) {
+            throw new InputError(`--out ${outPath}: cannot write (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
+          }
+        }
+        writeSync(fd, line + "\n");
+      }
+      if (json) await writeLine(io.stdout, line);
+      else await writeLine(io.stdout, (first ? "" : "\n") + formatBracket(label, record));
+    };
     try {
       let first = true;
       for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
         const progress = wantProgress ? progressWriter(io.stderr, item.label) : null;
-        const record = bracket(item.graph, { seconds, solverSeed, effort, source: item.source, notes: item.notes, onProgress: progress?.update });
-        progress?.done();
-        const line = JSON.stringify(record);
-        if (outPath !== undefined) {
-          // Opened only once the first graph is read, so a bad source leaves no empty file behind.
-          if (fd === null) {
-            try {
-              fd = openSync(outPath, "w");
-            } catch (e) {
-              throw new InputError(`--out ${outPath}: cannot write (${(e as NodeJS.ErrnoException).code ?? String(e)})`);
-            }
-          }
-          writeSync(fd, line + "\n");
+        running = runner.run(item.graph, { seconds, solverSeed, effort, source: item.source, notes: item.notes, onProgress: progress?.update });
+        let outcome: Awaited<RunningBracket["done"]>;
+        try {
+          outcome = await running.done;
+        } catch (e) {
+          // Name the graph: a method may refuse it (too large for memory) without knowing its file.
+          if (e instanceof InputError) throw new InputError(`${item.label}: ${e.message}`);
+          throw e;
+        } finally {
+          running = null;
+          progress?.done();
         }
-        if (json) await writeLine(io.stdout, line);
-        else await writeLine(io.stdout, (first ? "" : "\n") + formatBracket(item.label, record));
+        if (outcome.stopped || caught !== null) {
+          const sig: "SIGINT" | "SIGTERM" = caught ?? "SIGINT";
+          if (outcome.record !== null) {
+            const note = `interrupted by ${sig}: the best bracket found so far`;
+            await writeRecord({ ...outcome.record, interrupted: true, notes: [...outcome.record.notes, note] }, item.label, first);
+          }
+          io.stderr.write(`halfplus cut: interrupted by ${sig}${outcome.record !== null ? `; wrote the best record so far for ${item.label}` : ""}\n`);
+          return SIGNAL_EXIT[sig];
+        }
+        await writeRecord(outcome.record!, item.label, first);
         first = false;
       }
+      // An empty stream in a pipe is normal (a filter kept nothing); an empty named file deserves a word.
+      if (first && args.positionals[0] !== "-") io.stderr.write(`halfplus cut: no graphs read from ${args.positionals[0]}\n`);
     } finally {
+      process.off("SIGINT", onInt);
+      process.off("SIGTERM", onTerm);
+      runner.close();
       if (fd !== null) closeSync(fd);
     }
     return 0;

@@ -54,7 +54,8 @@ export const graphCommand: CommandSpec = {
   async run(args, io) {
     const json = args.options["json"] === true;
     let first = true;
-    for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
+    const arg = args.positionals[0];
+    for await (const item of openSource(arg, sourceOptionsFrom(args, io.stdin))) {
       if (json) {
         await writeLine(io.stdout, JSON.stringify(graphSummaryRecord(item.graph, { source: item.source, notes: item.notes })));
       } else {
@@ -62,6 +63,8 @@ export const graphCommand: CommandSpec = {
       }
       first = false;
     }
+    // An empty stream in a pipe is normal (a filter kept nothing); an empty named file deserves a word.
+    if (first && arg !== "-") io.stderr.write(`halfplus graph: no graphs read from ${arg}\n`);
     return 0;
   },
 };

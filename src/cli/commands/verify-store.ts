@@ -1,9 +1,12 @@
 // `halfplus verify <store.db>`: re-check stored rows (all, a family's, or one picked with --row)
-// from the store alone: each row's witness partition and certificate against its graph.
+// from the store alone: each row's witness partition and certificate against its graph. Verdicts,
+// their text and the exit status (an estimate exits 3 unless --accept-estimates) are those of
+// record files (src/cli/verdicts.ts).
 import { InputError } from "../../errors.js";
 import type { ParsedArgs, CommandIO } from "../args.js";
 import { openStore, verifyStoredRows, type RowFilter } from "../../experiment/index.js";
 import { writeLine } from "../output.js";
+import { VerdictTally, verdictJson, verdictText } from "../verdicts.js";
 
 /** `--row`: a key, or positions in the store's export order counted from 1 (`3`, `2,5,9`). */
 function rowSelection(text: string | undefined): { keys?: string[]; positions?: Set<number> } {
@@ -25,8 +28,7 @@ export async function verifyStore(path: string, args: ParsedArgs, io: CommandIO)
   if (o["family"] !== undefined) filter.family = o["family"] as string;
   const json = o["json"] === true;
   const store = openStore(path, { readonly: true });
-  let checked = 0;
-  let failures = 0;
+  const tally = new VerdictTally();
   try {
     const selected = store.count(filter);
     if (sel.keys !== undefined && selected === 0) throw new InputError(`${path}: no row with key ${JSON.stringify(sel.keys[0])}`);
@@ -36,27 +38,18 @@ export async function verifyStore(path: string, args: ParsedArgs, io: CommandIO)
       if (beyond.length > 0) throw new InputError(`--row ${beyond[0]}: the store holds ${all} row${all === 1 ? "" : "s"}`);
     }
     for await (const v of verifyStoredRows(store, { filter, positions: sel.positions, seconds: o["seconds"] as number })) {
-      checked++;
-      if (!v.ok) failures++;
-      if (json) {
-        await writeLine(io.stdout, JSON.stringify({ row: v.position, key: v.key, ok: v.ok, checks: v.checks }));
-        continue;
-      }
-      const rec = v.record;
-      const failed = v.checks.filter((c) => !c.ok).map((c) => c.name);
-      const verdict = v.ok ? `verified: max cut ${rec.exact ? `= ${rec.lower}` : `in [${rec.lower}, ${rec.upper}]`}` : `REJECTED (${failed.join(", ")})`;
-      const w = Math.max(...v.checks.map((c) => c.name.length));
-      const lines = [`row ${v.position} (${v.key.split("|")[0]}): ${verdict}`, ...v.checks.map((c) => `  ${c.ok ? "pass" : "FAIL"}  ${c.name.padEnd(w)}  ${c.message}`)];
-      await writeLine(io.stdout, lines.join("\n"));
+      tally.add(v);
+      if (json) await writeLine(io.stdout, JSON.stringify({ row: v.position, key: v.key, ...verdictJson(v) }));
+      else await writeLine(io.stdout, verdictText(`row ${v.position} (${v.key.split("|")[0]})`, v.record, v));
     }
     // Rows selected but not re-checked are imported ones (measured elsewhere, no evidence).
-    const imported = sel.positions === undefined ? selected - checked : 0;
+    const imported = sel.positions === undefined ? selected - tally.total : 0;
     if (!json) {
       const tail = imported > 0 ? `; ${imported} imported row${imported === 1 ? " carries" : "s carry"} no bracket to re-check` : "";
-      await writeLine(io.stdout, `${checked - failures} of ${checked} stored rows verified${tail}`);
+      await writeLine(io.stdout, tally.summary("stored rows", tail));
     }
   } finally {
     store.close();
   }
-  return failures === 0 ? 0 : 1;
+  return tally.exitStatus(o["accept-estimates"] === true);
 }

@@ -2,25 +2,39 @@
 // and the best certified upper bound, in a plain JSON-ready record that `verify` can re-check
 // from the graph alone (partition for the lower bound, certificate for the upper bound).
 
-import { invalidParameter } from "../../errors.js";
+import { InputError, invalidParameter } from "../../errors.js";
 import { cutValue, floorCutBound, surplusOf } from "../../graph/cut-value.js";
 import type { Graph } from "../../graph/graph.js";
-import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
+import { hasIntegerWeights } from "../../graph/weights.js";
+import { roundUp } from "../../linalg/float-rounding.js";
 import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";
-import { improvementMargin, nowSeconds, type ExactCutRecord, type ExactProgress } from "../exact/common.js";
+import { nowSeconds, type ExactCutRecord, type ExactProgress } from "../exact/common.js";
 import { exactMaxCut } from "../exact/exact-max-cut.js";
+import { closingTolerance, exactSearchSlack } from "../exact/exact-slack.js";
 import { BreakoutSearcher } from "../heuristic/breakout.js";
 import { hyperplaneRound } from "../heuristic/hyperplane-rounding.js";
 import { localSearch } from "../heuristic/local-search.js";
 import { vectorMethodRound } from "../heuristic/vector-rounding.js";
 import { DENSE_PROOF_LIMIT, upperKindOf } from "../relaxation/certificate.js";
 import { eigenvalueUpperBound } from "../relaxation/eigenvalue-bound.js";
-import { solveAndCertifySdp } from "../relaxation/sdp-bound.js";
+import { certifySdpDual } from "../relaxation/sdp-bound.js";
+import { solveSdp, type SdpRecord } from "../relaxation/sdp-mixing.js";
+import { positiveWeightBound } from "../positive-weights.js";
 import type { CutRecord, DualCertificate, UpperBoundRecord, UpperKind } from "../types.js";
 import { recordEnvelope } from "../../graph/record/envelope.js";
 import type { GraphSource } from "../../graph/record/source.js";
-import { BRACKET_EFFORTS, BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, type BracketCertificate, type BracketEffort, type BracketRecord, type BracketRun } from "./record.js";
+import {
+  BRACKET_EFFORTS,
+  BRACKET_RECORD_KIND,
+  BRACKET_RECORD_VERSION,
+  recordFromSnapshot,
+  type BracketCertificate,
+  type BracketEffort,
+  type BracketRecord,
+  type BracketRun,
+  type BracketSnapshot,
+} from "./record.js";
 
 export const DEFAULT_BRACKET_SECONDS = 10;
 
@@ -32,6 +46,8 @@ export interface BracketProgress {
   lower: number;
   upper: number;
   elapsed: number;
+  /** The record as it stands now (a verifiable partial result), built only when called. */
+  snapshot: () => BracketSnapshot;
 }
 
 export interface BracketOptions {
@@ -65,8 +81,10 @@ function plainDetails(d: CutRecord["details"]): BracketRun["details"] {
 class BracketState {
   readonly graph: Graph;
   readonly integral: boolean;
-  /** Non-integer weights: how far `upper` may sit above `lower` in a closed bracket (see offerExact). */
-  tolerance: number;
+  /** Non-integer weights: how far `upper` may sit above `lower` in a closed bracket (closingTolerance). */
+  readonly tolerance: number;
+  /** Non-integer weights: the exact search's slack (src/cut/exact/exact-slack.ts), 0 otherwise. */
+  readonly slack: number;
   readonly t0: number;
   readonly deadline: number;
   lower = -Infinity;
@@ -80,18 +98,33 @@ class BracketState {
   readonly runs: BracketRun[] = [];
   private readonly onProgress?: (p: BracketProgress) => void;
 
-  constructor(graph: Graph, seconds: number, onProgress?: (p: BracketProgress) => void) {
+  constructor(
+    graph: Graph,
+    seconds: number,
+    onProgress: ((p: BracketProgress) => void) | undefined,
+    readonly meta: { solverSeed: number; effort: BracketEffort; source: GraphSource | undefined; notes: readonly string[] },
+  ) {
     this.graph = graph;
     this.integral = hasIntegerWeights(graph);
-    this.tolerance = this.integral ? 0 : improvementMargin(graph);
+    this.slack = this.integral ? 0 : exactSearchSlack(graph);
+    this.tolerance = closingTolerance(graph);
     this.t0 = nowSeconds();
     this.deadline = this.t0 + seconds;
     this.onProgress = onProgress;
     this.partition = new Uint8Array(graph.n);
     this.lower = cutValue(graph, this.partition);
     this.lowerMethod = "all-on-one-side";
-    this.upper = this.round(positiveWeightSum(graph));
-    this.certificate = { kind: "positive-weights", roundedDown: this.integral, tolerance: this.tolerance };
+    // Proven as computed (rounded up for non-integer weights): nothing to round down.
+    this.upper = positiveWeightBound(graph);
+    this.certificate = { kind: "positive-weights", roundedDown: false, tolerance: this.tolerance };
+  }
+
+  private envelope_: { kind: typeof BRACKET_RECORD_KIND; graphHash: string; source: GraphSource } | null = null;
+
+  /** The record's envelope (the graph's hash, the source with its embedded copy), made once: snapshots ask again. */
+  envelope(): { kind: typeof BRACKET_RECORD_KIND; graphHash: string; source: GraphSource } {
+    if (this.envelope_ === null) this.envelope_ = recordEnvelope(BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, this.graph, this.meta.source);
+    return this.envelope_;
   }
 
   left(): number {
@@ -102,9 +135,18 @@ class BracketState {
     return nowSeconds() - this.t0;
   }
 
-  /** Integer weights: every cut is an integer, so a bound may be rounded down. */
+  /** Exact integer weights: every cut is an integer, so a proven bound may be rounded down (as verify does). */
   round(bound: number): number {
     return this.integral ? floorCutBound(bound) : bound;
+  }
+
+  /**
+   * What to publish for an exact search's proven bound: for non-integer weights the bound plus twice
+   * the search's slack, so that verify's own re-run (whose cut may differ by up to the slack) proves
+   * a bound no higher than the published one.
+   */
+  searchBound(upper: number): number {
+    return this.integral ? floorCutBound(upper) : roundUp(upper + 2 * this.slack, 2);
   }
 
   closed(): boolean {
@@ -114,7 +156,7 @@ class BracketState {
   }
 
   progress(method: string): void {
-    this.onProgress?.({ method, lower: this.lower, upper: this.upper, elapsed: this.elapsed() });
+    this.onProgress?.({ method, lower: this.lower, upper: this.upper, elapsed: this.elapsed(), snapshot: () => snapshotOf(this) });
   }
 
   offerCut(r: CutRecord, role: BracketRun["role"] = "lower"): void {
@@ -150,7 +192,7 @@ class BracketState {
 
   /** Progress callback for an exact search: shows it is alive, and its incumbent when that is better. */
   exactProgress(method: string): (p: ExactProgress) => void {
-    return (p) => this.onProgress?.({ method, lower: Math.max(this.lower, p.lower), upper: this.upper, elapsed: this.elapsed() });
+    return (p) => this.onProgress?.({ method, lower: Math.max(this.lower, p.lower), upper: this.upper, elapsed: this.elapsed(), snapshot: () => snapshotOf(this) });
   }
 
   offerExact(r: ExactCutRecord): void {
@@ -158,22 +200,16 @@ class BracketState {
     this.takeCut(r);
     if (r.status === "optimal") {
       this.exact = true;
-      // The search on a disconnected graph sums one margin per component, which can exceed the
-      // whole graph's margin: record the slack it actually proved, so verify accepts the closed
-      // bracket (fixes the ten-triangle case in test/bracket.test.ts).
-      if (!this.integral) {
-        this.tolerance = Math.max(this.tolerance, r.upper - r.value);
-        this.certificate = { ...this.certificate, tolerance: this.tolerance };
-      }
-      // Non-integer weights: the search proves value + tolerance, which an earlier certificate may beat.
-      if (r.upper <= this.upper || this.upperKind !== "proven") {
-        this.upper = r.upper;
+      // Non-integer weights: the search proves value + slack, which an earlier certificate may beat.
+      const bound = this.searchBound(r.upper);
+      if (bound <= this.upper || this.upperKind !== "proven") {
+        this.upper = bound;
         this.upperMethod = r.method;
         this.upperKind = "proven";
         this.certificate = { kind: "exhaustive", search: r.method, graySteps: r.graySteps, branchNodes: r.branchNodes, roundedDown: false, tolerance: this.tolerance };
       }
     } else {
-      const bound = this.round(r.upper);
+      const bound = this.searchBound(r.upper);
       if (bound < this.upper) {
         this.upper = bound;
         this.upperMethod = r.method;
@@ -182,6 +218,22 @@ class BracketState {
       }
     }
     this.progress(r.method);
+  }
+
+  /**
+   * Run an optional method; when it refuses this graph (it would not fit in memory, or the graph is
+   * too large for it: an InputError), log it as skipped with the reason and go on without it.
+   */
+  attempt(method: string, role: BracketRun["role"], run: () => void): boolean {
+    try {
+      run();
+      return true;
+    } catch (e) {
+      if (!(e instanceof InputError)) throw e;
+      this.runs.push({ method, role, value: 0, status: "skipped", seconds: 0, solverSeed: null, details: { reason: e.message } });
+      this.progress(method);
+      return false;
+    }
   }
 
   /** Keep r's partition if it beats the best cut (re-evaluated with cutValue), without logging a run. */
@@ -254,7 +306,7 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
 
   // The eigenvalue bound (the dual certificate with y = 0): one Lanczos run, or a small dense proof.
   const tEigen0 = nowSeconds();
-  state.offerDual(eigenvalueUpperBound(g, { tolerance, denseLimit: denseLimitFor(0.05) }));
+  state.attempt("eigenvalue", "upper", () => state.offerDual(eigenvalueUpperBound(g, { tolerance, denseLimit: denseLimitFor(0.05) })));
   const eigenSeconds = nowSeconds() - tEigen0;
   if (state.closed()) return;
 
@@ -264,28 +316,33 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
   const certifyCost = dense > 0 ? denseProofSeconds(n) + eigenSeconds : 2.5 * eigenSeconds;
   const forSdp = (quick ? 0.3 : 0.45) * phaseLeft() - certifyCost;
   if (forSdp > Math.min(0.5, 0.05 * total) || n <= 64) {
-    const { sdp, bound } = solveAndCertifySdp(g, {
-      sdp: {
+    // Solved and certified as two attempts: when the certificate does not fit in memory, the
+    // SDP's vectors still feed hyperplane rounding.
+    let solved: SdpRecord | null = null;
+    state.attempt("sdp-mixing", "relaxation", () => {
+      solved = solveSdp(g, {
         solverSeed: methodSeed(seed, 2),
         seconds: Math.max(1e-3, forSdp),
         maxSweeps: quick ? 300 : undefined,
         // Large graphs: a low rank affords many more sweeps in the same time, which matters more
         // than the rank (bench/bracket: rank 24 beats the default rank 201 at 10^6 edges).
         rank: g.m > 100_000 ? Math.min(24, n) : undefined,
-      },
-      certify: { tolerance, denseLimit: dense },
+      });
     });
-    state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, solverSeed: sdp.solverSeed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
-    state.offerDual(bound);
-    if (state.closed()) return;
-    const trials = quick ? 8 : n <= 5000 ? 64 : 16;
-    state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, solverSeed: methodSeed(seed, 3), polish: true }));
-    if (state.closed()) return;
+    if (solved !== null) {
+      const sdp: SdpRecord = solved;
+      state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, solverSeed: sdp.solverSeed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
+      state.attempt("sdp-certified", "upper", () => state.offerDual(certifySdpDual(g, sdp, { tolerance, denseLimit: dense })));
+      if (state.closed()) return;
+      const trials = quick ? 8 : n <= 5000 ? 64 : 16;
+      state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, solverSeed: methodSeed(seed, 3), polish: true }));
+      if (state.closed()) return;
+    }
   }
   if (quick) return;
   // Sparse vector rounding: its set-up (the exact guarantee) costs about one Lanczos run.
   if (phaseLeft() > 3 * eigenSeconds) {
-    state.offerCut(vectorMethodRound(g, { trials: n <= 5000 ? 32 : 8, solverSeed: methodSeed(seed, 4), polish: true }));
+    state.attempt("vector-rounding", "lower", () => state.offerCut(vectorMethodRound(g, { trials: n <= 5000 ? 32 : 8, solverSeed: methodSeed(seed, 4), polish: true })));
     if (state.closed()) return;
   }
   // Breakout gets what is left of the phase; the round cap (≈ 50 n² rounds, a few µs each at
@@ -299,18 +356,23 @@ function exactLooksFeasible(g: Graph): boolean {
 }
 
 export function bracket(graph: Graph, options: BracketOptions = {}): BracketRecord {
+  return recordFromSnapshot(bracketSnapshot(graph, options));
+}
+
+/** `bracket`, returning the record with its partition as a typed array (see BracketSnapshot). */
+export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): BracketSnapshot {
   const owner = "bracket";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_BRACKET_SECONDS);
   const seed = checkSeed(owner, "solverSeed", options.solverSeed);
   const effort = options.effort ?? "auto";
   if (!BRACKET_EFFORTS.includes(effort)) throw invalidParameter(owner, "effort", `should be one of ${BRACKET_EFFORTS.join(", ")}`, effort);
-  const state = new BracketState(graph, seconds, options.onProgress);
+  const state = new BracketState(graph, seconds, options.onProgress, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
   state.progress("start");
 
   if (graph.m > 0) {
     if (effort === "exact") {
       state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, onProgress: state.exactProgress("exact search") }));
-      if (!state.closed()) state.offerDual(eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 }));
+      if (!state.closed()) state.attempt("eigenvalue", "upper", () => state.offerDual(eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 })));
     } else if (effort === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
       state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, onProgress: state.exactProgress("exact search") }));
       if (!state.closed()) heuristicPhase(state, seed, false, 1);
@@ -328,9 +390,18 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
     state.upper = 0;
     state.upperMethod = "positive-weights";
   }
+  return snapshotOf(state);
+}
 
+/** The record of a bracket state: at the end of a run, or as a snapshot while it runs. */
+function snapshotOf(state: BracketState): BracketSnapshot {
+  const graph = state.graph;
   const exact = state.closed();
-  const envelope = recordEnvelope(BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, graph, options.source);
+  const envelope = state.envelope();
+  // Never publish upper < lower. With exact integer weights a proven bound rounded down can't fall
+  // below a cut; with other weights a rounded-up dual bound may still sit an ulp under a cut value
+  // that rounded up, and then the cut's value is itself a bound the certificate proves.
+  const upper = Math.max(state.upper, state.lower);
   return {
     kind: envelope.kind,
     version: BRACKET_RECORD_VERSION,
@@ -339,20 +410,20 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
     m: graph.m,
     totalWeight: graph.totalWeight,
     lower: state.lower,
-    upper: state.upper,
+    upper,
     exact,
     upperKind: state.upperKind,
     surplusLower: surplusOf(graph, state.lower),
-    surplusUpper: surplusOf(graph, state.upper),
+    surplusUpper: surplusOf(graph, upper),
     lowerMethod: state.lowerMethod,
     upperMethod: state.upperMethod,
     seconds: state.elapsed(),
-    solverSeed: seed,
-    effort,
-    partition: Array.from(state.partition),
+    solverSeed: state.meta.solverSeed,
+    effort: state.meta.effort,
+    partition: state.partition.slice(),
     certificate: state.certificate,
-    runs: state.runs,
-    notes: [...(options.notes ?? [])],
+    runs: state.runs.slice(),
+    notes: [...state.meta.notes],
     // Last, so the (possibly long) embedded graph does not hide the numbers in a JSON line.
     source: envelope.source,
   };

@@ -1,5 +1,6 @@
 // The max-cut bracket: the record it writes, the run that fills it, and the independent check.
 export * from "./record.js";
 export * from "./bracket.js";
-export { parseBracketRecord, verifyBracket, type BracketCheck, type BracketVerdict, type BracketVerifyOptions } from "./verify.js";
+export { BracketRunner, runBracket, type RunningBracket } from "./bracket-runner.js";
+export { EXIT_ESTIMATE, parseBracketRecord, verifyBracket, verifyExitStatus, type BracketCheck, type BracketVerdict, type BracketVerifyOptions, type VerdictWord } from "./verify.js";
 export * from "./read-records.js";

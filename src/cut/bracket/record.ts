@@ -7,7 +7,10 @@ import type { ShiftProof, SolverStatus, UpperKind } from "../types.js";
 
 /** The `kind` every bracket record carries, so verify can refuse other JSON. */
 export const BRACKET_RECORD_KIND = "halfplus/bracket";
-/** Version 2: the shared envelope, `effort`, `solverSeed`, `upperKind`, `shiftProof`, `roundedDown`, `notes`. */
+/**
+ * Version 2: the shared envelope, `effort`, `solverSeed`, `upperKind`, `shiftProof`, `roundedDown`,
+ * `notes`; optional `interrupted`; run statuses include `work-limit` and `skipped`.
+ */
 export const BRACKET_RECORD_VERSION = 2;
 
 /**
@@ -38,7 +41,8 @@ export interface BracketRun {
   value: number;
   /** For exact searches: their proven upper bound. */
   upper?: number;
-  status: SolverStatus;
+  /** Why the method stopped; "skipped" when the bracket left it out (details.reason says why, e.g. memory). */
+  status: SolverStatus | "skipped";
   seconds: number;
   /** Seed the method's randomness was drawn from (derived from the bracket's solverSeed); null when it uses none. */
   solverSeed: number | null;
@@ -71,4 +75,26 @@ export interface BracketRecord extends RecordEnvelope<typeof BRACKET_RECORD_KIND
   runs: BracketRun[];
   /** Things the reader should know about the graph or the run (possibly none). */
   notes: string[];
+  /** Present (true) when SIGINT/SIGTERM stopped the run: the best record at that moment. */
+  interrupted?: true;
+}
+
+/**
+ * A bracket record whose partition is a typed array: cheap to copy between threads and to write
+ * (`recordJson`) even at 10^8 vertices, where a JS array of the partition would fill the heap.
+ */
+export type BracketSnapshot = Omit<BracketRecord, "partition"> & { partition: Uint8Array };
+
+/** The plain record of a snapshot (the partition as an array of 0/1). */
+export function recordFromSnapshot(s: BracketSnapshot): BracketRecord {
+  return { ...s, partition: Array.from(s.partition) };
+}
+
+/** The record's JSON text (one line), the same as JSON.stringify of its plain form, without building the plain partition. */
+export function recordJson(r: BracketSnapshot | BracketRecord): string {
+  if (!(r.partition instanceof Uint8Array)) return JSON.stringify(r);
+  // A marker no JSON value can contain unescaped, replaced by the partition written natively.
+  const marker = "\u0000partition\u0000";
+  const text = JSON.stringify({ ...r, partition: marker });
+  return text.replace(JSON.stringify(marker), `[${r.partition.join(",")}]`);
 }

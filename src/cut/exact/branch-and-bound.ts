@@ -15,8 +15,9 @@ import { checkPartition, floorCutBound } from "../../graph/cut-value.js";
 import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
 import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";
-import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, exactRecord, improvementMargin, nowSeconds, type ExactCutRecord, type ExactOptions } from "./common.js";
+import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, checkWork, exactRecord, improvementMargin, nowSeconds, type ExactCutRecord, type ExactOptions, type ExactStatus } from "./common.js";
 import { CutBlock } from "./cut-block.js";
+import { graphSlack } from "./exact-slack.js";
 
 export type BranchOrder = "tail-greedy" | "degree";
 
@@ -77,9 +78,17 @@ function tailGreedyOrder(graph: Graph): Int32Array {
   return order;
 }
 
+/** Vertices by degree, largest first, ties by id: a stable counting sort (O(n), no boxed arrays for large n). */
 function degreeOrder(graph: Graph): Int32Array {
-  const idx = Array.from({ length: graph.n }, (_, v) => v).sort((a, b) => graph.degree(b) - graph.degree(a) || a - b);
-  return Int32Array.from(idx);
+  const n = graph.n;
+  let maxDeg = 0;
+  for (let v = 0; v < n; v++) maxDeg = Math.max(maxDeg, graph.degree(v));
+  const start = new Int32Array(maxDeg + 2);
+  for (let v = 0; v < n; v++) start[maxDeg - graph.degree(v) + 1]++;
+  for (let d = 1; d <= maxDeg + 1; d++) start[d] += start[d - 1];
+  const order = new Int32Array(n);
+  for (let v = 0; v < n; v++) order[start[maxDeg - graph.degree(v)]++] = v;
+  return order;
 }
 
 function positioned(graph: Graph, order: Int32Array): Positioned {
@@ -120,7 +129,7 @@ function positioned(graph: Graph, order: Int32Array): Positioned {
  * Greedy 1-flip ascent on the subgraph induced by positions ≥ from: flip the best improving
  * vertex until none improves by more than `eps`. Returns the cut of that subgraph.
  */
-function flipAscent(P: Positioned, side: Uint8Array, from: number, gain: Float64Array, eps: number): number {
+function flipAscent(P: Positioned, side: Uint8Array, from: number, gain: Float64Array, eps: number, stopAt: number): number {
   const { n, off, nbr, w } = P;
   let cut = 0;
   for (let p = from; p < n; p++) {
@@ -136,7 +145,10 @@ function flipAscent(P: Positioned, side: Uint8Array, from: number, gain: Float64
     }
     gain[p] = g;
   }
-  for (;;) {
+  // Each flip scans every free vertex: on a large graph an ascent can outlast the budget, so
+  // it checks the clock (the cut stays that of `side` whenever it stops).
+  for (let flips = 1; ; flips++) {
+    if ((flips & 255) === 0 && nowSeconds() > stopAt) return cut;
     let pick = -1;
     let bestGain = eps;
     for (let p = from; p < n; p++) {
@@ -162,6 +174,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   const owner = "branchAndBoundMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
   const seed = checkSeed(owner, "solverSeed", options.solverSeed);
+  const workLimit = checkWork(owner, options.work);
   const n = graph.n;
   const restarts = options.restarts ?? 16;
   if (!Number.isInteger(restarts) || restarts < 0 || restarts > 100000) {
@@ -174,7 +187,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   if (options.initial !== undefined) checkPartition(graph, options.initial, `${owner}: initial`);
   const margin = improvementMargin(graph);
   const exactSums = hasIntegerWeights(graph);
-  if (n <= 1) return finish(graph, new Uint8Array(n), "optimal", null, 0, t0, seed, 0, orderKind, margin, exactSums, 0);
+  if (n <= 1) return finish(graph, new Uint8Array(n), "optimal", null, 0, t0, seed, 0, orderKind, exactSums, 0);
   const bMax = Math.min(n - 1, 20);
   const b = options.blockSize ?? Math.min(n - 1, 12);
   if (!Number.isInteger(b) || b < 0 || b > bMax) {
@@ -208,12 +221,13 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   const bestSide = new Uint8Array(n); // best partition found for the current tail problem
   const tailSide = new Uint8Array(n); // optimal partition of the previous (shorter) tail
 
+  const deadline = t0 + seconds;
   // First incumbent for the whole graph: the caller's partition and seeded 1-flip restarts.
   const rng = new Rng(seed);
   const globalSide = new Uint8Array(n);
   let globalBest = -Infinity;
   const trySide = (cand: Uint8Array): void => {
-    const c = flipAscent(P, cand, 0, scratch, margin / 2);
+    const c = flipAscent(P, cand, 0, scratch, margin / 2, deadline);
     if (c > globalBest) {
       globalBest = c;
       globalSide.set(cand);
@@ -224,7 +238,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
     for (let p = 0; p < n; p++) cand[p] = options.initial[order[p]];
     trySide(cand);
   }
-  for (let r = 0; r < restarts; r++) {
+  for (let r = 0; r < restarts && nowSeconds() <= deadline; r++) {
     for (let p = 0; p < n; p++) cand[p] = rng.nextU32() & 1;
     trySide(cand);
   }
@@ -239,10 +253,10 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   let nodes = 0;
   let work = 0;
   let nextCheck = 4096;
-  const deadline = t0 + seconds;
   const onProgress = options.onProgress;
   let nextReport = t0 + PROGRESS_INTERVAL;
   let stopped = false;
+  let outOfWork = false;
   let openUpper = -Infinity; // max bound over subtrees left unexplored by a timeout
   let k = first - 1; // the tail problem being solved
   let best = -Infinity;
@@ -251,6 +265,10 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   let sumMax = 0;
   const leafCost = Math.max(1, (1 << b) >>> 6);
 
+  // Each forward arc saves the sum it changes, so backtracking restores every sum bit for bit:
+  // with non-integer weights, rounding then depends on the current path only, never on the
+  // number of nodes visited (the slack of src/cut/exact-slack.ts relies on this).
+  const savedSum = new Float64Array(fwdOff[n]);
   const assign = (x: number, s: number): void => {
     const ax = toOne[x], bx = toZero[x];
     cutF += s === 0 ? ax : bx;
@@ -262,10 +280,12 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
       const old = a > c ? a : c;
       let now: number;
       if (s === 1) {
+        savedSum[i] = a;
         const a2 = a + fwdW[i];
         toOne[v] = a2;
         now = a2 > c ? a2 : c;
       } else {
+        savedSum[i] = c;
         const c2 = c + fwdW[i];
         toZero[v] = c2;
         now = a > c2 ? a : c2;
@@ -277,8 +297,8 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   const unassign = (x: number, s: number, d: number): void => {
     for (let i = fwdOff[x]; i < fwdOff[x + 1]; i++) {
       const v = fwdNbr[i];
-      if (s === 1) toOne[v] -= fwdW[i];
-      else toZero[v] -= fwdW[i];
+      if (s === 1) toOne[v] = savedSum[i];
+      else toZero[v] = savedSum[i];
     }
     cutF = savedCut[d];
     sumMax = savedMax[d];
@@ -303,6 +323,10 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   // Positions k..d-1 are fixed and the bound of this node allows an improvement.
   const search = (d: number, bound: number): void => {
     nodes++;
+    if (work >= workLimit && !stopped) {
+      stopped = true;
+      outOfWork = true;
+    }
     if (++work >= nextCheck) {
       nextCheck = work + 4096;
       const now = nowSeconds();
@@ -350,7 +374,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
       else w0 += fwdW[i];
     }
     side[k] = w1 >= w0 ? 0 : 1;
-    best = flipAscent(P, side, k, scratch, margin / 2);
+    best = flipAscent(P, side, k, scratch, margin / 2, deadline);
     bestSide.set(side);
     if (k === 0 && globalBest > best) {
       best = globalBest;
@@ -389,9 +413,9 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
 
   const partitionByPos = new Uint8Array(n);
   let upper: number | null = null;
-  let status: "optimal" | "time-limit" = "optimal";
+  let status: ExactStatus = "optimal";
   if (stopped) {
-    status = "time-limit";
+    status = outOfWork ? "work-limit" : "time-limit";
     // Extend the stopped tail's best partition to the prefix greedily, polish, and keep the
     // better of that and the global incumbent. The bound chains MC[j] ≤ MC[j+1] + positive weight of v_j's forward edges.
     const stoppedK = k;
@@ -406,7 +430,7 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
       }
       side[p] = w1 >= w0 ? 0 : 1;
     }
-    const extended = flipAscent(P, side, 0, scratch, margin / 2);
+    const extended = flipAscent(P, side, 0, scratch, margin / 2, deadline);
     if (extended >= globalBest) partitionByPos.set(side);
     else partitionByPos.set(globalSide);
     upper = Math.min(chain, positiveWeightSum(graph));
@@ -415,25 +439,26 @@ export function branchAndBoundMaxCut(graph: Graph, options: BranchAndBoundOption
   }
   const partition = new Uint8Array(n);
   for (let p = 0; p < n; p++) partition[order[p]] = partitionByPos[p];
-  return finish(graph, partition, status, upper, nodes, t0, seed, b, orderKind, margin, exactSums, solvedK);
+  return finish(graph, partition, status, upper, nodes, t0, seed, b, orderKind, exactSums, solvedK, work);
 }
 
 function finish(
   graph: Graph,
   partition: Uint8Array,
-  status: "optimal" | "time-limit",
+  status: ExactStatus,
   upper: number | null,
   nodes: number,
   t0: number,
   seed: number,
   blockSize: number,
   order: BranchOrder,
-  margin: number,
   exactSums: boolean,
   solvedTail: number,
+  workUsed = 0,
 ): ExactCutRecord {
-  // Non-integer weights: pruning used a tolerance, so the proven bound carries it.
-  const slack = exactSums ? 0 : margin;
+  // Non-integer weights: pruning used a tolerance and sums round, so the proven bound carries the
+  // search's slack (src/cut/exact/exact-slack.ts), rounded up.
+  const slack = exactSums ? 0 : graphSlack(graph);
   const search = { status, upper, slack, graySteps: 0, branchNodes: nodes, t0, solverSeed: seed };
-  return exactRecord("exact-bnb", graph, partition, search, { blockSize, order, integerWeights: exactSums, tolerance: slack, solvedTail });
+  return exactRecord("exact-bnb", graph, partition, search, { blockSize, order, integerWeights: exactSums, tolerance: slack, solvedTail, workUsed });
 }

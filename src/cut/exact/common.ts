@@ -3,12 +3,17 @@
 
 import type { Graph } from "../../graph/graph.js";
 import { hasIntegerWeights } from "../../graph/weights.js";
+import { roundUp } from "../../linalg/float-rounding.js";
+import { invalidParameter } from "../../errors.js";
 import { cutRecordOf, type CutRecord } from "../types.js";
+
+/** Why an exact search stopped: proven optimal, or out of its time (`seconds`) or work (`work`) budget with a valid bracket. */
+export type ExactStatus = "optimal" | "time-limit" | "work-limit";
 
 /** What an exact search returns: a cut (value = cutValue(partition)) plus a proven upper bound. */
 export interface ExactCutRecord extends CutRecord {
-  status: "optimal" | "time-limit";
-  /** Proven upper bound on the max cut: equal to `value` when optimal, the best bracket so far when time ran out. */
+  status: ExactStatus;
+  /** Proven upper bound on the max cut: equal to `value` when optimal, the best bracket so far when a budget ran out. */
   upper: number;
   /** Gray-code steps taken: one outer pattern each, whose 2^b block completions are tabulated. */
   graySteps: number;
@@ -31,6 +36,19 @@ export interface ExactOptions {
   solverSeed?: number;
   /** Called about every half second during a long search. */
   onProgress?: (p: ExactProgress) => void;
+  /**
+   * Deterministic work budget (default: none): branch-and-bound nodes, each tabulated leaf counting
+   * max(1, 2^b/64), or Gray-code steps. On expiry the record has status "work-limit" and a valid
+   * bracket; the record's details say how much was used (`workUsed`).
+   */
+  work?: number;
+}
+
+/** The `work` option: a positive integer, or Infinity when not given. */
+export function checkWork(owner: string, work: unknown): number {
+  if (work === undefined) return Infinity;
+  if (typeof work !== "number" || !(Number.isInteger(work) && work > 0)) throw invalidParameter(owner, "work", "should be a positive integer", work);
+  return work;
 }
 
 /** Seconds between `onProgress` calls. */
@@ -52,23 +70,24 @@ export function improvementMargin(graph: Graph): number {
 }
 
 /**
- * The record of an exact search: the cut of `partition` (value from cutValue) and the proven bound,
- * never below value + slack, where slack is the pruning tolerance the search used (0 for integer
- * weights): `upper` null means the search finished, so the bound is the value itself plus slack.
+ * The record of an exact search: the cut of `partition` (value from cutValue) and the proven bound
+ * max(upper, value) plus the search's slack (src/cut/exact/exact-slack.ts; 0 for exact integer
+ * weights), rounded up: `upper` null means the search finished, so the bound is the value itself.
  */
 export function exactRecord(
   method: string,
   graph: Graph,
   partition: Uint8Array,
-  search: { status: "optimal" | "time-limit"; upper: number | null; slack: number; graySteps: number; branchNodes: number; t0: number; solverSeed: number },
+  search: { status: ExactStatus; upper: number | null; slack: number; graySteps: number; branchNodes: number; t0: number; solverSeed: number },
   details: CutRecord["details"],
 ): ExactCutRecord {
   const cut = cutRecordOf(method, graph, partition, search.status, nowSeconds() - search.t0, search.solverSeed, details);
   const { upper, slack } = search;
+  const base = upper === null ? cut.value : Math.max(upper, cut.value);
   return {
     ...cut,
     status: search.status,
-    upper: upper === null ? cut.value + slack : Math.max(upper, cut.value + slack),
+    upper: slack === 0 ? base : roundUp(base + slack, 2),
     graySteps: search.graySteps,
     branchNodes: search.branchNodes,
   };

@@ -4,12 +4,13 @@
 import { InputError } from "../../errors.js";
 import { checkPartition, cutValue } from "../../graph/cut-value.js";
 import type { Graph } from "../../graph/graph.js";
-import { inducedSubgraph } from "../../graph/induced.js";
-import { connectedComponents } from "../../graph/structure/components.js";
+import { componentSubgraph } from "../../graph/induced.js";
+import { hasIntegerWeights } from "../../graph/weights.js";
+import { roundoffGamma, roundUp } from "../../linalg/float-rounding.js";
 import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";
 import { branchAndBoundMaxCut } from "./branch-and-bound.js";
-import { DEFAULT_EXACT_SECONDS, nowSeconds, type ExactCutRecord, type ExactOptions, type ExactProgress } from "./common.js";
+import { DEFAULT_EXACT_SECONDS, checkWork, nowSeconds, type ExactCutRecord, type ExactOptions, type ExactProgress, type ExactStatus } from "./common.js";
 import { GRAY_MAX_VERTICES, grayCodeMaxCut } from "./gray-code.js";
 
 export type ExactMethod = "auto" | "gray" | "bnb";
@@ -27,11 +28,65 @@ export interface ExactMaxCutOptions extends ExactOptions {
   initial?: ArrayLike<number>;
 }
 
+interface EdgeComponents {
+  /** Components with at least one edge. */
+  count: number;
+  /** Component c holds verts[start[c] .. start[c + 1]), in increasing vertex order. */
+  start: Int32Array;
+  verts: Int32Array;
+  /** local[v]: v's position in its component (0 for isolated vertices). */
+  local: Int32Array;
+  /** Vertices without edges: they add nothing to any cut and are never visited again. */
+  isolated: number;
+}
+
+/**
+ * Connected components of the vertices that have edges. A graph of 10^8 mostly isolated vertices
+ * costs one pass over the degrees plus the work on its edges: no per-vertex label fill, no per-vertex
+ * JS arrays (fresh typed arrays are zero pages until written).
+ */
+function edgeComponents(graph: Graph): EdgeComponents {
+  const { n, offsets, neighbors } = graph;
+  let withEdges = 0;
+  for (let v = 0; v < n; v++) if (offsets[v + 1] > offsets[v]) withEdges++;
+  const verts = new Int32Array(withEdges);
+  const starts = new Int32Array(withEdges + 1);
+  const seen = new Uint8Array(n);
+  const local = new Int32Array(n);
+  let tail = 0;
+  let count = 0;
+  for (let s = 0; s < n; s++) {
+    if (seen[s] === 1 || offsets[s + 1] === offsets[s]) continue;
+    const first = tail;
+    starts[count] = first;
+    seen[s] = 1;
+    verts[tail++] = s;
+    for (let head = first; head < tail; head++) {
+      const u = verts[head];
+      for (let i = offsets[u]; i < offsets[u + 1]; i++) {
+        const v = neighbors[i];
+        if (seen[v] === 0) {
+          seen[v] = 1;
+          verts[tail++] = v;
+        }
+      }
+    }
+    const members = verts.subarray(first, tail);
+    members.sort();
+    for (let i = 0; i < members.length; i++) local[members[i]] = i;
+    count++;
+  }
+  starts[count] = tail;
+  return { count, start: starts.subarray(0, count + 1), verts, local, isolated: n - withEdges };
+}
+
 export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): ExactCutRecord {
   const t0 = nowSeconds();
   const owner = "exactMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
   const seed = checkSeed(owner, "solverSeed", options.solverSeed);
+  const workLimit = checkWork(owner, options.work);
+  let workUsed = 0;
   const method = options.method ?? "auto";
   if (method !== "auto" && method !== "gray" && method !== "bnb") {
     throw new InputError(`${owner}: invalid \`method\`: should be one of auto, gray, bnb (got ${JSON.stringify(method)})`);
@@ -42,25 +97,23 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
   }
   if (options.initial !== undefined) checkPartition(graph, options.initial, `${owner}: initial`);
 
-  const comps = connectedComponents(graph);
-  const members: number[][] = Array.from({ length: comps.count }, () => []);
-  for (let v = 0; v < graph.n; v++) members[comps.label[v]].push(v);
-
+  const comps = edgeComponents(graph);
+  const { start, verts: byComp, local } = comps;
   const partition = new Uint8Array(graph.n);
   let upper = 0;
   let graySteps = 0;
   let branchNodes = 0;
   let finishedValue = 0;
-  let status: "optimal" | "time-limit" = "optimal";
+  let status: ExactStatus = "optimal";
   let largest = 0;
   let tolerance = 0;
   const used = new Set<string>();
   const deadline = t0 + seconds;
-  for (const list of members) {
-    if (list.length <= 1) continue; // an isolated vertex contributes nothing
-    largest = Math.max(largest, list.length);
-    const verts = Int32Array.from(list);
-    const sub = list.length === graph.n ? graph : inducedSubgraph(graph, verts);
+  for (let c = 0; c < comps.count; c++) {
+    const size = start[c + 1] - start[c];
+    largest = Math.max(largest, size);
+    const verts = byComp.subarray(start[c], start[c + 1]);
+    const sub = size === graph.n ? graph : componentSubgraph(graph, verts, local);
     // Every component gets what is left of the budget; a late one may get almost nothing and
     // then reports a (valid, weak) bracket instead of an optimum.
     const left = Math.max(1e-3, deadline - nowSeconds());
@@ -76,7 +129,10 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
     // Progress of a component search, reported as a cut of the whole graph: finished components' values plus its own.
     const done = finishedValue;
     const onProgress = options.onProgress === undefined ? undefined : (p: ExactProgress) => options.onProgress!({ lower: done + p.lower, graySteps: graySteps + p.graySteps, branchNodes: branchNodes + p.branchNodes, seconds: nowSeconds() - t0 });
-    const r = useGray ? grayCodeMaxCut(sub, { seconds: left, solverSeed: seed, onProgress }) : branchAndBoundMaxCut(sub, { seconds: left, solverSeed: seed, initial, onProgress });
+    // A work budget is shared the same way: each component gets what the earlier ones left.
+    const work = workLimit === Infinity ? undefined : Math.max(1, workLimit - workUsed);
+    const r = useGray ? grayCodeMaxCut(sub, { seconds: left, solverSeed: seed, onProgress, work }) : branchAndBoundMaxCut(sub, { seconds: left, solverSeed: seed, initial, onProgress, work });
+    workUsed += Number(r.details?.workUsed ?? 0);
     used.add(r.method);
     for (let i = 0; i < sub.n; i++) partition[verts[i]] = r.partition[i];
     upper += r.upper;
@@ -84,20 +140,22 @@ export function exactMaxCut(graph: Graph, options: ExactMaxCutOptions = {}): Exa
     branchNodes += r.branchNodes;
     finishedValue += r.value;
     tolerance += Number(r.details?.tolerance ?? 0);
-    if (r.status === "time-limit") status = "time-limit";
+    if (r.status !== "optimal" && status === "optimal") status = r.status;
   }
   const value = cutValue(graph, partition);
+  // Each component's bound is proven (its slack included); their sum is rounded up past its own
+  // rounding unless every partial sum is an exact integer.
+  const total = hasIntegerWeights(graph) ? upper : roundUp(upper + roundoffGamma(comps.count + 1) * Math.abs(upper), 2);
   return {
     method: used.size === 1 ? [...used][0] : used.size === 0 ? "exact-trivial" : "exact-mixed",
     value,
-    // Sums of component bounds can differ from the sum of values by rounding; never report upper < value.
-    upper: Math.max(upper, value),
+    upper: Math.max(total, value),
     partition,
     status,
     graySteps,
     branchNodes,
     seconds: nowSeconds() - t0,
     solverSeed: seed,
-    details: { components: comps.count, largestComponent: largest, methods: [...used].sort().join("+") || "none", tolerance },
+    details: { workUsed, components: comps.count + comps.isolated, largestComponent: largest, methods: [...used].sort().join("+") || "none", tolerance },
   };
 }

@@ -7,8 +7,9 @@ import type { Graph } from "../../graph/graph.js";
 import { hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
 import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";
-import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, exactRecord, improvementMargin, nowSeconds, type ExactCutRecord, type ExactOptions } from "./common.js";
+import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, checkWork, exactRecord, nowSeconds, type ExactCutRecord, type ExactOptions, type ExactStatus } from "./common.js";
 import { CutBlock } from "./cut-block.js";
+import { GRAY_RESYNC_STEPS, graphSlack } from "./exact-slack.js";
 
 /** Largest n the Gray-code enumeration accepts (2^33 patterns: tens of seconds without pruning). */
 export const GRAY_MAX_VERTICES = 34;
@@ -23,6 +24,7 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
   const owner = "grayCodeMaxCut";
   const seconds = checkSeconds(owner, options.seconds, DEFAULT_EXACT_SECONDS);
   const seed = checkSeed(owner, "solverSeed", options.solverSeed);
+  const workLimit = checkWork(owner, options.work);
   const n = graph.n;
   if (n > GRAY_MAX_VERTICES) {
     throw new InputError(`${owner}: graph has ${n} vertices; exhaustive enumeration supports at most ${GRAY_MAX_VERTICES}`);
@@ -90,12 +92,16 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
   let bestStep = 0;
   let bestPattern = 0;
   const deadline = t0 + seconds;
-  let status: "optimal" | "time-limit" = "optimal";
+  let status: ExactStatus = "optimal";
   let done = 0;
   const checkEvery = Math.max(1, Math.floor(2 ** 16 / (1 << b)));
   const onProgress = options.onProgress;
   let nextReport = t0 + PROGRESS_INTERVAL;
   for (let s = 0; s < steps; s++) {
+    if (s >= workLimit) {
+      status = "work-limit";
+      break;
+    }
     if (s > 0) {
       // Gray step s flips the outer vertex at the position of s's lowest set bit.
       const j = 31 - Math.clz32(s & -s);
@@ -129,7 +135,8 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
       }
     }
     done = s + 1;
-    if (!exactSums && (s & 1023) === 1023) resync();
+    // The slack of src/cut/exact/exact-slack.ts assumes at most GRAY_RESYNC_STEPS steps of drift.
+    if (!exactSums && s % GRAY_RESYNC_STEPS === GRAY_RESYNC_STEPS - 1) resync();
     if (s % checkEvery === 0) {
       const now = nowSeconds();
       if (now > deadline && s + 1 < steps) {
@@ -157,7 +164,7 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
 function record(
   graph: Graph,
   partition: Uint8Array,
-  status: "optimal" | "time-limit",
+  status: ExactStatus,
   upper: number | null,
   nodes: number,
   t0: number,
@@ -166,9 +173,9 @@ function record(
   fixed = 0,
 ): ExactCutRecord {
   const exactSums = hasIntegerWeights(graph);
-  // Non-integer weights: the running sums are exact only up to rounding, so the proven
-  // upper bound carries the same tolerance the search used.
-  const slack = exactSums ? 0 : improvementMargin(graph);
+  // Non-integer weights: the running sums are exact only up to rounding, so the proven upper
+  // bound carries the search's slack (src/cut/exact/exact-slack.ts), rounded up.
+  const slack = exactSums ? 0 : graphSlack(graph);
   const search = { status, upper, slack, graySteps: nodes, branchNodes: 0, t0, solverSeed: seed };
-  return exactRecord("exact-gray", graph, partition, search, { blockSize, fixedVertex: fixed, integerWeights: exactSums, tolerance: slack });
+  return exactRecord("exact-gray", graph, partition, search, { blockSize, fixedVertex: fixed, integerWeights: exactSums, tolerance: slack, workUsed: nodes });
 }

@@ -3,4 +3,5 @@
 export { exactMaxCut, type ExactMaxCutOptions, type ExactMethod } from "./exact-max-cut.js";
 export { grayCodeMaxCut, GRAY_MAX_VERTICES, type GrayOptions } from "./gray-code.js";
 export { branchAndBoundMaxCut, type BranchAndBoundOptions, type BranchOrder } from "./branch-and-bound.js";
-export { type ExactCutRecord, type ExactOptions, type ExactProgress } from "./common.js";
+export { type ExactCutRecord, type ExactOptions, type ExactProgress, type ExactStatus } from "./common.js";
+export { closingTolerance, componentSlack, exactSearchSlack, graphSlack, GRAY_RESYNC_STEPS } from "./exact-slack.js";

@@ -16,6 +16,7 @@
 
 import { InputError, invalidParameter } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
+import { checkMemory } from "../../limits/memory.js";
 import { provePsdByCholesky, type PsdProof } from "../../linalg/cholesky.js";
 import { lanczosExtreme } from "../../linalg/lanczos.js";
 import { shiftedLaplacianOperator } from "../../linalg/operator.js";
@@ -52,10 +53,17 @@ const OWNER = "certifyDual";
  */
 export const DENSE_PROOF_LIMIT = 3000;
 
+/**
+ * Largest |y_i| (and |shift|) accepted in a dual certificate: squares and sums of n such entries
+ * stay far inside the double range, so Lanczos and the eigensolver never overflow (an entry of
+ * 1e200 used to crash both). Meaningful duals are of the order of the weighted degrees.
+ */
+export const MAX_DUAL_ENTRY = 1e120;
+
 function checkY(graph: Graph, y: ArrayLike<number>, owner: string): void {
   if (y.length !== graph.n) throw new InputError(`${owner}: \`y\` has ${y.length} entries but the graph has ${graph.n} vertices`);
   for (let i = 0; i < y.length; i++) {
-    if (!Number.isFinite(y[i])) throw new InputError(`${owner}: \`y\`[${i}] is ${y[i]}, expected a finite number`);
+    if (!(Math.abs(y[i]) <= MAX_DUAL_ENTRY)) throw new InputError(`${owner}: \`y\`[${i}] is ${y[i]}, expected a finite number with |y| ≤ ${MAX_DUAL_ENTRY}`);
   }
 }
 
@@ -114,6 +122,7 @@ export function proveShift(graph: Graph, y: ArrayLike<number>, shift: number): P
   if (!Number.isFinite(shift)) throw new InputError(`proveShift: \`shift\` is ${shift}, expected a finite number`);
   const { n, offsets, neighbors, weights } = graph;
   if (n > 46000) throw new InputError(`proveShift: n = ${n} is too large for a dense Cholesky proof (at most 46000)`);
+  checkMemory(8 * n * n, `proveShift: a dense Cholesky proof at n = ${n}`);
   const a = new Float64Array(n * n);
   const { d, abs } = rowSums(graph);
   let diagError = 0;
@@ -223,6 +232,11 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
 export function certifyDual(graph: Graph, y: ArrayLike<number>, options: CertifyOptions = {}): UpperBoundRecord {
   checkY(graph, y, OWNER);
   checkCertifyOptions(options);
+  // Every method starts from a Lanczos estimate with a basis of at least 12 vectors in 1 GiB
+  // (src/linalg/lanczos.ts): refuse before copying y when that cannot fit.
+  if (graph.n > 12 && 12 * 8 * graph.n > 2 ** 30) {
+    throw new InputError(`${OWNER}: n = ${graph.n} vertices is too many for the Lanczos estimate of the shift (a basis of 12 vectors would exceed 1 GiB)`);
+  }
   const t0 = performance.now();
   const yy = Float64Array.from(y);
   const s = establishShift(graph, yy, options);
@@ -275,9 +289,9 @@ export function verifyCertificate(graph: Graph, certificate: DualCertificate, op
   if (y === null || typeof y !== "object" || typeof (y as ArrayLike<number>).length !== "number") return rejected(method, "`y` is not an array");
   if (y.length !== graph.n) return rejected(method, `\`y\` has ${y.length} entries but the graph has ${graph.n} vertices`);
   for (let i = 0; i < y.length; i++) {
-    if (typeof y[i] !== "number" || !Number.isFinite(y[i])) return rejected(method, `\`y\`[${i}] is ${String(y[i])}, expected a finite number`);
+    if (typeof y[i] !== "number" || !(Math.abs(y[i]) <= MAX_DUAL_ENTRY)) return rejected(method, `\`y\`[${i}] is ${String(y[i])}, expected a finite number with |y| ≤ ${MAX_DUAL_ENTRY}`);
   }
-  if (typeof shift !== "number" || !Number.isFinite(shift)) return rejected(method, `shift is ${String(shift)}, expected a finite number`);
+  if (typeof shift !== "number" || !(Math.abs(shift) <= MAX_DUAL_ENTRY)) return rejected(method, `shift is ${String(shift)}, expected a finite number with |shift| ≤ ${MAX_DUAL_ENTRY}`);
   const value = dualBoundValue(y, shift);
   if (graph.n === 0) return { ok: true, proven: true, value, recomputedShift: 0, shiftProof: method, message: "empty graph" };
 

@@ -4,6 +4,7 @@
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
+import { checkMemory } from "../../limits/memory.js";
 import { lanczosExtreme } from "../../linalg/lanczos.js";
 import { shiftedLaplacianOperator, weightedDegrees } from "../../linalg/operator.js";
 import { Rng } from "../../random/prng.js";
@@ -210,6 +211,8 @@ export function solveSdp(graph: Graph, options: SdpOptions = {}): SdpRecord {
   const gradTol = options.gradientTolerance ?? 0;
   const maxSweeps = options.maxSweeps ?? 10000;
   const deadline = options.seconds === undefined ? Infinity : t0 + options.seconds * 1000;
+  // V, its dual estimate and scratch: refuse up front rather than fail inside an allocation.
+  checkMemory(8 * n * r + 64 * n, `${OWNER}: n = ${n} vertices at rank ${r}`);
   const rng = new Rng(seed);
   const V = startVectors(n, r, rng, options.initial);
   const g = new Float64Array(r);

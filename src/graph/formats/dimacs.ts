@@ -3,7 +3,8 @@
 // The number of `e` lines must equal m. Any other line type is an error.
 
 import { inputErrorAt } from "../../errors.js";
-import { EdgeBuffer, type BuildResult } from "../builder.js";
+import { EdgeBuffer, MAX_VERTICES, type BuildResult } from "../builder.js";
+import { checkMemory, graphBuildBytes } from "../../limits/memory.js";
 import type { Graph } from "../graph.js";
 import { buildPlaced } from "./build-placed.js";
 import { asBytes, badUintMessage, isBlank, LineCursor, LineTokens, quoteToken, readUint, skipBlanks } from "./scan.js";
@@ -47,6 +48,7 @@ export function parseDimacs(text: string | Uint8Array, options: TextParseOptions
       m = readUint(buf, tok.starts[3], tok.ends[3]);
       if (m < 0) throw inputErrorAt(source, line, badUintMessage(buf, tok.starts[3], tok.ends[3], m, "edge count m"));
       pLine = line;
+      if (n <= MAX_VERTICES) checkMemory(graphBuildBytes(n, Math.min(m, Math.ceil(buf.length / 6)), false), `${source}:${line}: DIMACS problem line n = ${n}, m = ${m}`);
       edges = new EdgeBuffer({ tagged: true, capacity: Math.min(m, Math.ceil(buf.length / 6)) });
       continue;
     }

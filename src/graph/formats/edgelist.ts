@@ -29,6 +29,12 @@ import { DEFAULT_FILE_NAME, type TextParseOptions } from "./types.js";
 export interface EdgeListOptions extends TextParseOptions {
   /** Vertex numbering; when omitted: the header's `base`, else 0. */
   base?: 0 | 1;
+  /**
+   * Refuse a 2-column file whose first line reads like a count header `n m` (m edge lines follow,
+   * no id above n): a guess either way could build a wrong graph (default true; the reader turns it
+   * off when the user named the format explicitly).
+   */
+  refuseCountHeader?: boolean;
 }
 
 export interface EdgeListHeader {
@@ -80,6 +86,8 @@ export function parseEdgeList(text: string | Uint8Array, options: EdgeListOption
   let firstEdgeLine = 0;
   let edges: EdgeBuffer | null = null;
   let maxId = -1;
+  // The first edge line as written, and the largest id written after it (count-header check).
+  let firstA = -1, firstB = -1, laterMax = -1;
   const resolveBase = (): 0 | 1 => {
     if (options.base !== undefined && header?.base !== undefined && options.base !== header.base) {
       throw inputErrorAt(source, header.line, `edge-list header says base=${header.base} but the reader was asked for base ${options.base}`);
@@ -117,6 +125,10 @@ export function parseEdgeList(text: string | Uint8Array, options: EdgeListOption
     if (u < 0) throw inputErrorAt(source, line, badUintMessage(buf, us, ue, u, "vertex id"));
     let v = readUint(buf, vs, ve);
     if (v < 0) throw inputErrorAt(source, line, badUintMessage(buf, vs, ve, v, "vertex id"));
+    if (edges.length === 0) {
+      firstA = u;
+      firstB = v;
+    } else laterMax = Math.max(laterMax, u, v);
     if (base === 1) {
       if (u === 0 || v === 0) throw inputErrorAt(source, line, "vertex id 0 in a 1-based edge list (ids start at 1)");
       u--;
@@ -139,6 +151,14 @@ export function parseEdgeList(text: string | Uint8Array, options: EdgeListOption
   if (edges === null) {
     base = resolveBase();
     edges = new EdgeBuffer({ tagged: true, capacity: 16 });
+  }
+  if (options.refuseCountHeader !== false && header === null && cols === 2 && edges.length >= 2 && firstB === edges.length - 1 && laterMax <= firstA) {
+    throw inputErrorAt(
+      source,
+      firstEdgeLine,
+      `the first line "${firstA} ${firstB}" reads like a header "n m" (${firstB} edge lines follow, no id above ${firstA}); ` +
+        `halfplus will not guess: remove it, write it as "# edgelist n=${firstA} m=${firstB}", or pass --format edgelist to read it as an edge`,
+    );
   }
   if (header?.m !== undefined && header.m !== edges.length) {
     throw inputErrorAt(source, header.line, `edge-list header says m = ${header.m} but the file has ${edges.length} edge lines`);

@@ -3,7 +3,8 @@
 // no comments. A weight column of all ones gives an unweighted graph.
 
 import { inputErrorAt } from "../../errors.js";
-import { EdgeBuffer, type BuildResult } from "../builder.js";
+import { EdgeBuffer, MAX_VERTICES, type BuildResult } from "../builder.js";
+import { checkMemory, graphBuildBytes } from "../../limits/memory.js";
 import type { Graph } from "../graph.js";
 import { buildPlaced } from "./build-placed.js";
 import { asBytes, badUintMessage, badWeightMessage, LineCursor, LineTokens, readDecimal, readUint, skipBlanks } from "./scan.js";
@@ -31,7 +32,9 @@ export function parseGset(text: string | Uint8Array, options: TextParseOptions =
       m = readUint(buf, tok.starts[1], tok.ends[1]);
       if (m < 0) throw inputErrorAt(source, line, `gset header: ${badUintMessage(buf, tok.starts[1], tok.ends[1], m, "edge count m")}`);
       headerLine = line;
-      // A lying header must not allocate: no line is shorter than 6 bytes ("1 2 1\n").
+      // A lying header must not allocate: no line is shorter than 6 bytes ("1 2 1\n"). (Above
+      // MAX_VERTICES the builder refuses the count itself, naming the file.)
+      if (n <= MAX_VERTICES) checkMemory(graphBuildBytes(n, Math.min(m, Math.ceil(buf.length / 6)), true), `${source}:${line}: gset header n = ${n}, m = ${m}`);
       edges = new EdgeBuffer({ weighted: true, tagged: true, capacity: Math.min(m, Math.ceil(buf.length / 6)) });
       continue;
     }

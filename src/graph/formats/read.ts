@@ -5,7 +5,9 @@
 
 import { createReadStream } from "node:fs";
 import type { Readable } from "node:stream";
-import { InputError, invalidParameter } from "../../errors.js";
+import { InputError, inputErrorAt, invalidParameter } from "../../errors.js";
+import { MAX_LINE_BYTES, MAX_WHOLE_FILE_BYTES } from "../../limits/input.js";
+import { checkMemory, formatBytes } from "../../limits/memory.js";
 import type { BuildOptions } from "../builder.js";
 import { detectFromContent, formatFromExtension } from "./detect.js";
 import { parseDimacs } from "./dimacs.js";
@@ -110,6 +112,7 @@ async function readHead(chunks: Chunks): Promise<Buffer | null> {
 
 async function* nautyStream(chunks: Chunks, source: string, build: BuildOptions | undefined): AsyncGenerator<LoadedGraph> {
   let carry: Buffer[] = []; // pieces of a line split across chunks
+  let carried = 0;
   let line = 0;
   let position = 0; // graphs yielded so far
   for (;;) {
@@ -119,7 +122,12 @@ async function* nautyStream(chunks: Chunks, source: string, build: BuildOptions 
     for (;;) {
       const nl = chunk.indexOf(10, p);
       if (nl < 0) {
-        if (p < chunk.length) carry.push(chunk.subarray(p));
+        if (p < chunk.length) {
+          carry.push(chunk.subarray(p));
+          carried += chunk.length - p;
+          // A line without end (/dev/zero, a runaway pipe) must not grow without bound.
+          if (carried > MAX_LINE_BYTES) throw inputErrorAt(source, line + 1, `line longer than ${formatBytes(MAX_LINE_BYTES)}: not a graph6/sparse6 line halfplus can hold`);
+        }
         break;
       }
       let buf = chunk;
@@ -131,6 +139,8 @@ async function* nautyStream(chunks: Chunks, source: string, build: BuildOptions 
         s = 0;
         e = buf.length;
         carry = [];
+        carried = 0;
+        if (e > MAX_LINE_BYTES) throw inputErrorAt(source, line + 1, `line longer than ${formatBytes(MAX_LINE_BYTES)}: not a graph6/sparse6 line halfplus can hold`);
       }
       p = nl + 1;
       line++;
@@ -148,12 +158,28 @@ async function* nautyStream(chunks: Chunks, source: string, build: BuildOptions 
 }
 
 async function wholeFile(chunks: Chunks, source: string, format: GraphFormat, options: ReadOptions): Promise<LoadedGraph> {
+  const explicit = options.format !== undefined;
   const parts: Buffer[] = [];
-  for (let c = await chunks.next(); c !== null; c = await chunks.next()) parts.push(c);
-  const buf = parts.length === 1 ? parts[0] : Buffer.concat(parts);
+  let size = 0;
+  let nextCheck = 2 ** 26;
+  for (let c = await chunks.next(); c !== null; c = await chunks.next()) {
+    size += c.length;
+    if (size > MAX_WHOLE_FILE_BYTES) throw new InputError(`${source}: ${format} input larger than ${formatBytes(MAX_WHOLE_FILE_BYTES)}; halfplus reads whole-file formats into one buffer`);
+    if (size >= nextCheck) {
+      // Parsing and building take several times the text: size that before reading on.
+      checkMemory(6 * size, `${source}: ${format} input of ${formatBytes(size)} and more`);
+      nextCheck *= 2;
+    }
+    parts.push(c);
+  }
+  const buf = parts.length === 1 ? parts[0] : Buffer.concat(parts, size);
   const opts = { file: source, build: options.build };
   const r =
-    format === "edgelist" ? parseEdgeList(buf, { ...opts, base: options.base }) : format === "gset" ? parseGset(buf, opts) : parseDimacs(buf, opts);
+    format === "edgelist"
+      ? parseEdgeList(buf, { ...opts, base: options.base, refuseCountHeader: !explicit })
+      : format === "gset"
+        ? parseGset(buf, opts)
+        : parseDimacs(buf, opts);
   return { graph: r.graph, file: source, position: 1, line: 1, format, report: r.report };
 }
 

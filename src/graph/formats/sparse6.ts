@@ -6,10 +6,11 @@
 // where the rest is itself a complete encoding cannot be caught: sparse6 carries no edge count.
 
 import { InputError, inputErrorAt } from "../../errors.js";
-import { EdgeBuffer, type BuildOptions, type BuildResult } from "../builder.js";
+import { EdgeBuffer, MAX_VERTICES as MAX_BUILD_VERTICES, type BuildOptions, type BuildResult } from "../builder.js";
 import type { Graph } from "../graph.js";
 import { encodeGraphSize, graphSizeFieldLength, readGraphSize } from "./graph-size.js";
 import { asBytes, hasPrefix } from "./scan.js";
+import { checkMemory, graphBuildBytes } from "../../limits/memory.js";
 import { DEFAULT_FILE_NAME, type Where } from "./types.js";
 import { assertUnitWeights } from "./unweighted.js";
 
@@ -120,6 +121,9 @@ export function decodeSparse6(
     throw fail(problem);
   }
   const place = where.line === undefined ? source : `${source}:${where.line}`;
+  // A few bytes can declare n = 10^8: size the graph before building it.
+  checkMemory(graphBuildBytes(n, edges.length, false), `${place}: sparse6 graph with n = ${n}`);
+  if (n > MAX_BUILD_VERTICES) throw fail(`sparse6 graph has n = ${n} vertices; halfplus graphs have at most ${MAX_BUILD_VERTICES.toExponential(0)}`);
   return edges.build(n, { ...build, describeEdge: (i) => `${place}: sparse6 edge ${i + 1}` });
 }
 
