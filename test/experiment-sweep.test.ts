@@ -9,6 +9,8 @@ import type { SweepProgress } from "../src/experiment/progress.js";
 import { progressLine, progressSentence } from "../src/experiment/progress.js";
 import { openStore } from "../src/experiment/sqlite-store.js";
 import { runSweep } from "../src/experiment/sweep.js";
+import { packJson } from "../src/experiment/witness.js";
+import { eigenvalueUpperBound } from "../src/cut/relaxation/eigenvalue-bound.js";
 import { encodeGraph6, parseGraph6 } from "../src/graph/formats/graph6.js";
 import { parseSparse6 } from "../src/graph/formats/sparse6.js";
 import { graphHash } from "../src/graph/hash.js";
@@ -211,5 +213,27 @@ describe("commands around the store", () => {
     expect(imp.stdout).toMatch(/1 rows, 1 added/);
     const after = halfplus(["verify", merged]);
     expect(after.stdout).toMatch(new RegExp(`${JOBS} of ${JOBS} stored rows verified; 1 imported row carries no bracket to re-check`));
+  });
+
+  it("a stored upper end that is only an estimate follows the record files' rule: exit 3, 0 with --accept-estimates", () => {
+    // The Petersen graph: λmax(L) = 5 (Brouwer & Haemers, Spectra of Graphs, §1.4.1), so the
+    // eigenvalue bound is 10·5/4 = 12.5, floored to 12 = its max cut (from memory). With the shift
+    // taken as a Lanczos estimate the bound is not a proof, so the row verifies as an estimate.
+    const w1 = openStore(join(dir, "w1.db"), { readonly: true });
+    const row = [...w1.rows({ family: "petersen" })][0];
+    w1.close();
+    const est = eigenvalueUpperBound(family("petersen"), { shiftProof: "lanczos-estimate" });
+    const certificate = { kind: "psd-dual", y: Array.from(est.certificate!.y), shift: est.certificate!.shift, shiftProof: "lanczos-estimate", roundedDown: true, tolerance: 0 };
+    const path = join(dir, "estimate.db");
+    const st = openStore(path);
+    st.insert([{ ...row, certificate: packJson(certificate), certificateKind: "psd-dual", upper: Math.floor(est.value), surplusUpper: Math.floor(est.value) - 7.5, upperKind: "estimate", exact: 0, upperMethod: "eigenvalue" }]);
+    st.close();
+    const plain = halfplus(["verify", path]);
+    expect(plain.code, plain.stdout).toBe(3);
+    expect(plain.stdout).toMatch(/^row 1 \(petersen\): estimate: max cut in \[12, 12\]/);
+    expect(plain.stdout).toMatch(/0 of 1 stored rows verified \(1 with an estimated upper end\)/);
+    expect(halfplus(["verify", path, "--accept-estimates"]).code).toBe(0);
+    const json = JSON.parse(halfplus(["verify", path, "--json"]).stdout);
+    expect(json).toMatchObject({ row: 1, ok: true, verdict: "estimate", upperKind: "estimate" });
   });
 });
