@@ -4,7 +4,8 @@ import type { CommandSpec } from "../args.js";
 import { cutCommand } from "./cut.js";
 import { familiesCommand } from "./families.js";
 import { graphCommand } from "./graph.js";
+import { kernelCommand } from "./kernel.js";
 import { sdpExportCommand } from "./sdp-export.js";
 import { verifyCommand } from "./verify.js";
 
-export const COMMANDS: readonly CommandSpec[] = [graphCommand, familiesCommand, cutCommand, verifyCommand, sdpExportCommand];
+export const COMMANDS: readonly CommandSpec[] = [graphCommand, familiesCommand, cutCommand, verifyCommand, sdpExportCommand, kernelCommand];
