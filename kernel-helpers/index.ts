@@ -9,3 +9,4 @@ export * from "./describe.js";
 export * from "./bracket-card.js";
 export * from "./progress.js";
 export * from "./provenance.js";
+export * from "./style.js";

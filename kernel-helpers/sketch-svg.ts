@@ -224,7 +224,8 @@ export function sketchSvg(figure: PlotFigure, options: SketchOptions = {}): stri
   if (legendItems.length > 0) out.push(`<rect x="${lx}" y="${plot.t - 6}" width="${legendWidth}" height="${legendItems.length * 18 + 8}" fill="${INK.paper}" stroke="${INK.grid}"/>`);
   for (const t of legendItems) {
     const colour = t.marker?.color ?? t.line?.color ?? INK.text;
-    if (t.mode.includes("lines") && !t.mode.includes("markers")) {
+    if (t.fill === "tonexty") out.push(`<rect x="${lx + 6}" y="${ly}" width="20" height="9" fill="${t.fillcolor ?? colour}"/>`);
+    else if (t.mode.includes("lines") && !t.mode.includes("markers")) {
       const dash = DASHES[t.line?.dash ?? "solid"];
       out.push(`<line x1="${lx + 6}" x2="${lx + 26}" y1="${ly + 4}" y2="${ly + 4}" stroke="${colour}" stroke-width="${t.line?.width ?? 1.5}"${dash ? ` stroke-dasharray="${dash}"` : ""}/>`);
     } else if (t.marker) out.push(marker(t.marker.symbol, lx + 16, ly + 4, t.marker.size, t.marker.color, t.marker.line.color));
