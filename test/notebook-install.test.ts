@@ -78,7 +78,7 @@ describeNeeds([tool("jupyter-nbconvert"), tool("npm"), tool("git")], "installing
     expect(texts.some((t) => t.startsWith("petersen\nvertices"))).toBe(true);
     expect(texts.some((t) => t.includes("12 ≤ max cut ≤ 12"))).toBe(true);
     expect(texts.some((t) => t.startsWith("figure: "))).toBe(true);
-  });
+  }, 900_000);
 
   it("a project that depends on halfplus (npm pack, npm install): a notebook in the project imports both entry points", () => {
     const clone = join(work, "clone");
@@ -94,5 +94,5 @@ describeNeeds([tool("jupyter-nbconvert"), tool("npm"), tool("git")], "installing
     const texts = runNotebook([process.execPath, join(project, "node_modules", "halfplus", "dist", "cli", "main.js")], project, project, "dependency");
     expect(texts.some((t) => t.includes("12 ≤ max cut ≤ 12"))).toBe(true);
     expect(texts.some((t) => t.startsWith("figure: "))).toBe(true);
-  });
+  }, 900_000);
 });

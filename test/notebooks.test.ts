@@ -107,7 +107,7 @@ describeNeeds(JUPYTER, "notebooks executed headless through the halfplus kernel"
         }
       });
       executed.set(file, out);
-    });
+    }, 600_000);
 
   it("quickstart: progress updated in one output, the figure as HTML + SVG + text, plotly.js embedded once", () => {
     const out = executed.get("quickstart.ipynb");
@@ -123,6 +123,8 @@ describeNeeds(JUPYTER, "notebooks executed headless through the halfplus kernel"
     expect(figures).toHaveLength(1);
     expect(Object.keys(figures[0].data!).sort()).toEqual(["image/svg+xml", "text/html", "text/plain"]);
     expect(text(figures[0].data!["image/svg+xml"])).toMatch(/^<svg/);
+    // Chromium is present here (a requirement of this suite), so the static picture is plotly's own rendering.
+    expect(text(figures[0].data!["text/html"])).toContain('data-hp-static="chromium"');
     const all = outputs.map((o) => text(o.data?.["text/html"])).join("\n");
     expect(all.split("embedded once so the notebook works offline").length - 1).toBe(1);
     const cards = outputs.filter((o) => o.data?.["text/html"] && text(o.data["text/html"]).includes("hp-nb-bracket"));
@@ -166,7 +168,7 @@ describeNeeds(JUPYTER, "notebooks executed headless through the halfplus kernel"
     } finally {
       await ctx.close();
     }
-  });
+  }, 300_000);
 
   it("a failing cell fails the run, and the cells after it do not run", () => {
     const dir = join(work, "failing");
@@ -196,5 +198,5 @@ describeNeeds(JUPYTER, "notebooks executed headless through the halfplus kernel"
     } finally {
       rmSync(inside, { recursive: true, force: true });
     }
-  });
+  }, 300_000);
 });
