@@ -18,8 +18,15 @@ function newestSourceMtime(dir: string): number {
 
 /** `npm test` builds first; when a suite runs on its own, rebuild a missing or stale dist. */
 export function ensureBuilt(): void {
-  if (existsSync(BIN) && statSync(BIN).mtimeMs >= newestSourceMtime(join(ROOT, "src"))) return;
-  execSync("npx tsc -p tsconfig.build.json", { cwd: ROOT, stdio: "inherit" });
+  const notebookEntry = join(ROOT, "dist", "notebook", "index.js");
+  const fresh =
+    existsSync(BIN) &&
+    existsSync(notebookEntry) &&
+    statSync(BIN).mtimeMs >= newestSourceMtime(join(ROOT, "src")) &&
+    statSync(notebookEntry).mtimeMs >= Math.max(newestSourceMtime(join(ROOT, "src")), newestSourceMtime(join(ROOT, "kernel-helpers")));
+  if (fresh) return;
+  // Both builds: the package (src → dist) and halfplus/notebook (kernel-helpers → dist/notebook).
+  execSync("npm run --silent build", { cwd: ROOT, stdio: "inherit" });
 }
 
 export interface CliResult {

@@ -5,6 +5,7 @@ import { cutCommand } from "./cut.js";
 import { encodeCommand } from "./encode.js";
 import { familiesCommand } from "./families.js";
 import { graphCommand } from "./graph.js";
+import { kernelCommand } from "./kernel.js";
 import { sdpExportCommand } from "./sdp-export.js";
 import { verifyCommand } from "./verify.js";
 import { sweepCommand } from "./sweep.js";
@@ -12,4 +13,4 @@ import { exportCommand } from "./export.js";
 import { importCommand } from "./import.js";
 import { mergeCommand } from "./merge.js";
 
-export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand];
+export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, kernelCommand];
