@@ -9,7 +9,7 @@ import { InputError } from "../errors.js";
 import { isPrimePower } from "../families/finite-field.js";
 import { GRAPH_FORMATS, type GraphFormat } from "../graph/formats/types.js";
 import { detectFromContent, formatFromExtension } from "../graph/formats/detect.js";
-import { jsonFault } from "./json-position.js";
+import { parseStrictJson } from "../limits/strict-json.js";
 import { STORED_DEGREES, type StoredDegree } from "./rows.js";
 import {
   EFFORTS,
@@ -342,12 +342,9 @@ function readPlanFile(path: string): Json {
     const code = (e as NodeJS.ErrnoException).code;
     throw new InputError(`${path}: cannot read plan (${code === "ENOENT" ? "no such file" : code === "EISDIR" ? "is a directory" : (code ?? String(e))})`);
   }
-  try {
-    return JSON.parse(text);
-  } catch {
-    const f = jsonFault(text);
-    throw new InputError(f === null ? `${path}: not valid JSON` : `${path}:${f.line}:${f.column}: not valid JSON: ${f.problem}`);
-  }
+  // Strict JSON (src/limits/strict-json.ts): syntax errors name line and column, and a key given
+  // twice is an error rather than the last one silently winning.
+  return parseStrictJson(text, path) as Json;
 }
 
 /** Graphs in a file: non-blank lines of a graph6/sparse6 stream, 1 for the whole-file formats. */

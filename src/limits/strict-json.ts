@@ -1,6 +1,7 @@
-// JSON as stored records need it: a duplicate key, too deep a nesting, or trailing garbage is bad
-// input naming the line and key, never something two parsers could read differently (JSON.parse
-// keeps the last of two equal keys silently; RFC 8259 §4 leaves the meaning open).
+// JSON as records and plans need it: a syntax error (RFC 8259's grammar), a duplicate key, too deep
+// a nesting, or trailing garbage is bad input naming the line, column and key, never something two
+// parsers could read differently (JSON.parse keeps the last of two equal keys silently; RFC 8259 §4
+// leaves the meaning open) and never Node's multi-line message without a position.
 
 import { InputError } from "../errors.js";
 
@@ -25,8 +26,13 @@ class Parser {
     private readonly where: string,
   ) {}
 
-  private fail(problem: string): never {
-    throw new InputError(`${this.where}:${this.line}: not valid JSON: ${problem} (column ${this.p - this.lineStart + 1})`);
+  fail(problem: string): never {
+    throw new InputError(`${this.where}:${this.line}:${this.p - this.lineStart + 1}: not valid JSON: ${problem}`);
+  }
+
+  /** What stands at the current place, for messages. */
+  what(): string {
+    return this.p >= this.text.length ? "the end of the text" : JSON.stringify(this.text[this.p]);
   }
 
   /** Skip JSON whitespace; true when text remains. */
@@ -59,7 +65,7 @@ class Parser {
     if (t.startsWith("null", this.p)) return this.literal(4, null);
     NUMBER_RE.lastIndex = this.p;
     const m = NUMBER_RE.exec(t);
-    if (m === null) this.fail(`unexpected ${JSON.stringify(t.slice(this.p, this.p + 12))}`);
+    if (m === null) this.fail(`expected a value, found ${JSON.stringify(t.slice(this.p, this.p + 12))}`);
     this.p += m[0].length;
     return Number(m[0]);
   }
@@ -75,7 +81,7 @@ class Parser {
     let q = s + 1;
     for (;;) {
       const e = t.indexOf('"', q);
-      if (e < 0) this.fail("unterminated string");
+      if (e < 0) this.fail("a string is not closed");
       let bs = 0;
       for (let k = e - 1; k > s && t.charCodeAt(k) === 92; k--) bs++;
       if (bs % 2 === 0) {
@@ -88,7 +94,7 @@ class Parser {
     try {
       out = JSON.parse(t.slice(s, q + 1)) as string;
     } catch {
-      this.fail("bad string (a raw control character or a bad escape)");
+      this.fail("a bad string (a control character such as a line break, or a bad escape)");
     }
     this.p = q + 1;
     return out;
@@ -103,13 +109,14 @@ class Parser {
       return out;
     }
     for (;;) {
+      if (out.length > 0 && this.skip() && this.text.charCodeAt(this.p) === 93) this.fail("a comma before ] (trailing commas are not JSON)");
       out.push(this.value(depth, `${path}[${out.length}]`));
-      if (!this.skip()) this.fail("unterminated array");
+      if (!this.skip()) this.fail("a list is not closed");
       const c = this.text.charCodeAt(this.p++);
       if (c === 93) return out;
       if (c !== 44) {
         this.p--;
-        this.fail("expected , or ] in an array");
+        this.fail(`expected , or ] in a list, found ${this.what()}`);
       }
     }
   }
@@ -124,22 +131,24 @@ class Parser {
       return out;
     }
     for (;;) {
-      if (!this.skip() || this.text.charCodeAt(this.p) !== 34) this.fail("expected a key in double quotes");
+      if (!this.skip() || this.text.charCodeAt(this.p) !== 34) {
+        this.fail(seen.size > 0 && this.text.charCodeAt(this.p) === 125 ? "a comma before } (trailing commas are not JSON)" : `expected a quoted key, found ${this.what()}`);
+      }
       const key = this.string();
       const here = path === "" ? key : `${path}.${key}`;
       if (seen.has(key)) this.fail(`duplicate key ${JSON.stringify(here.length > 80 ? `${here.slice(0, 80)}...` : here)}`);
       seen.add(key);
-      if (!this.skip() || this.text.charCodeAt(this.p) !== 58) this.fail("expected : after a key");
+      if (!this.skip() || this.text.charCodeAt(this.p) !== 58) this.fail(`expected : after the key, found ${this.what()}`);
       this.p++;
       const v = this.value(depth, here);
       // An own property even for "__proto__", so a key can never change the object's prototype.
       Object.defineProperty(out, key, { value: v, enumerable: true, writable: true, configurable: true });
-      if (!this.skip()) this.fail("unterminated object");
+      if (!this.skip()) this.fail("an object is not closed");
       const c = this.text.charCodeAt(this.p++);
       if (c === 125) return out;
       if (c !== 44) {
         this.p--;
-        this.fail("expected , or } in an object");
+        this.fail(`expected , or } in an object, found ${this.what()}`);
       }
     }
   }
@@ -159,9 +168,10 @@ export function parseJsonSequence(text: string, where: string): JsonValueAt[] {
   return out;
 }
 
-/** Exactly one JSON value (surrounding whitespace allowed). */
+/** Exactly one JSON value (surrounding whitespace allowed): a plan file, one record. */
 export function parseStrictJson(text: string, where: string): unknown {
-  const all = parseJsonSequence(text, where);
-  if (all.length !== 1) throw new InputError(`${where}: expected one JSON value, found ${all.length}`);
-  return all[0].value;
+  const parser = new Parser(text.charCodeAt(0) === 0xfeff ? ` ${text.slice(1)}` : text, where);
+  const value = parser.value(0, "");
+  if (parser.skip()) parser.fail(`unexpected ${parser.what()} after the JSON value`);
+  return value;
 }
