@@ -5,7 +5,7 @@ import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 
 const here = dirname(fileURLToPath(import.meta.url));
-export const SHARED_REFERENCE = resolve(here, "..", "..", "shared", "reference");
+export const SHARED_REFERENCE = process.env.HALFPLUS_REFERENCE ?? resolve(here, "..", "..", "shared", "reference");
 export const hasShared = () => existsSync(SHARED_REFERENCE);
 
 /** A `name,value` table from ../shared/reference/gset (header line skipped) as a Map name → Number(value). */

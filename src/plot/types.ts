@@ -1,7 +1,7 @@
 // The shapes the figure builders read (rows as the results store hands them, declared in
-// src/experiment/rows.ts; fits from src/fit) and the shape they return (a plain plotly figure: traces and a layout, never a DOM node).
-// Fitted curves and exponents come in the shapes src/fit defines (src/plot sits above src/fit);
-// any object with those fields can be plotted.
+// src/experiment/rows.ts; fitted curves and exponents in the shapes src/fit defines, imported as
+// types only, so any object with those fields can be plotted) and the shape they return (a plain
+// plotly figure: traces and a layout, never a DOM node).
 
 import type { CurveFit, ExponentEstimate } from "../fit/index.js";
 import type { DegreeMeasure, SurplusRow } from "../experiment/rows.js";
