@@ -265,8 +265,11 @@ describe("the explicit vector method", () => {
     expect(() => vectorMethodGuarantee(g, { sets: [[2], [], [], [], []] })).toThrow(/`sets\[0\]`: should contain only neighbours of vertex 0; 2 is not one/);
     expect(() => vectorMethodGuarantee(g, { sets: [[1, 1], [], [], [], []] })).toThrow(/should not repeat vertex 1/);
     expect(() => vectorMethodGuarantee(g, { sets: [[1]] })).toThrow(/one set per vertex/);
-    expect(() => vectorMethodGuarantee(g, { eps: [0.8, 0.5, 0.5, 0.5, 0.5] })).toThrow(/`eps\[0\]`: should lie in \(0, 1\/√\|V_i\|\]/);
-    expect(() => vectorMethodGuarantee(g, { eps: [0, 0.5, 0.5, 0.5, 0.5] })).toThrow(InputError);
+    expect(() => vectorMethodGuarantee(g, { eps: [0.8, 0.5, 0.5, 0.5, 0.5] })).toThrow(/`eps\[0\]`: should lie in \[0, 1\/√\|V_i\|\]/);
+    expect(() => vectorMethodGuarantee(g, { eps: [-0.1, 0.5, 0.5, 0.5, 0.5] })).toThrow(InputError);
+    expect(() => vectorMethodGuarantee(g, { eps: [NaN, 0.5, 0.5, 0.5, 0.5] })).toThrow(InputError);
+    // ε_i = 0 switches vertex i off (x_i = e_i); the guarantee then simply drops its terms.
+    expect(vectorMethodGuarantee(g, { eps: [0, 0.5, 0.5, 0.5, 0.5] }).surplus).toBeCloseTo((4 * 0.5 * 2) / (2 * Math.PI), 12);
     expect(() => vectorMethodGuarantee(g, { epsScale: 1.5 })).toThrow(/`epsScale`/);
     expect(() => vectorMethodRound(g, { trials: -1 })).toThrow(/`trials`/);
   });
