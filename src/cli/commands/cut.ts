@@ -34,7 +34,7 @@ const SHIFT_WORDS: Readonly<Record<string, string>> = {
   "lanczos-estimate": "a Lanczos estimate, not a proof",
 };
 
-function words(method: string): string {
+export function words(method: string): string {
   return METHOD_WORDS[method] ?? method;
 }
 
@@ -75,8 +75,11 @@ export function formatBracket(label: string, r: BracketRecord): string {
   return out.join("\n");
 }
 
-/** Progress on stderr: rewritten in place on a terminal, one line per update (at most 4/s) otherwise. */
-function progressWriter(stderr: NodeJS.WritableStream, label: string): { update: (p: BracketProgress) => void; done: () => void } {
+/**
+ * Progress on stderr: rewritten in place on a terminal, one line per update (at most 4/s) otherwise.
+ * `stage` reports a later step of a command that runs after the bracket (e.g. `halfplus bounds`).
+ */
+export function progressWriter(stderr: NodeJS.WritableStream, label: string): { update: (p: BracketProgress) => void; stage: (text: string) => void; done: () => void } {
   const tty = (stderr as NodeJS.WriteStream).isTTY === true;
   let last = -Infinity;
   let shown = false;
@@ -85,6 +88,11 @@ function progressWriter(stderr: NodeJS.WritableStream, label: string): { update:
       if (p.elapsed - last < 0.25 && p.method !== "start") return;
       last = p.elapsed;
       const line = `${label}: max cut in [${num(p.lower)}, ${num(p.upper)}] after ${p.method === "start" ? "start" : words(p.method)}, ${num(p.elapsed)} s`;
+      stderr.write(tty ? `\r\x1b[2K${line}` : `${line}\n`);
+      shown = true;
+    },
+    stage(text) {
+      const line = `${label}: ${text}`;
       stderr.write(tty ? `\r\x1b[2K${line}` : `${line}\n`);
       shown = true;
     },

@@ -226,8 +226,11 @@ export function boundsAccount(graph: Graph, options: BoundsAccountOptions = {}):
   if (graph.weighted) {
     const tf = triangleFreeBound(graph);
     rows.push(row("triangle-free", tf, L, []));
-    for (const name of ["vector-method", "vector-optimised", "few-triangles", "decomposition-cut", "decomposition-guarantee"] as const) {
+    for (const name of ["vector-method", "vector-optimised", "few-triangles"] as const) {
       rows.push(row(name, { name, value: null, surplus: null, applies: false, reason: "proved for unweighted graphs only" }, L, []));
+    }
+    for (const name of ["decomposition-cut", "decomposition-guarantee"] as const) {
+      rows.push(row(name, { name, value: null, surplus: null, applies: false, reason: "the construction is for unweighted graphs" }, L, []));
     }
     notes.push("weighted graph: only the bracket applies; every surplus argument here is for unweighted graphs");
   } else {
