@@ -78,6 +78,9 @@ function ascend(graph: Graph, inSet: Uint8Array, eps: Float64Array, start: numbe
   const slot = new Int32Array(n);
   const L = VECTOR_LINEAR_FACTOR;
   const Q = VECTOR_OVERLAP_FACTOR;
+  // Block i's optimum depends only on (V_j, ε_j) for j ∈ N(i): a vertex is looked at again only
+  // after a neighbour changed (all are dirty at the start).
+  const dirty = new Uint8Array(n).fill(1);
   let f = start;
   const trace = [f];
   let sweeps = 0;
@@ -88,14 +91,14 @@ function ascend(graph: Graph, inSet: Uint8Array, eps: Float64Array, start: numbe
     for (let i = 0; i < n; i++) {
       const o = off[i];
       const d = off[i + 1] - o;
-      if (d === 0) continue;
-      // A vertex in no triangle has w_ik = 0 for ever: its block optimum (all of N(i), cap) never moves.
-      if (sweeps > 1 && inTriangle[i] === 0) continue;
+      if (d === 0 || dirty[i] === 0) continue;
+      dirty[i] = 0;
       for (let t = 0; t < d; t++) {
         owner[nb[o + t]] = i;
         slot[nb[o + t]] = t;
         b[t] = 0;
       }
+      // A vertex in no triangle has w_ik = 0: no neighbour's set can hold a neighbour of i.
       if (inTriangle[i] > 0) {
         for (let a = o; a < o + d; a++) {
           const j = nb[a];
@@ -140,6 +143,7 @@ function ascend(graph: Graph, inSet: Uint8Array, eps: Float64Array, start: numbe
       if (best > current + 1e-12 * (1 + Math.abs(current))) {
         changed++;
         f += best - current;
+        for (let t = 0; t < d; t++) dirty[nb[o + t]] = 1;
         if (!optimiseSets) {
           eps[i] = bestSize === 0 ? 0 : 1 / Math.sqrt(d);
         } else {

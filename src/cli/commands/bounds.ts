@@ -114,7 +114,7 @@ export const boundsCommand: CommandSpec = {
     { name: "trials", type: "integer", description: "rounding trials per vector choice", default: 200, min: 1, max: 1e7, placeholder: "N" },
     { name: "fixed-sets", type: "boolean", description: "keep V_i = N(i) and optimise ε only" },
     { name: "pattern", type: "string", description: "H the graph is free of, for the decomposition (K4, C5, K2,3, …; default K_{ω+1}, ω the clique number)", placeholder: "H" },
-    { name: "triangle-factor", type: "number", description: "decomposition stops setting pieces aside once T ≤ c·m·√Δ", default: DEFAULT_TRIANGLE_FACTOR, min: 0, max: 1e6, placeholder: "C" },
+    { name: "triangle-factor", type: "number", description: `decomposition stops setting pieces aside once T ≤ C·m·√Δ (default 1/(3π) ≈ ${num(DEFAULT_TRIANGLE_FACTOR)}: below it the few-triangles form keeps half its triangle-free value)`, min: 0, max: 1e6, placeholder: "C" },
     { name: "max-depth", type: "integer", description: "deepest piece level decomposed again (default for H = K_r: r − 4; 1 otherwise)", min: 0, max: 64, placeholder: "K" },
     { name: "exact-vertices", type: "integer", description: "pieces up to this many vertices are cut exactly", default: DEFAULT_EXACT_VERTICES, min: 0, max: GRAY_MAX_VERTICES, placeholder: "K" },
     { name: "max-trials", type: "integer", description: "most rounding trials spent to reach a stage's guarantee in the decomposition", default: 1024, min: 1, max: 1e8, placeholder: "N" },
@@ -138,7 +138,7 @@ export const boundsCommand: CommandSpec = {
     const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
     const decomposition = {
       pattern: o["pattern"] as string | undefined,
-      triangleFactor: o["triangle-factor"] as number,
+      triangleFactor: o["triangle-factor"] as number | undefined,
       maxDepth: o["max-depth"] as number | undefined,
       exactVertices: o["exact-vertices"] as number,
       maxTrials: o["max-trials"] as number,
