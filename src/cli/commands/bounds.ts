@@ -12,7 +12,7 @@ import type { CommandSpec } from "../args.js";
 import { formatNumber as num, formatRows, formatTable } from "../format.js";
 import { writeLine } from "../output.js";
 import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
-import { progressWriter, words } from "./cut.js";
+import { progressWanted, progressWriter, SOLVER_REFUSALS, words } from "./cut.js";
 
 /** Each argument in a few words (records keep the ids). */
 const EVALUATOR_WORDS: Readonly<Record<AccountEvaluator, string>> = {
@@ -122,10 +122,7 @@ export const boundsCommand: CommandSpec = {
     { name: "progress", type: "boolean", description: "report progress on stderr (default: only when stderr is a terminal)" },
     ...SOURCE_OPTIONS,
   ],
-  refused: {
-    seed: "ambiguous: use --solver-seed N for the solvers and roundings, or --graph-seed N (or seed= in the spec) for a random family's graph",
-    method: "renamed --effort (auto, exact, heuristic or quick)",
-  },
+  refused: SOLVER_REFUSALS,
   examples: [
     "halfplus bounds petersen",
     "halfplus bounds hfree-process:n=120,h=K4,seed=3 --pattern K4",
@@ -135,7 +132,7 @@ export const boundsCommand: CommandSpec = {
   async run(args, io) {
     const o = args.options;
     const json = o["json"] === true;
-    const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
+    const wantProgress = progressWanted(args, io.stderr);
     const decomposition = {
       pattern: o["pattern"] as string | undefined,
       triangleFactor: o["triangle-factor"] as number | undefined,

@@ -6,7 +6,7 @@ import { DEFAULT_BRACKET_SECONDS, bracket, type BracketProgress } from "../../cu
 import { BRACKET_EFFORTS, type BracketEffort, type BracketRecord } from "../../cut/bracket/record.js";
 import { MAX_SEED } from "../../random/seed.js";
 import { openSource } from "../../sources/index.js";
-import type { CommandSpec } from "../args.js";
+import type { CommandSpec, ParsedArgs } from "../args.js";
 import { formatNumber as num, formatRows } from "../format.js";
 import { writeLine } from "../output.js";
 import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
@@ -102,6 +102,18 @@ export function progressWriter(stderr: NodeJS.WritableStream, label: string): { 
   };
 }
 
+/** Options refused by every command that runs solvers, with a pointer to what to use instead. */
+export const SOLVER_REFUSALS: Readonly<Record<string, string>> = {
+  seed: "ambiguous: use --solver-seed N for the randomised solvers, or --graph-seed N (or seed= in the spec) for a random family's graph",
+  method: "renamed --effort (auto, exact, heuristic or quick)",
+};
+
+/** --progress, --no-progress, or by default only when stderr is a terminal. */
+export function progressWanted(args: ParsedArgs, stderr: NodeJS.WritableStream): boolean {
+  const p = args.options["progress"];
+  return p === true || (p === undefined && (stderr as NodeJS.WriteStream).isTTY === true);
+}
+
 export const cutCommand: CommandSpec = {
   name: "cut",
   summary: "bracket the max cut of each graph, lower ≤ max cut ≤ upper, with evidence for both ends",
@@ -129,10 +141,7 @@ export const cutCommand: CommandSpec = {
     { name: "progress", type: "boolean", description: "report progress on stderr (default: only when stderr is a terminal)" },
     ...SOURCE_OPTIONS,
   ],
-  refused: {
-    seed: "ambiguous: use --solver-seed N for the randomised solvers, or --graph-seed N (or seed= in the spec) for a random family's graph",
-    method: "renamed --effort (auto, exact, heuristic or quick)",
-  },
+  refused: SOLVER_REFUSALS,
   examples: [
     "halfplus cut petersen",
     "halfplus cut kneser:n=8,k=3 --json > kneser.jsonl && halfplus verify kneser.jsonl",
@@ -146,7 +155,7 @@ export const cutCommand: CommandSpec = {
     const seconds = o["seconds"] as number;
     const solverSeed = o["solver-seed"] as number;
     const effort = o["effort"] as BracketEffort;
-    const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
+    const wantProgress = progressWanted(args, io.stderr);
     const outPath = o["out"] as string | undefined;
     if (outPath === "") throw new InputError("--out needs a file name");
     let fd: number | null = null;
