@@ -3,7 +3,7 @@
 // guarantees add up to at most its surplus, and every piece set aside is H′-free by the structure
 // checks; on all small connected graphs it never beats brute force.
 import { describe, expect, it } from "vitest";
-import { decompositionCut, patternMinusVertex, type DecompositionCutRecord } from "../src/cut/decomposition/decomposition-cut.js";
+import { decompositionBounds, decompositionCut, patternMinusVertex, type DecompositionCutRecord } from "../src/cut/decomposition/decomposition-cut.js";
 import { InputError } from "../src/errors.js";
 import { family } from "../src/families/registry.js";
 import { graphFromEdges } from "../src/graph/builder.js";
@@ -171,6 +171,17 @@ describe("small graphs and options", () => {
     const b = decompositionCut(g, { solverSeed: 9 });
     expect(Array.from(a.partition)).toEqual(Array.from(b.partition));
     expect(a.pieces).toEqual(b.pieces);
+  });
+
+  it("as two lower-bound records (for tables and stores): the cut's surplus and the guarantee, or does-not-apply when weighted", () => {
+    const g = family("hfree-process:n=60,h=K4,seed=1");
+    const d = decompositionCut(g, { solverSeed: 6 });
+    const b = decompositionBounds(g, { solverSeed: 6 });
+    expect(b.cut).toMatchObject({ name: "decomposition-cut", applies: true, surplus: d.surplus, value: d.value });
+    expect(b.guarantee.surplus).toBeCloseTo(d.guarantee, 12);
+    expect(b.guarantee.value).toBeCloseTo(g.m / 2 + d.guarantee, 12);
+    const w = decompositionBounds(graphFromEdges(2, [[0, 1, 2]]));
+    expect(w.cut.applies || w.guarantee.applies).toBe(false);
   });
 
   it("H′ = H minus a vertex of largest degree, by name", () => {

@@ -29,7 +29,7 @@ import type { VectorSetOptions } from "../../bounds/vector-sets.js";
 import { checkSeed } from "../../random/seed.js";
 import { bracket, type BracketProgress } from "../bracket/bracket.js";
 import type { BracketEffort, BracketRecord } from "../bracket/record.js";
-import { decompositionCut, type DecompositionCutRecord, type DecompositionOptions } from "../decomposition/decomposition-cut.js";
+import { decompositionBounds, decompositionBoundsOf, decompositionCut, type DecompositionCutRecord, type DecompositionOptions } from "../decomposition/decomposition-cut.js";
 import { checkTrials } from "../heuristic/hyperplane-rounding.js";
 import { vectorMethodExpectedCut, vectorMethodRound } from "../heuristic/vector-rounding.js";
 
@@ -229,9 +229,8 @@ export function boundsAccount(graph: Graph, options: BoundsAccountOptions = {}):
     for (const name of ["vector-method", "vector-optimised", "few-triangles"] as const) {
       rows.push(row(name, { name, value: null, surplus: null, applies: false, reason: "proved for unweighted graphs only" }, L, []));
     }
-    for (const name of ["decomposition-cut", "decomposition-guarantee"] as const) {
-      rows.push(row(name, { name, value: null, surplus: null, applies: false, reason: "the construction is for unweighted graphs" }, L, []));
-    }
+    const asBounds = decompositionBounds(graph);
+    rows.push(row("decomposition-cut", asBounds.cut, L, []), row("decomposition-guarantee", asBounds.guarantee, L, []));
     notes.push("weighted graph: only the bracket applies; every surplus argument here is for unweighted graphs");
   } else {
     options.onStage?.("vector method");
@@ -282,23 +281,15 @@ export function boundsAccount(graph: Graph, options: BoundsAccountOptions = {}):
     options.onStage?.("decomposition");
     const dc = decompositionCut(graph, { ...options.decomposition, solverSeed: seedFor(solverSeed, 3) });
     const bySum = (kind: string, f: "surplus" | "guarantee") => dc.stages.filter((s) => s.kind === kind).reduce((a, s) => a + s[f], 0);
+    const asBounds = decompositionBoundsOf(graph, dc);
+    rows.push(row("decomposition-cut", asBounds.cut, L, [{ step: "best-cut-vs-decomposition", loss: L - dc.surplus }]));
     rows.push(
-      row("decomposition-cut", { name: "decomposition-cut", value: dc.value, surplus: dc.surplus, applies: true, reason: `a cut: ${dc.pieces.length} pieces set aside, remainder rounded, pieces joined by orientation` }, L, [
+      row("decomposition-guarantee", asBounds.guarantee, L, [
         { step: "best-cut-vs-decomposition", loss: L - dc.surplus },
+        { step: "remainder-above-guarantee", loss: bySum("remainder", "surplus") - bySum("remainder", "guarantee") },
+        { step: "pieces-above-guarantee", loss: bySum("piece", "surplus") - bySum("piece", "guarantee") },
+        { step: "between-parts-counted-as-half", loss: bySum("between", "surplus") },
       ]),
-    );
-    rows.push(
-      row(
-        "decomposition-guarantee",
-        { name: "decomposition-guarantee", value: graph.m / 2 + dc.guarantee, surplus: dc.guarantee, applies: true, reason: `sum of the stage guarantees${dc.pattern === null ? "" : ` (H = ${dc.pattern})`}` },
-        L,
-        [
-          { step: "best-cut-vs-decomposition", loss: L - dc.surplus },
-          { step: "remainder-above-guarantee", loss: bySum("remainder", "surplus") - bySum("remainder", "guarantee") },
-          { step: "pieces-above-guarantee", loss: bySum("piece", "surplus") - bySum("piece", "guarantee") },
-          { step: "between-parts-counted-as-half", loss: bySum("between", "surplus") },
-        ],
-      ),
     );
     decomposition = { ...dc, partition: Array.from(dc.partition) };
     if (!dc.reached) notes.push("the decomposition's rounding did not reach every stage guarantee within its trials");

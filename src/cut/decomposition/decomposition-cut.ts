@@ -34,6 +34,7 @@ import { findClique, MAX_CLIQUE_ORDER } from "../../graph/structure/cliques.js";
 import { parsePatternName } from "../../graph/structure/patterns.js";
 import { countTriangles } from "../../graph/structure/triangles.js";
 import { fewTrianglesBound } from "../../bounds/few-triangles.js";
+import { boundApplies, boundDoesNotApply, type LowerBoundRecord } from "../../bounds/types.js";
 import { optimiseVectorChoice, vectorChoiceOptions } from "../../bounds/vector-choice.js";
 import { checkSeed } from "../../random/seed.js";
 import { exactMaxCut } from "../exact/exact-max-cut.js";
@@ -536,4 +537,25 @@ export function decompositionCut(graph: Graph, options: DecompositionOptions = {
     reached: run.reached,
     notes,
   };
+}
+
+/** A decomposition's two numbers as lower-bound records: its cut's surplus and the sum of its stage guarantees. */
+export function decompositionBoundsOf(graph: Graph, d: DecompositionCutRecord): { cut: LowerBoundRecord; guarantee: LowerBoundRecord } {
+  const h = d.pattern === null ? "" : ` (H = ${d.pattern})`;
+  return {
+    cut: boundApplies("decomposition-cut", graph.m, d.surplus, `a cut: ${d.pieces.length} pieces set aside, the remainder rounded, pieces joined by orientation${h}`),
+    guarantee: boundApplies("decomposition-guarantee", graph.m, d.guarantee, `sum of the decomposition's stage guarantees${h}`),
+  };
+}
+
+/**
+ * The decomposition cut's two numbers for tables and stores (`decomposition-cut`,
+ * `decomposition-guarantee`); both say "does not apply" for weighted graphs instead of throwing.
+ */
+export function decompositionBounds(graph: Graph, options: DecompositionOptions = {}): { cut: LowerBoundRecord; guarantee: LowerBoundRecord } {
+  if (graph.weighted) {
+    const reason = "the construction is for unweighted graphs";
+    return { cut: boundDoesNotApply("decomposition-cut", reason), guarantee: boundDoesNotApply("decomposition-guarantee", reason) };
+  }
+  return decompositionBoundsOf(graph, decompositionCut(graph, options));
 }

@@ -3,6 +3,8 @@
 // by a derandomised orientation).
 export {
   decompositionCut,
+  decompositionBounds,
+  decompositionBoundsOf,
   patternMinusVertex,
   DEFAULT_TRIANGLE_FACTOR,
   DEFAULT_EXACT_VERTICES,
