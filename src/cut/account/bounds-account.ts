@@ -23,7 +23,7 @@ import { edwardsEdgeBound, edwardsVertexBound } from "../../bounds/edwards.js";
 import { fewTrianglesBound, type FewTrianglesRecord } from "../../bounds/few-triangles.js";
 import { triangleFreeBound } from "../../bounds/triangle-free.js";
 import type { LowerBoundRecord } from "../../bounds/types.js";
-import { optimiseVectorChoice, vectorChoiceOptions } from "../../bounds/vector-choice.js";
+import { optimiseVectorChoice, vectorChoiceOptions, vectorOptimisedBound } from "../../bounds/vector-choice.js";
 import { vectorMethodGuarantee, type VectorGuaranteeRecord } from "../../bounds/vector-guarantee.js";
 import type { VectorSetOptions } from "../../bounds/vector-sets.js";
 import { checkSeed } from "../../random/seed.js";
@@ -224,11 +224,11 @@ export function boundsAccount(graph: Graph, options: BoundsAccountOptions = {}):
   let vector: BoundsAccountRecord["vector"] = null;
   let decomposition: BoundsAccountRecord["decomposition"] = null;
   if (graph.weighted) {
-    const tf = triangleFreeBound(graph);
-    rows.push(row("triangle-free", tf, L, []));
-    for (const name of ["vector-method", "vector-optimised", "few-triangles"] as const) {
-      rows.push(row(name, { name, value: null, surplus: null, applies: false, reason: "proved for unweighted graphs only" }, L, []));
-    }
+    // Each evaluator says itself why it does not apply.
+    rows.push(row("triangle-free", triangleFreeBound(graph), L, []));
+    rows.push(row("vector-method", vectorMethodGuarantee(graph), L, []));
+    rows.push(row("vector-optimised", vectorOptimisedBound(graph), L, []));
+    rows.push(row("few-triangles", fewTrianglesBound(graph), L, []));
     const asBounds = decompositionBounds(graph);
     rows.push(row("decomposition-cut", asBounds.cut, L, []), row("decomposition-guarantee", asBounds.guarantee, L, []));
     notes.push("weighted graph: only the bracket applies; every surplus argument here is for unweighted graphs");
