@@ -12,7 +12,8 @@ import type { CommandSpec } from "../args.js";
 import { formatNumber as num, formatRows, formatTable } from "../format.js";
 import { writeLine } from "../output.js";
 import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
-import { progressWanted, progressWriter, SOLVER_REFUSALS, words } from "./cut.js";
+import { progressWriter, words } from "./cut.js";
+import { progressWanted, SOLVER_REFUSALS, writeStage } from "./solver-options.js";
 
 /** Each argument in a few words (records keep the ids). */
 const EVALUATOR_WORDS: Readonly<Record<AccountEvaluator, string>> = {
@@ -153,7 +154,7 @@ export const boundsCommand: CommandSpec = {
         source: item.source,
         notes: item.notes,
         onProgress: progress?.update,
-        onStage: progress?.stage,
+        onStage: progress === null ? undefined : (text) => writeStage(io.stderr, item.label, text),
       });
       progress?.done();
       if (json) await writeLine(io.stdout, JSON.stringify(record));

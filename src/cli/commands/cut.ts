@@ -6,7 +6,7 @@ import { DEFAULT_BRACKET_SECONDS, bracket, type BracketProgress } from "../../cu
 import { BRACKET_EFFORTS, type BracketEffort, type BracketRecord } from "../../cut/bracket/record.js";
 import { MAX_SEED } from "../../random/seed.js";
 import { openSource } from "../../sources/index.js";
-import type { CommandSpec, ParsedArgs } from "../args.js";
+import type { CommandSpec } from "../args.js";
 import { formatNumber as num, formatRows } from "../format.js";
 import { writeLine } from "../output.js";
 import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
@@ -75,11 +75,8 @@ export function formatBracket(label: string, r: BracketRecord): string {
   return out.join("\n");
 }
 
-/**
- * Progress on stderr: rewritten in place on a terminal, one line per update (at most 4/s) otherwise.
- * `stage` reports a later step of a command that runs after the bracket (e.g. `halfplus bounds`).
- */
-export function progressWriter(stderr: NodeJS.WritableStream, label: string): { update: (p: BracketProgress) => void; stage: (text: string) => void; done: () => void } {
+/** Progress on stderr: rewritten in place on a terminal, one line per update (at most 4/s) otherwise. */
+export function progressWriter(stderr: NodeJS.WritableStream, label: string): { update: (p: BracketProgress) => void; done: () => void } {
   const tty = (stderr as NodeJS.WriteStream).isTTY === true;
   let last = -Infinity;
   let shown = false;
@@ -91,27 +88,10 @@ export function progressWriter(stderr: NodeJS.WritableStream, label: string): { 
       stderr.write(tty ? `\r\x1b[2K${line}` : `${line}\n`);
       shown = true;
     },
-    stage(text) {
-      const line = `${label}: ${text}`;
-      stderr.write(tty ? `\r\x1b[2K${line}` : `${line}\n`);
-      shown = true;
-    },
     done() {
       if (tty && shown) stderr.write("\r\x1b[2K");
     },
   };
-}
-
-/** Options refused by every command that runs solvers, with a pointer to what to use instead. */
-export const SOLVER_REFUSALS: Readonly<Record<string, string>> = {
-  seed: "ambiguous: use --solver-seed N for the randomised solvers, or --graph-seed N (or seed= in the spec) for a random family's graph",
-  method: "renamed --effort (auto, exact, heuristic or quick)",
-};
-
-/** --progress, --no-progress, or by default only when stderr is a terminal. */
-export function progressWanted(args: ParsedArgs, stderr: NodeJS.WritableStream): boolean {
-  const p = args.options["progress"];
-  return p === true || (p === undefined && (stderr as NodeJS.WriteStream).isTTY === true);
 }
 
 export const cutCommand: CommandSpec = {
@@ -141,7 +121,10 @@ export const cutCommand: CommandSpec = {
     { name: "progress", type: "boolean", description: "report progress on stderr (default: only when stderr is a terminal)" },
     ...SOURCE_OPTIONS,
   ],
-  refused: SOLVER_REFUSALS,
+  refused: {
+    seed: "ambiguous: use --solver-seed N for the randomised solvers, or --graph-seed N (or seed= in the spec) for a random family's graph",
+    method: "renamed --effort (auto, exact, heuristic or quick)",
+  },
   examples: [
     "halfplus cut petersen",
     "halfplus cut kneser:n=8,k=3 --json > kneser.jsonl && halfplus verify kneser.jsonl",
@@ -155,7 +138,7 @@ export const cutCommand: CommandSpec = {
     const seconds = o["seconds"] as number;
     const solverSeed = o["solver-seed"] as number;
     const effort = o["effort"] as BracketEffort;
-    const wantProgress = progressWanted(args, io.stderr);
+    const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
     const outPath = o["out"] as string | undefined;
     if (outPath === "") throw new InputError("--out needs a file name");
     let fd: number | null = null;
