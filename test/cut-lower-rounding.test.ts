@@ -12,6 +12,7 @@ import { resolveVectorSets } from "../src/bounds/vector-sets.js";
 import { vectorMethodGuarantee } from "../src/bounds/vector-guarantee.js";
 import { InputError } from "../src/errors.js";
 import { complete, cycle, hypercube, petersen, randomBipartite, randomEdges } from "./helpers/graphs.js";
+import { directVectorGuarantee } from "./helpers/vector.js";
 
 /** G(n, p), then edges deleted until no triangle remains (each deletion checked by brute force). */
 function triangleFreeRandom(rng: Rng, n: number, p: number): Graph {
@@ -113,27 +114,6 @@ function sqrtDegreeSum(g: Graph): number {
   return s / (2 * Math.PI);
 }
 
-/** Direct O(n³) evaluation of (1/2π)Σ ε_i|V_i| − ½Σ_{ij∈E} ε_iε_j|V_i∩V_j| from an adjacency matrix. */
-function directGuarantee(g: Graph, sets: number[][], eps: number[]): number {
-  const n = g.n;
-  const inSet = sets.map((s) => {
-    const a = new Uint8Array(n);
-    for (const x of s) a[x] = 1;
-    return a;
-  });
-  let lin = 0;
-  for (let i = 0; i < n; i++) lin += eps[i] * sets[i].length;
-  let ov = 0;
-  for (let i = 0; i < n; i++)
-    for (let j = i + 1; j < n; j++) {
-      if (!g.hasEdge(i, j)) continue;
-      let c = 0;
-      for (let k = 0; k < n; k++) if (inSet[i][k] && inSet[j][k]) c++;
-      ov += eps[i] * eps[j] * c;
-    }
-  return lin / (2 * Math.PI) - ov / 2;
-}
-
 /** The normalised vectors x_i/‖x_i‖, x_i = e_i − ε_i·Σ_{k∈V_i} e_k, written out densely in R^n. */
 function denseVectors(g: Graph, sets: number[][], eps: number[]): Float64Array[] {
   return sets.map((s, i) => {
@@ -204,7 +184,7 @@ describe("the explicit vector method", () => {
       const sets = Array.from({ length: g.n }, (_, i) => Array.from(g.neighborsOf(i)));
       const eps = sets.map((s) => (s.length ? 1 / Math.sqrt(s.length) : 0));
       const gu = vectorMethodGuarantee(g);
-      expect(gu.surplus).toBeCloseTo(directGuarantee(g, sets, eps), 10);
+      expect(gu.surplus).toBeCloseTo(directVectorGuarantee(g, sets, eps), 10);
       expect(gu.overlapEdges).toBeGreaterThan(0);
       const exp = vectorMethodExpectedCut(g);
       expect(exp).toBeCloseTo(denseExpectedCut(g, sets, eps), 10);
@@ -215,7 +195,7 @@ describe("the explicit vector method", () => {
       const sub = sets.map((s) => s.filter(() => r.nextFloat() < 0.5).reverse());
       const e2 = sub.map((s) => (s.length ? (0.1 + 0.9 * r.nextFloat()) / Math.sqrt(s.length) : 0));
       const gu2 = vectorMethodGuarantee(g, { sets: sub, eps: e2 });
-      expect(gu2.surplus).toBeCloseTo(directGuarantee(g, sub, e2), 10);
+      expect(gu2.surplus).toBeCloseTo(directVectorGuarantee(g, sub, e2), 10);
       const exp2 = vectorMethodExpectedCut(g, { sets: sub, eps: e2 });
       expect(exp2).toBeCloseTo(denseExpectedCut(g, sub, e2), 10);
       expect(exp2 - g.m / 2).toBeGreaterThanOrEqual((gu2.surplus as number) - 1e-12);
@@ -269,8 +249,11 @@ describe("the explicit vector method", () => {
     expect(() => vectorMethodGuarantee(g, { sets: [[2], [], [], [], []] })).toThrow(/`sets\[0\]`: should contain only neighbours of vertex 0; 2 is not one/);
     expect(() => vectorMethodGuarantee(g, { sets: [[1, 1], [], [], [], []] })).toThrow(/should not repeat vertex 1/);
     expect(() => vectorMethodGuarantee(g, { sets: [[1]] })).toThrow(/one set per vertex/);
-    expect(() => vectorMethodGuarantee(g, { eps: [0.8, 0.5, 0.5, 0.5, 0.5] })).toThrow(/`eps\[0\]`: should lie in \(0, 1\/√\|V_i\|\]/);
-    expect(() => vectorMethodGuarantee(g, { eps: [0, 0.5, 0.5, 0.5, 0.5] })).toThrow(InputError);
+    expect(() => vectorMethodGuarantee(g, { eps: [0.8, 0.5, 0.5, 0.5, 0.5] })).toThrow(/`eps\[0\]`: should lie in \[0, 1\/√\|V_i\|\]/);
+    expect(() => vectorMethodGuarantee(g, { eps: [-0.1, 0.5, 0.5, 0.5, 0.5] })).toThrow(InputError);
+    expect(() => vectorMethodGuarantee(g, { eps: [NaN, 0.5, 0.5, 0.5, 0.5] })).toThrow(InputError);
+    // ε_i = 0 switches vertex i off (x_i = e_i); the guarantee then simply drops its terms.
+    expect(vectorMethodGuarantee(g, { eps: [0, 0.5, 0.5, 0.5, 0.5] }).surplus).toBeCloseTo((4 * 0.5 * 2) / (2 * Math.PI), 12);
     expect(() => vectorMethodGuarantee(g, { epsScale: 1.5 })).toThrow(/`epsScale`/);
     expect(() => vectorMethodRound(g, { trials: -1 })).toThrow(/`trials`/);
   });

@@ -342,3 +342,34 @@ describe("the store file", () => {
     expect(rowOfValues(rowValues(r))).toEqual(r);
   });
 });
+
+describe("surplus arguments recorded per row", () => {
+  it("stores the optimised vector guarantee, the few-triangles form and both decomposition columns, each at most the exact surplus", async () => {
+    // Lower bounds on the surplus may never exceed the exact surplus (the bracket closes by exhaustive
+    // search on these small graphs; brute force below is the independent check): common practice, no source.
+    const path = join(dir, "arguments.db");
+    const plan: SweepPlan = {
+      name: "arguments",
+      bracket: { effort: "exact", seconds: 30 },
+      evaluators: ["vector-method", "vector-optimised", "few-triangles", "decomposition"],
+      families: [{ specs: ["petersen", "complete:n=7", "kneser:n=7,k=2", "hfree-process:n=12,h=K4,seed=2"] }],
+    };
+    await runSweep(plan, { store: path, workers: 0 });
+    const rows = allRows(path);
+    expect(rows).toHaveLength(4);
+    for (const r of rows) {
+      const g = family(String(r.spec));
+      const exactSurplus = bruteForceMaxCut(g) - g.m / 2;
+      expect(r.exact).toBe(1);
+      expect(r.surplusLower).toBe(exactSurplus);
+      for (const c of ["vectorOptimised", "fewTriangles", "decompositionCut", "decompositionGuarantee"]) {
+        expect(typeof r[c], `${String(r.spec)} ${c}`).toBe("number");
+        expect(r[c] as number).toBeLessThanOrEqual(exactSurplus + 1e-9);
+      }
+      // The best vector choice starts from the default one and never loses to it.
+      expect(r.vectorOptimised as number).toBeGreaterThanOrEqual((r.vectorMethod as number) - 1e-9);
+      // A stage guarantee never claims more than the cut it comes with reaches.
+      expect(r.decompositionGuarantee as number).toBeLessThanOrEqual((r.decompositionCut as number) + 1e-9);
+    }
+  });
+});

@@ -6,6 +6,8 @@ import type { Graph } from "../graph/graph.js";
 import { edwardsEdgeBound, edwardsVertexBound } from "./edwards.js";
 import { triangleFreeBound } from "./triangle-free.js";
 import type { LowerBoundRecord } from "./types.js";
+import { fewTrianglesBound } from "./few-triangles.js";
+import { vectorOptimisedBound } from "./vector-choice.js";
 import { vectorMethodGuarantee } from "./vector-guarantee.js";
 
 export interface LowerBoundRow extends LowerBoundRecord {
@@ -22,11 +24,20 @@ export interface LowerBoundReport {
   rows: LowerBoundRow[];
 }
 
-/** All closed-form lower bounds, in order: Edwards (edges), Edwards (vertices), triangle-free, vector method. */
+/**
+ * All lower bounds of src/bounds, in order: Edwards (edges), Edwards (vertices), triangle-free, vector
+ * method (default choice), the few-triangles form, the vector method with the best choice found.
+ */
 export function lowerBounds(graph: Graph): LowerBoundRecord[] {
-  const v = vectorMethodGuarantee(graph);
-  const vector: LowerBoundRecord = { name: v.name, value: v.value, surplus: v.surplus, applies: v.applies, reason: v.reason };
-  return [edwardsEdgeBound(graph), edwardsVertexBound(graph), triangleFreeBound(graph), vector];
+  const plain = ({ name, value, surplus, applies, reason }: LowerBoundRecord): LowerBoundRecord => ({ name, value, surplus, applies, reason });
+  return [
+    edwardsEdgeBound(graph),
+    edwardsVertexBound(graph),
+    triangleFreeBound(graph),
+    plain(vectorMethodGuarantee(graph)),
+    plain(fewTrianglesBound(graph)),
+    vectorOptimisedBound(graph),
+  ];
 }
 
 /** `bestCut` is a cut value or anything carrying one as `value` (a cut record, a bracket's lower end). */

@@ -1,5 +1,7 @@
 // The triangle-free bound maxcut ≥ m/2 + (1/2π)·Σ_i √d_i: the explicit vector method with
 // V_i = N(i), ε_i = 1/√d_i, whose overlap term vanishes exactly when no edge lies in a triangle.
+// Shearer (1992, "A note on bipartite subgraphs of triangle-free graphs") proved a surplus of this
+// order, c·Σ_i √d_i, for every triangle-free graph.
 
 import type { Graph } from "../graph/graph.js";
 import { boundDoesNotApply, type LowerBoundRecord } from "./types.js";
@@ -17,6 +19,6 @@ export function triangleFreeBound(graph: Graph): LowerBoundRecord {
     value: g.value,
     surplus: g.surplus,
     applies: true,
-    reason: "triangle-free: explicit vector method with V_i = N(i), ε_i = 1/√d_i gives surplus ≥ (1/2π)Σ_i √d_i",
+    reason: "triangle-free: explicit vector method with V_i = N(i), ε_i = 1/√d_i gives surplus ≥ (1/2π)Σ_i √d_i (a bound of this order: Shearer 1992)",
   };
 }

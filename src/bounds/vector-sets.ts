@@ -1,5 +1,7 @@
 // The choices behind the explicit vector method: for each vertex i a set V_i ⊆ N(i) and a
-// weight 0 < ε_i ≤ 1/√|V_i|, validated once and stored as sorted CSR lists.
+// weight 0 ≤ ε_i ≤ 1/√|V_i|, validated once and stored as sorted CSR lists. ε_i = 0 is allowed:
+// x_i is then e_i itself, and the guarantee's proof goes through unchanged (the best choices
+// found by the optimiser switch some vertices off this way).
 
 import { invalidParameter } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
@@ -9,7 +11,7 @@ const OWNER = "vector method";
 export interface VectorSetOptions {
   /** V_i per vertex: neighbours of i, each at most once (any order). Default V_i = N(i). */
   sets?: ReadonlyArray<ArrayLike<number>>;
-  /** ε_i per vertex, 0 < ε_i ≤ 1/√|V_i| (ignored where V_i is empty). Default epsScale/√|V_i|. */
+  /** ε_i per vertex, 0 ≤ ε_i ≤ 1/√|V_i| (ignored where V_i is empty). Default epsScale/√|V_i|. */
   eps?: ArrayLike<number>;
   /** Default ε_i = epsScale/√|V_i| when `eps` is not given; 0 < epsScale ≤ 1 (default 1). */
   epsScale?: number;
@@ -56,8 +58,8 @@ export function resolveVectorSets(graph: Graph, options: VectorSetOptions = {}):
       const k = offsets[i + 1] - offsets[i];
       const e = options.eps[i];
       if (k === 0) continue;
-      if (!(e > 0 && e <= EPS_SLACK / Math.sqrt(k))) {
-        throw invalidParameter(OWNER, `eps[${i}]`, `should lie in (0, 1/√|V_i|] = (0, ${1 / Math.sqrt(k)}]`, e);
+      if (!(e >= 0 && e <= EPS_SLACK / Math.sqrt(k))) {
+        throw invalidParameter(OWNER, `eps[${i}]`, `should lie in [0, 1/√|V_i|] = [0, ${1 / Math.sqrt(k)}]`, e);
       }
       eps[i] = e;
     }

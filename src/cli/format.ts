@@ -19,3 +19,10 @@ export function formatRows(rows: readonly (readonly [string, string])[]): string
   const w = Math.max(0, ...rows.map((r) => r[0].length));
   return rows.map(([k, v]) => `  ${k.padEnd(w)}  ${v}`);
 }
+
+/** A table: every column padded to its widest cell (the last one left ragged), rows indented by two spaces. */
+export function formatTable(rows: readonly (readonly string[])[]): string[] {
+  const widths: number[] = [];
+  for (const r of rows) r.forEach((c, i) => (widths[i] = Math.max(widths[i] ?? 0, c.length)));
+  return rows.map((r) => `  ${r.map((c, i) => (i === r.length - 1 ? c : c.padEnd(widths[i]))).join("  ")}`.trimEnd());
+}

@@ -72,6 +72,10 @@ export const COLUMNS: readonly ColumnSpec[] = [
   { name: "edwardsVertices", type: "real", group: "bound", description: "Edwards (1975) surplus bound (n − c)/4" },
   { name: "triangleFree", type: "real", group: "bound", description: "triangle-free bound (1/2π)Σ√d_i (null when the graph has triangles)" },
   { name: "vectorMethod", type: "real", group: "bound", description: "guarantee of the explicit vector method with V_i = N(i)" },
+  { name: "vectorOptimised", type: "real", group: "bound", description: "guarantee of the explicit vector method with the best (V_i, ε_i) found by block coordinate ascent" },
+  { name: "fewTriangles", type: "real", group: "bound", description: "few-triangles form of the vector guarantee: uniform ε, εm/π − (3/2)ε²T" },
+  { name: "decompositionCut", type: "real", group: "bound", description: "surplus of the decomposition cut for H-free graphs (a cut, re-evaluated)" },
+  { name: "decompositionGuarantee", type: "real", group: "bound", description: "sum of the decomposition cut's stage guarantees" },
   // budget
   { name: "budgetKind", type: "text", group: "budget", description: "which budget governed: time, work or none" },
   { name: "workUsed", type: "integer", group: "budget", description: "solver work used (null under a time budget)" },

@@ -21,6 +21,9 @@ import { verifyBracket, type BracketVerdict } from "../cut/bracket/verify.js";
 import { edwardsEdgeBound, edwardsVertexBound } from "../bounds/edwards.js";
 import { triangleFreeBound } from "../bounds/triangle-free.js";
 import { vectorMethodGuarantee } from "../bounds/vector-guarantee.js";
+import { vectorOptimisedBound } from "../bounds/vector-choice.js";
+import { fewTrianglesBound } from "../bounds/few-triangles.js";
+import { decompositionBounds } from "../cut/decomposition/index.js";
 import type { LowerBoundRecord } from "../bounds/types.js";
 import { SourceResolver } from "../sources/index.js";
 import { COLUMNS, type CellValue, type StoredRow } from "./columns.js";
@@ -55,18 +58,29 @@ export function settingsKey(s: BracketSettings): string {
 // Lower-bound evaluators and degree measures a plan can ask for
 
 export interface Evaluator {
-  /** The evaluator's own name (src/bounds). */
+  /** The name a plan uses (the bound's own name in src/bounds or src/cut). */
   name: string;
-  /** Column holding its surplus bound. */
-  column: string;
-  run: (g: Graph) => LowerBoundRecord;
+  /** Columns holding its surplus bounds, one per record `run` returns (in order). */
+  columns: readonly string[];
+  /** One run gives every column: an argument with several stages (the decomposition) runs once. */
+  run: (g: Graph) => readonly LowerBoundRecord[];
 }
 
 export const EVALUATORS: readonly Evaluator[] = [
-  { name: "edwards-edges", column: "edwardsEdges", run: edwardsEdgeBound },
-  { name: "edwards-vertices", column: "edwardsVertices", run: edwardsVertexBound },
-  { name: "triangle-free", column: "triangleFree", run: triangleFreeBound },
-  { name: "vector-method", column: "vectorMethod", run: vectorMethodGuarantee },
+  { name: "edwards-edges", columns: ["edwardsEdges"], run: (g) => [edwardsEdgeBound(g)] },
+  { name: "edwards-vertices", columns: ["edwardsVertices"], run: (g) => [edwardsVertexBound(g)] },
+  { name: "triangle-free", columns: ["triangleFree"], run: (g) => [triangleFreeBound(g)] },
+  { name: "vector-method", columns: ["vectorMethod"], run: (g) => [vectorMethodGuarantee(g)] },
+  { name: "vector-optimised", columns: ["vectorOptimised"], run: (g) => [vectorOptimisedBound(g)] },
+  { name: "few-triangles", columns: ["fewTriangles"], run: (g) => [fewTrianglesBound(g)] },
+  {
+    name: "decomposition",
+    columns: ["decompositionCut", "decompositionGuarantee"],
+    run: (g) => {
+      const d = decompositionBounds(g);
+      return [d.cut, d.guarantee];
+    },
+  },
 ];
 export const EVALUATOR_NAMES: readonly string[] = EVALUATORS.map((e) => e.name);
 
@@ -276,8 +290,11 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
     if (!context.evaluators.includes(e.name)) continue;
     // The triangle-free bound does not apply to a graph with a triangle: no need to evaluate it.
     if (e.name === "triangle-free" && s.free.K3 === false) continue;
-    const b = e.run(graph);
-    v[I[e.column]] = b.applies ? b.surplus : null;
+    const records = e.run(graph);
+    e.columns.forEach((column, k) => {
+      const b = records[k];
+      v[I[column]] = b.applies ? b.surplus : null;
+    });
   }
   for (const k of Object.keys(context.shared)) v[I[k]] = context.shared[k];
   return { values: v, solverSeconds };

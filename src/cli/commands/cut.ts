@@ -37,7 +37,7 @@ const SHIFT_WORDS: Readonly<Record<string, string>> = {
   "lanczos-estimate": "a Lanczos estimate, not a proof",
 };
 
-function words(method: string): string {
+export function words(method: string): string {
   return METHOD_WORDS[method] ?? method;
 }
 
@@ -86,7 +86,7 @@ export function formatBracket(label: string, r: Shown): string {
 export const SIGNAL_EXIT: Readonly<Record<"SIGINT" | "SIGTERM", number>> = Object.freeze({ SIGINT: 130, SIGTERM: 143 });
 
 /** Progress on stderr: rewritten in place on a terminal, one line per update (at most 4/s) otherwise. */
-function progressWriter(stderr: NodeJS.WritableStream, label: string): { update: (p: BracketProgress) => void; done: () => void } {
+export function progressWriter(stderr: NodeJS.WritableStream, label: string): { update: (p: BracketProgress) => void; done: () => void } {
   const tty = (stderr as NodeJS.WriteStream).isTTY === true;
   let last = -Infinity;
   let shown = false;

@@ -1,6 +1,7 @@
 // Every subcommand, in the order `halfplus --help` lists them. Each command lives in its own
 // file; to add one, import it here and put it in the list.
 import type { CommandSpec } from "../args.js";
+import { boundsCommand } from "./bounds.js";
 import { cutCommand } from "./cut.js";
 import { encodeCommand } from "./encode.js";
 import { familiesCommand } from "./families.js";
@@ -13,4 +14,4 @@ import { exportCommand } from "./export.js";
 import { importCommand } from "./import.js";
 import { mergeCommand } from "./merge.js";
 
-export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, kernelCommand];
+export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, kernelCommand];

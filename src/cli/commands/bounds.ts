@@ -1,0 +1,166 @@
+// `halfplus bounds <source>`: for each graph, the bracket's surplus interval and every surplus
+// argument beside it: its surplus, its share of the bracket's lower end, and the step of its proof
+// that gives most away. With --json, one halfplus/bounds-account record per graph.
+import { DEFAULT_TRIANGLE_FACTOR, DEFAULT_EXACT_VERTICES } from "../../cut/decomposition/decomposition-cut.js";
+import { boundsAccount, type AccountEvaluator, type AccountRow, type AccountStepName, type BoundsAccountRecord } from "../../cut/account/bounds-account.js";
+import { DEFAULT_BRACKET_SECONDS } from "../../cut/bracket/bracket.js";
+import { BRACKET_EFFORTS, type BracketEffort } from "../../cut/bracket/record.js";
+import { GRAY_MAX_VERTICES } from "../../cut/exact/gray-code.js";
+import { MAX_SEED } from "../../random/seed.js";
+import { openSource } from "../../sources/index.js";
+import type { CommandSpec } from "../args.js";
+import { formatNumber as num, formatRows, formatTable } from "../format.js";
+import { writeLine } from "../output.js";
+import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
+import { progressWriter, words } from "./cut.js";
+import { progressWanted, SOLVER_REFUSALS, writeStage } from "./solver-options.js";
+
+/** Each argument in a few words (records keep the ids). */
+const EVALUATOR_WORDS: Readonly<Record<AccountEvaluator, string>> = {
+  "edwards-edges": "Edwards, from m",
+  "edwards-vertices": "Edwards, from n and components",
+  "triangle-free": "triangle-free, (1/2π)Σ√d_i",
+  "vector-method": "vector method, V_i = N(i), ε_i = 1/√d_i",
+  "vector-optimised": "vector method, best (V, ε) found",
+  "few-triangles": "few triangles, one ε for all",
+  "decomposition-cut": "decomposition, its cut",
+  "decomposition-guarantee": "decomposition, its guarantee",
+};
+
+const STEP_WORDS: Readonly<Record<AccountStepName, string>> = {
+  "reads-m-only": "reads only m",
+  "reads-n-and-components-only": "reads only n and the components",
+  "hyperplane-vs-best-cut": "a random hyperplane, not the best cut",
+  "arcsine-linearised": "arcsine replaced by lines",
+  "norms-bounded": "norms replaced by 1 and 2",
+  "best-cut-vs-decomposition": "decomposition cut below the best cut",
+  "remainder-above-guarantee": "remainder cut above its guarantee",
+  "pieces-above-guarantee": "pieces cut above their guarantees",
+  "between-parts-counted-as-half": "edges between parts counted half cut",
+};
+
+function evaluatorLine(r: AccountRow): string[] {
+  if (!r.applies || r.surplus === null) return [EVALUATOR_WORDS[r.name], "·", "·", `does not apply: ${r.reason}`];
+  const worst = r.largestLoss;
+  return [
+    EVALUATOR_WORDS[r.name],
+    num(r.surplus),
+    r.fractionOfLower === null ? "·" : num(r.fractionOfLower),
+    worst === null ? "" : `${STEP_WORDS[worst.step]} (${num(worst.loss)})`,
+  ];
+}
+
+/** Our own layout: the bracket, the table of arguments, then the vector choices and the decomposition in brief. */
+export function formatAccount(label: string, a: BoundsAccountRecord): string {
+  const b = a.bracket;
+  const head: [string, string][] = [];
+  head.push(
+    b.exact
+      ? ["surplus", `${num(b.surplusLower)}  (exact; max cut ${num(b.lower)}, W/2 = ${num(a.totalWeight / 2)})`]
+      : ["surplus in", `[${num(b.surplusLower)}, ${num(b.surplusUpper)}]  (max cut in [${num(b.lower)}, ${num(b.upper)}], W/2 = ${num(a.totalWeight / 2)})`],
+  );
+  head.push(["graph", `n = ${a.n}, m = ${a.m}`]);
+  head.push(["best cut by", `${words(b.lowerMethod)}; effort ${b.effort}, ${num(b.seconds)} s, solver seed ${b.solverSeed}`]);
+  if (b.upperKind !== "proven") head.push(["caution", `the upper end is ${b.upperKind === "estimate" ? "an estimate" : "probable"}, not a proof`]);
+  const out = [label, ...formatRows(head), ""];
+  out.push(...formatTable([["argument", "surplus", "÷ lower end", "gives most away at"], ...a.evaluators.map(evaluatorLine)]));
+  const v = a.vector;
+  if (v !== null) {
+    out.push("");
+    out.push(
+      ...formatTable([
+        [`vector rounding, ${v.default.trials} trials`, "guarantee", "expected", "mean", "best"],
+        ["V_i = N(i), ε_i = 1/√d_i", num(v.default.guarantee), num(v.default.expectedSurplus), num(v.default.meanSurplus), num(v.default.bestSurplus)],
+        ["best (V, ε) found", num(v.optimised.guarantee), num(v.optimised.expectedSurplus), num(v.optimised.meanSurplus), num(v.optimised.bestSurplus)],
+        [`one ε = ${num(v.uniform.eps)} (${v.uniform.regime})`, num(v.uniform.guarantee), num(v.uniform.expectedSurplus), "·", "·"],
+      ]),
+    );
+    const o = v.optimised;
+    out.push(
+      `  best (V, ε): from the ${o.start} choice, ${o.sweeps} sweep${o.sweeps === 1 ? "" : "s"} (${o.status}); ${o.switchedOff} vertices switched off (ε_i = 0), ${o.droppedMembers} neighbours left out of their V_i${o.optimiseSets ? "" : " (sets fixed to N(i))"}`,
+    );
+    out.push(`  few triangles: T = ${v.uniform.triangles}, Δ = ${v.uniform.maxDegree}`);
+  }
+  const d = a.decomposition;
+  if (d !== null) {
+    const t = d.thresholds;
+    const top = d.stages.find((s) => s.kind === "remainder" && s.within === null);
+    const h = d.pattern === null ? "H unknown" : `H = ${d.pattern}${d.patternFrom === "clique-number" ? " (from the clique number)" : ""}`;
+    const levels = Math.max(0, ...d.pieces.map((p) => p.level));
+    out.push(
+      `  decomposition: ${h}; ${d.pieces.length} piece${d.pieces.length === 1 ? "" : "s"} set aside${levels > 1 ? ` over ${levels} levels` : ""}, remainder ${top?.n ?? 0} vertices / ${top?.m ?? 0} edges`,
+      `    set aside while T > ${num(t.triangleFactor)}·m·√Δ; pieces decomposed again up to level ${t.maxDepth}, cut exactly up to ${t.exactVertices} vertices`,
+    );
+    if (!d.reached) out.push("  caution: a rounded stage did not reach its guarantee; raise --max-trials");
+  }
+  for (const n of a.notes) out.push(`  note: ${n}`);
+  return out.join("\n");
+}
+
+export const boundsCommand: CommandSpec = {
+  name: "bounds",
+  summary: "each surplus argument against the bracket: its surplus, its share, the proof step that gives most away",
+  positionals: "<source>",
+  minPositionals: 1,
+  maxPositionals: 1,
+  description: [
+    "For each graph: the bracket's surplus interval (as `halfplus cut` finds it), then Edwards' two bounds, the triangle-free form, the explicit vector method with its default choice and with the best choice of sets V_i and weights ε_i found, its few-triangles form, and the decomposition cut with its guarantee. Each is given as a surplus, as a fraction of the bracket's lower end, and with the step of its argument that loses most (the losses of the steps add up to the gap to the lower end).",
+    "The vector method's choices are also rounded: their exact expected surplus and the mean and best of the rounded cuts sit beside each guarantee. The decomposition sets neighbourhoods aside while the rest has many triangles, rounds the rest, cuts the pieces exactly when small, and joins them by orientation.",
+    SOURCE_HELP,
+  ],
+  options: [
+    { name: "seconds", type: "number", description: "bracket time budget per graph", default: DEFAULT_BRACKET_SECONDS, min: 0.001, max: 1e7, placeholder: "S" },
+    { name: "effort", type: "string", description: "how much work the bracket puts in (as in `halfplus cut`)", default: "auto", choices: BRACKET_EFFORTS, placeholder: "E" },
+    { name: "solver-seed", type: "integer", description: "seed of the bracket's solvers and of every rounding", default: 0, min: 0, max: MAX_SEED, placeholder: "N" },
+    { name: "trials", type: "integer", description: "rounding trials per vector choice", default: 200, min: 1, max: 1e7, placeholder: "N" },
+    { name: "fixed-sets", type: "boolean", description: "keep V_i = N(i) and optimise ε only" },
+    { name: "pattern", type: "string", description: "H the graph is free of, for the decomposition (K4, C5, K2,3, …; default K_{ω+1}, ω the clique number)", placeholder: "H" },
+    { name: "triangle-factor", type: "number", description: `decomposition stops setting pieces aside once T ≤ C·m·√Δ (default 1/(3π) ≈ ${num(DEFAULT_TRIANGLE_FACTOR)}: below it the few-triangles form keeps half its triangle-free value)`, min: 0, max: 1e6, placeholder: "C" },
+    { name: "max-depth", type: "integer", description: "deepest piece level decomposed again (default for H = K_r: r − 4; 1 otherwise)", min: 0, max: 64, placeholder: "K" },
+    { name: "exact-vertices", type: "integer", description: "pieces up to this many vertices are cut exactly", default: DEFAULT_EXACT_VERTICES, min: 0, max: GRAY_MAX_VERTICES, placeholder: "K" },
+    { name: "max-trials", type: "integer", description: "most rounding trials spent to reach a stage's guarantee in the decomposition", default: 1024, min: 1, max: 1e8, placeholder: "N" },
+    { name: "json", type: "boolean", description: "one JSON record per graph (kind halfplus/bounds-account), one per line" },
+    { name: "progress", type: "boolean", description: "report progress on stderr (default: only when stderr is a terminal)" },
+    ...SOURCE_OPTIONS,
+  ],
+  refused: SOLVER_REFUSALS,
+  examples: [
+    "halfplus bounds petersen",
+    "halfplus bounds hfree-process:n=120,h=K4,seed=3 --pattern K4",
+    "halfplus bounds paley:q=29 --json",
+    "nauty-geng -c 8 | halfplus bounds - --json --seconds 1",
+  ],
+  async run(args, io) {
+    const o = args.options;
+    const json = o["json"] === true;
+    const wantProgress = progressWanted(args, io.stderr);
+    const decomposition = {
+      pattern: o["pattern"] as string | undefined,
+      triangleFactor: o["triangle-factor"] as number | undefined,
+      maxDepth: o["max-depth"] as number | undefined,
+      exactVertices: o["exact-vertices"] as number,
+      maxTrials: o["max-trials"] as number,
+    };
+    let first = true;
+    for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
+      const progress = wantProgress ? progressWriter(io.stderr, item.label) : null;
+      const record = boundsAccount(item.graph, {
+        seconds: o["seconds"] as number,
+        effort: o["effort"] as BracketEffort,
+        solverSeed: o["solver-seed"] as number,
+        trials: o["trials"] as number,
+        optimiseSets: o["fixed-sets"] !== true,
+        decomposition,
+        source: item.source,
+        notes: item.notes,
+        onProgress: progress?.update,
+        onStage: progress === null ? undefined : (text) => writeStage(io.stderr, item.label, text),
+      });
+      progress?.done();
+      if (json) await writeLine(io.stdout, JSON.stringify(record));
+      else await writeLine(io.stdout, (first ? "" : "\n") + formatAccount(item.label, record));
+      first = false;
+    }
+    return 0;
+  },
+};
