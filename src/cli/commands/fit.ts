@@ -4,9 +4,10 @@
 import { existsSync } from "node:fs";
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
-import { fitRowsFromStore, openStore, STORED_DEGREES } from "../../experiment/index.js";
+import { fitRowsFromStore, openStore } from "../../experiment/index.js";
 import {
   DEFAULT_LEVEL,
+  DEGREE_MEASURES,
   DEFAULT_RESAMPLES,
   fitBandsByFamily,
   fitByFamily,
@@ -65,7 +66,7 @@ export const fitCommand: CommandSpec = {
     { name: "family", type: "string", description: "only these families (comma-separated labels)", placeholder: "NAMES" },
     { name: "law", type: "string", description: "m-and-d: C·m^a·d^b; m: C·m^a; m-over-sqrt-d: C·(m/√d)^a", default: "m-and-d", choices: POWER_LAWS, placeholder: "LAW" },
     { name: "end", type: "string", description: "band: lower, upper and exact fits with the band between them; or one bracket end", default: "band", choices: ENDS, placeholder: "END" },
-    { name: "degree", type: "string", description: "what d is", default: "degeneracy", choices: STORED_DEGREES, placeholder: "MEASURE" },
+    { name: "degree", type: "string", description: "what d is", default: "degeneracy", choices: DEGREE_MEASURES, placeholder: "MEASURE" },
     { name: "level", type: "number", description: "level of the intervals", default: DEFAULT_LEVEL, min: 0.5, max: 0.9999, placeholder: "P" },
     { name: "resamples", type: "integer", description: "bootstrap resamples", default: DEFAULT_RESAMPLES, min: MIN_RESAMPLES, max: MAX_RESAMPLES, placeholder: "N" },
     { name: "solver-seed", type: "integer", description: "seed of the bootstrap's resampling (default 0)", min: 0, max: 4294967295, placeholder: "N" },
