@@ -3,6 +3,7 @@
 // single bracket end; as text tables, one JSON object, or a booktabs table for a paper.
 import { existsSync } from "node:fs";
 import { InputError } from "../../errors.js";
+import { parseDecimal } from "../../decimal.js";
 import type { CommandSpec } from "../args.js";
 import { fitRowsFromStore, openStore } from "../../experiment/index.js";
 import {
@@ -42,11 +43,9 @@ export function parseConjecture(text: string, law: PowerLaw): Record<string, num
     if (!terms.includes(name)) {
       throw new InputError(`--conjecture: the law "${law}" has no term ${JSON.stringify(name)}; its terms are ${terms.join(", ")}`);
     }
-    // Decimal notation only (the project's number rule): "-0.5", "1", "0.8333".
-    if (!/^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/.test(raw)) {
-      throw new InputError(`--conjecture: ${name} needs a number, e.g. ${name}=1 (got ${JSON.stringify(raw)})`);
-    }
-    out[name] = Number(raw);
+    const value = parseDecimal(raw); // the project's number rule: "-0.5", "1", "0.8333"
+    if (!Number.isFinite(value)) throw new InputError(`--conjecture: ${name} needs a number, e.g. ${name}=1 (got ${JSON.stringify(raw)})`);
+    out[name] = value;
   }
   return out;
 }
