@@ -132,6 +132,29 @@ describeNeeds(JUPYTER, "notebooks executed headless through the halfplus kernel"
     expect(text(cards[0].data!["text/plain"])).toMatch(/^polarity:q=13 \(n = 183, m = 1274\)/);
   });
 
+  for (const file of notebookFiles)
+    it(`${file}: one figure per show() call, plotly.js embedded once, every progress display finished in place`, () => {
+      const out = executed.get(file);
+      expect(out, `${file} ran`).toBeDefined();
+      const nb = readNotebook(out!);
+      const code = nb.cells.filter((c) => c.cell_type === "code");
+      const shows = code.map((c) => text(c.source).match(/\bshow\(/g)?.length ?? 0).reduce((a, b) => a + b, 0);
+      const outputs = code.flatMap((c) => c.outputs ?? []);
+      const figures = outputs.filter((o) => text(o.data?.["text/html"]).includes('class="hp-plot"'));
+      expect(figures).toHaveLength(shows);
+      const html = outputs.map((o) => text(o.data?.["text/html"])).join("\n");
+      expect(html.split("embedded once so the notebook works offline").length - 1).toBe(shows > 0 ? 1 : 0);
+      // Each progressDisplay() is one output updated in place: its last frame says every graph is done.
+      const displays = code.map((c) => text(c.source).match(/\bprogressDisplay\(/g)?.length ?? 0).reduce((a, b) => a + b, 0);
+      const frames = outputs.filter((o) => o.data?.["text/html"] && text(o.data["text/html"]).includes("hp-nb-progress"));
+      expect(frames).toHaveLength(displays);
+      for (const f of frames) {
+        const m = / (\d+) \/ (\d+) graphs/.exec(text(f.data!["text/plain"]));
+        expect(m, text(f.data!["text/plain"])).not.toBeNull();
+        expect(m![1]).toBe(m![2]);
+      }
+    });
+
   // The quickstart has one figure; c4-free.ipynb has four in three cells (plotly.js embedded in the first only).
   const BROWSER_CHECKS: { file: string; figures: string[] }[] = [
     { file: "quickstart.ipynb", figures: ["surplus-scaling"] },
