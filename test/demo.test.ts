@@ -119,6 +119,21 @@ describe("npm run demo's code path on a small plan", () => {
     expect(csv).toContain(String(80 / Math.sqrt(5)).slice(0, 8));
   });
 
+  it("bad input to the script: one line naming the option or the plan file, exit status 2, nothing written", () => {
+    const script = join(ROOT, "scripts", "demo.mjs");
+    const unknown = spawnSync(process.execPath, [script, "--sedes", "3"], { cwd: work, encoding: "utf8" });
+    expect(unknown.status).toBe(2);
+    expect(unknown.stderr.trim().split("\n")).toEqual(['demo: unknown option "--sedes" (options: --plan FILE, --out DIR, --workers N, --no-images)']);
+    const workers = spawnSync(process.execPath, [script, "--workers", "two"], { cwd: work, encoding: "utf8" });
+    expect([workers.status, workers.stderr.trim()]).toEqual([2, 'demo: --workers: a whole number (got "two")']);
+    writeFileSync(join(work, "bad.json"), '{ "families": [ { "family": "kneser", "cases": [{ "n": 4, "k": 3 }] } ] }');
+    const bad = spawnSync(process.execPath, [script, "--plan", "bad.json", "--out", "bad-out"], { cwd: work, encoding: "utf8" });
+    expect(bad.status).toBe(2);
+    expect(bad.stderr.trim().split("\n")).toHaveLength(1);
+    expect(bad.stderr).toMatch(/bad\.json.*families\[0\]/);
+    expect(readdirSync(work)).not.toContain("bad-out");
+  });
+
   itNeeds([tool("chromium"), tool("xmllint")], "run again: nothing recomputed, and with Chromium each figure also comes out as well-formed SVG", async () => {
     const again = await runDemo({ plan: join(work, "plan.json"), out: join(work, "results"), workers: 0, stdout: sink(), stderr: sink(), tty: false });
     expect(again.summary).toMatchObject({ computed: 0, skipped: GRAPHS });
