@@ -12,22 +12,54 @@ import { INK, InputError } from "halfplus";
 import { channelKind, displayOutput, newDisplayId, updateOutput, type MimeBundle } from "./channel.js";
 import { ACCENT, caption, frame, htmlEscape, style } from "./style.js";
 
-/** What a progress frame may carry; the sweep's progress objects fit this shape. */
+/**
+ * What a progress frame may carry. Both the sweep's own records (`SweepProgress`: `elapsed`, `eta`,
+ * `current` as { family, n }, `lowest`, `finished`) and hand-written ones (`elapsedSeconds`,
+ * `etaSeconds`, `current` as text, `bestRatio`) fit; the sweep's names win when both are given.
+ */
 export interface SweepProgressLike {
   done?: number;
   total?: number;
-  /** Graphs per second. */
-  rate?: number;
+  /** Graphs per second (null: not known yet). */
+  rate?: number | null;
   etaSeconds?: number | null;
   elapsedSeconds?: number;
+  /** The sweep's names for the same two. */
+  eta?: number | null;
+  elapsed?: number;
   family?: string;
-  /** What is being worked on now (a spec or key). */
-  current?: string;
-  /** Best surplus/(m/√d) ratio seen so far. */
+  /** What is being worked on now: a spec or key, or the sweep's { family, n }. */
+  current?: string | { family: string; n: number } | null;
+  /** The lowest surplus/(m/√d) seen so far (the constant the conjecture could still have). */
   bestRatio?: number | null;
+  /** The sweep's lowest surplus/(m/√d) so far and the graph it was seen on. */
+  lowest?: { ratio: number; graph: string } | null;
+  /** True on the sweep's last frame. */
+  finished?: boolean;
   failed?: number;
   message?: string;
-  [key: string]: unknown;
+  /** The sweep's other fields (not shown): its plan's name, rows computed and skipped, the d of m/√d. */
+  plan?: string;
+  computed?: number;
+  skipped?: number;
+  degree?: string;
+}
+
+/** One vocabulary for the frame: the sweep's field names mapped onto the hand-written ones. */
+function normalised(p: SweepProgressLike): SweepProgressLike {
+  const q: SweepProgressLike = { ...p };
+  if (finite(p.elapsed)) q.elapsedSeconds = p.elapsed;
+  if (p.eta !== undefined) q.etaSeconds = p.eta;
+  if (p.rate === null) delete q.rate;
+  if (p.current !== null && typeof p.current === "object") {
+    q.current = `${p.current.family} n=${p.current.n}`;
+    if (q.family === undefined) q.family = p.current.family;
+  }
+  if (p.lowest !== null && typeof p.lowest === "object" && finite(p.lowest.ratio) && !finite(p.bestRatio)) {
+    q.bestRatio = p.lowest.ratio;
+    if (typeof p.lowest.graph === "string") q.message = [p.message, `lowest at ${p.lowest.graph}`].filter((s) => s).join(" · ");
+  }
+  return q;
 }
 
 export interface ProgressDisplayOptions {
@@ -62,21 +94,22 @@ function finite(v: unknown): v is number {
 }
 
 /** One frame as a bundle (exported for tests). */
-export function progressBundle(p: SweepProgressLike, options: { title?: string; unit?: string; finished?: boolean; note?: string } = {}): MimeBundle {
+export function progressBundle(progress: SweepProgressLike, options: { title?: string; unit?: string; finished?: boolean; note?: string } = {}): MimeBundle {
+  const p = normalised(progress);
   const title = options.title ?? "sweep";
   const unit = options.unit ?? "graphs";
   const done = finite(p.done) ? p.done : 0;
   const total = finite(p.total) && p.total > 0 ? p.total : null;
   const fraction = total === null ? null : Math.min(1, Math.max(0, done / total));
-  const finished = options.finished === true || (total !== null && done >= total);
+  const finished = options.finished === true || p.finished === true || (total !== null && done >= total);
   const counts = total === null ? `${done} ${unit}` : `${done} / ${total} ${unit}`;
   const speed = finite(p.rate) ? `${p.rate < 10 ? p.rate.toFixed(2) : p.rate.toFixed(1)} ${unit}/s` : "";
   const left = finished ? (finite(p.elapsedSeconds) ? `took ${duration(p.elapsedSeconds)}` : "done") : finite(p.etaSeconds) ? `about ${duration(p.etaSeconds)} left` : "";
   const line1 = [counts, speed, left].filter((s) => s !== "").join(" · ");
   const line2 = [
     p.family ? `family ${p.family}` : "",
-    !finished && p.current ? `now ${p.current}` : "",
-    finite(p.bestRatio) ? `best ratio ${p.bestRatio.toPrecision(4)}` : "",
+    !finished && typeof p.current === "string" && p.current !== "" ? `now ${p.current}` : "",
+    finite(p.bestRatio) ? `lowest surplus/(m/√d) ${p.bestRatio.toPrecision(4)}` : "",
     finite(p.failed) && p.failed > 0 ? `${p.failed} failed` : "",
     p.message ?? "",
     options.note ?? "",
@@ -118,7 +151,7 @@ export function progressDisplay(options: ProgressDisplayOptions = {}): ProgressC
     const t = now();
     if (start === null) start = t;
     const elapsed = (t - start) / 1000;
-    const q: SweepProgressLike = { ...p };
+    const q = normalised(p);
     if (!finite(q.elapsedSeconds)) q.elapsedSeconds = elapsed;
     if (!finite(q.rate) && finite(q.done) && q.done > 0 && elapsed > 0) q.rate = q.done / elapsed;
     if (q.etaSeconds === undefined && finite(q.rate) && q.rate > 0 && finite(q.total) && finite(q.done)) q.etaSeconds = Math.max(0, q.total - q.done) / q.rate;
@@ -141,7 +174,7 @@ export function progressDisplay(options: ProgressDisplayOptions = {}): ProgressC
   const callback = ((p: SweepProgressLike) => {
     if (closed) return;
     last = complete(p);
-    const final = finite(p.total) && finite(p.done) && p.done >= p.total;
+    const final = p.finished === true || (finite(p.total) && finite(p.done) && p.done >= p.total);
     if (final || now() - lastFrame >= interval) draw(progressBundle(last, look));
   }) as ProgressCallback;
   callback.finish = (note?: string) => {

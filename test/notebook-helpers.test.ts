@@ -110,6 +110,43 @@ describe("progress outside a kernel", () => {
   });
 });
 
+describe("progress of a real sweep", () => {
+  afterEach(() => vi.restoreAllMocks());
+
+  it("runSweep's own progress records plug in as they are (types and fields: elapsed, eta, current, lowest, finished)", async () => {
+    // Type-level: the callback is accepted where runSweep wants its onProgress (tslab type-checks cells).
+    const onProgress: NonNullable<import("../src/experiment/sweep.js").SweepOptions["onProgress"]> = nb.progressDisplay({ title: "tiny" });
+    const lines: string[] = [];
+    vi.spyOn(process.stderr, "write").mockImplementation((s: string | Uint8Array) => (lines.push(String(s)), true));
+    const dir = mkdtempSync(join(tmpdir(), "halfplus-nb-progress-"));
+    try {
+      const frames: import("../src/experiment/progress.js").SweepProgress[] = [];
+      // The Petersen graph: max cut 12 of 15 edges (surplus 4.5), degeneracy 3 (3-regular) — from memory.
+      await hp.runSweep({ families: [{ specs: ["petersen"] }], bracket: { effort: "exact", seconds: 60 }, evaluators: [] }, {
+        store: join(dir, "s.db"), workers: 0, onProgress: (p) => (frames.push(p), onProgress(p)),
+      });
+      const last = frames[frames.length - 1];
+      expect(last.finished).toBe(true);
+      expect(last.lowest?.graph).toBe("petersen");
+      const final = lines[lines.length - 1];
+      expect(final).toMatch(/^tiny: \[#{30}\] 1 \/ 1 graphs/);
+      // 4.5 / (15/√3) = 0.5196…
+      expect(final).toContain(`lowest surplus/(m/√d) ${(4.5 / (15 / Math.sqrt(3))).toPrecision(4)}`);
+      expect(final).toContain("lowest at petersen");
+      expect(final).not.toContain("[object Object]");
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
+  it("a sweep frame in the middle: its { family, n } as text, its eta and elapsed used, not the display's clock", () => {
+    const b = nb.progressBundle({ done: 3, total: 10, rate: 2, eta: 3.5, elapsed: 1.5, current: { family: "kneser", n: 56 }, lowest: null, finished: false });
+    expect(b["text/plain"]).toContain("3 / 10 graphs · 2.00 graphs/s · about 4 s left · family kneser · now kneser n=56");
+    const done = nb.progressBundle({ done: 10, total: 10, rate: null, eta: 0, elapsed: 75, current: null, lowest: null, finished: true });
+    expect(done["text/plain"]).toContain("10 / 10 graphs · took 1 min 15 s");
+  });
+});
+
 describe("output through a tslab kernel", () => {
   // The pinned tslab package's own modules, with the display writer its kernel installs per cell
   // replaced by a recorder: what halfplus/notebook sends is what tslab would publish.

@@ -132,43 +132,76 @@ describeNeeds(JUPYTER, "notebooks executed headless through the halfplus kernel"
     expect(text(cards[0].data!["text/plain"])).toMatch(/^polarity:q=13 \(n = 183, m = 1274\)/);
   });
 
-  itNeeds(JUPYTER, "quickstart: the executed notebook's HTML in headless Chromium draws the figure with its traces and is not blank", async () => {
-    const out = executed.get("quickstart.ipynb");
-    expect(out, "the quickstart ran").toBeDefined();
-    const html = join(work, "quickstart.html");
-    const r = nbconvert(["--to", "html", out!, "--output", html]);
-    expect(r.status, r.stderr).toBe(0);
-    const page = readFileSync(html, "utf8");
-    const spec = JSON.parse(/<script type="application\/json" id="hp-fig-[^"]+-spec">(.*?)<\/script>/s.exec(page)![1]) as { data: unknown[] };
-    const { chromium } = await import("playwright-core");
-    const ctx = await chromium.launchPersistentContext(join(work, "reader-profile"), { executablePath: CHROMIUM_PATH, headless: true, args: [...CHROMIUM_FLAGS], viewport: { width: 1100, height: 900 }, offline: true });
-    try {
-      const p = await ctx.newPage();
-      const errors: string[] = [];
-      p.on("pageerror", (e) => errors.push(String(e)));
-      await p.goto(pathToFileURL(html).href);
-      await p.waitForFunction(`document.querySelectorAll("div.hp-plot .main-svg").length >= 1`, undefined, { timeout: 60_000 });
-      // Page-side code as strings: this project's TypeScript has no DOM types.
-      const drawn = (await p.evaluate(`[...document.querySelectorAll("div.hp-plot")].map((el) => ({
-          kind: el.getAttribute("data-hp-figure"),
-          drawn: el.getAttribute("data-hp-drawn"),
-          data: el.data.length,
-          svgTraces: el.querySelectorAll(".scatterlayer g.trace").length,
-          img: el.querySelectorAll("img").length,
-        }))`)) as { kind: string; drawn: string; data: number; svgTraces: number; img: number }[];
-      expect(drawn).toEqual([{ kind: "surplus-scaling", drawn: "1", data: spec.data.length, svgTraces: spec.data.length, img: 0 }]);
-      expect(errors.filter((e) => /plotly|halfplus|hp-/i.test(e))).toEqual([]);
-      const plot = await p.$("div.hp-plot");
-      const shot = decodePng(await plot!.screenshot());
-      const variety = pixelVariety(shot);
-      // A blank figure is one colour; a drawn one has hundreds (antialiased marks and text).
-      expect(variety.colours).toBeGreaterThan(200);
-      expect(variety.offBackground).toBeGreaterThan(0.03);
-      writeFileSync(join(work, "quickstart-figure.png"), await plot!.screenshot());
-    } finally {
-      await ctx.close();
-    }
-  }, 300_000);
+  for (const file of notebookFiles)
+    it(`${file}: one figure per show() call, plotly.js embedded once, every progress display finished in place`, () => {
+      const out = executed.get(file);
+      expect(out, `${file} ran`).toBeDefined();
+      const nb = readNotebook(out!);
+      const code = nb.cells.filter((c) => c.cell_type === "code");
+      const shows = code.map((c) => text(c.source).match(/\bshow\(/g)?.length ?? 0).reduce((a, b) => a + b, 0);
+      const outputs = code.flatMap((c) => c.outputs ?? []);
+      const figures = outputs.filter((o) => text(o.data?.["text/html"]).includes('class="hp-plot"'));
+      expect(figures).toHaveLength(shows);
+      const html = outputs.map((o) => text(o.data?.["text/html"])).join("\n");
+      expect(html.split("embedded once so the notebook works offline").length - 1).toBe(shows > 0 ? 1 : 0);
+      // Each progressDisplay() is one output updated in place: its last frame says every graph is done.
+      const displays = code.map((c) => text(c.source).match(/\bprogressDisplay\(/g)?.length ?? 0).reduce((a, b) => a + b, 0);
+      const frames = outputs.filter((o) => o.data?.["text/html"] && text(o.data["text/html"]).includes("hp-nb-progress"));
+      expect(frames).toHaveLength(displays);
+      for (const f of frames) {
+        const m = / (\d+) \/ (\d+) graphs/.exec(text(f.data!["text/plain"]));
+        expect(m, text(f.data!["text/plain"])).not.toBeNull();
+        expect(m![1]).toBe(m![2]);
+      }
+    });
+
+  // The quickstart has one figure; c4-free.ipynb has four in three cells (plotly.js embedded in the first only).
+  const BROWSER_CHECKS: { file: string; figures: string[] }[] = [
+    { file: "quickstart.ipynb", figures: ["surplus-scaling"] },
+    { file: "c4-free.ipynb", figures: ["surplus-scaling", "normalised-ratio", "degree-distribution", "exponents"] },
+  ];
+  for (const { file, figures } of BROWSER_CHECKS)
+    itNeeds(JUPYTER, `${file}: the executed notebook's HTML in headless Chromium draws every figure with its traces, and none is blank`, async () => {
+      const out = executed.get(file);
+      expect(out, `${file} ran`).toBeDefined();
+      const html = join(work, file.replace(/\.ipynb$/, ".html"));
+      const r = nbconvert(["--to", "html", out!, "--output", html]);
+      expect(r.status, r.stderr).toBe(0);
+      const page = readFileSync(html, "utf8");
+      const specs = [...page.matchAll(/<script type="application\/json" id="hp-fig-[^"]+-spec">(.*?)<\/script>/gs)].map((m) => JSON.parse(m[1]) as { data: unknown[] });
+      expect(specs).toHaveLength(figures.length);
+      const { chromium } = await import("playwright-core");
+      const ctx = await chromium.launchPersistentContext(join(work, `reader-profile-${file}`), { executablePath: CHROMIUM_PATH, headless: true, args: [...CHROMIUM_FLAGS], viewport: { width: 1100, height: 900 }, offline: true });
+      try {
+        const p = await ctx.newPage();
+        const errors: string[] = [];
+        p.on("pageerror", (e) => errors.push(String(e)));
+        await p.goto(pathToFileURL(html).href);
+        await p.waitForFunction(`document.querySelectorAll("div.hp-plot .main-svg").length >= ${figures.length}`, undefined, { timeout: 60_000 });
+        // Page-side code as strings: this project's TypeScript has no DOM types. Every trace of a drawn plot
+        // is one <g class="trace"> in its layer (scatter, bar), so their count equals the spec's traces.
+        const drawn = (await p.evaluate(`[...document.querySelectorAll("div.hp-plot")].map((el) => ({
+            kind: el.getAttribute("data-hp-figure"),
+            drawn: el.getAttribute("data-hp-drawn"),
+            data: el.data.length,
+            svgTraces: el.querySelectorAll(".cartesianlayer g.trace").length,
+            img: el.querySelectorAll("img").length,
+          }))`)) as { kind: string; drawn: string; data: number; svgTraces: number; img: number }[];
+        expect(drawn).toEqual(figures.map((kind, i) => ({ kind, drawn: "1", data: specs[i].data.length, svgTraces: specs[i].data.length, img: 0 })));
+        expect(errors.filter((e) => /plotly|halfplus|hp-/i.test(e))).toEqual([]);
+        const plots = await p.$$("div.hp-plot");
+        for (const [i, plot] of plots.entries()) {
+          const shot = decodePng(await plot.screenshot());
+          const variety = pixelVariety(shot);
+          // A blank figure is one colour; a drawn one has hundreds (antialiased marks and text). The sparsest
+          // figure here (degree histograms) leaves about 97 % of its pixels on the background.
+          expect(variety.colours, `${file} figure ${i + 1}`).toBeGreaterThan(200);
+          expect(variety.offBackground, `${file} figure ${i + 1}`).toBeGreaterThan(0.01);
+        }
+      } finally {
+        await ctx.close();
+      }
+    }, 300_000);
 
   it("a failing cell fails the run, and the cells after it do not run", () => {
     const dir = join(work, "failing");
