@@ -5,6 +5,7 @@ export * from "./store.js";
 export { openStore, isStoreFile, DEFAULT_STORE } from "./sqlite-store.js";
 export * from "./plan.js";
 export { parseShard, jobKey, shardSize, type Shard } from "./jobs.js";
+export { budgetSeconds, jobCost, planJobCosts, planSlices, predictedJobSeconds, sliceByCost, WORK_UNITS_PER_SECOND, type PlanSlices } from "./shards.js";
 export { EFFORTS, EVALUATOR_NAMES, WORK_BUDGETS_AVAILABLE, type BracketSettings, type Effort } from "./job.js";
 export * from "./rows.js";
 export * from "./sweep.js";
