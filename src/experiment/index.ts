@@ -17,3 +17,4 @@ export * from "./fit-rows.js";
 export * from "./records.js";
 export { packPartition, unpackPartition } from "./witness.js";
 export { halfplusVersion } from "./provenance.js";
+export * from "./cluster/index.js";
