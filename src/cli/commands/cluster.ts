@@ -56,7 +56,7 @@ export function statusText(st: ClusterStatus): string {
 export const clusterCommand: CommandSpec = {
   name: "cluster",
   summary: "run a sweep plan on a Slurm cluster: a job array over its shards, status, resubmitting what died, merging",
-  positionals: "<slurm <plan.json> | status <dir> | resubmit <dir> | merge <dir>>",
+  positionals: "slurm <plan.json> | status <dir> | resubmit <dir> | merge <dir>",
   minPositionals: 2,
   maxPositionals: 2,
   description: [
