@@ -49,6 +49,7 @@ export function statusText(st: ClusterStatus): string {
     m.state === "merged" ? `merged: ${m.rows}/${st.jobs} rows` : m.state === "absent" ? `not queued${m.rows === null ? "" : ` (merged store holds ${m.rows}/${st.jobs} rows)`}` : `${m.state}, job ${m.job} ${m.slurm}`;
   lines.push(`  merge    ${mergeText}`);
   if (st.counts.incomplete + st.counts.missing > 0 && st.counts.running + st.counts.pending === 0) lines.push(`  to finish: halfplus cluster resubmit ${st.dir}`);
+  if (st.counts.done === st.tasks && m.state === "absent") lines.push(`  to merge: halfplus cluster merge ${st.dir}`);
   for (const n of st.notes) lines.push(`  note: ${n}`);
   return lines.join("\n");
 }
