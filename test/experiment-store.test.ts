@@ -15,7 +15,8 @@ import { mergeStores } from "../src/experiment/merge.js";
 import { storedBrackets, verifyStoredRows } from "../src/experiment/records.js";
 import { isStoreFile, openStore } from "../src/experiment/sqlite-store.js";
 import { runSweep } from "../src/experiment/sweep.js";
-import type { SweepPlan } from "../src/experiment/plan.js";
+import { loadPlan, type SweepPlan } from "../src/experiment/plan.js";
+import { planSlices } from "../src/experiment/shards.js";
 import { packJson, packPartition, unpackJson, unpackPartition } from "../src/experiment/witness.js";
 import { family } from "../src/families/registry.js";
 import { Rng } from "../src/random/prng.js";
@@ -217,7 +218,9 @@ describe("merge", () => {
     const into = join(dir, "merged.db");
     const r = mergeStores([a, b], into);
     expect(r.total).toBe(JOBS);
-    expect(r.sources.map((s) => s.added)).toEqual([Math.ceil(JOBS / 2), Math.floor(JOBS / 2)]);
+    // Each shard holds the jobs its cost-balanced slice names (src/experiment/shards.ts).
+    const slices = await planSlices(loadPlan(PLAN), 2);
+    expect(r.sources.map((s) => s.added)).toEqual(slices.sizes);
     expect(csvOf(into)).toBe(csvOf(full));
     const again = mergeStores([a, b, full], into);
     expect(again.sources.map((s) => s.added)).toEqual([0, 0, 0]);

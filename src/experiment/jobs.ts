@@ -1,14 +1,16 @@
 // A checked plan's jobs in their fixed order, with their keys: family members are enumerated
 // from the plan, graphs of a file are read one at a time (and hashed, since a file graph's key is
-// its hash). `--shard i/N` keeps the jobs whose position in this order is i modulo N.
+// its hash). `--shard i/N` keeps the jobs of slice i of N, slices of about equal predicted cost
+// (shards.ts), the same on every machine.
 
 import { InputError } from "../errors.js";
 import { graphToParts } from "../graph/graph.js";
 import { readGraphs } from "../graph/formats/read.js";
 import { hashGraph, settingsKey, type BracketSettings, type JobInput } from "./job.js";
 import type { Plan } from "./plan.js";
+import { planSlices, type PlanSlices } from "./shards.js";
 
-/** A deterministic slice of a plan: jobs whose position is `index` modulo `count` (0 ≤ index < count). */
+/** A deterministic slice of a plan: slice `index` of `count` (0 ≤ index < count), see shards.ts. */
 export interface Shard {
   index: number;
   count: number;
@@ -40,18 +42,23 @@ export interface PlannedJob {
   input: JobInput;
 }
 
-function inShard(index: number, shard: Shard | null): boolean {
-  return shard === null || index % shard.count === shard.index;
-}
-
 /** Jobs in this shard after sharding (before skipping stored rows). */
-export function shardSize(total: number, shard: Shard | null): number {
-  if (shard === null) return total;
-  return Math.max(0, Math.floor((total - 1 - shard.index) / shard.count) + 1);
+export function shardSize(slices: PlanSlices | null, shard: Shard | null, total: number): number {
+  if (shard === null || slices === null) return total;
+  return slices.sizes[shard.index];
 }
 
-/** Every job of the plan in this shard, in plan order. */
-export async function* planJobs(plan: Plan, version: string, shard: Shard | null = null): AsyncGenerator<PlannedJob> {
+/**
+ * Every job of the plan in this shard, in plan order. `slices` (from `planSlices(plan, shard.count)`)
+ * saves computing the slicing again when the caller has it.
+ */
+export async function* planJobs(plan: Plan, version: string, shard: Shard | null = null, slices?: PlanSlices): AsyncGenerator<PlannedJob> {
+  let sliced: PlanSlices | null = null;
+  if (shard !== null) {
+    sliced = slices ?? (await planSlices(plan, shard.count));
+    if (sliced.count !== shard.count || sliced.shardOf.length !== plan.total) throw new RangeError(`planJobs: slices of ${sliced.count} do not fit the shard ${shard.index}/${shard.count}`);
+  }
+  const inShard = (i: number, s: Shard | null): boolean => s === null || sliced!.shardOf[i] === s.index;
   let index = 0;
   for (const e of plan.entries) {
     if (e.kind === "specs") {

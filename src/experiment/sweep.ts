@@ -8,6 +8,7 @@ import { InputError } from "../errors.js";
 import { COLUMN_INDEX, type CellValue } from "./columns.js";
 import type { JobContext, JobInput } from "./job.js";
 import { parseShard, planJobs, shardSize, type PlannedJob, type Shard } from "./jobs.js";
+import { planSlices, type PlanSlices } from "./shards.js";
 import { loadPlan, type Plan, type SweepPlan } from "./plan.js";
 import { createRunner, type BatchResult } from "./pool.js";
 import type { LowestRatio, SweepProgress } from "./progress.js";
@@ -103,6 +104,14 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     throw new InputError(`${store.path}: opened read-only; a sweep writes to it`);
   }
 
+  let slices: PlanSlices | null = null;
+  try {
+    if (shard !== null) slices = await planSlices(p, shard.count);
+  } catch (e) {
+    await runner.close();
+    if (ownStore) store.close();
+    throw e;
+  }
   const prov = provenance();
   const started = nowIso();
   const shardText = shard === null ? null : `${shard.index}/${shard.count}`;
@@ -121,7 +130,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   };
   store.logSweep(log);
 
-  const total = shardSize(p.total, shard);
+  const total = shardSize(slices, shard, p.total);
   const degree = p.degrees[0];
   const degreeAt = AT(degree);
   const t0 = performance.now();
@@ -213,7 +222,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   let batch: PlannedJob[] = [];
   try {
     const batchSize = (): number => (secondsPerJob === null ? 1 : Math.max(1, Math.min(MAX_BATCH, Math.floor(BATCH_TARGET_SECONDS / Math.max(secondsPerJob, 1e-7)))));
-    for await (const job of planJobs(p, prov.version, shard)) {
+    for await (const job of planJobs(p, prov.version, shard, slices ?? undefined)) {
       if (failure !== null) break;
       if (options.signal?.aborted) {
         stopped = true;

@@ -14,5 +14,6 @@ import { exportCommand } from "./export.js";
 import { importCommand } from "./import.js";
 import { mergeCommand } from "./merge.js";
 import { fitCommand } from "./fit.js";
+import { clusterCommand } from "./cluster.js";
 
-export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, fitCommand, kernelCommand];
+export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, fitCommand, clusterCommand, kernelCommand];

@@ -27,7 +27,7 @@ export const sweepCommand: CommandSpec = {
     {
       name: "shard",
       type: "string",
-      description: "run only slice i of N: jobs whose position in the plan is i modulo N, 0 ≤ i < N (a Slurm array task id fits as i)",
+      description: "run only slice i of N, 0 ≤ i < N (a Slurm array task id fits as i): the N slices have about equal predicted cost (n, m and the budget of each job), the same on every machine",
       placeholder: "i/N",
     },
     { name: "list", type: "boolean", description: "print the keys of the jobs still to run (one per line) and stop" },
