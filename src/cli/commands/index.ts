@@ -14,5 +14,6 @@ import { exportCommand } from "./export.js";
 import { importCommand } from "./import.js";
 import { mergeCommand } from "./merge.js";
 import { fitCommand } from "./fit.js";
+import { censusCommand } from "./census.js";
 
-export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, fitCommand, kernelCommand];
+export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, fitCommand, censusCommand, kernelCommand];

@@ -1,0 +1,74 @@
+// A census as records: one JSON object per (n, m) cell, the same facts `halfplus census --table`
+// lays out, with the census's own state beside them.
+
+import { InputError } from "../../errors.js";
+import type { ResultStore } from "../store.js";
+import type { CensusCell } from "./cells.js";
+import type { CensusState } from "./census-store.js";
+
+export const CENSUS_CELL_KIND = "halfplus/census-cell";
+export const CENSUS_CELL_VERSION = 1;
+
+export interface CensusCellRecord {
+  kind: typeof CENSUS_CELL_KIND;
+  version: number;
+  census: string;
+  /** Where the graphs came from and how many of the stream are counted. */
+  source: { stream: string; graphsCounted: number; complete: boolean };
+  n: number;
+  m: number;
+  graphs: number;
+  /** Least max cut − m/2 over the graphs with this n and m. */
+  minSurplus: number;
+  /** The max cut that attains it (m/2 + minSurplus). */
+  maxCutAtMin: number;
+  attaining: number;
+  /** graph6 of the first graphs attaining minSurplus in stream order (at most the census's witness limit). */
+  witnesses: string[];
+  /** Least surplus·√d/m, d the degeneracy (null when m = 0), its first witness and its d. */
+  minRatio: number | null;
+  ratioWitness: string | null;
+  ratioDegeneracy: number | null;
+  /** Graphs per surplus value, in increasing surplus. */
+  histogram: { surplus: number; graphs: number }[];
+}
+
+export function censusCellRecord(state: CensusState, c: CensusCell): CensusCellRecord {
+  return {
+    kind: CENSUS_CELL_KIND,
+    version: CENSUS_CELL_VERSION,
+    census: state.name,
+    source: { stream: state.source, graphsCounted: state.consumed, complete: state.finishedAt !== null },
+    n: c.n,
+    m: c.m,
+    graphs: c.graphs,
+    minSurplus: c.minSurplus,
+    maxCutAtMin: c.m / 2 + c.minSurplus,
+    attaining: c.attaining,
+    witnesses: c.witnesses,
+    minRatio: c.minRatio,
+    ratioWitness: c.ratioWitness,
+    ratioDegeneracy: c.ratioDegeneracy,
+    histogram: [...c.histogram.entries()].sort((a, b) => a[0] - b[0]).map(([twice, graphs]) => ({ surplus: twice / 2, graphs })),
+  };
+}
+
+/**
+ * The censuses of a store to show: the one named, else every one. A name the store lacks, or a
+ * store with no census, is bad input naming the store.
+ */
+export function censusesToShow(store: ResultStore, name: string | undefined): CensusState[] {
+  const all = store.census().list();
+  if (name !== undefined) {
+    const hit = all.find((s) => s.name === name);
+    if (hit === undefined) throw new InputError(`${store.path}: no census named ${JSON.stringify(name)}${all.length > 0 ? ` (it holds ${all.map((s) => JSON.stringify(s.name)).join(", ")})` : ""}`);
+    return [hit];
+  }
+  if (all.length === 0) throw new InputError(`${store.path}: holds no census (run one with halfplus census - --store ${store.path})`);
+  return all;
+}
+
+/** Every cell of the census as a record, in (n, m) order. */
+export function censusRecords(store: ResultStore, state: CensusState): CensusCellRecord[] {
+  return store.census().cells(state.name).map((c) => censusCellRecord(state, c));
+}

@@ -1,0 +1,132 @@
+// A graph6/sparse6 stream cut into batches of whole lines holding a given number of graphs, with
+// a running sha256 of every byte handed out: the census's resume position is a graph count,
+// and the hash of the prefix up to it tells whether a stream fed again starts the same way.
+
+import { createHash, type Hash } from "node:crypto";
+import { createReadStream } from "node:fs";
+import type { Readable } from "node:stream";
+import { InputError, inputErrorAt } from "../../errors.js";
+import { nautyLineHoldsGraph } from "../../graph/formats/nauty-line.js";
+import { MAX_LINE_BYTES } from "../../limits/input.js";
+import { formatBytes } from "../../limits/memory.js";
+
+export interface LineBatch {
+  /** Whole lines, each ending in "\n" (one is added to a last line without it). */
+  bytes: Buffer;
+  /** Line number (from 1) of the first line in `bytes`. */
+  firstLine: number;
+  /** Lines holding a graph; the batch ends right after the last of them. */
+  graphs: number;
+  /** sha256 (hex) of every byte handed out so far, this batch included. */
+  fingerprint: string;
+}
+
+const EMPTY = Buffer.alloc(0);
+const NEWLINE = Buffer.from("\n");
+
+/** Batches of a stream (`-` = standard input, else a file path). */
+export class StreamBatcher {
+  private readonly it: AsyncIterator<unknown>;
+  private readonly hash: Hash = createHash("sha256");
+  private buf: Buffer = EMPTY;
+  private pos = 0;
+  private line = 0; // lines before `pos`
+  private eof = false;
+  /** Bytes handed out so far. */
+  bytesRead = 0;
+  /** The stream's name in messages. */
+  readonly source: string;
+
+  constructor(path: string, stdin: NodeJS.ReadableStream = process.stdin) {
+    this.source = path === "-" ? "stdin" : path;
+    const stream = path === "-" ? stdin : createReadStream(path);
+    const r = stream as Readable;
+    this.it = path === "-" && typeof r.iterator === "function" ? r.iterator({ destroyOnReturn: false }) : stream[Symbol.asyncIterator]();
+  }
+
+  private async more(): Promise<boolean> {
+    if (this.eof) return false;
+    let r: IteratorResult<unknown>;
+    try {
+      r = await this.it.next();
+    } catch (e) {
+      const code = (e as NodeJS.ErrnoException).code;
+      if (typeof code === "string" && /^E[A-Z]+$/.test(code)) {
+        const why = code === "ENOENT" ? "no such file" : code === "EISDIR" ? "is a directory" : code === "EACCES" ? "permission denied" : code;
+        throw new InputError(`${this.source}: cannot read (${why})`);
+      }
+      throw e;
+    }
+    const rest = this.buf.subarray(this.pos);
+    if (r.done) {
+      this.eof = true;
+      // A last line without "\n" gets one, so its bytes hash the same when more lines follow later.
+      if (rest.length === 0) return false;
+      this.buf = Buffer.concat([rest, NEWLINE]);
+    } else {
+      const v = r.value;
+      const chunk = typeof v === "string" ? Buffer.from(v, "utf8") : Buffer.isBuffer(v) ? v : Buffer.from(v as Uint8Array);
+      this.buf = rest.length === 0 ? chunk : Buffer.concat([rest, chunk]);
+      if (this.buf.length > MAX_LINE_BYTES && this.buf.indexOf(10) < 0) throw inputErrorAt(this.source, this.line + 1, `line longer than ${formatBytes(MAX_LINE_BYTES)}: not a graph6/sparse6 line halfplus can hold`);
+    }
+    this.pos = 0;
+    return true;
+  }
+
+  /**
+   * The next batch of up to `maxGraphs` graphs (fewer only at the end of the stream), or null
+   * when no graph is left. Blank and header lines after the last graph of a batch stay for the next.
+   */
+  async next(maxGraphs: number): Promise<LineBatch | null> {
+    const parts: Buffer[] = [];
+    let graphs = 0;
+    let start = this.pos; // first byte of this batch in `buf`
+    let firstLine = this.line + 1;
+    let lastEnd = -1; // end (after "\n") of the last graph line in `buf`
+    let lineAtLastEnd = this.line;
+    while (graphs < maxGraphs) {
+      const nl = this.buf.indexOf(10, this.pos);
+      if (nl < 0) {
+        // Keep the complete lines seen so far; the partial line moves to the next buffer.
+        if (lastEnd >= 0) {
+          parts.push(this.buf.subarray(start, lastEnd));
+          start = lastEnd;
+          firstLine = lineAtLastEnd + 1;
+          lastEnd = -1;
+        }
+        const keepFrom = start;
+        const keptLine = firstLine;
+        // more() keeps buf[pos..]: rewind to the batch's unsent lines so they are kept too.
+        this.pos = keepFrom;
+        this.line = keptLine - 1;
+        if (!(await this.more())) break;
+        start = 0;
+        continue;
+      }
+      const holds = nautyLineHoldsGraph(this.buf, this.pos, nl);
+      this.pos = nl + 1;
+      this.line++;
+      if (holds) {
+        graphs++;
+        lastEnd = this.pos;
+        lineAtLastEnd = this.line;
+      }
+    }
+    if (lastEnd >= 0) {
+      parts.push(this.buf.subarray(start, lastEnd));
+      // Lines after the last graph (blank or headers) belong to the next batch.
+      this.pos = lastEnd;
+      this.line = lineAtLastEnd;
+    }
+    if (graphs === 0) return null;
+    const bytes = parts.length === 1 ? Buffer.from(parts[0]) : Buffer.concat(parts);
+    this.hash.update(bytes);
+    this.bytesRead += bytes.length;
+    return { bytes, firstLine, graphs, fingerprint: this.hash.copy().digest("hex") };
+  }
+
+  /** Stop reading (standard input is left open; a file stream is closed). */
+  async close(): Promise<void> {
+    await this.it.return?.();
+  }
+}
