@@ -1,5 +1,6 @@
 // `halfplus census`: count a graph6/sparse6 stream into a results store (`--store`), exactly
 // and resumably, and show the per-(n, m) aggregates of a store (`--table`, `--json`).
+import { existsSync } from "node:fs";
 import { availableParallelism } from "node:os";
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
@@ -111,6 +112,7 @@ export const censusCommand: CommandSpec = {
       nameToShow = summary.name;
     } else {
       if (show === null) throw new InputError(`${target}: give --store FILE to count a stream into a store, or --table / --json to show a store's census`);
+      if (target !== "-" && !existsSync(target)) throw new InputError(`${target}: no such results store`);
       if (target === "-" || !isStoreFile(target)) throw new InputError(`${target}: not a results store (to count a stream, give --store FILE)`);
       storeToShow = target;
     }
