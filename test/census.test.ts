@@ -206,14 +206,20 @@ describe("halfplus census", () => {
     const consumedAt: number[] = [];
     for (let kill = 0; kill < 3; kill++) {
       const child = spawn(process.execPath, [BIN, "census", stream, "--store", killed, "--workers", "2", "--batch", "500", "--no-progress"], { cwd: ROOT, stdio: "ignore" });
-      const exited = new Promise<number | null>((resolve) => child.on("exit", (code) => resolve(code)));
+      let gone = false;
+      const exited = new Promise<number | null>((resolve) =>
+        child.on("exit", (code) => {
+          gone = true;
+          resolve(code);
+        }),
+      );
       // Kill once this run has committed something new (a work-based trigger: no clock decides the test).
       const before = consumedAt.at(-1) ?? 0;
       let now = before;
       while (now <= before) {
         await new Promise((r) => setTimeout(r, 20));
         now = storedConsumed(killed);
-        if (now >= lines.length) break;
+        if (now >= lines.length || gone) break;
       }
       child.kill("SIGKILL");
       await exited;

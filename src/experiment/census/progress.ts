@@ -1,6 +1,7 @@
 // Census progress on stderr: a line rewritten in place on a terminal (at most 10 a second), or a
 // plain sentence every few seconds when stderr is a file or a pipe.
 
+import { liveProgress } from "../progress.js";
 import type { CensusProgress } from "./run.js";
 
 function rate(r: number | null): string {
@@ -28,26 +29,7 @@ export interface CensusProgressDisplay {
   done(): void;
 }
 
+/** Live line on a terminal, else a plain line every `every` seconds (the sweep's writer, `liveProgress`). */
 export function censusProgressDisplay(stderr: NodeJS.WritableStream, options: { tty?: boolean; every?: number } = {}): CensusProgressDisplay {
-  const tty = options.tty ?? (stderr as NodeJS.WriteStream).isTTY === true;
-  const every = options.every ?? 10;
-  let last = -Infinity;
-  let shown = false;
-  return {
-    update(p) {
-      if (p.finished) return;
-      if (p.elapsed - last < (tty ? 0.1 : every)) return;
-      last = p.elapsed;
-      if (tty) {
-        const width = (stderr as NodeJS.WriteStream).columns ?? 120;
-        const line = censusProgressLine(p);
-        stderr.write(`\r\x1b[2K${line.length > width - 1 ? line.slice(0, width - 2) + "…" : line}`);
-        shown = true;
-      } else stderr.write(censusProgressSentence(p) + "\n");
-    },
-    done() {
-      if (tty && shown) stderr.write("\r\x1b[2K");
-      shown = false;
-    },
-  };
+  return liveProgress(stderr, censusProgressLine, censusProgressSentence, options);
 }

@@ -4,9 +4,9 @@
 
 import { createHash, type Hash } from "node:crypto";
 import { createReadStream } from "node:fs";
-import type { Readable } from "node:stream";
-import { InputError, inputErrorAt } from "../../errors.js";
+import { inputErrorAt } from "../../errors.js";
 import { nautyLineHoldsGraph } from "../../graph/formats/nauty-line.js";
+import { Chunks } from "../../graph/formats/read.js";
 import { MAX_LINE_BYTES } from "../../limits/input.js";
 import { formatBytes } from "../../limits/memory.js";
 
@@ -26,7 +26,7 @@ const NEWLINE = Buffer.from("\n");
 
 /** Batches of a stream (`-` = standard input, else a file path). */
 export class StreamBatcher {
-  private readonly it: AsyncIterator<unknown>;
+  private readonly chunks: Chunks;
   private readonly hash: Hash = createHash("sha256");
   private buf: Buffer = EMPTY;
   private pos = 0;
@@ -39,33 +39,20 @@ export class StreamBatcher {
 
   constructor(path: string, stdin: NodeJS.ReadableStream = process.stdin) {
     this.source = path === "-" ? "stdin" : path;
-    const stream = path === "-" ? stdin : createReadStream(path);
-    const r = stream as Readable;
-    this.it = path === "-" && typeof r.iterator === "function" ? r.iterator({ destroyOnReturn: false }) : stream[Symbol.asyncIterator]();
+    const owned = path !== "-";
+    this.chunks = new Chunks(owned ? createReadStream(path) : stdin, owned, this.source);
   }
 
   private async more(): Promise<boolean> {
     if (this.eof) return false;
-    let r: IteratorResult<unknown>;
-    try {
-      r = await this.it.next();
-    } catch (e) {
-      const code = (e as NodeJS.ErrnoException).code;
-      if (typeof code === "string" && /^E[A-Z]+$/.test(code)) {
-        const why = code === "ENOENT" ? "no such file" : code === "EISDIR" ? "is a directory" : code === "EACCES" ? "permission denied" : code;
-        throw new InputError(`${this.source}: cannot read (${why})`);
-      }
-      throw e;
-    }
+    const chunk = await this.chunks.next();
     const rest = this.buf.subarray(this.pos);
-    if (r.done) {
+    if (chunk === null) {
       this.eof = true;
       // A last line without "\n" gets one, so its bytes hash the same when more lines follow later.
       if (rest.length === 0) return false;
       this.buf = Buffer.concat([rest, NEWLINE]);
     } else {
-      const v = r.value;
-      const chunk = typeof v === "string" ? Buffer.from(v, "utf8") : Buffer.isBuffer(v) ? v : Buffer.from(v as Uint8Array);
       this.buf = rest.length === 0 ? chunk : Buffer.concat([rest, chunk]);
       if (this.buf.length > MAX_LINE_BYTES && this.buf.indexOf(10) < 0) throw inputErrorAt(this.source, this.line + 1, `line longer than ${formatBytes(MAX_LINE_BYTES)}: not a graph6/sparse6 line halfplus can hold`);
     }
@@ -127,6 +114,6 @@ export class StreamBatcher {
 
   /** Stop reading (standard input is left open; a file stream is closed). */
   async close(): Promise<void> {
-    await this.it.return?.();
+    await this.chunks.close();
   }
 }
