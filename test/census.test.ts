@@ -9,7 +9,8 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { Readable } from "node:stream";
-import { censusesToShow, censusRecords, runCensus, type CensusOptions } from "../src/experiment/census/index.js";
+import { censusesToShow, censusRecords, censusSurplusRows, runCensus, type CensusOptions } from "../src/experiment/census/index.js";
+import { normalisedRatioFigure } from "../src/plot/figures/normalised-ratio.js";
 import { openStore } from "../src/experiment/sqlite-store.js";
 import { parseGraph6 } from "../src/graph/formats/graph6.js";
 import { BIN, ROOT, ensureBuilt, halfplus } from "./helpers/cli.js";
@@ -31,6 +32,7 @@ interface Cell {
   minRatio: number | null;
   ratioWitness: string | null;
   ratioDegeneracy: number | null;
+  ratioSurplus: number | null;
   histogram: { surplus: number; graphs: number }[];
 }
 
@@ -66,7 +68,7 @@ function oracle(lines: string[], witnessLimit: number): Map<string, Cell> {
     const key = `${g.n},${m}`;
     let c = cells.get(key);
     if (c === undefined) {
-      c = { n: g.n, m, graphs: 0, minSurplus: Infinity, attaining: 0, witnesses: [], minRatio: null, ratioWitness: null, ratioDegeneracy: null, histogram: [] };
+      c = { n: g.n, m, graphs: 0, minSurplus: Infinity, attaining: 0, witnesses: [], minRatio: null, ratioWitness: null, ratioDegeneracy: null, ratioSurplus: null, histogram: [] };
       cells.set(key, c);
       hist.set(key, new Map());
     }
@@ -89,6 +91,7 @@ function oracle(lines: string[], witnessLimit: number): Map<string, Cell> {
         c.minRatio = ratio;
         c.ratioWitness = line;
         c.ratioDegeneracy = d;
+        c.ratioSurplus = surplus;
       }
     }
   }
@@ -127,7 +130,7 @@ function cellsOf(store: string, name?: string): Cell[] {
 
 /** The aggregates only (the source label and counts beside them may differ between runs). */
 function aggregates(cells: Cell[]): unknown[] {
-  return cells.map((c) => ({ n: c.n, m: c.m, graphs: c.graphs, minSurplus: c.minSurplus, attaining: c.attaining, witnesses: c.witnesses, minRatio: c.minRatio, ratioWitness: c.ratioWitness, ratioDegeneracy: c.ratioDegeneracy, histogram: c.histogram }));
+  return cells.map((c) => ({ n: c.n, m: c.m, graphs: c.graphs, minSurplus: c.minSurplus, attaining: c.attaining, witnesses: c.witnesses, minRatio: c.minRatio, ratioWitness: c.ratioWitness, ratioDegeneracy: c.ratioDegeneracy, ratioSurplus: c.ratioSurplus, histogram: c.histogram }));
 }
 
 function compareWithOracle(got: Cell[], want: Map<string, Cell>): void {
@@ -179,6 +182,19 @@ describe("halfplus census", () => {
       got.filter((c) => c.n <= 9),
       oracle(small, 8),
     );
+    // The extremal graphs as rows for the figures: one per cell with an edge, its ratio the cell's.
+    const store2 = openStore(store, { readonly: true });
+    const rows = censusSurplusRows(store2, censusesToShow(store2, "c4-free")[0]);
+    store2.close();
+    const withEdges = got.filter((c) => c.m > 0);
+    expect(rows.length).toBe(withEdges.length);
+    for (const [i, row] of rows.entries()) {
+      expect((row.surplusLower * Math.sqrt(row.degeneracy)) / row.m).toBe(withEdges[i].minRatio);
+      expect(row.maxDegree).toBeGreaterThanOrEqual(row.degeneracy);
+      expect(row.key).toBe(withEdges[i].ratioWitness);
+    }
+    const figure = normalisedRatioFigure(rows);
+    expect(figure.data.length).toBeGreaterThan(0);
   });
 
   itNeeds([tool("nauty-geng"), tool("nauty-copyg")], "reads sparse6 as it reads graph6 (the same graphs through nauty-copyg -s give the same cells)", async () => {

@@ -83,6 +83,7 @@ export function censusOfLines(buf: Uint8Array, file: string, firstLine: number, 
         cell.minRatio = ratio;
         cell.ratioWitness = text();
         cell.ratioDegeneracy = d;
+        cell.ratioSurplus = surplus;
       }
     }
   }

@@ -16,9 +16,10 @@ export interface CensusCell {
   witnesses: string[];
   /** Least surplus·√d/m (d the degeneracy) over these graphs; null when m = 0. */
   minRatio: number | null;
-  /** graph6 of the first graph attaining minRatio, and its degeneracy. */
+  /** graph6 of the first graph attaining minRatio, its degeneracy and its surplus. */
   ratioWitness: string | null;
   ratioDegeneracy: number | null;
+  ratioSurplus: number | null;
   /** Graphs per value of 2·surplus (an integer), so the keys are exact. */
   histogram: Map<number, number>;
 }
@@ -39,7 +40,7 @@ export function fromPlainCell(p: PlainCell): CensusCell {
 }
 
 export function emptyCell(n: number, m: number): CensusCell {
-  return { n, m, graphs: 0, minSurplus: Infinity, attaining: 0, witnesses: [], minRatio: null, ratioWitness: null, ratioDegeneracy: null, histogram: new Map() };
+  return { n, m, graphs: 0, minSurplus: Infinity, attaining: 0, witnesses: [], minRatio: null, ratioWitness: null, ratioDegeneracy: null, ratioSurplus: null, histogram: new Map() };
 }
 
 /**
@@ -63,6 +64,7 @@ export function mergeCell(into: CensusCell, later: CensusCell, witnessLimit: num
     into.minRatio = later.minRatio;
     into.ratioWitness = later.ratioWitness;
     into.ratioDegeneracy = later.ratioDegeneracy;
+    into.ratioSurplus = later.ratioSurplus;
   }
   for (const [k, v] of later.histogram) into.histogram.set(k, (into.histogram.get(k) ?? 0) + v);
 }

@@ -46,7 +46,7 @@ export function createCensusSchema(db: Database.Database): void {
     witnessLimit INTEGER NOT NULL, source TEXT NOT NULL, startedAt TEXT NOT NULL, updatedAt TEXT NOT NULL, finishedAt TEXT, version TEXT NOT NULL)`);
   db.exec(`CREATE TABLE IF NOT EXISTS census_cells (name TEXT NOT NULL, n INTEGER NOT NULL, m INTEGER NOT NULL, graphs INTEGER NOT NULL,
     minSurplus REAL NOT NULL, attaining INTEGER NOT NULL, witnesses TEXT NOT NULL, minRatio REAL, ratioWitness TEXT, ratioDegeneracy INTEGER,
-    PRIMARY KEY (name, n, m))`);
+    ratioSurplus REAL, PRIMARY KEY (name, n, m))`);
   db.exec(`CREATE TABLE IF NOT EXISTS census_histogram (name TEXT NOT NULL, n INTEGER NOT NULL, m INTEGER NOT NULL, twiceSurplus INTEGER NOT NULL,
     graphs INTEGER NOT NULL, PRIMARY KEY (name, n, m, twiceSurplus))`);
 }
@@ -61,6 +61,7 @@ interface CellRow {
   minRatio: number | null;
   ratioWitness: string | null;
   ratioDegeneracy: number | null;
+  ratioSurplus: number | null;
 }
 
 /** The census tables of an open store connection; a read-only store made before the census reads as holding none. */
@@ -82,9 +83,9 @@ export function censusTables(db: Database.Database, path: string, readonly: bool
   const upsertCell = readonly
     ? null
     : db.prepare(
-        `INSERT INTO census_cells (name, n, m, graphs, minSurplus, attaining, witnesses, minRatio, ratioWitness, ratioDegeneracy) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?)
+        `INSERT INTO census_cells (name, n, m, graphs, minSurplus, attaining, witnesses, minRatio, ratioWitness, ratioDegeneracy, ratioSurplus) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)
          ON CONFLICT(name, n, m) DO UPDATE SET graphs = excluded.graphs, minSurplus = excluded.minSurplus, attaining = excluded.attaining,
-         witnesses = excluded.witnesses, minRatio = excluded.minRatio, ratioWitness = excluded.ratioWitness, ratioDegeneracy = excluded.ratioDegeneracy`,
+         witnesses = excluded.witnesses, minRatio = excluded.minRatio, ratioWitness = excluded.ratioWitness, ratioDegeneracy = excluded.ratioDegeneracy, ratioSurplus = excluded.ratioSurplus`,
       );
   const upsertBar = readonly
     ? null
@@ -94,7 +95,7 @@ export function censusTables(db: Database.Database, path: string, readonly: bool
     : db.transaction((state: CensusState, changed: Iterable<CensusCell>) => {
         upsertState!.run(STATE_FIELDS.map((f) => state[f]));
         for (const c of changed) {
-          upsertCell!.run(state.name, c.n, c.m, c.graphs, c.minSurplus, c.attaining, JSON.stringify(c.witnesses), c.minRatio, c.ratioWitness, c.ratioDegeneracy);
+          upsertCell!.run(state.name, c.n, c.m, c.graphs, c.minSurplus, c.attaining, JSON.stringify(c.witnesses), c.minRatio, c.ratioWitness, c.ratioDegeneracy, c.ratioSurplus);
           for (const [twice, count] of c.histogram) upsertBar!.run(state.name, c.n, c.m, twice, count);
         }
       });

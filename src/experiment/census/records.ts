@@ -2,6 +2,8 @@
 // lays out, with the census's own state beside them.
 
 import { InputError } from "../../errors.js";
+import { parseGraph6 } from "../../graph/formats/graph6.js";
+import type { SurplusRow } from "../rows.js";
 import type { ResultStore } from "../store.js";
 import type { CensusCell } from "./cells.js";
 import type { CensusState } from "./census-store.js";
@@ -25,10 +27,11 @@ export interface CensusCellRecord {
   attaining: number;
   /** graph6 of the first graphs attaining minSurplus in stream order (at most the census's witness limit). */
   witnesses: string[];
-  /** Least surplus·√d/m, d the degeneracy (null when m = 0), its first witness and its d. */
+  /** Least surplus·√d/m, d the degeneracy (null when m = 0), its first witness, its d and its surplus. */
   minRatio: number | null;
   ratioWitness: string | null;
   ratioDegeneracy: number | null;
+  ratioSurplus: number | null;
   /** Graphs per surplus value, in increasing surplus. */
   histogram: { surplus: number; graphs: number }[];
 }
@@ -49,6 +52,7 @@ export function censusCellRecord(state: CensusState, c: CensusCell): CensusCellR
     minRatio: c.minRatio,
     ratioWitness: c.ratioWitness,
     ratioDegeneracy: c.ratioDegeneracy,
+    ratioSurplus: c.ratioSurplus,
     histogram: [...c.histogram.entries()].sort((a, b) => a[0] - b[0]).map(([twice, graphs]) => ({ surplus: twice / 2, graphs })),
   };
 }
@@ -71,4 +75,32 @@ export function censusesToShow(store: ResultStore, name: string | undefined): Ce
 /** Every cell of the census as a record, in (n, m) order. */
 export function censusRecords(store: ResultStore, state: CensusState): CensusCellRecord[] {
   return store.census().cells(state.name).map((c) => censusCellRecord(state, c));
+}
+
+/**
+ * The census's extremal graphs as rows for the fits and figures: per (n, m) with m > 0, the first
+ * graph attaining the least surplus·√d/m (its surplus is exact: `exact: true`), family = the
+ * census name, key = its graph6. Degrees are read off the decoded witness.
+ */
+export function censusSurplusRows(store: ResultStore, state: CensusState): SurplusRow[] {
+  const rows: SurplusRow[] = [];
+  for (const c of store.census().cells(state.name)) {
+    if (c.ratioWitness === null || c.ratioSurplus === null || c.ratioDegeneracy === null) continue;
+    const g = parseGraph6(c.ratioWitness, { file: `${store.path} census ${state.name}` });
+    let maxDegree = 0;
+    for (let v = 0; v < g.n; v++) maxDegree = Math.max(maxDegree, g.degree(v));
+    rows.push({
+      key: c.ratioWitness,
+      family: state.name,
+      n: c.n,
+      m: c.m,
+      degeneracy: c.ratioDegeneracy,
+      maxDegree,
+      averageDegree: (2 * c.m) / c.n,
+      surplusLower: c.ratioSurplus,
+      surplusUpper: c.ratioSurplus,
+      exact: true,
+    });
+  }
+  return rows;
 }
