@@ -276,7 +276,7 @@ describe("halfplus census", () => {
     expect(aggregates(cellsIn(join(dir, "padded.db")))).toEqual(aggregates(cellsIn(split)));
   });
 
-  itNeeds([tool("nauty-geng")], "a bad line is one error naming file:line (exit 2); the graphs before it stay counted", () => {
+  itNeeds([tool("nauty-geng")], "a bad line is one error naming file:line (exit 2); the graphs before it stay counted", async () => {
     const lines = gengOver("-t", [7]);
     const bad = [...lines.slice(0, 50), "B!", ...lines.slice(50)];
     const file = join(dir, "bad.g6");
@@ -286,6 +286,10 @@ describe("halfplus census", () => {
     expect(r.code).toBe(2);
     expect(r.stderr.trim().split("\n")).toEqual([`halfplus census: ${file}:51: invalid graph6 character "!" at column 2`]);
     expect(storedConsumed(store)).toBe(50);
+    // The same through a stream delivered 5 bytes at a time, with blank and header lines: the line is still named right.
+    const text = Buffer.from(["", ">>graph6<<", ...bad.slice(0, 80)].join("\n") + "\n");
+    const pieces = Array.from({ length: Math.ceil(text.length / 5) }, (_, i) => text.subarray(5 * i, 5 * i + 5));
+    await expect(runCensus({ input: "-", stdin: Readable.from(pieces), store: join(dir, "bad2.db"), workers: 0, batchGraphs: 3 })).rejects.toThrow(/^stdin:53: invalid graph6 character/);
   });
 
   it("keeps stores made before the census valid: shown as holding none, given the tables when written", () => {

@@ -67,8 +67,9 @@ export class StreamBatcher {
   async next(maxGraphs: number): Promise<LineBatch | null> {
     const parts: Buffer[] = [];
     let graphs = 0;
-    let start = this.pos; // first byte of this batch in `buf`
-    let firstLine = this.line + 1;
+    let start = this.pos; // first byte not yet put in `parts`
+    const firstLine = this.line + 1; // of the batch
+    let startLine = firstLine; // of the byte at `start`
     let lastEnd = -1; // end (after "\n") of the last graph line in `buf`
     let lineAtLastEnd = this.line;
     while (graphs < maxGraphs) {
@@ -78,14 +79,12 @@ export class StreamBatcher {
         if (lastEnd >= 0) {
           parts.push(this.buf.subarray(start, lastEnd));
           start = lastEnd;
-          firstLine = lineAtLastEnd + 1;
+          startLine = lineAtLastEnd + 1;
           lastEnd = -1;
         }
-        const keepFrom = start;
-        const keptLine = firstLine;
-        // more() keeps buf[pos..]: rewind to the batch's unsent lines so they are kept too.
-        this.pos = keepFrom;
-        this.line = keptLine - 1;
+        // more() keeps buf[pos..]: rewind to the lines not yet in `parts` so they are kept too.
+        this.pos = start;
+        this.line = startLine - 1;
         if (!(await this.more())) break;
         start = 0;
         continue;
