@@ -30,7 +30,7 @@ function summaryText(s: CensusSummary): string {
 
 function tableLines(name: string, source: string, counted: number, complete: boolean, records: readonly CensusCellRecord[]): string[] {
   const head = `census ${name}: ${counted} graphs from ${source}${complete ? "" : " (stream not read to its end yet)"}`;
-  const rows: string[][] = [["n", "m", "graphs", "min surplus", "attaining", "min surplus·√d/m", "witness"]];
+  const rows: string[][] = [["n", "m", "graphs", "min surplus", "attaining", "min surplus·√d/m", "first graph at min surplus"]];
   for (const r of records) {
     rows.push([String(r.n), String(r.m), String(r.graphs), formatNumber(r.minSurplus), String(r.attaining), r.minRatio === null ? "–" : formatNumber(r.minRatio), r.witnesses[0] ?? "–"]);
   }
