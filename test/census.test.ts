@@ -292,6 +292,19 @@ describe("halfplus census", () => {
     await expect(runCensus({ input: "-", stdin: Readable.from(pieces), store: join(dir, "bad2.db"), workers: 0, batchGraphs: 3 })).rejects.toThrow(/^stdin:53: invalid graph6 character/);
   });
 
+  it("is listed in halfplus --help and explains its options", () => {
+    expect(halfplus(["--help"]).stdout).toContain("  census ");
+    const h = census(["--help"]);
+    expect(h.code).toBe(0);
+    expect(h.stdout).toMatch(/^halfplus census/);
+    for (const o of ["--store FILE", "--name NAME", "--workers N", "--witnesses N", "--batch N", "--at-most N", "--table", "--json", "--progress"]) expect(h.stdout).toContain(o);
+    // Neither a store to count into nor a view asked for: one line, exit 2.
+    const r = census(["-"], "");
+    expect(r.code).toBe(2);
+    expect(r.stderr.trim().split("\n")).toHaveLength(1);
+    expect(r.stderr).toMatch(/--store FILE.*--table \/ --json/);
+  });
+
   it("keeps stores made before the census valid: shown as holding none, given the tables when written", () => {
     const store = join(dir, "old.db");
     // A store with only the tables of the sweep era (meta, results, sweeps) as the store made them.
