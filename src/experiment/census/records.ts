@@ -11,27 +11,15 @@ import type { CensusState } from "./census-store.js";
 export const CENSUS_CELL_KIND = "halfplus/census-cell";
 export const CENSUS_CELL_VERSION = 1;
 
-export interface CensusCellRecord {
+/** A cell as a record: its fields (CensusCell) with the census's name and state, and the histogram as a list. */
+export interface CensusCellRecord extends Omit<CensusCell, "histogram"> {
   kind: typeof CENSUS_CELL_KIND;
   version: number;
   census: string;
   /** Where the graphs came from and how many of the stream are counted. */
   source: { stream: string; graphsCounted: number; complete: boolean };
-  n: number;
-  m: number;
-  graphs: number;
-  /** Least max cut − m/2 over the graphs with this n and m. */
-  minSurplus: number;
-  /** The max cut that attains it (m/2 + minSurplus). */
+  /** The max cut that attains the least surplus (m/2 + minSurplus). */
   maxCutAtMin: number;
-  attaining: number;
-  /** graph6 of the first graphs attaining minSurplus in stream order (at most the census's witness limit). */
-  witnesses: string[];
-  /** Least surplus·√d/m, d the degeneracy (null when m = 0), its first witness, its d and its surplus. */
-  minRatio: number | null;
-  ratioWitness: string | null;
-  ratioDegeneracy: number | null;
-  ratioSurplus: number | null;
   /** Graphs per surplus value, in increasing surplus. */
   histogram: { surplus: number; graphs: number }[];
 }
