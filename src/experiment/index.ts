@@ -18,3 +18,4 @@ export * from "./records.js";
 export { packPartition, unpackPartition } from "./witness.js";
 export { halfplusVersion } from "./provenance.js";
 export * from "./cluster/index.js";
+export * from "./census/index.js";

@@ -76,6 +76,19 @@ export interface ProgressDisplay {
 
 /** Live line on a terminal (at most 10 redraws a second), else a plain line every `every` seconds. */
 export function progressDisplay(stderr: NodeJS.WritableStream, options: { tty?: boolean; every?: number } = {}): ProgressDisplay {
+  return liveProgress(stderr, progressLine, progressSentence, options);
+}
+
+/**
+ * The one live-progress writer (sweeps, censuses): `line(p)` rewritten in place on a terminal at
+ * most 10 times a second, else `sentence(p)` every `every` seconds (default 10).
+ */
+export function liveProgress<P extends { elapsed: number; finished: boolean }>(
+  stderr: NodeJS.WritableStream,
+  line: (p: P) => string,
+  sentence: (p: P) => string,
+  options: { tty?: boolean; every?: number } = {},
+): { update(p: P): void; done(): void } {
   const tty = options.tty ?? (stderr as NodeJS.WriteStream).isTTY === true;
   const every = options.every ?? 10;
   let last = -Infinity;
@@ -88,10 +101,10 @@ export function progressDisplay(stderr: NodeJS.WritableStream, options: { tty?: 
       last = p.elapsed;
       if (tty) {
         const width = (stderr as NodeJS.WriteStream).columns ?? 120;
-        const line = progressLine(p);
-        stderr.write(`\r\x1b[2K${line.length > width - 1 ? line.slice(0, width - 2) + "…" : line}`);
+        const text = line(p);
+        stderr.write(`\r\x1b[2K${text.length > width - 1 ? text.slice(0, width - 2) + "…" : text}`);
         shown = true;
-      } else stderr.write(progressSentence(p) + "\n");
+      } else stderr.write(sentence(p) + "\n");
     },
     done() {
       if (tty && shown) stderr.write("\r\x1b[2K");

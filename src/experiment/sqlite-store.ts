@@ -10,6 +10,7 @@ import { dirname } from "node:path";
 import { InputError } from "../errors.js";
 import { COLUMNS, rowValues, type CellValue, type ColumnSpec, type StoredRow } from "./columns.js";
 import type { OpenStoreOptions, ResultStore, RowFilter, SweepLogEntry } from "./store.js";
+import { censusTables, createCensusSchema, type CensusTables } from "./census/census-store.js";
 
 /**
  * The native binding is loaded on first use, so commands that never open a store (graph, cut, ...)
@@ -132,6 +133,7 @@ class SqliteStore implements ResultStore {
     for (const c of COLUMNS) if (!have.has(c.name)) this.db.exec(`ALTER TABLE results ADD COLUMN ${q(c.name)} ${SQL_TYPE[c.type]}`);
     this.db.exec(`CREATE TABLE IF NOT EXISTS sweeps (${SWEEP_FIELDS.map((f) => `${q(f)} ${f === "workers" || f === "computed" ? "INTEGER" : "TEXT"}${f === "id" ? " PRIMARY KEY" : ""}`).join(", ")})`);
     this.db.prepare(`INSERT OR IGNORE INTO meta (name, value) VALUES ('format', ?), ('schema', ?)`).run(FORMAT, SCHEMA_VERSION);
+    createCensusSchema(this.db);
   }
 
   private checkFormat(): void {
@@ -213,6 +215,13 @@ class SqliteStore implements ResultStore {
 
   sweeps(): SweepLogEntry[] {
     return this.db.prepare(`SELECT * FROM sweeps ORDER BY startedAt, id`).all() as SweepLogEntry[];
+  }
+
+  // The census's tables (src/experiment/census/census-store.ts), prepared on first use.
+  private censusCache: CensusTables | undefined;
+  census(): CensusTables {
+    this.censusCache ??= censusTables(this.db, this.path, this.readonly);
+    return this.censusCache;
   }
 
   close(): void {

@@ -3,6 +3,7 @@
 // can be swapped for Node's built-in SQLite without touching sweeps, exports or merges.
 
 import type { CellValue, StoredRow } from "./columns.js";
+import type { CensusTables } from "./census/census-store.js";
 
 export interface RowFilter {
   /** Only rows of these family labels. */
@@ -49,6 +50,8 @@ export interface ResultStore {
   transaction<T>(fn: () => T): T;
   logSweep(entry: SweepLogEntry): void;
   sweeps(): SweepLogEntry[];
+  /** The census tables: per-(n, m) aggregates of exhaustive graph streams and their resume state. */
+  census(): CensusTables;
   close(): void;
 }
 

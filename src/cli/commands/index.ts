@@ -15,5 +15,6 @@ import { importCommand } from "./import.js";
 import { mergeCommand } from "./merge.js";
 import { fitCommand } from "./fit.js";
 import { clusterCommand } from "./cluster.js";
+import { censusCommand } from "./census.js";
 
-export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, fitCommand, clusterCommand, kernelCommand];
+export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, fitCommand, censusCommand, clusterCommand, kernelCommand];

@@ -5,3 +5,4 @@ export { grayCodeMaxCut, GRAY_MAX_VERTICES, type GrayOptions } from "./gray-code
 export { branchAndBoundMaxCut, type BranchAndBoundOptions, type BranchOrder } from "./branch-and-bound.js";
 export { type ExactCutRecord, type ExactOptions, type ExactProgress, type ExactStatus } from "./common.js";
 export { closingTolerance, componentSlack, exactSearchSlack, graphSlack, GRAY_RESYNC_STEPS } from "./exact-slack.js";
+export { bitmaskMaxCut, bitmaskExactMaxCut, adjacencyMasks, BITMASK_MAX_VERTICES, type BitmaskCutStats } from "./bitmask-max-cut.js";

@@ -50,3 +50,20 @@ export function decodeNautyLine(buf: Uint8Array, start: number, end: number, whe
   if (header === "sparse6") throw fail("a graph6 line follows a >>sparse6<< header");
   return { graph: decodeGraph6(buf, start, p, end, where), report: { ...NO_REPORT }, format: "graph6" };
 }
+
+/**
+ * Does buf[start, end) (no "\n") hold a graph? The same rule as decodeNautyLine's null cases
+ * (blank, or a lone header), without decoding: a census splits a stream into batches by graph
+ * count in one thread and decodes them in others. Malformed lines count as graphs (their
+ * decoder reports them).
+ */
+export function nautyLineHoldsGraph(buf: Uint8Array, start: number, end: number): boolean {
+  const c = buf[start];
+  if (c >= 63 && c <= 126 && c !== 62) return true; // the common case: a graph6/sparse6 line
+  if (end > start && buf[end - 1] === 13) end--;
+  let p = start;
+  while (p < end && isBlank(buf[p])) p++;
+  if (p === end) return false;
+  if (p === start && (hasPrefix(buf, p, end, GRAPH6_HEADER) || hasPrefix(buf, p, end, SPARSE6_HEADER))) return end - p > GRAPH6_HEADER.length;
+  return true;
+}

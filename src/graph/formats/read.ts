@@ -22,8 +22,8 @@ export type GraphInput = { path: string } | { stream: NodeJS.ReadableStream; nam
 /** Enough of the input to detect its format: two complete non-blank lines, or this many bytes. */
 const HEAD_BYTES = 1 << 16;
 
-/** Pulls Buffers from a stream; turns file-system errors into one-line InputErrors. */
-class Chunks {
+/** Pulls Buffers from a stream; turns file-system errors into one-line InputErrors. (Also the census's reader.) */
+export class Chunks {
   private readonly it: AsyncIterator<unknown>;
   private readonly pending: Buffer[] = [];
 
