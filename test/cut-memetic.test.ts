@@ -33,6 +33,8 @@ describe("memetic search", () => {
     expect(b.value).toBe(a.value);
     expect(b.work).toBe(a.work);
     expect(Array.from(b.partition)).toEqual(Array.from(a.partition));
+    const two = memeticSearch(g, { solverSeed: 11, work: WORK, walkers: 2 });
+    expect(memeticSearch(g, { solverSeed: 11, work: WORK, walkers: 2 }).partition).toEqual(two.partition);
     // A different seed explores differently (the seed is used at all).
     const c = memeticSearch(g, { solverSeed: 12, work: WORK });
     expect(Array.from(c.partition)).not.toEqual(Array.from(a.partition));

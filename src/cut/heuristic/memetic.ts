@@ -1,6 +1,6 @@
-// Memetic search for max cut on large sparse graphs: independent breakout walkers explore, and
-// after every slice of their work a partition crossover folds whatever regions of their cuts beat
-// the elite cut into it, so improvements found in different places add up.
+// Memetic search for max cut on large sparse graphs: a breakout walker (or several) explores, and
+// after every slice of its work a partition crossover folds whatever regions of its cuts beat the
+// elite cut into it, so improvements found in different places and at different times add up.
 // Deterministic under a work limit (count of moves); seconds only end a run early.
 
 import { invalidParameter } from "../../errors.js";
@@ -16,6 +16,13 @@ import { PartitionCrossover } from "./partition-crossover.js";
 import { cutRecordOf, type CutRecord, type SolverStatus } from "../types.js";
 
 const OWNER = "memetic search";
+
+/**
+ * From this many vertices on, the bracket runs the memetic search instead of breakout alone
+ * (bench/cut-large: clearly better on G(n, m) with 5000–20,000 vertices at equal time and equal
+ * moves; on the 800–3000-vertex benchmark graphs breakout alone stays the default).
+ */
+export const MEMETIC_MIN_VERTICES = 4000;
 
 /** A live report of a running memetic search (about twice a second). */
 export interface MemeticProgress {
@@ -43,13 +50,15 @@ export interface MemeticOptions {
   initial?: ArrayLike<number>;
   /** A proven upper bound on the max cut: reaching it ends the search with status "optimal". */
   upperBound?: number;
-  /** Breakout walkers run in turn (default 2). */
+  /** Breakout walkers run in turn (default 1: on G(5000, 12498) at 6·10^6 moves one walker beat two on seeds 1 and 2). */
   walkers?: number;
   /**
    * Breakout rounds per slice, after which the walker's cuts are crossed into the elite (default
    * 300: a cross costs O(n + m), about what 100 rounds cost on G(5000, 12498)).
    */
   sliceRounds?: number;
+  /** The walkers' shortest jump (breakout's `jumpMin`; default breakout's own). */
+  jumpMin?: number;
 }
 
 /** A memetic search's cut record, with the work it used. */
@@ -75,7 +84,8 @@ function walkerSeed(seed: number, k: number): number {
  * a crossover that keeps what the parents share. Here the operator is our breakout search (after
  * Benlic & Hao 2013) and the crossover is a partition crossover (Tinós, Whitley & Chicano 2015),
  * which on a sparse graph splits the parents' differences into many small independent regions and
- * keeps the better side of each, so gains made in different places by different walkers add up.
+ * keeps the better side of each. A breakout walker gains in one region while it loses in another;
+ * crossing its cut into the elite after every slice keeps the gains and drops the losses.
  * Runs until `seconds` or `work` (moves) runs out, or the cut reaches `upperBound`.
  */
 export function memeticSearch(graph: Graph, options: MemeticOptions = {}): MemeticCutRecord {
@@ -84,7 +94,7 @@ export function memeticSearch(graph: Graph, options: MemeticOptions = {}): Memet
   const seconds = options.seconds === undefined ? (options.work === undefined ? 1 : Infinity) : checkSeconds(OWNER, options.seconds, 1);
   const work = options.work === undefined ? Infinity : options.work;
   if (options.work !== undefined && !(Number.isInteger(work) && work > 0)) throw invalidParameter(OWNER, "work", "should be a positive integer (a count of moves)", options.work);
-  const walkerCount = intOption("walkers", options.walkers, 2, 1, 64);
+  const walkerCount = intOption("walkers", options.walkers, 1, 1, 64);
   const sliceRounds = intOption("sliceRounds", options.sliceRounds, 300, 1, 2 ** 30);
   if (options.initial !== undefined) checkPartition(graph, options.initial, `${OWNER}: initial`);
   const optimalAt = optimalityThreshold(OWNER, graph, options.upperBound);
@@ -118,12 +128,12 @@ export function memeticSearch(graph: Graph, options: MemeticOptions = {}): Memet
       secondsToBest = (performance.now() - t0) / 1000;
     }
   };
-  // The first walker starts from the caller's cut (when given), the others from random cuts.
+  // The first walker starts from the caller's cut (when given), any others from random cuts.
   // Walkers are never reset to the elite: measured on G(5000, 12498) at equal work, restarting
   // them from it every 10n–40n moves gave worse cuts than leaving them independent.
   const walkers = Array.from(
     { length: walkerCount },
-    (_, k) => new BreakoutSearcher(graph, { solverSeed: walkerSeed(solverSeed, k), initial: k === 0 && options.initial !== undefined ? elite : undefined, upperBound: options.upperBound }),
+    (_, k) => new BreakoutSearcher(graph, { solverSeed: walkerSeed(solverSeed, k), initial: k === 0 && options.initial !== undefined ? elite : undefined, upperBound: options.upperBound, jumpMin: options.jumpMin }),
   );
   const seen = new Float64Array(walkerCount);
 
