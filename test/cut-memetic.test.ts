@@ -22,7 +22,7 @@ describe("memetic search", () => {
       expect(r.value).toBe(cutOfPartition(g, r.partition));
       expect(r.status).toBe("work-limit");
       expect(r.work).toBeGreaterThanOrEqual(WORK);
-      expect(r.details?.work).toBe(r.work);
+      expect(r.details?.workUsed).toBe(r.work);
     }
   });
 

@@ -3,12 +3,12 @@
 // elite cut into it, so improvements found in different places and at different times add up.
 // Deterministic under a work limit (count of moves); seconds only end a run early.
 
-import { invalidParameter } from "../../errors.js";
 import { checkPartition, cutValue } from "../../graph/cut-value.js";
 import type { Graph } from "../../graph/graph.js";
 import { Rng } from "../../random/prng.js";
 import { checkSeed } from "../../random/seed.js";
-import { checkSeconds } from "../../validate.js";
+import { checkInteger, checkSeconds } from "../../validate.js";
+import { checkWork, PROGRESS_INTERVAL } from "../exact/common.js";
 import { optimalityThreshold } from "./anytime.js";
 import { BreakoutSearcher } from "./breakout.js";
 import { FlipState } from "./flip-state.js";
@@ -67,12 +67,6 @@ export interface MemeticCutRecord extends CutRecord {
   work: number;
 }
 
-function intOption(name: string, v: number | undefined, dflt: number, min: number, max: number): number {
-  if (v === undefined) return dflt;
-  if (!Number.isInteger(v) || v < min || v > max) throw invalidParameter(OWNER, name, `should be an integer between ${min} and ${max}`, v);
-  return v;
-}
-
 /** A seed per walker start, derived from the search's seed. */
 function walkerSeed(seed: number, k: number): number {
   return (seed + Math.imul(k + 1, 0x9e3779b9)) >>> 0;
@@ -92,10 +86,9 @@ export function memeticSearch(graph: Graph, options: MemeticOptions = {}): Memet
   const n = graph.n;
   const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
   const seconds = options.seconds === undefined ? (options.work === undefined ? 1 : Infinity) : checkSeconds(OWNER, options.seconds, 1);
-  const work = options.work === undefined ? Infinity : options.work;
-  if (options.work !== undefined && !(Number.isInteger(work) && work > 0)) throw invalidParameter(OWNER, "work", "should be a positive integer (a count of moves)", options.work);
-  const walkerCount = intOption("walkers", options.walkers, 1, 1, 64);
-  const sliceRounds = intOption("sliceRounds", options.sliceRounds, 300, 1, 2 ** 30);
+  const work = checkWork(OWNER, options.work);
+  const walkerCount = checkInteger(OWNER, "walkers", options.walkers, 1, 1, 64);
+  const sliceRounds = checkInteger(OWNER, "sliceRounds", options.sliceRounds, 300, 1, 2 ** 30);
   if (options.initial !== undefined) checkPartition(graph, options.initial, `${OWNER}: initial`);
   const optimalAt = optimalityThreshold(OWNER, graph, options.upperBound);
   const onProgress = options.onProgress;
@@ -118,7 +111,7 @@ export function memeticSearch(graph: Graph, options: MemeticOptions = {}): Memet
   const report = (force: boolean): void => {
     if (onProgress === undefined) return;
     const now = performance.now();
-    if (!force && now - lastReport < 500) return;
+    if (!force && now - lastReport < 1000 * PROGRESS_INTERVAL) return;
     lastReport = now;
     onProgress({ value: eliteValue, work: moves, seconds: (now - t0) / 1000 });
   };
@@ -168,7 +161,7 @@ export function memeticSearch(graph: Graph, options: MemeticOptions = {}): Memet
   report(true);
   const elapsed = (performance.now() - t0) / 1000;
   const rec = cutRecordOf("memetic", graph, elite, status, elapsed, solverSeed, {
-    work: moves,
+    workUsed: moves,
     walkers: walkerCount,
     crossGain,
     startValue: floor,
