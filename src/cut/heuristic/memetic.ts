@@ -18,9 +18,11 @@ import { cutRecordOf, type CutRecord, type SolverStatus } from "../types.js";
 const OWNER = "memetic search";
 
 /**
- * From this many vertices on, the bracket runs the memetic search instead of breakout alone
- * (bench/cut-large: clearly better on G(n, m) with 5000–20,000 vertices at equal time and equal
- * moves; on the 800–3000-vertex benchmark graphs breakout alone stays the default).
+ * From this many vertices on, the bracket runs the memetic search instead of breakout alone.
+ * bench/cut-large, G(n, m) at the sizes of G55, G60 and G70: +17 to +34 at 60 s (loaded machine)
+ * and +17 to +25 at 3·10^6 moves; at G81's size (20,000 vertices) within seed noise at 60 s and
+ * 3·10^6 moves, +12 at 8·10^6. On the 800–3000-vertex benchmark graphs it was mixed at 10 s
+ * (better on G22, worse on G14), so breakout alone stays the default there.
  */
 export const MEMETIC_MIN_VERTICES = 4000;
 
