@@ -8,7 +8,6 @@ import type { Graph } from "../../graph/graph.js";
 import { Rng } from "../../random/prng.js";
 import { checkSeed } from "../../random/seed.js";
 import { checkInteger, checkSeconds } from "../../validate.js";
-import { checkWork, PROGRESS_INTERVAL } from "../exact/common.js";
 import { optimalityThreshold } from "./anytime.js";
 import { BreakoutSearcher } from "./breakout.js";
 import { FlipState } from "./flip-state.js";
@@ -88,7 +87,7 @@ export function memeticSearch(graph: Graph, options: MemeticOptions = {}): Memet
   const n = graph.n;
   const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
   const seconds = options.seconds === undefined ? (options.work === undefined ? 1 : Infinity) : checkSeconds(OWNER, options.seconds, 1);
-  const work = checkWork(OWNER, options.work);
+  const work = options.work === undefined ? Infinity : checkInteger(OWNER, "work", options.work, 1, 1, Number.MAX_SAFE_INTEGER);
   const walkerCount = checkInteger(OWNER, "walkers", options.walkers, 1, 1, 64);
   const sliceRounds = checkInteger(OWNER, "sliceRounds", options.sliceRounds, 300, 1, 2 ** 30);
   if (options.initial !== undefined) checkPartition(graph, options.initial, `${OWNER}: initial`);
@@ -113,7 +112,7 @@ export function memeticSearch(graph: Graph, options: MemeticOptions = {}): Memet
   const report = (force: boolean): void => {
     if (onProgress === undefined) return;
     const now = performance.now();
-    if (!force && now - lastReport < 1000 * PROGRESS_INTERVAL) return;
+    if (!force && now - lastReport < 500) return;
     lastReport = now;
     onProgress({ value: eliteValue, work: moves, seconds: (now - t0) / 1000 });
   };
