@@ -15,6 +15,7 @@ import { closingTolerance, exactSearchSlack } from "../exact/exact-slack.js";
 import { BreakoutSearcher } from "../heuristic/breakout.js";
 import { hyperplaneRound } from "../heuristic/hyperplane-rounding.js";
 import { localSearch } from "../heuristic/local-search.js";
+import { MEMETIC_MIN_VERTICES, memeticSearch } from "../heuristic/memetic.js";
 import { vectorMethodRound } from "../heuristic/vector-rounding.js";
 import { DENSE_PROOF_LIMIT, upperKindOf } from "../relaxation/certificate.js";
 import { eigenvalueUpperBound } from "../relaxation/eigenvalue-bound.js";
@@ -347,7 +348,11 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
   }
   // Breakout gets what is left of the phase; the round cap (≈ 50 n² rounds, a few µs each at
   // n = 200) keeps small graphs, whose bound may never meet the cut, from idling to the deadline.
-  runBreakout(state, phaseLeft(), 1000 + 50 * n * n, methodSeed(seed, 5));
+  // Large graphs (issue 11, item 5): the memetic search in place of breakout (bench/cut-large).
+  if (n >= MEMETIC_MIN_VERTICES) {
+    const left = phaseLeft();
+    if (left > 0 && !state.closed()) state.offerCut(memeticSearch(g, { solverSeed: methodSeed(seed, 5), seconds: left, initial: state.partition, upperBound: state.upperKind === "proven" ? state.upper : undefined, onProgress: () => state.progress("memetic") }));
+  } else runBreakout(state, phaseLeft(), 1000 + 50 * n * n, methodSeed(seed, 5));
 }
 
 /** Is branch and bound worth part of the budget? A practical rule from bench/cut-exact: small or sparse graphs. */

@@ -129,6 +129,11 @@ export class BreakoutSearcher implements AnytimeSearch {
     return this.best_;
   }
 
+  /** The partition the search stands on now (a live view: read it between `run` calls, do not write). */
+  get currentSide(): Uint8Array {
+    return this.state.side;
+  }
+
   /** Recompute gains exactly and refile every vertex (start, and against drift with real weights). */
   private rebuild(): void {
     this.state.resync();
