@@ -25,10 +25,10 @@ import { bruteForceMaxCut } from "./helpers/maxcut.js";
 const dir = mkdtempSync(join(tmpdir(), "halfplus-store-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-// Small graphs only: effort "exact" closes every bracket, so the rows are deterministic.
+// Small graphs only, under a work budget: effort "exact" closes every bracket, so the rows are deterministic.
 const PLAN: SweepPlan = {
   name: "small",
-  bracket: { effort: "exact", seconds: 30 },
+  bracket: { effort: "exact", work: 1_000_000_000 },
   families: [
     { specs: ["petersen", "cycle:n=5", "kneser:n=7,k=2"] },
     { family: "gnp", grid: { n: [8, 11], p: 0.4 }, graphSeeds: { from: 0, count: 3 } },
@@ -350,7 +350,7 @@ describe("surplus arguments recorded per row", () => {
     const path = join(dir, "arguments.db");
     const plan: SweepPlan = {
       name: "arguments",
-      bracket: { effort: "exact", seconds: 30 },
+      bracket: { effort: "exact", work: 1_000_000_000 },
       evaluators: ["vector-method", "vector-optimised", "few-triangles", "decomposition"],
       families: [{ specs: ["petersen", "complete:n=7", "kneser:n=7,k=2", "hfree-process:n=12,h=K4,seed=2"] }],
     };
