@@ -63,15 +63,15 @@ async function timed(plan, workers, label) {
 }
 
 // Two workloads of 1000 small graphs: G(26, 0.3) closed by exact search in a few milliseconds each,
-// and G(60, 0.1) bracketed by the heuristics under a 20 ms budget each.
+// and G(60, 0.1) bracketed by the heuristics under a work budget of 4·10^5 units each (about 20 ms).
 const WORKLOADS = [
   {
     label: "1000 x G(26,0.3), effort exact",
-    plan: { name: "exact26", bracket: { effort: "exact", seconds: 60 }, families: [{ family: "gnp", grid: { n: 26, p: 0.3 }, graphSeeds: { from: 0, count: 1000 } }] },
+    plan: { name: "exact26", bracket: { effort: "exact", work: 1_000_000_000 }, families: [{ family: "gnp", grid: { n: 26, p: 0.3 }, graphSeeds: { from: 0, count: 1000 } }] },
   },
   {
-    label: "1000 x G(60,0.1), effort heuristic, 20 ms each",
-    plan: { name: "heuristic60", bracket: { effort: "heuristic", seconds: 0.02 }, families: [{ family: "gnp", grid: { n: 60, p: 0.1 }, graphSeeds: { from: 0, count: 1000 } }] },
+    label: "1000 x G(60,0.1), effort heuristic, 4e5 work units each",
+    plan: { name: "heuristic60", bracket: { effort: "heuristic", work: 400_000 }, families: [{ family: "gnp", grid: { n: 60, p: 0.1 }, graphSeeds: { from: 0, count: 1000 } }] },
   },
 ];
 
@@ -133,7 +133,7 @@ if (only === null || only === "stream") {
     lines.push(encodeGraph6(graphFromEdges(streamN, edges)));
   }
   writeFileSync(join(dir, "stream.g6"), lines.join("\n") + "\n");
-  const plan = { name: "stream", bracket: { effort: "exact", seconds: 60 }, families: [{ source: "stream.g6" }] };
+  const plan = { name: "stream", bracket: { effort: "exact", work: 1_000_000_000 }, families: [{ source: "stream.g6" }] };
   for (const workers of [1, 2]) {
     const r = await timed(plan, workers, "stream");
     rows.push({

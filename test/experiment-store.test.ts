@@ -86,7 +86,10 @@ describe("rows written by a sweep", () => {
       const g = family(String(r.spec));
       // bruteForceMaxCut: the suites' oracle (Gray-code enumeration; common practice, no source).
       expect(r.lower, String(r.key)).toBe(bruteForceMaxCut(g));
-      expect(r).toMatchObject({ upper: r.lower, exact: 1, upperKind: "proven", origin: "sweep", n: g.n, m: g.m, budgetKind: "time", workUsed: null, effort: "exact" });
+      expect(r).toMatchObject({ upper: r.lower, exact: 1, upperKind: "proven", origin: "sweep", n: g.n, m: g.m, budgetKind: "work", workLimit: 1_000_000_000, budgetSeconds: null, effort: "exact" });
+      // Closed by exact search well inside the budget (deterministic: the same count on any machine).
+      expect(r.workUsed as number).toBeGreaterThan(0);
+      expect(r.workUsed as number).toBeLessThan(1_000_000_000);
       expect(r.surplusLower).toBe((r.lower as number) - g.m / 2);
       expect(typeof r.startedAt).toBe("string");
       expect(r.witness).toBeInstanceOf(Uint8Array);
@@ -235,7 +238,7 @@ describe("merge", () => {
     const into = join(dir, "merged-conflict.db");
     mergeStores([full], into);
     expect(() => mergeStores([bad], into)).toThrow(
-      new RegExp(`tampered\\.db: disagrees with .*merged-conflict\\.db: key "cycle:n=5\\|solverSeed=0\\|effort=exact,seconds=30\\|halfplus@[^"]+" differs in lower \\(4 vs 5\\), surplusLower \\(1\\.5 vs 2\\.5\\); nothing merged$`),
+      new RegExp(`tampered\\.db: disagrees with .*merged-conflict\\.db: key "cycle:n=5\\|solverSeed=0\\|effort=exact,work=1000000000\\|halfplus@[^"]+" differs in lower \\(4 vs 5\\), surplusLower \\(1\\.5 vs 2\\.5\\); nothing merged$`),
     );
     const after = openStore(into, { readonly: true });
     expect(after.count()).toBe(JOBS); // the extra row of the refused store was not merged
