@@ -42,9 +42,13 @@ const rates = [];
 const WORK = 100_000_000;
 for (const spec of ["polarity:q=13", "gnp:n=45,p=0.5,seed=1", "gnp:n=400,p=0.05,seed=1", "random-regular:n=2000,d=3,seed=1", "hypercube:dim=10", "complete:n=300"]) {
   const h = family(spec);
+  const c0 = process.cpuUsage();
   const r = bracket(h, { work: WORK });
+  const c = process.cpuUsage(c0);
+  const cpu = (c.user + c.system) / 1e6;
   const b = r.budget;
-  rates.push({ graph: spec, stage: "(all)", units: b.workUsed, seconds: Number(b.secondsUsed.toFixed(3)), unitsPerSecond: Math.round(b.workUsed / b.secondsUsed), overLimit: Number((b.workUsed / WORK - 1).toFixed(4)) });
+  // Per CPU-second as well: on a loaded machine the wall-clock rate mostly measures the load.
+  rates.push({ graph: spec, stage: "(all)", units: b.workUsed, seconds: Number(b.secondsUsed.toFixed(3)), unitsPerSecond: Math.round(b.workUsed / b.secondsUsed), unitsPerCpuSecond: Math.round(b.workUsed / cpu), overLimit: Number((b.workUsed / WORK - 1).toFixed(4)) });
   for (const st of b.stages) {
     if (st.secondsUsed < 0.01) continue; // too short to time
     rates.push({ graph: spec, stage: st.stage, units: st.workUsed, seconds: Number(st.secondsUsed.toFixed(3)), unitsPerSecond: Math.round(st.workUsed / st.secondsUsed), overLimit: null });

@@ -148,8 +148,8 @@ export interface Plan {
 }
 
 /**
- * Work budget of a plan that names none (units of src/cut/bracket/work-units.ts): about a second
- * of solver time on the development machine (bench/budgets.bench.mjs prints the rates).
+ * Work budget of a plan that names none (units of src/cut/bracket/work-units.ts): about one
+ * CPU-second of solver time (10^8 units per CPU-second; bench/budgets.bench.mjs prints the rates).
  */
 export const DEFAULT_SWEEP_WORK = 100_000_000;
 /** A plan larger than this is almost certainly a typo in a range. */

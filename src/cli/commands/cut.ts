@@ -136,7 +136,7 @@ export const cutCommand: CommandSpec = {
     {
       name: "work",
       type: "integer",
-      description: "deterministic budget per graph in work units instead of seconds: the same graph, seed and settings then give the same record on any machine (about 10^7–10^8 units per second; see the record's budget)",
+      description: "deterministic budget per graph in work units instead of seconds: the same graph, seed and settings then give the same record on any machine (about 10^8 units per CPU-second; the record's budget says what was used)",
       min: 1,
       max: MAX_BRACKET_WORK,
       placeholder: "N",

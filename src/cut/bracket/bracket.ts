@@ -387,6 +387,8 @@ function breakoutEpisode(state: BracketState, phaseEnd: number, seed: number, in
 /** An SDP that stopped on its budget rather than converging: more sweeps may lower the bound. */
 interface OpenSdp {
   sdp: SdpRecord;
+  /** What its last certificate cost, in the budget's currency: kept free when sweeping on. */
+  certifyCost: number;
 }
 
 /**
@@ -448,14 +450,17 @@ function improveBothEnds(state: BracketState, phaseEnd: number, seed: number, op
     const status = breakoutEpisode(state, phaseEnd, episode === 0 ? methodSeed(seed, 5) : methodSeed(seed, 100 + episode), fromBest ? state.partition : undefined, stall, log);
     if (status === "optimal") break;
     stall = Math.min(2 ** 30, 2 * stall);
-    if (open !== null && phaseLeft() > 0 && !state.closed()) {
-      // The bound gets as much again as the episode took (at most what is left).
-      const amount = Math.min(phaseLeft(), Math.max(meter.position() - before, 0.05 * phaseLeft()));
+    // The bound gets as much again as the episode took, keeping its certificate's cost free; when
+    // not even 20 sweeps fit beside that, the rest of the phase stays with the search.
+    const room = open === null ? 0 : phaseLeft() - open.certifyCost;
+    if (open !== null && room > meter.cost(20 * state.costs.sweep(open.sdp.rank), 0) && !state.closed()) {
+      const amount = Math.min(room, Math.max(meter.position() - before, 0.05 * phaseLeft()));
       const sdp = sdpStage(state, open.sdp.solverSeed, open.sdp.rank, amount, { minSweeps: 20, initial: open.sdp.vectors });
       if (sdp !== null) {
-        const room = phaseLeft();
-        boundStage(state, "sdp-certified", () => certifySdpDual(g, sdp, { tolerance: SHIFT_TOLERANCE, denseLimit: denseLimitWithin(state, 0.5 * room) }));
-        open = sdp.status === "converged" ? null : { sdp };
+        const c0 = meter.position();
+        const dense = denseLimitWithin(state, 0.5 * phaseLeft());
+        boundStage(state, "sdp-certified", () => certifySdpDual(g, sdp, { tolerance: SHIFT_TOLERANCE, denseLimit: dense }));
+        open = sdp.status === "converged" ? null : { sdp, certifyCost: meter.position() - c0 };
       } else open = null;
     }
   }
@@ -505,7 +510,9 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
   if (forSdp > Math.min(meter.cost(50 * costs.sweep(rank), 0.5), 0.05 * total) || n <= 64) {
     const sdp = sdpStage(state, methodSeed(seed, 2), rank, forSdp, { maxSweeps: quick ? 300 : undefined, minSweeps: n <= 64 ? 20 : 1 });
     if (sdp !== null) {
+      const c0 = meter.position();
       boundStage(state, "sdp-certified", () => certifySdpDual(g, sdp, { tolerance: SHIFT_TOLERANCE, denseLimit: dense }));
+      const certified = meter.position() - c0;
       if (state.closed()) return;
       const trials = quick ? 8 : n <= 5000 ? 64 : 16;
       cutStage(
@@ -514,7 +521,7 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
         () => hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, solverSeed: methodSeed(seed, 3), polish: true }),
       );
       if (state.closed()) return;
-      if (sdp.status !== "converged") open = { sdp };
+      if (sdp.status !== "converged") open = { sdp, certifyCost: certified };
     }
   }
   if (quick) return;
