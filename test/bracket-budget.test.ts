@@ -13,6 +13,7 @@ import { bracket, bracketSnapshot } from "../src/cut/bracket/bracket.js";
 import { isTimingKey, recordFromSnapshot, withoutTiming, type BracketRecord } from "../src/cut/bracket/record.js";
 import { verifyBracket } from "../src/cut/bracket/verify.js";
 import { workCosts } from "../src/cut/bracket/work-units.js";
+import { boundsAccount } from "../src/cut/account/bounds-account.js";
 import { loadPlan } from "../src/experiment/plan.js";
 import { family } from "../src/families/registry.js";
 import { ensureBuilt, halfplus } from "./helpers/cli.js";
@@ -114,6 +115,25 @@ describe("bracket under a work budget", () => {
     expect(() => bracket(g, { work: 0 })).toThrow(/^bracket: invalid `work`/);
     expect(() => bracket(g, { work: 1.5 })).toThrow(/`work`/);
     expect(() => bracket(g, { work: 10, seconds: 1 })).toThrow(/^bracket: give either `seconds` or `work`/);
+  });
+});
+
+describe("the bounds account under a work budget", () => {
+  it("the same account twice (timing aside); `halfplus bounds` refuses two budgets and a bad --work", () => {
+    const g = family("hfree-process:n=40,h=K4,seed=3");
+    const a = boundsAccount(g, { work: 3_000_000, solverSeed: 2, trials: 20 });
+    const b = boundsAccount(g, { work: 3_000_000, solverSeed: 2, trials: 20 });
+    expect(a.bracket.exact).toBe(false);
+    expect(JSON.stringify(withoutTiming(b))).toBe(JSON.stringify(withoutTiming(a)));
+    for (const [extra, pattern] of [
+      [["--work", "0"], /--work must lie in \[1, /],
+      [["--work", "5", "--seconds", "1"], /--seconds and --work: give one budget, not both/],
+    ] as const) {
+      const r = halfplus(["bounds", "petersen", ...extra]);
+      expect(r.code).toBe(2);
+      expect(r.stderr.trim().split("\n")).toHaveLength(1);
+      expect(r.stderr).toMatch(pattern);
+    }
   });
 });
 
