@@ -15,6 +15,8 @@ import { verifyBracket } from "../src/cut/bracket/verify.js";
 import { workCosts } from "../src/cut/bracket/work-units.js";
 import { boundsAccount } from "../src/cut/account/bounds-account.js";
 import { loadPlan } from "../src/experiment/plan.js";
+import { storedBrackets } from "../src/experiment/records.js";
+import { openStore } from "../src/experiment/sqlite-store.js";
 import { family } from "../src/families/registry.js";
 import { ensureBuilt, halfplus } from "./helpers/cli.js";
 import { bruteForceMaxCut } from "./helpers/maxcut.js";
@@ -232,6 +234,24 @@ describe("sweeps under work budgets", () => {
     expect(open).toHaveLength(4);
     for (const r of open) expect(r.workUsed).toBeGreaterThanOrEqual(2_000_000);
     expect(rows.find((r) => r.exact === true)?.workUsed).toBeLessThan(2_000_000);
+  });
+
+  it("a stored row gives back its bracket's budget, stage by stage, and verifies", async () => {
+    const st = openStore(join(dir, "open-2.db"), { readonly: true });
+    let count = 0;
+    try {
+      for await (const b of storedBrackets(st)) {
+        const budget = b.record.budget;
+        expect(budget).toMatchObject({ governing: "work", workLimit: 2_000_000 });
+        expect(budget.stages.length).toBeGreaterThan(0);
+        expect(budget.stages.reduce((s, x) => s + x.workUsed, 0)).toBe(budget.workUsed);
+        expect(verifyBracket(b.graph, JSON.parse(JSON.stringify(b.record))).ok).toBe(true);
+        count++;
+      }
+    } finally {
+      st.close();
+    }
+    expect(count).toBe(5);
   });
 
   it("a row made under a wall-clock budget is marked `time`, with no work used", () => {

@@ -285,6 +285,7 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
   v[I.witness] = packPartition(rec.partition);
   v[I.certificate] = packJson(rec.certificate);
   v[I.runs] = packJson(rec.runs);
+  v[I.budgetStages] = packJson(rec.budget.stages);
   for (const e of EVALUATORS) {
     if (!context.evaluators.includes(e.name)) continue;
     // The triangle-free bound does not apply to a graph with a triangle: no need to evaluate it.
@@ -336,8 +337,8 @@ function sourceOf(row: StoredRow): GraphSource {
   return source;
 }
 
-/** The record's budget section as far as a row keeps it (the per-stage account is not stored). */
-function budgetOfRow(row: StoredRow): BracketRecord["budget"] {
+/** The record's budget section as a row keeps it (rows from before the stages were stored have none). */
+function budgetOfRow(row: StoredRow, where: string): BracketRecord["budget"] {
   const work = row.budgetKind === "work";
   const seconds = typeof row.seconds === "number" ? row.seconds : 0;
   return {
@@ -346,7 +347,7 @@ function budgetOfRow(row: StoredRow): BracketRecord["budget"] {
     workLimit: work && typeof row.workLimit === "number" ? row.workLimit : null,
     workUsed: typeof row.workUsed === "number" ? row.workUsed : 0,
     secondsUsed: seconds,
-    stages: [],
+    stages: row.budgetStages instanceof Uint8Array || typeof row.budgetStages === "string" ? (unpackJson(row.budgetStages, `${where}: budgetStages`) as BracketRecord["budget"]["stages"]) : [],
   };
 }
 
@@ -374,7 +375,7 @@ export function bracketRecordFromRow(row: StoredRow): BracketRecord {
     partition: unpackPartition(blob(row, "witness"), n, `${where}: witness`),
     certificate: unpackJson(evidence(row, "certificate"), `${where}: certificate`) as BracketRecord["certificate"],
     runs: row.runs === null || row.runs === undefined ? [] : (unpackJson(evidence(row, "runs"), `${where}: runs`) as BracketRecord["runs"]),
-    budget: budgetOfRow(row),
+    budget: budgetOfRow(row, where),
     notes: typeof row.notes === "string" ? (unpackJson(row.notes, `${where}: notes`) as string[]) : [],
     graphHash: String(row.graphHash),
     source: sourceOf(row),
