@@ -94,7 +94,7 @@ describe("bracket: never crosses the optimum", () => {
       randomGraph(28, 0.3, rng), // n ≤ 30: exact search first
     ];
     for (const g of cases) {
-      const r = bracket(g, { seconds: 5 });
+      const r = bracket(g, { work: 200_000_000 });
       const opt = exactMaxCut(g);
       expect(r.lower).toBeLessThanOrEqual(opt.value + 1e-9);
       expect(r.upper).toBeGreaterThanOrEqual(opt.value - 1e-9);
@@ -106,7 +106,7 @@ describe("bracket: never crosses the optimum", () => {
 
   it("heuristic brackets on larger graphs verify, with proven bounds", () => {
     const g = family("gnp:n=150,p=0.05,seed=3");
-    const r = bracket(g, { effort: "heuristic", seconds: 1.5, solverSeed: 7 });
+    const r = bracket(g, { effort: "heuristic", work: 15_000_000, solverSeed: 7 });
     expect(r.lower).toBeLessThanOrEqual(r.upper);
     // Any 1-flip local optimum cuts at least half of every vertex's edges, so ≥ m/2 (common knowledge).
     expect(r.lower).toBeGreaterThanOrEqual(g.m / 2);
@@ -125,7 +125,7 @@ describe("bracket: closes by certificate alone where the SDP is integral-tight",
     // 10·5/4); C5: (25 + 5√5)/8 (Goemans & Williamson 1995). Max cuts 12 and 4 (from memory).
     for (const [spec, opt] of [["petersen", 12], ["cycle:n=5", 4]] as const) {
       const g = family(spec);
-      const r = bracket(g, { effort: "heuristic", seconds: 2 });
+      const r = bracket(g, { effort: "heuristic", work: 20_000_000 });
       expect(r.lower).toBe(opt);
       expect(r.upper).toBe(opt);
       expect(r.exact).toBe(true);
@@ -140,7 +140,7 @@ describe("bracket: record and verifier details", () => {
   it("reports monotone progress and keeps surplus = bound − W/2", () => {
     const g = family("gnp:n=60,p=0.2,seed=1");
     const seen: BracketProgress[] = [];
-    const r = bracket(g, { effort: "heuristic", seconds: 1, onProgress: (p) => seen.push(p) });
+    const r = bracket(g, { effort: "heuristic", work: 10_000_000, onProgress: (p) => seen.push(p) });
     expect(seen.length).toBeGreaterThan(2);
     for (let i = 1; i < seen.length; i++) {
       expect(seen[i].lower).toBeGreaterThanOrEqual(seen[i - 1].lower);
@@ -157,7 +157,7 @@ describe("bracket: record and verifier details", () => {
     // Common practice, no source: two writers of one format must agree.
     for (const spec of ["petersen", "gnp:n=60,p=0.2,seed=4", "path:n=1"]) {
       const g = family(spec);
-      const snap = bracketSnapshot(g, { seconds: 1, source: { spec } });
+      const snap = bracketSnapshot(g, { work: 10_000_000, source: { spec } });
       expect(snap.partition).toBeInstanceOf(Uint8Array);
       const plain = recordFromSnapshot(snap);
       expect(recordJson(snap)).toBe(JSON.stringify(plain));
@@ -202,7 +202,7 @@ describe("bracket: review fixes", () => {
   it("tolerance: a record cannot buy a low upper bound with a large tolerance", () => {
     // Petersen max cut 12 (from memory; also the exact search). A record claiming upper 11 must fail.
     const g = family("petersen");
-    const r = roundTrip(bracket(g, { seconds: 2 }));
+    const r = roundTrip(bracket(g, { work: 20_000_000 }));
     expect(r.certificate.kind).toBe("exhaustive");
     const bad: BracketRecord = JSON.parse(JSON.stringify(r));
     bad.upper = 11;
@@ -210,7 +210,7 @@ describe("bracket: review fixes", () => {
     bad.certificate.tolerance = 2;
     expect(failed(g, bad)).not.toEqual([]);
     const weighted = buildGraph(3, [0, 1, 0], [1, 2, 2], [0.5, 0.5, 0.5]).graph; // triangle: max cut 1 (common practice, no source)
-    const w = roundTrip(bracket(weighted, { seconds: 2 }));
+    const w = roundTrip(bracket(weighted, { work: 20_000_000 }));
     expect(verifyBracket(weighted, w).ok).toBe(true);
     const wb: BracketRecord = JSON.parse(JSON.stringify(w));
     wb.upper = 0.9;
@@ -229,7 +229,7 @@ describe("bracket: review fixes", () => {
       ws.push(0.001, 0.001, 0.001);
     }
     const g = buildGraph(30, us, vs, ws).graph;
-    const r = roundTrip(bracket(g, { seconds: 2 }));
+    const r = roundTrip(bracket(g, { work: 20_000_000 }));
     expect(r.exact).toBe(true);
     expect(r.lower).toBeCloseTo(0.02, 12);
     const verdict = verifyBracket(g, r);
@@ -237,10 +237,10 @@ describe("bracket: review fixes", () => {
   });
 
   it("an unproven bound never closes the bracket: K_400 with a Lanczos eigenvalue bound", () => {
-    // Max cut of K_n, n even, is n²/4 (common practice, no source). With 0.5 s the eigenvalue
-    // bound is a Lanczos estimate (the dense proof does not fit 5 % of the budget).
+    // Max cut of K_n, n even, is n²/4 (common practice, no source). With 2·10^7 work units the
+    // eigenvalue bound is a Lanczos estimate (the dense proof, 400³/6 units, does not fit 5 % of the budget).
     const g = family("complete:n=400");
-    const r = bracket(g, { effort: "quick", seconds: 0.5 });
+    const r = bracket(g, { effort: "quick", work: 20_000_000 });
     expect(r.lower).toBeLessThanOrEqual(40000);
     expect(r.upper).toBeGreaterThanOrEqual(r.lower);
     // Asserted whichever way the budget fell (the dense proof may or may not fit): the record's
@@ -256,7 +256,7 @@ describe("bracket: review fixes", () => {
   it("unproven: verify rejects an exact claim resting on an estimated shift", () => {
     // Input validation, common practice, no source.
     const g = family("petersen");
-    const r = roundTrip(bracket(g, { effort: "heuristic", seconds: 2 }));
+    const r = roundTrip(bracket(g, { effort: "heuristic", work: 20_000_000 }));
     expect(r.certificate.kind).toBe("psd-dual");
     expect(r.exact).toBe(true);
     const bad: BracketRecord = JSON.parse(JSON.stringify(r));
@@ -270,7 +270,7 @@ describe("bracket: a stopped exact search is re-proven by verify", () => {
   it("an unfinished-search record (bound rounded down, integer weights) verifies with a larger budget", () => {
     // Oracle: verify's own exact search from the record's partition (common practice, no source).
     const g = family("gnp:n=70,p=0.3,seed=1");
-    const base = bracket(g, { effort: "heuristic", seconds: 0.5, solverSeed: 3 });
+    const base = bracket(g, { effort: "heuristic", work: 5_000_000, solverSeed: 3 });
     // A work budget stops it the same way on any machine.
     const stopped = exactMaxCut(g, { work: 200_000, solverSeed: 3, initial: base.partition });
     expect(stopped.status).toBe("work-limit");

@@ -22,7 +22,7 @@ writeFileSync(
   plan,
   JSON.stringify({
     name: "kill",
-    bracket: { effort: "exact", seconds: 60 },
+    bracket: { effort: "exact", work: 1_000_000_000 },
     families: [{ family: "gnp", grid: { n: [12, 16, 20], p: 0.3 }, graphSeeds: { from: 0, count: 100 } }],
   }),
 );

@@ -44,7 +44,9 @@ describe("plan checks", () => {
     expect(planError({ families: [{ family: "andrasfai", graphSeeds: [1] }] })).toMatch(/families\[0\]\.graphSeeds: andrasfai is not a random family/);
     expect(planError({ bracket: { effort: "fast" }, families: [{ family: "andrasfai" }] })).toMatch(/^plan: bracket\.effort: should be one of auto, exact, heuristic, quick/);
     expect(planError({ bracket: { seconds: 0 }, families: [{ family: "andrasfai" }] })).toMatch(/^plan: bracket\.seconds: should lie between/);
-    expect(planError({ bracket: { work: 1000 }, families: [{ family: "andrasfai" }] })).toMatch(/^plan: bracket\.work: work budgets are not available/);
+    expect(planError({ bracket: { work: 1000, seconds: 2 }, families: [{ family: "andrasfai" }] })).toMatch(/^plan: bracket: give either `seconds` or `work` as the budget, not both$/);
+    expect(planError({ bracket: { work: 1.5 }, families: [{ family: "andrasfai" }] })).toMatch(/^plan: bracket\.work: /);
+    expect(planError({ bracket: { work: 0 }, families: [{ family: "andrasfai" }] })).toMatch(/^plan: bracket\.work: /);
     expect(planError({ solverSeeds: { from: 3 }, families: [{ family: "andrasfai" }] })).toMatch(/^plan: solverSeeds: give either `count` or `to`/);
     expect(planError({ evaluators: ["edwards"], families: [{ family: "andrasfai" }] })).toMatch(/^plan: evaluators\[0\]: should be one of edwards-edges/);
     expect(planError({ families: [{ family: "kneser", grid: { n: { ladder: { from: 5, to: 9 } } } }] })).toMatch(/families\[0\]\.grid\.n\.ladder: give either `factor` or `count`/);

@@ -26,10 +26,10 @@ import { bruteForceMaxCut } from "./helpers/maxcut.js";
 const dir = mkdtempSync(join(tmpdir(), "halfplus-store-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-// Small graphs only: effort "exact" closes every bracket, so the rows are deterministic.
+// Small graphs only, under a work budget: effort "exact" closes every bracket, so the rows are deterministic.
 const PLAN: SweepPlan = {
   name: "small",
-  bracket: { effort: "exact", seconds: 30 },
+  bracket: { effort: "exact", work: 1_000_000_000 },
   families: [
     { specs: ["petersen", "cycle:n=5", "kneser:n=7,k=2"] },
     { family: "gnp", grid: { n: [8, 11], p: 0.4 }, graphSeeds: { from: 0, count: 3 } },
@@ -87,7 +87,10 @@ describe("rows written by a sweep", () => {
       const g = family(String(r.spec));
       // bruteForceMaxCut: the suites' oracle (Gray-code enumeration; common practice, no source).
       expect(r.lower, String(r.key)).toBe(bruteForceMaxCut(g));
-      expect(r).toMatchObject({ upper: r.lower, exact: 1, upperKind: "proven", origin: "sweep", n: g.n, m: g.m, budgetKind: "time", workUsed: null, effort: "exact" });
+      expect(r).toMatchObject({ upper: r.lower, exact: 1, upperKind: "proven", origin: "sweep", n: g.n, m: g.m, budgetKind: "work", workLimit: 1_000_000_000, budgetSeconds: null, effort: "exact" });
+      // Closed by exact search well inside the budget (deterministic: the same count on any machine).
+      expect(r.workUsed as number).toBeGreaterThan(0);
+      expect(r.workUsed as number).toBeLessThan(1_000_000_000);
       expect(r.surplusLower).toBe((r.lower as number) - g.m / 2);
       expect(typeof r.startedAt).toBe("string");
       expect(r.witness).toBeInstanceOf(Uint8Array);
@@ -238,7 +241,7 @@ describe("merge", () => {
     const into = join(dir, "merged-conflict.db");
     mergeStores([full], into);
     expect(() => mergeStores([bad], into)).toThrow(
-      new RegExp(`tampered\\.db: disagrees with .*merged-conflict\\.db: key "cycle:n=5\\|solverSeed=0\\|effort=exact,seconds=30\\|halfplus@[^"]+" differs in lower \\(4 vs 5\\), surplusLower \\(1\\.5 vs 2\\.5\\); nothing merged$`),
+      new RegExp(`tampered\\.db: disagrees with .*merged-conflict\\.db: key "cycle:n=5\\|solverSeed=0\\|effort=exact,work=1000000000\\|halfplus@[^"]+" differs in lower \\(4 vs 5\\), surplusLower \\(1\\.5 vs 2\\.5\\); nothing merged$`),
     );
     const after = openStore(into, { readonly: true });
     expect(after.count()).toBe(JOBS); // the extra row of the refused store was not merged
@@ -353,7 +356,7 @@ describe("surplus arguments recorded per row", () => {
     const path = join(dir, "arguments.db");
     const plan: SweepPlan = {
       name: "arguments",
-      bracket: { effort: "exact", seconds: 30 },
+      bracket: { effort: "exact", work: 1_000_000_000 },
       evaluators: ["vector-method", "vector-optimised", "few-triangles", "decomposition"],
       families: [{ specs: ["petersen", "complete:n=7", "kneser:n=7,k=2", "hfree-process:n=12,h=K4,seed=2"] }],
     };

@@ -32,7 +32,7 @@ writeFileSync(
   planPath,
   JSON.stringify({
     name: "mixed",
-    bracket: { effort: "exact", seconds: 30 },
+    bracket: { effort: "exact", work: 1_000_000_000 },
     solverSeeds: [0, 1],
     families: [
       { source: "random-small.g6", label: "file" },
@@ -79,7 +79,7 @@ describe("runSweep on worker threads", () => {
     const lines = readFileSync(g6, "utf8").trim().split("\n");
     for (const r of rows) {
       expect(r.graphHash).toMatch(/^sha256:/);
-      expect(r.key).toMatch(/^sha256:[0-9a-f]{64}\|solverSeed=[01]\|effort=exact,seconds=30\|halfplus@/);
+      expect(r.key).toMatch(/^sha256:[0-9a-f]{64}\|solverSeed=[01]\|effort=exact,work=1000000000\|halfplus@/);
       // Embedded as graph6 or sparse6, whichever is shorter: the same graph as the file's line.
       const text = String(r.embedded);
       const embedded = text.startsWith(":") ? parseSparse6(text) : parseGraph6(text);
@@ -150,7 +150,7 @@ describe("halfplus sweep", () => {
     const file = join(dir, "broken.g6");
     writeFileSync(file, `${encodeGraph6(family("cycle:n=5"))}\n${encodeGraph6(family("petersen"))}\n${encodeGraph6(family("cycle:n=7"))}\nD??zzz\n${encodeGraph6(family("cycle:n=9"))}\n`);
     const plan = join(dir, "broken.json");
-    writeFileSync(plan, JSON.stringify({ name: "broken", bracket: { effort: "exact", seconds: 30 }, families: [{ source: "broken.g6" }] }));
+    writeFileSync(plan, JSON.stringify({ name: "broken", bracket: { effort: "exact", work: 1_000_000_000 }, families: [{ source: "broken.g6" }] }));
     const store = join(dir, "broken.db");
     const r = halfplus(["sweep", plan, "--store", store, "--workers", "1", "--no-progress"]);
     expect(r.code).toBe(2);
@@ -167,7 +167,7 @@ describe("halfplus sweep", () => {
     const lines = gengLines(["-c", "6"]);
     writeFileSync(file, lines.join("\n") + "\n");
     const plan = join(dir, "geng.json");
-    writeFileSync(plan, JSON.stringify({ name: "geng6", bracket: { effort: "exact", seconds: 30 }, families: [{ source: "connected6.g6" }] }));
+    writeFileSync(plan, JSON.stringify({ name: "geng6", bracket: { effort: "exact", work: 1_000_000_000 }, families: [{ source: "connected6.g6" }] }));
     const store = join(dir, "geng.db");
     const r = halfplus(["sweep", plan, "--store", store, "--workers", "2", "--no-progress"]);
     expect(r.code, r.stderr).toBe(0);

@@ -92,6 +92,7 @@ export const COLUMNS: readonly ColumnSpec[] = [
   { name: "certificate", type: "blob", group: "evidence", description: "the upper bound's certificate: JSON text, compressed from 1 KB on" },
   { name: "runs", type: "blob", group: "evidence", description: "each method's summary (with its seconds): JSON text, compressed from 1 KB on" },
   { name: "embedded", type: "text", group: "evidence", description: "the graph itself in graph6 or sparse6 (file graphs only)" },
+  { name: "budgetStages", type: "blob", group: "evidence", description: "the bracket's work and seconds per stage (its record's budget.stages): JSON text, compressed from 1 KB on" },
 ];
 
 export type ColumnName = string;

@@ -16,7 +16,7 @@ import { familyWithInfo, getFamily, predictedSizeOf } from "../families/registry
 import { checkEdgeLimit } from "../families/limits.js";
 import { allParams, formatSpec, parseRawSpec, resolveParams } from "../families/spec.js";
 import type { ParamSpec, ParamValue, Params } from "../families/types.js";
-import { BRACKET_EFFORTS, BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, bracket, type BracketEffort, type BracketRecord } from "../cut/bracket/index.js";
+import { BRACKET_EFFORTS, BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, DEFAULT_BRACKET_SECONDS, bracket, type BracketEffort, type BracketRecord } from "../cut/bracket/index.js";
 import { verifyBracket, type BracketVerdict } from "../cut/bracket/verify.js";
 import { edwardsEdgeBound, edwardsVertexBound } from "../bounds/edwards.js";
 import { triangleFreeBound } from "../bounds/triangle-free.js";
@@ -35,23 +35,26 @@ import { packJson, packPartition, unpackJson, unpackPartition } from "./witness.
 export type Effort = BracketEffort;
 export const EFFORTS: readonly Effort[] = BRACKET_EFFORTS;
 
-/**
- * Whether bracket() accepts a deterministic work budget yet. Plans may already name `work`; the
- * store reserves `workLimit` and `workUsed`, so enabling it changes no schema.
- */
-export const WORK_BUDGETS_AVAILABLE = false;
+/** bracket() accepts a deterministic work budget (`work`, units of src/cut/bracket/work-units.ts). */
+export const WORK_BUDGETS_AVAILABLE = true;
 
+/** A job's bracket settings: exactly one of `seconds` (wall clock) and `work` (deterministic) is set. */
 export interface BracketSettings {
   effort: Effort;
-  /** Wall-clock budget per graph. */
-  seconds: number;
-  /** Deterministic work budget per graph, or null for none. */
+  /** Wall-clock budget per graph, or null under a work budget. */
+  seconds: number | null;
+  /** Deterministic work budget per graph (units), or null under a time budget. */
   work: number | null;
 }
 
-/** The settings part of a row key, e.g. `effort=auto,seconds=10`. */
+/** The settings part of a row key: `effort=auto,work=20000000` or `effort=auto,seconds=10`. */
 export function settingsKey(s: BracketSettings): string {
-  return `effort=${s.effort},seconds=${s.seconds}${s.work === null ? "" : `,work=${s.work}`}`;
+  return s.work !== null ? `effort=${s.effort},work=${s.work}` : `effort=${s.effort},seconds=${s.seconds}`;
+}
+
+/** The bracket() budget option of these settings. */
+export function budgetOption(s: BracketSettings): { work: number } | { seconds: number } {
+  return s.work !== null ? { work: s.work } : { seconds: s.seconds ?? DEFAULT_BRACKET_SECONDS };
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -217,17 +220,12 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
     const s = job.graph.source;
     source = { path: s.path, position: s.position, format: s.format, graphSeed: null };
   }
-  if (job.settings.work !== null && !WORK_BUDGETS_AVAILABLE) {
-    throw new InputError("work budgets are not available in this version of halfplus (use seconds)");
-  }
   const t0 = performance.now();
-  const rec = bracket(graph, { seconds: job.settings.seconds, solverSeed: job.solverSeed, effort: job.settings.effort, source });
+  const rec = bracket(graph, { ...budgetOption(job.settings), solverSeed: job.solverSeed, effort: job.settings.effort, source });
   const solverSeconds = (performance.now() - t0) / 1000;
   const s = describeGraph(graph, { maxSearchNodes: STRUCTURE_SEARCH_NODES });
   const keep = context.degrees;
 
-  // The record's `budget` field comes with work budgets; read defensively so the row schema is ready for it.
-  const future = rec as unknown as { budget?: { governing?: string; workUsed?: number | null } };
   let sdpUpper: number | null = null;
   for (const r of rec.runs) if (r.method === "sdp-certified" && r.role === "upper" && Number.isFinite(r.value)) sdpUpper = r.value;
   const file = job.graph.kind === "parts" ? job.graph.source : null;
@@ -278,14 +276,16 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
   v[I.upperMethod] = rec.upperMethod;
   v[I.certificateKind] = rec.certificate.kind;
   v[I.sdpUpper] = sdpUpper;
-  v[I.budgetKind] = future.budget?.governing ?? "time";
-  v[I.workUsed] = future.budget?.workUsed ?? null;
+  v[I.budgetKind] = rec.budget.governing;
+  // Under a time budget the work done varies run to run: kept out of the compared columns.
+  v[I.workUsed] = rec.budget.governing === "work" ? rec.budget.workUsed : null;
   v[I.seconds] = rec.seconds;
   v[I.startedAt] = startedAt;
   v[I.notes] = notes.length === 0 ? "[]" : JSON.stringify(notes);
   v[I.witness] = packPartition(rec.partition);
   v[I.certificate] = packJson(rec.certificate);
   v[I.runs] = packJson(rec.runs);
+  v[I.budgetStages] = packJson(rec.budget.stages);
   for (const e of EVALUATORS) {
     if (!context.evaluators.includes(e.name)) continue;
     // The triangle-free bound does not apply to a graph with a triangle: no need to evaluate it.
@@ -337,6 +337,20 @@ function sourceOf(row: StoredRow): GraphSource {
   return source;
 }
 
+/** The record's budget section as a row keeps it (rows from before the stages were stored have none). */
+function budgetOfRow(row: StoredRow, where: string): BracketRecord["budget"] {
+  const work = row.budgetKind === "work";
+  const seconds = typeof row.seconds === "number" ? row.seconds : 0;
+  return {
+    governing: work ? "work" : "time",
+    secondsLimit: !work && typeof row.budgetSeconds === "number" ? row.budgetSeconds : null,
+    workLimit: work && typeof row.workLimit === "number" ? row.workLimit : null,
+    workUsed: typeof row.workUsed === "number" ? row.workUsed : 0,
+    secondsUsed: seconds,
+    stages: row.budgetStages instanceof Uint8Array || typeof row.budgetStages === "string" ? (unpackJson(row.budgetStages, `${where}: budgetStages`) as BracketRecord["budget"]["stages"]) : [],
+  };
+}
+
 /** The bracket record a sweep row was made from (partition and certificate included), for verifyBracket. */
 export function bracketRecordFromRow(row: StoredRow): BracketRecord {
   const where = `row ${String(row.key)}`;
@@ -361,6 +375,7 @@ export function bracketRecordFromRow(row: StoredRow): BracketRecord {
     partition: unpackPartition(blob(row, "witness"), n, `${where}: witness`),
     certificate: unpackJson(evidence(row, "certificate"), `${where}: certificate`) as BracketRecord["certificate"],
     runs: row.runs === null || row.runs === undefined ? [] : (unpackJson(evidence(row, "runs"), `${where}: runs`) as BracketRecord["runs"]),
+    budget: budgetOfRow(row, where),
     notes: typeof row.notes === "string" ? (unpackJson(row.notes, `${where}: notes`) as string[]) : [],
     graphHash: String(row.graphHash),
     source: sourceOf(row),

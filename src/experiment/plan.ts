@@ -17,7 +17,6 @@ import {
   familyFacts,
   resolveFamily,
   resolveSpecString,
-  WORK_BUDGETS_AVAILABLE,
   type BracketSettings,
   type Effort,
   type ParamValue,
@@ -47,8 +46,8 @@ export type GridValue =
 export interface BracketSettingsInput {
   effort?: Effort;
   seconds?: number;
-  /** Deterministic work budget (reserved: refused until bracket() supports it). */
-  work?: number | null;
+  /** Deterministic work budget in units (src/cut/bracket/work-units.ts); give this or `seconds`, not both. */
+  work?: number;
 }
 
 interface EntryCommon {
@@ -87,7 +86,7 @@ export type PlanEntry = PlanFamilyEntry | PlanSpecsEntry | PlanSourceEntry;
 export interface SweepPlan {
   name?: string;
   notes?: string[];
-  /** Defaults for every entry: effort auto, 10 seconds. */
+  /** Defaults for every entry: effort auto, a work budget of DEFAULT_SWEEP_WORK units. */
   bracket?: BracketSettingsInput;
   /** Default [0]. */
   solverSeeds?: SeedRange;
@@ -148,7 +147,11 @@ export interface Plan {
   text: string;
 }
 
-export const DEFAULT_SWEEP_SECONDS = 10;
+/**
+ * Work budget of a plan that names none (units of src/cut/bracket/work-units.ts): about one
+ * CPU-second of solver time (10^8 units per CPU-second; bench/budgets.bench.mjs prints the rates).
+ */
+export const DEFAULT_SWEEP_WORK = 100_000_000;
 /** A plan larger than this is almost certainly a typo in a range. */
 export const MAX_PLAN_JOBS = 50_000_000;
 const MAX_GRID_VALUES = 100_000;
@@ -224,13 +227,11 @@ class Fields {
     const o = this.object(path, v, ["effort", "seconds", "work"]);
     const effort = o.effort === undefined ? base.effort : (this.string(`${path}.effort`, o.effort) as Effort);
     if (!EFFORTS.includes(effort)) this.fail(`${path}.effort`, `should be one of ${EFFORTS.join(", ")} (got ${JSON.stringify(effort)})`);
-    const seconds = o.seconds === undefined ? base.seconds : this.number(`${path}.seconds`, o.seconds, 0.001, 1e7);
-    let work = base.work;
-    if (o.work !== undefined && o.work !== null) {
-      work = this.number(`${path}.work`, o.work, 1, Number.MAX_SAFE_INTEGER, true);
-      if (!WORK_BUDGETS_AVAILABLE) this.fail(`${path}.work`, "work budgets are not available in this version of halfplus; use seconds");
-    } else if (o.work === null) work = null;
-    return { effort, seconds, work };
+    // One budget per entry: naming `seconds` switches an entry to the wall clock, `work` to work units.
+    if (o.seconds !== undefined && o.work !== undefined) this.fail(path, "give either `seconds` or `work` as the budget, not both");
+    if (o.seconds !== undefined) return { effort, seconds: this.number(`${path}.seconds`, o.seconds, 0.001, 1e7), work: null };
+    if (o.work !== undefined) return { effort, seconds: null, work: this.number(`${path}.work`, o.work, 1, Number.MAX_SAFE_INTEGER, true) };
+    return { effort, seconds: base.seconds, work: base.work };
   }
 }
 
@@ -409,7 +410,7 @@ export function loadPlan(input: string | SweepPlan, options: { base?: string; wh
   // Top-level messages name the field alone (`plans/x.json: families: …`).
   const name = top.name === undefined ? (fromFile ? basename(input).replace(/\.json$/i, "") : "plan") : f.string("name", top.name);
   const notes = top.notes === undefined ? [] : f.strings("notes", top.notes);
-  const defaults = f.bracket("bracket", top.bracket, { effort: "auto", seconds: DEFAULT_SWEEP_SECONDS, work: null });
+  const defaults = f.bracket("bracket", top.bracket, { effort: "auto", seconds: null, work: DEFAULT_SWEEP_WORK });
   const solverSeeds = top.solverSeeds === undefined ? [0] : f.seeds("solverSeeds", top.solverSeeds);
   const evaluators = top.evaluators === undefined ? [...EVALUATOR_NAMES] : f.strings("evaluators", top.evaluators, EVALUATOR_NAMES);
   const degrees = (top.degrees === undefined ? [...STORED_DEGREES] : f.strings("degrees", top.degrees, STORED_DEGREES)) as StoredDegree[];

@@ -12,10 +12,10 @@ import type { BracketSettings } from "./job.js";
 import type { Plan } from "./plan.js";
 
 /**
- * Work units of a deterministic `work` budget per second, to compare work with seconds.
- * Our own estimate of branch-and-bound nodes per second on one core (measured, noisy; see bench/).
+ * Work units of a deterministic `work` budget per second, to compare work with seconds: our own
+ * estimate, about 10^8 units per CPU-second for whole brackets (bench/budgets.bench.mjs, noisy).
  */
-export const WORK_UNITS_PER_SECOND = 1e6;
+export const WORK_UNITS_PER_SECOND = 1e8;
 /** Costs are whole milliseconds, at least 1; capped so a cost packs exactly into a double with its position. */
 const MAX_COST = 2 ** 26 - 1;
 /** Positions pack into 26 bits beside the cost (MAX_PLAN_JOBS = 5·10^7 < 2^26). */
@@ -23,9 +23,8 @@ const POSITION_BITS = 2 ** 26;
 
 /** The budget that stops a bracket first, in seconds: `seconds`, or `work` converted at WORK_UNITS_PER_SECOND. */
 export function budgetSeconds(settings: BracketSettings): number {
-  const work = settings.work ?? null;
-  const byWork = work === null ? Infinity : work / WORK_UNITS_PER_SECOND;
-  return Math.min(settings.seconds, byWork);
+  const byWork = settings.work === null ? Infinity : settings.work / WORK_UNITS_PER_SECOND;
+  return Math.min(settings.seconds ?? Infinity, byWork);
 }
 
 /**

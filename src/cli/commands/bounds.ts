@@ -3,7 +3,8 @@
 // that gives most away. With --json, one halfplus/bounds-account record per graph.
 import { DEFAULT_TRIANGLE_FACTOR, DEFAULT_EXACT_VERTICES } from "../../cut/decomposition/decomposition-cut.js";
 import { boundsAccount, type AccountEvaluator, type AccountRow, type AccountStepName, type BoundsAccountRecord } from "../../cut/account/bounds-account.js";
-import { DEFAULT_BRACKET_SECONDS } from "../../cut/bracket/bracket.js";
+import { InputError } from "../../errors.js";
+import { DEFAULT_BRACKET_SECONDS, MAX_BRACKET_WORK } from "../../cut/bracket/bracket.js";
 import { BRACKET_EFFORTS, type BracketEffort } from "../../cut/bracket/record.js";
 import { GRAY_MAX_VERTICES } from "../../cut/exact/gray-code.js";
 import { MAX_SEED } from "../../random/seed.js";
@@ -109,7 +110,8 @@ export const boundsCommand: CommandSpec = {
     SOURCE_HELP,
   ],
   options: [
-    { name: "seconds", type: "number", description: "bracket time budget per graph", default: DEFAULT_BRACKET_SECONDS, min: 0.001, max: 1e7, placeholder: "S" },
+    { name: "seconds", type: "number", description: `bracket time budget per graph (default ${DEFAULT_BRACKET_SECONDS} unless --work is given)`, min: 0.001, max: 1e7, placeholder: "S" },
+    { name: "work", type: "integer", description: "bracket work budget per graph in work units instead of seconds (deterministic: the same account on any machine)", min: 1, max: MAX_BRACKET_WORK, placeholder: "N" },
     { name: "effort", type: "string", description: "how much work the bracket puts in (as in `halfplus cut`)", default: "auto", choices: BRACKET_EFFORTS, placeholder: "E" },
     { name: "solver-seed", type: "integer", description: "seed of the bracket's solvers and of every rounding", default: 0, min: 0, max: MAX_SEED, placeholder: "N" },
     { name: "trials", type: "integer", description: "rounding trials per vector choice", default: 200, min: 1, max: 1e7, placeholder: "N" },
@@ -141,11 +143,14 @@ export const boundsCommand: CommandSpec = {
       exactVertices: o["exact-vertices"] as number,
       maxTrials: o["max-trials"] as number,
     };
+    const seconds = o["seconds"] as number | undefined;
+    const work = o["work"] as number | undefined;
+    if (seconds !== undefined && work !== undefined) throw new InputError("--seconds and --work: give one budget, not both");
     let first = true;
     for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
       const progress = wantProgress ? progressWriter(io.stderr, item.label) : null;
       const record = boundsAccount(item.graph, {
-        seconds: o["seconds"] as number,
+        ...(work !== undefined ? { work } : { seconds: seconds ?? DEFAULT_BRACKET_SECONDS }),
         effort: o["effort"] as BracketEffort,
         solverSeed: o["solver-seed"] as number,
         trials: o["trials"] as number,

@@ -4,9 +4,10 @@
 // write the best verifiable record so far, marked `interrupted`, before exiting with 130 / 143.
 import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
-import { DEFAULT_BRACKET_SECONDS, type BracketProgress } from "../../cut/bracket/bracket.js";
+import { DEFAULT_BRACKET_SECONDS, MAX_BRACKET_WORK, type BracketProgress } from "../../cut/bracket/bracket.js";
 import { BracketRunner, type RunningBracket } from "../../cut/bracket/bracket-runner.js";
 import { BRACKET_EFFORTS, recordJson, type BracketEffort, type BracketRecord, type BracketSnapshot } from "../../cut/bracket/record.js";
+import type { BracketBudget } from "../../cut/bracket/budget.js";
 import { MAX_SEED } from "../../random/seed.js";
 import { openSource } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
@@ -59,6 +60,18 @@ function certificateText(r: Shown): string {
   }
 }
 
+/** Where the budget went: which limit governed, what was used, and each stage's share of the work. */
+function budgetRows(b: BracketBudget): [string, string][] {
+  const limit = b.governing === "work" ? `${num(b.workLimit ?? 0)} work units` : `${num(b.secondsLimit ?? 0)} s`;
+  const rows: [string, string][] = [["budget", `${limit} (${b.governing}): used ${num(b.workUsed)} work units in ${num(b.secondsUsed)} s`]];
+  const total = Math.max(1, b.workUsed);
+  const stages = b.stages.filter((s) => s.workUsed > 0 || s.secondsUsed >= 0.001);
+  if (stages.length > 0) {
+    rows.push(["stages", stages.map((s) => `${s.stage} ${num(Math.round((1000 * s.workUsed) / total) / 10)}% (${num(s.secondsUsed)} s)`).join(", ")]);
+  }
+  return rows;
+}
+
 /** Our own layout: the bracket first, then where each side of it came from. */
 export function formatBracket(label: string, r: Shown): string {
   const gap = r.upper - r.lower;
@@ -77,6 +90,7 @@ export function formatBracket(label: string, r: Shown): string {
   if (r.upperKind !== "proven") rows.push(["caution", `the upper bound is ${r.upperKind === "estimate" ? "an estimate" : "probable"}, not a proof`]);
   if (r.interrupted === true) rows.push(["caution", "interrupted: the best bracket found before the run was stopped"]);
   rows.push(["time", `${num(r.seconds)} s (effort ${r.effort}, solver seed ${r.solverSeed})`]);
+  if (r.budget !== undefined) rows.push(...budgetRows(r.budget));
   const out = [label, ...formatRows(rows)];
   for (const n of r.notes) out.push(`  note: ${n}`);
   return out.join("\n");
@@ -112,12 +126,21 @@ export const cutCommand: CommandSpec = {
   maxPositionals: 1,
   description: [
     "The lower end is a cut anyone can re-evaluate (the partition is in the record); the upper end comes with a certificate: exhaustive search on small graphs, else a dual certificate of the Goemans–Williamson relaxation. The surplus is max cut − W/2, W the total edge weight (m when unweighted).",
+    "The budget is --seconds (wall clock, the default) or --work (deterministic units of solver work: moves, sweeps, search nodes, rounding trials). While the bracket is open the run keeps improving both ends until the budget is spent; the summary says where it went, stage by stage.",
     "Two seeds: --solver-seed seeds the randomised solvers (which cuts are tried); --graph-seed picks which random graph a random family builds. Both are recorded (solverSeed, source.graphSeed).",
     "Ctrl-C (SIGINT) or SIGTERM stops the run at once: the best bracket found so far is written (to standard output and --out), marked `interrupted: true`, and the command exits with 130 (SIGINT) or 143 (SIGTERM). The record verifies like any other.",
     SOURCE_HELP,
   ],
   options: [
-    { name: "seconds", type: "number", description: "time budget per graph; certifying the bound may run a little past it", default: DEFAULT_BRACKET_SECONDS, min: 0.001, max: 1e7, placeholder: "S" },
+    { name: "seconds", type: "number", description: `time budget per graph (default ${DEFAULT_BRACKET_SECONDS} unless --work is given); certifying the bound may run a little past it`, min: 0.001, max: 1e7, placeholder: "S" },
+    {
+      name: "work",
+      type: "integer",
+      description: "deterministic budget per graph in work units instead of seconds: the same graph, seed and settings then give the same record on any machine (about 10^8 units per CPU-second; the record's budget says what was used)",
+      min: 1,
+      max: MAX_BRACKET_WORK,
+      placeholder: "N",
+    },
     {
       name: "effort",
       type: "string",
@@ -142,11 +165,15 @@ export const cutCommand: CommandSpec = {
     "halfplus cut gnp:n=200,p=0.05 --graph-seed 3 --solver-seed 1",
     "nauty-geng -c 9 | halfplus cut - --json --seconds 1",
     "halfplus cut G1.txt --seconds 60 --effort heuristic",
+    "halfplus cut polarity:q=13 --work 200000000 --json   # the same record on any machine",
   ],
   async run(args, io) {
     const o = args.options;
     const json = o["json"] === true;
-    const seconds = o["seconds"] as number;
+    const seconds = o["seconds"] as number | undefined;
+    const work = o["work"] as number | undefined;
+    if (seconds !== undefined && work !== undefined) throw new InputError("--seconds and --work: give one budget, not both");
+    const budget = work !== undefined ? { work } : { seconds: seconds ?? DEFAULT_BRACKET_SECONDS };
     const solverSeed = o["solver-seed"] as number;
     const effort = o["effort"] as BracketEffort;
     const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
@@ -192,7 +219,7 @@ export const cutCommand: CommandSpec = {
       let first = true;
       for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
         const progress = wantProgress ? progressWriter(io.stderr, item.label) : null;
-        running = runner.run(item.graph, { seconds, solverSeed, effort, source: item.source, notes: item.notes, onProgress: progress?.update });
+        running = runner.run(item.graph, { ...budget, solverSeed, effort, source: item.source, notes: item.notes, onProgress: progress?.update });
         let outcome: Awaited<RunningBracket["done"]>;
         try {
           outcome = await running.done;

@@ -137,8 +137,10 @@ export interface BoundsAccountRecord extends RecordEnvelope<typeof BOUNDS_ACCOUN
 }
 
 export interface BoundsAccountOptions {
-  /** Bracket time budget in seconds (default 10). */
+  /** Bracket time budget in seconds (default 10, unless `work` is given). */
   seconds?: number;
+  /** Bracket work budget in units instead of seconds (deterministic; see `bracket`'s `work`). */
+  work?: number;
   effort?: BracketEffort;
   /** Seed of the bracket's solvers and of every rounding (default 0). */
   solverSeed?: number;
@@ -210,7 +212,7 @@ export function boundsAccount(graph: Graph, options: BoundsAccountOptions = {}):
     const h = graphHash(graph);
     if (br.graphHash !== h) throw invalidParameter(OWNER, "bracket", `should be a bracket of this graph (hash ${h})`, br.graphHash);
   } else {
-    br = bracket(graph, { seconds: options.seconds, effort: options.effort, solverSeed, onProgress: options.onProgress, source: options.source });
+    br = bracket(graph, { seconds: options.seconds, work: options.work, effort: options.effort, solverSeed, onProgress: options.onProgress, source: options.source });
   }
   const L = br.surplusLower;
   const notes = [...(options.notes ?? [])];

@@ -1,6 +1,8 @@
-// The max-cut bracket: runs several methods under one time budget and keeps the best cut (lower)
-// and the best certified upper bound, in a plain JSON-ready record that `verify` can re-check
-// from the graph alone (partition for the lower bound, certificate for the upper bound).
+// The max-cut bracket: runs several methods under one budget (wall-clock seconds, or deterministic
+// work units: src/cut/bracket/work-units.ts) and keeps the best cut (lower) and the best certified
+// upper bound, in a plain JSON-ready record that `verify` can re-check from the graph alone
+// (partition for the lower bound, certificate for the upper bound). While the bracket is open it
+// keeps improving both ends until the budget is spent; the record's `budget` says where it went.
 
 import { InputError, invalidParameter } from "../../errors.js";
 import { cutValue, floorCutBound, surplusOf } from "../../graph/cut-value.js";
@@ -10,6 +12,8 @@ import { roundUp } from "../../linalg/float-rounding.js";
 import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";
 import { nowSeconds, type ExactCutRecord, type ExactProgress } from "../exact/common.js";
+import { BudgetMeter } from "./budget.js";
+import { unitsOf, workCosts, type WorkCosts } from "./work-units.js";
 import { exactMaxCut } from "../exact/exact-max-cut.js";
 import { closingTolerance, exactSearchSlack } from "../exact/exact-slack.js";
 import { BreakoutSearcher } from "../heuristic/breakout.js";
@@ -20,7 +24,7 @@ import { vectorMethodRound } from "../heuristic/vector-rounding.js";
 import { DENSE_PROOF_LIMIT, upperKindOf } from "../relaxation/certificate.js";
 import { eigenvalueUpperBound } from "../relaxation/eigenvalue-bound.js";
 import { certifySdpDual } from "../relaxation/sdp-bound.js";
-import { solveSdp, type SdpRecord } from "../relaxation/sdp-mixing.js";
+import { defaultSdpRank, solveSdp, type SdpRecord } from "../relaxation/sdp-mixing.js";
 import { positiveWeightBound } from "../positive-weights.js";
 import type { CutRecord, DualCertificate, UpperBoundRecord, UpperKind } from "../types.js";
 import { recordEnvelope } from "../../graph/record/envelope.js";
@@ -39,6 +43,12 @@ import {
 
 export const DEFAULT_BRACKET_SECONDS = 10;
 
+/** Largest work budget accepted (units; 2^53 keeps every sum of units exact). */
+export const MAX_BRACKET_WORK = Number.MAX_SAFE_INTEGER;
+
+/** Seconds given to solvers that take only a time limit when a work budget governs: never reached. */
+const NO_DEADLINE_SECONDS = 1e9;
+
 /** Largest n that "auto" always hands to exact search first (measured: < 2 s worst case at n = 30). */
 export const AUTO_EXACT_VERTICES = 30;
 
@@ -52,8 +62,13 @@ export interface BracketProgress {
 }
 
 export interface BracketOptions {
-  /** Time budget in seconds (default 10). Certification steps may run a little past it. */
+  /** Time budget in seconds (default 10, unless `work` is given). Certification steps may run a little past it. */
   seconds?: number;
+  /**
+   * Deterministic work budget in units (src/cut/bracket/work-units.ts), instead of `seconds`: the
+   * same graph, solverSeed and settings then give the same record (timing fields aside) anywhere.
+   */
+  work?: number;
   /** Seed of every randomised solver the bracket runs (default 0); each run gets a seed derived from it. */
   solverSeed?: number;
   /** How much work to put in (default "auto"); see BracketEffort. */
@@ -86,8 +101,10 @@ class BracketState {
   readonly tolerance: number;
   /** Non-integer weights: the exact search's slack (src/cut/exact/exact-slack.ts), 0 otherwise. */
   readonly slack: number;
-  readonly t0: number;
-  readonly deadline: number;
+  /** The budget and the account of what each stage spent. */
+  readonly meter: BudgetMeter;
+  /** Units per step of each stage on this graph. */
+  readonly costs: WorkCosts;
   lower = -Infinity;
   lowerMethod = "none";
   partition: Uint8Array;
@@ -101,7 +118,7 @@ class BracketState {
 
   constructor(
     graph: Graph,
-    seconds: number,
+    meter: BudgetMeter,
     onProgress: ((p: BracketProgress) => void) | undefined,
     readonly meta: { solverSeed: number; effort: BracketEffort; source: GraphSource | undefined; notes: readonly string[] },
   ) {
@@ -109,8 +126,8 @@ class BracketState {
     this.integral = hasIntegerWeights(graph);
     this.slack = this.integral ? 0 : exactSearchSlack(graph);
     this.tolerance = closingTolerance(graph);
-    this.t0 = nowSeconds();
-    this.deadline = this.t0 + seconds;
+    this.meter = meter;
+    this.costs = workCosts(graph);
     this.onProgress = onProgress;
     this.partition = new Uint8Array(graph.n);
     this.lower = cutValue(graph, this.partition);
@@ -128,12 +145,18 @@ class BracketState {
     return this.envelope_;
   }
 
+  /** What is left of the budget, in its own currency (seconds or units). */
   left(): number {
-    return this.deadline - nowSeconds();
+    return this.meter.left();
   }
 
   elapsed(): number {
-    return nowSeconds() - this.t0;
+    return this.meter.elapsed();
+  }
+
+  /** Seconds to hand a solver that takes a time limit: what is left, or no limit under a work budget. */
+  solverSeconds(left: number): number {
+    return this.meter.isWork ? NO_DEADLINE_SECONDS : Math.max(1e-3, left);
   }
 
   /** Exact integer weights: every cut is an integer, so a proven bound may be rounded down (as verify does). */
@@ -252,32 +275,141 @@ function toPlainDual(c: DualCertificate, roundedDown: boolean, tolerance: number
   return { kind: "psd-dual", y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, roundedDown, tolerance };
 }
 
-/** Run breakout search in slices, reporting progress, until `seconds` or `rounds` run out or the bracket closes. */
-function runBreakout(state: BracketState, seconds: number, rounds: number, seed: number): void {
-  if (seconds <= 0 || state.closed()) return;
-  const searcher = new BreakoutSearcher(state.graph, {
-    solverSeed: seed,
-    initial: state.partition,
-    upperBound: state.upper,
+/** Units of a certified bound: its Lanczos products and dense proofs (as certifyDual reports them) plus a pass. */
+function certifyUnits(state: BracketState, r: UpperBoundRecord): number {
+  const d = r.details ?? {};
+  const products = Number(d.lanczosIterations ?? 0);
+  const proofs = r.certificate?.shiftProof === "cholesky" ? Number(d.attempts ?? 1) : d.choleskyFailure !== undefined ? 6 : 0;
+  return unitsOf(products, state.costs.matvec) + unitsOf(proofs, state.costs.denseProof) + state.costs.pass;
+}
+
+/** Run an upper-bound method as a stage: book its work and seconds, then offer its bound. */
+function boundStage(state: BracketState, stage: string, run: () => UpperBoundRecord): void {
+  state.attempt(stage, "upper", () => {
+    const r = run();
+    state.meter.charge(stage, certifyUnits(state, r), Number(r.details?.certifySeconds ?? r.seconds));
+    state.offerDual(r);
   });
-  const stop = nowSeconds() + seconds;
-  let done = 0;
-  for (;;) {
-    const left = stop - nowSeconds();
-    if (left <= 0 || done >= rounds) break;
-    // Half-second slices keep the progress display alive on long runs.
-    const status = searcher.run({ seconds: Math.min(left, 0.5), iterations: rounds - done });
-    const best = searcher.best();
-    done = Number(best.details?.rounds ?? rounds);
-    if (best.value > state.lower) {
-      state.takeCut(best);
-      state.progress("breakout");
+}
+
+/** Run a rounding or search method that returns one cut as a stage: book it, offer the cut. */
+function cutStage(state: BracketState, units: (r: CutRecord) => number, run: () => CutRecord): void {
+  const r = run();
+  state.meter.charge(r.method, units(r), r.seconds);
+  state.offerCut(r);
+}
+
+/** All breakout episodes of a bracket, summed into one run entry. */
+class BreakoutLog {
+  episodes = 0;
+  best: CutRecord | null = null;
+  firstSeed: number | null = null;
+  status: BracketRun["status"] = "iteration-limit";
+  seconds = 0;
+  private readonly sums: Record<string, number> = { rounds: 0, moves: 0, directedJumps: 0, randomJumps: 0, strongJumps: 0 };
+  private bestEpisode = 0;
+
+  add(r: CutRecord, status: BracketRun["status"]): void {
+    this.episodes++;
+    this.firstSeed ??= r.solverSeed;
+    this.status = status;
+    this.seconds += r.seconds;
+    for (const k of Object.keys(this.sums)) this.sums[k] += Number(r.details?.[k] ?? 0);
+    if (this.best === null || r.value > this.best.value) {
+      this.best = r;
+      this.bestEpisode = this.episodes;
     }
-    if (status !== "time-limit") break; // "optimal": reached the upper bound; "iteration-limit": rounds used up
   }
-  const best = searcher.best();
-  state.runs.push({ method: best.method, role: "lower", value: best.value, status: best.status, seconds: best.seconds, solverSeed: best.solverSeed, details: plainDetails(best.details) });
-  state.takeCut(best);
+
+  push(state: BracketState): void {
+    if (this.best === null) return;
+    state.runs.push({
+      method: "breakout",
+      role: "lower",
+      value: this.best.value,
+      status: this.status,
+      seconds: this.seconds,
+      solverSeed: this.firstSeed,
+      details: { episodes: this.episodes, bestEpisode: this.bestEpisode, ...this.sums },
+    });
+  }
+}
+
+/**
+ * One breakout episode with its own seed, from `initial` (else a random cut), until it goes
+ * `stall` rounds without a better cut, the phase ends, the bracket closes or it reaches the upper
+ * bound. Under a work budget it runs in slices of rounds sized from the units a round has cost so
+ * far (moves are counted, so the slicing, and with it the whole run, is deterministic).
+ */
+function breakoutEpisode(state: BracketState, phaseEnd: number, seed: number, initial: Uint8Array | undefined, stall: number, log: BreakoutLog): BracketRun["status"] {
+  const { graph: g, meter, costs } = state;
+  const searcher = new BreakoutSearcher(g, { solverSeed: seed, initial, upperBound: state.upper });
+  let rounds = 0;
+  let moves = 0;
+  let sinceBest = 0;
+  let episodeBest = -Infinity;
+  // Units per round before any is counted: a first ascent moves about a quarter of the vertices.
+  let perRound = costs.move * Math.max(8, g.n / 4);
+  let status: BracketRun["status"] = "iteration-limit";
+  for (;;) {
+    const left = phaseEnd - meter.position();
+    if (left <= 0 || state.closed() || sinceBest >= stall) break;
+    const cap = stall - sinceBest;
+    const t = nowSeconds();
+    if (meter.isWork) {
+      // Slices of at least a few million units keep best() (a pass over the graph) cheap beside them.
+      const slice = Math.min(left, Math.max(2 ** 22, 8 * costs.pass));
+      status = searcher.run({ seconds: Infinity, iterations: Math.max(1, Math.min(cap, Math.floor(slice / perRound))) });
+    } else {
+      // Half-second slices keep the progress display alive on long runs.
+      status = searcher.run({ seconds: Math.min(left, 0.5), iterations: cap });
+    }
+    const best = searcher.best();
+    const r = Number(best.details?.rounds ?? 0);
+    const mv = Number(best.details?.moves ?? 0);
+    meter.charge("breakout", unitsOf(mv - moves, costs.move), nowSeconds() - t);
+    if (r > 0) perRound = Math.max(1, (mv * costs.move) / r);
+    if (best.value > episodeBest) {
+      episodeBest = best.value;
+      sinceBest = 0;
+      if (best.value > state.lower) {
+        state.takeCut(best);
+        state.progress("breakout");
+      }
+    } else sinceBest += r - rounds;
+    rounds = r;
+    moves = mv;
+    if (status === "optimal") break;
+  }
+  log.add(searcher.best(), status);
+  return status;
+}
+
+/**
+ * One run of the memetic search from the best cut until `episodeEnd` (a meter position), booked as
+ * the stage `memetic`: under a work budget its moves are counted, so the cut does not depend on load.
+ */
+function memeticEpisode(state: BracketState, episodeEnd: number, seed: number): BracketRun["status"] {
+  const { graph: g, meter, costs } = state;
+  const left = episodeEnd - meter.position();
+  if (left <= 0 || state.closed()) return "iteration-limit";
+  const r = memeticSearch(g, {
+    solverSeed: seed,
+    ...(meter.isWork ? { seconds: state.solverSeconds(left), work: Math.max(1, Math.floor(left / costs.move)) } : { seconds: left }),
+    initial: state.partition,
+    upperBound: state.upperKind === "proven" ? state.upper : undefined,
+    onProgress: () => state.progress("memetic"),
+  });
+  meter.charge("memetic", unitsOf(r.work, costs.move), r.seconds);
+  state.offerCut(r);
+  return r.status;
+}
+
+/** An SDP that stopped on its budget rather than converging: more sweeps may lower the bound. */
+interface OpenSdp {
+  sdp: SdpRecord;
+  /** What its last certificate cost, in the budget's currency: kept free when sweeping on. */
+  certifyCost: number;
 }
 
 /**
@@ -288,71 +420,161 @@ function denseProofSeconds(n: number): number {
   return 1.1e-9 * n * n * n;
 }
 
+// Residual tolerance for Lanczos shifts: 1e-7 relative moves the bound by ~1e-7·n·‖L‖/4, far
+// below the gaps of interest, and converges in about half the iterations of the default.
+const SHIFT_TOLERANCE = 1e-7;
+
+/** The dense proof's limit when its cost fits in `room` (in the budget's currency), else 0 (a Lanczos shift). */
+function denseLimitWithin(state: BracketState, room: number): number {
+  const n = state.graph.n;
+  return n <= DENSE_PROOF_LIMIT && state.meter.cost(state.costs.denseProof, denseProofSeconds(n)) <= room ? DENSE_PROOF_LIMIT : 0;
+}
+
+/** Solve (or continue) the SDP within `amount` of the budget's currency, book it and log it. */
+function sdpStage(state: BracketState, seed: number, rank: number, amount: number, extra: { maxSweeps?: number; minSweeps: number; initial?: Float64Array }): SdpRecord | null {
+  const { meter, costs } = state;
+  const sweepCost = costs.sweep(rank);
+  let solved: SdpRecord | null = null;
+  // Solved and certified as two attempts: when the certificate does not fit in memory, the
+  // SDP's vectors still feed hyperplane rounding.
+  state.attempt("sdp-mixing", "relaxation", () => {
+    const budget = meter.isWork
+      ? { maxSweeps: Math.min(extra.maxSweeps ?? 10000, Math.max(extra.minSweeps, Math.floor(amount / sweepCost))) }
+      : { seconds: Math.max(1e-3, amount), maxSweeps: extra.maxSweeps };
+    solved = solveSdp(state.graph, { solverSeed: seed, rank, initial: extra.initial, ...budget });
+  });
+  if (solved === null) return null;
+  const sdp: SdpRecord = solved;
+  // The duality-gap checks cost about 15% on top of the sweeps (sdp-mixing.ts spaces them so).
+  meter.charge("sdp-mixing", unitsOf(sdp.sweeps, 1.15 * sweepCost), sdp.seconds);
+  state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, solverSeed: sdp.solverSeed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
+  return sdp;
+}
+
+/**
+ * While the bracket is open and the phase has budget left: breakout episodes with fresh derived
+ * seeds (from the best cut, and on graphs up to 1000 vertices every other one from a random cut),
+ * each followed, while the SDP has not converged, by more SDP sweeps from its last vectors and a
+ * new certificate. Stops only when the bracket closes, the phase's budget is spent, or the cut
+ * reaches the upper bound (then only a better bound could help, and nothing is left to try).
+ */
+function improveBothEnds(state: BracketState, phaseEnd: number, seed: number, open: OpenSdp | null): void {
+  const g = state.graph;
+  const meter = state.meter;
+  const phaseLeft = (): number => phaseEnd - meter.position();
+  const log = new BreakoutLog();
+  // Rounds without a better cut before an episode ends; doubling gives later episodes longer runs.
+  let stall = Math.max(5000, 20 * g.n);
+  for (let episode = 0; !state.closed() && phaseLeft() > 0; episode++) {
+    const before = meter.position();
+    const fromBest = episode % 2 === 0 || g.n > 1000;
+    const episodeSeed = episode === 0 ? methodSeed(seed, 5) : methodSeed(seed, 100 + episode);
+    // Large sparse graphs: the memetic search in place of breakout (issue 11, item 5; bench/cut-large).
+    const status =
+      g.n >= MEMETIC_MIN_VERTICES
+        ? memeticEpisode(state, before + Math.max(phaseLeft() / 2, Math.min(phaseLeft(), meter.cost(2 ** 22, 1))), episodeSeed)
+        : breakoutEpisode(state, phaseEnd, episodeSeed, fromBest ? state.partition : undefined, stall, log);
+    if (status === "optimal") break;
+    stall = Math.min(2 ** 30, 2 * stall);
+    // The bound gets as much again as the episode took, keeping its certificate's cost free; when
+    // not even 20 sweeps fit beside that, the rest of the phase stays with the search.
+    const room = open === null ? 0 : phaseLeft() - open.certifyCost;
+    if (open !== null && room > meter.cost(20 * state.costs.sweep(open.sdp.rank), 0) && !state.closed()) {
+      const amount = Math.min(room, Math.max(meter.position() - before, 0.05 * phaseLeft()));
+      const sdp = sdpStage(state, open.sdp.solverSeed, open.sdp.rank, amount, { minSweeps: 20, initial: open.sdp.vectors });
+      if (sdp !== null) {
+        const c0 = meter.position();
+        const dense = denseLimitWithin(state, 0.5 * phaseLeft());
+        boundStage(state, "sdp-certified", () => certifySdpDual(g, sdp, { tolerance: SHIFT_TOLERANCE, denseLimit: dense }));
+        open = sdp.status === "converged" ? null : { sdp, certifyCost: meter.position() - c0 };
+      } else open = null;
+    }
+  }
+  log.push(state);
+}
+
 /** Heuristic lower bounds plus certified upper bounds, within `budgetShare` of what is left. */
 function heuristicPhase(state: BracketState, seed: number, quick: boolean, budgetShare: number): void {
-  const g = state.graph;
+  const { graph: g, meter, costs } = state;
   const n = g.n;
   const total = Math.max(0, state.left()) * budgetShare;
-  const phaseEnd = nowSeconds() + total;
-  const phaseLeft = (): number => Math.max(0, phaseEnd - nowSeconds());
-  // A dense proof is used only when it fits in the given share of the time left; otherwise the
+  const phaseEnd = meter.position() + total;
+  const phaseLeft = (): number => Math.max(0, phaseEnd - meter.position());
+  // A dense proof is used only when it fits in the given share of the budget left; otherwise the
   // shift is a Lanczos estimate and the record says so (upperKind = "estimate").
-  const denseLimitFor = (share: number): number => (n <= DENSE_PROOF_LIMIT && denseProofSeconds(n) <= share * phaseLeft() ? DENSE_PROOF_LIMIT : 0);
-  // Residual tolerance for Lanczos shifts: 1e-7 relative moves the bound by ~1e-7·n·‖L‖/4, far
-  // below the gaps of interest, and converges in about half the iterations of the default.
-  const tolerance = 1e-7;
+  const denseLimitFor = (share: number): number => denseLimitWithin(state, share * phaseLeft());
 
   // A first cut in a few milliseconds: multi-start 1-flip local search.
-  state.offerCut(localSearch(g, { seconds: Math.max(1e-3, Math.min(0.05 * total, 1)), iterations: quick ? 4 : 16, solverSeed: methodSeed(seed, 1) }));
+  const restarts = quick ? 4 : 16;
+  cutStage(
+    state,
+    (r) => unitsOf(Number(r.details?.starts ?? 0), costs.restart),
+    () =>
+      localSearch(g, {
+        ...(meter.isWork
+          ? { seconds: Infinity, iterations: Math.max(1, Math.min(restarts, Math.floor((0.05 * total) / costs.restart))) }
+          : { seconds: Math.max(1e-3, Math.min(0.05 * total, 1)), iterations: restarts }),
+        solverSeed: methodSeed(seed, 1),
+      }),
+  );
 
   // The eigenvalue bound (the dual certificate with y = 0): one Lanczos run, or a small dense proof.
-  const tEigen0 = nowSeconds();
-  state.attempt("eigenvalue", "upper", () => state.offerDual(eigenvalueUpperBound(g, { tolerance, denseLimit: denseLimitFor(0.05) })));
-  const eigenSeconds = nowSeconds() - tEigen0;
+  const eigen0 = meter.position();
+  boundStage(state, "eigenvalue", () => eigenvalueUpperBound(g, { tolerance: SHIFT_TOLERANCE, denseLimit: denseLimitFor(0.05) }));
+  const eigenCost = meter.position() - eigen0;
   if (state.closed()) return;
 
   // The SDP: its vectors feed hyperplane rounding, its dual estimate feeds the certificate.
   // Certifying costs about two Lanczos runs (≈ 2.5× the eigenvalue bound) or a dense proof.
   const dense = denseLimitFor(0.3);
-  const certifyCost = dense > 0 ? denseProofSeconds(n) + eigenSeconds : 2.5 * eigenSeconds;
+  const certifyCost = dense > 0 ? meter.cost(costs.denseProof, denseProofSeconds(n)) + eigenCost : 2.5 * eigenCost;
   const forSdp = (quick ? 0.3 : 0.45) * phaseLeft() - certifyCost;
-  if (forSdp > Math.min(0.5, 0.05 * total) || n <= 64) {
-    // Solved and certified as two attempts: when the certificate does not fit in memory, the
-    // SDP's vectors still feed hyperplane rounding.
-    let solved: SdpRecord | null = null;
-    state.attempt("sdp-mixing", "relaxation", () => {
-      solved = solveSdp(g, {
-        solverSeed: methodSeed(seed, 2),
-        seconds: Math.max(1e-3, forSdp),
-        maxSweeps: quick ? 300 : undefined,
-        // Large graphs: a low rank affords many more sweeps in the same time, which matters more
-        // than the rank (bench/bracket: rank 24 beats the default rank 201 at 10^6 edges).
-        rank: g.m > 100_000 ? Math.min(24, n) : undefined,
-      });
-    });
-    if (solved !== null) {
-      const sdp: SdpRecord = solved;
-      state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, solverSeed: sdp.solverSeed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
-      state.attempt("sdp-certified", "upper", () => state.offerDual(certifySdpDual(g, sdp, { tolerance, denseLimit: dense })));
+  // Large graphs: a low rank affords many more sweeps in the same time, which matters more
+  // than the rank (bench/bracket: rank 24 beats the default rank 201 at 10^6 edges).
+  const rank = g.m > 100_000 ? Math.min(24, n) : defaultSdpRank(n);
+  let open: OpenSdp | null = null;
+  if (forSdp > Math.min(meter.cost(50 * costs.sweep(rank), 0.5), 0.05 * total) || n <= 64) {
+    const sdp = sdpStage(state, methodSeed(seed, 2), rank, forSdp, { maxSweeps: quick ? 300 : undefined, minSweeps: n <= 64 ? 20 : 1 });
+    if (sdp !== null) {
+      const c0 = meter.position();
+      boundStage(state, "sdp-certified", () => certifySdpDual(g, sdp, { tolerance: SHIFT_TOLERANCE, denseLimit: dense }));
+      const certified = meter.position() - c0;
       if (state.closed()) return;
       const trials = quick ? 8 : n <= 5000 ? 64 : 16;
-      state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, solverSeed: methodSeed(seed, 3), polish: true }));
+      cutStage(
+        state,
+        (r) => unitsOf(Number(r.details?.trials ?? trials), costs.hyperplaneTrial(sdp.rank)) + unitsOf(g.m, sdp.rank),
+        () => hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, solverSeed: methodSeed(seed, 3), polish: true }),
+      );
       if (state.closed()) return;
+      if (sdp.status !== "converged") open = { sdp, certifyCost: certified };
     }
   }
   if (quick) return;
   // Sparse vector rounding: its set-up (the exact guarantee) costs about one Lanczos run.
-  if (phaseLeft() > 3 * eigenSeconds) {
-    state.attempt("vector-rounding", "lower", () => state.offerCut(vectorMethodRound(g, { trials: n <= 5000 ? 32 : 8, solverSeed: methodSeed(seed, 4), polish: true })));
+  if (phaseLeft() > 3 * eigenCost) {
+    const trials = n <= 5000 ? 32 : 8;
+    state.attempt("vector-rounding", "lower", () =>
+      cutStage(
+        state,
+        (r) => unitsOf(Number(r.details?.trials ?? trials), costs.vectorTrial) + 20 * costs.pass,
+        () => vectorMethodRound(g, { trials, solverSeed: methodSeed(seed, 4), polish: true }),
+      ),
+    );
     if (state.closed()) return;
   }
-  // Breakout gets what is left of the phase; the round cap (≈ 50 n² rounds, a few µs each at
-  // n = 200) keeps small graphs, whose bound may never meet the cut, from idling to the deadline.
-  // Large graphs (issue 11, item 5): the memetic search in place of breakout (bench/cut-large).
-  if (n >= MEMETIC_MIN_VERTICES) {
-    const left = phaseLeft();
-    if (left > 0 && !state.closed()) state.offerCut(memeticSearch(g, { solverSeed: methodSeed(seed, 5), seconds: left, initial: state.partition, upperBound: state.upperKind === "proven" ? state.upper : undefined, onProgress: () => state.progress("memetic") }));
-  } else runBreakout(state, phaseLeft(), 1000 + 50 * n * n, methodSeed(seed, 5));
+  // The rest of the phase: keep improving both ends until it is spent or the bracket closes.
+  improveBothEnds(state, phaseEnd, seed, open);
+}
+
+/** Exact search on what is left of the budget (from `initial` when given), booked as the stage `exact-search`. */
+function exactStage(state: BracketState, seed: number, initial?: Uint8Array): void {
+  const { graph, meter, costs } = state;
+  const left = state.left();
+  const work = meter.isWork ? Math.max(1, Math.floor(left / costs.exactStep)) : undefined;
+  const r = exactMaxCut(graph, { seconds: state.solverSeconds(left), work, solverSeed: seed, initial, onProgress: state.exactProgress("exact search") });
+  meter.charge("exact-search", unitsOf(Number(r.details?.workUsed ?? 0), costs.exactStep), r.seconds);
+  state.offerExact(r);
 }
 
 /** Is branch and bound worth part of the budget? A practical rule from bench/cut-exact: small or sparse graphs. */
@@ -364,29 +586,38 @@ export function bracket(graph: Graph, options: BracketOptions = {}): BracketReco
   return recordFromSnapshot(bracketSnapshot(graph, options));
 }
 
+/** The governing budget of a bracket's options: `work` units, or `seconds` (default 10). One-line errors name the option. */
+export function bracketBudgetOf(owner: string, options: Pick<BracketOptions, "seconds" | "work">): BudgetMeter {
+  if (options.work !== undefined) {
+    if (options.seconds !== undefined) throw new InputError(`${owner}: give either \`seconds\` or \`work\` as the budget, not both`);
+    const w = options.work;
+    if (typeof w !== "number" || !Number.isSafeInteger(w) || w < 1) throw invalidParameter(owner, "work", `should be a whole number of work units from 1 to ${MAX_BRACKET_WORK}`, w);
+    return new BudgetMeter("work", w);
+  }
+  return new BudgetMeter("time", checkSeconds(owner, options.seconds, DEFAULT_BRACKET_SECONDS));
+}
+
 /** `bracket`, returning the record with its partition as a typed array (see BracketSnapshot). */
 export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): BracketSnapshot {
   const owner = "bracket";
-  const seconds = checkSeconds(owner, options.seconds, DEFAULT_BRACKET_SECONDS);
+  const meter = bracketBudgetOf(owner, options);
   const seed = checkSeed(owner, "solverSeed", options.solverSeed);
   const effort = options.effort ?? "auto";
   if (!BRACKET_EFFORTS.includes(effort)) throw invalidParameter(owner, "effort", `should be one of ${BRACKET_EFFORTS.join(", ")}`, effort);
-  const state = new BracketState(graph, seconds, options.onProgress, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
+  const state = new BracketState(graph, meter, options.onProgress, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
   state.progress("start");
 
   if (graph.m > 0) {
     if (effort === "exact") {
-      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, onProgress: state.exactProgress("exact search") }));
-      if (!state.closed()) state.attempt("eigenvalue", "upper", () => state.offerDual(eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 })));
+      exactStage(state, seed);
+      if (!state.closed()) boundStage(state, "eigenvalue", () => eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 }));
     } else if (effort === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
-      state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, onProgress: state.exactProgress("exact search") }));
+      exactStage(state, seed);
       if (!state.closed()) heuristicPhase(state, seed, false, 1);
     } else if (effort === "auto" && exactLooksFeasible(graph)) {
       // Heuristics first (a good incumbent prunes far more), then exact search on the rest.
       heuristicPhase(state, seed, false, 0.3);
-      if (!state.closed()) {
-        state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, initial: state.partition, onProgress: state.exactProgress("exact search") }));
-      }
+      if (!state.closed()) exactStage(state, seed, state.partition);
     } else {
       heuristicPhase(state, seed, effort === "quick", 1);
     }
@@ -428,6 +659,7 @@ function snapshotOf(state: BracketState): BracketSnapshot {
     partition: state.partition.slice(),
     certificate: state.certificate,
     runs: state.runs.slice(),
+    budget: state.meter.record(),
     notes: [...state.meta.notes],
     // Last, so the (possibly long) embedded graph does not hide the numbers in a JSON line.
     source: envelope.source,

@@ -4,14 +4,16 @@
 
 import type { RecordEnvelope } from "../../graph/record/envelope.js";
 import type { ShiftProof, SolverStatus, UpperKind } from "../types.js";
+import type { BracketBudget } from "./budget.js";
 
 /** The `kind` every bracket record carries, so verify can refuse other JSON. */
 export const BRACKET_RECORD_KIND = "halfplus/bracket";
 /**
  * Version 2: the shared envelope, `effort`, `solverSeed`, `upperKind`, `shiftProof`, `roundedDown`,
  * `notes`; optional `interrupted`; run statuses include `work-limit` and `skipped`.
+ * Version 3: `budget` (which budget governed, its limits, work and seconds used, per stage).
  */
-export const BRACKET_RECORD_VERSION = 2;
+export const BRACKET_RECORD_VERSION = 3;
 
 /**
  * How much work the bracket puts in. auto: exact search when the graph is small, heuristics and
@@ -73,6 +75,8 @@ export interface BracketRecord extends RecordEnvelope<typeof BRACKET_RECORD_KIND
   partition: number[];
   certificate: BracketCertificate;
   runs: BracketRun[];
+  /** Which budget governed (time or work), its limits, and the work and seconds used, per stage. */
+  budget: BracketBudget;
   /** Things the reader should know about the graph or the run (possibly none). */
   notes: string[];
   /** Present (true) when SIGINT/SIGTERM stopped the run: the best record at that moment. */
@@ -97,4 +101,30 @@ export function recordJson(r: BracketSnapshot | BracketRecord): string {
   const marker = "\u0000partition\u0000";
   const text = JSON.stringify({ ...r, partition: marker });
   return text.replace(JSON.stringify(marker), `[${r.partition.join(",")}]`);
+}
+
+/**
+ * Is this key a timing-only field? By convention every wall-clock field of a bracket record is
+ * named `seconds`, starts with `seconds` followed by a capital (`secondsUsed`, `secondsToBest`,
+ * `secondsLimit`) or ends in `Seconds` (`sdpSeconds`, `trialSeconds`); nothing else is timing.
+ */
+export function isTimingKey(key: string): boolean {
+  return key === "seconds" || /^seconds[A-Z]/.test(key) || key.endsWith("Seconds");
+}
+
+/**
+ * The record without its timing-only fields (`isTimingKey`, at any depth): under a work budget
+ * this is identical for the same graph, solver seed and settings on any machine, worker count or
+ * load. Compare records with it; `interrupted` records are not covered (a signal's moment is timing).
+ */
+export function withoutTiming<T>(record: T): T {
+  const strip = (v: unknown): unknown => {
+    if (Array.isArray(v)) return v.map(strip);
+    if (v instanceof Uint8Array) return Array.from(v);
+    if (typeof v !== "object" || v === null) return v;
+    const out: Record<string, unknown> = {};
+    for (const [k, x] of Object.entries(v)) if (!isTimingKey(k)) out[k] = strip(x);
+    return out;
+  };
+  return strip(record) as T;
 }

@@ -19,6 +19,7 @@ import { MAX_DUAL_ENTRY, SHIFT_PROOFS, verifyCertificate } from "../relaxation/c
 import { positiveWeightBound } from "../positive-weights.js";
 import type { UpperKind } from "../types.js";
 import { BRACKET_EFFORTS, BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, type BracketRecord } from "./record.js";
+import { BUDGET_KINDS } from "./budget.js";
 
 const UPPER_KINDS: readonly UpperKind[] = ["proven", "probable", "estimate"];
 
@@ -113,6 +114,23 @@ class Fields {
   }
 }
 
+/** The record's `budget` section (record.ts, budget.ts): types only; verify re-derives nothing from it. */
+function checkBudget(f: Fields, v: unknown): void {
+  const b = f.object("budget", v);
+  f.oneOf("budget.governing", b.governing, BUDGET_KINDS);
+  if (b.secondsLimit !== null) f.finite("budget.secondsLimit", b.secondsLimit);
+  if (b.workLimit !== null) f.count("budget.workLimit", b.workLimit);
+  f.count("budget.workUsed", b.workUsed);
+  f.finite("budget.secondsUsed", b.secondsUsed);
+  if (!Array.isArray(b.stages)) f.bad("budget.stages", "an array", b.stages);
+  (b.stages as unknown[]).forEach((x, i) => {
+    const s = f.object(`budget.stages[${i}]`, x);
+    f.text(`budget.stages[${i}].stage`, s.stage);
+    f.count(`budget.stages[${i}].workUsed`, s.workUsed);
+    f.finite(`budget.stages[${i}].secondsUsed`, s.secondsUsed);
+  });
+}
+
 /**
  * Check a parsed JSON value has the shape of a bracket record (types and ranges only, not truth):
  * anything malformed is bad input (InputError naming `where` and the field); a well-formed record
@@ -145,6 +163,8 @@ export function parseBracketRecord(value: unknown, where: string): BracketRecord
   f.optional(r, "interrupted", "interrupted", f.bool);
   if (Object.prototype.hasOwnProperty.call(r, "runs") && !Array.isArray(r.runs)) f.bad("runs", "an array", r.runs);
   if (Object.prototype.hasOwnProperty.call(r, "notes") && !(Array.isArray(r.notes) && r.notes.every((x) => typeof x === "string"))) f.bad("notes", "an array of strings", r.notes);
+
+  if (Object.prototype.hasOwnProperty.call(r, "budget")) checkBudget(f, r.budget);
 
   // Missing or non-object `source` used to crash verify with a TypeError (test/cli-cut.test.ts "malformed `source`").
   const src = f.object("source", r.source);

@@ -23,7 +23,7 @@ export interface SdpOptions {
    * θ being a Lanczos estimate of λmax(L − Diag(y)) (default 1e-5). 0 disables the check.
    */
   gapTolerance?: number;
-  /** Fewest sweeps between duality-gap checks (default 20; more when a check costs over ~15% of the sweeps' time). */
+  /** Fewest sweeps between duality-gap checks (default 20; more when a check costs over ~15% of the sweeps' work). */
   checkEvery?: number;
   /** Stop when one sweep raises the objective by at most tolerance·|objective| (default 1e-12). */
   tolerance?: number;
@@ -183,7 +183,7 @@ function startVectors(n: number, r: number, rng: Rng, initial: Float64Array | un
 }
 
 /** Estimated duality gap for stopping: ¼(Σy + n·θ⁺) − value with θ a Lanczos estimate of λmax(L − Diag(y)). */
-function gapEstimate(graph: Graph, y: Float64Array, value: number, warm: Float64Array | null): { gap: number; dual: number; top: Float64Array } {
+function gapEstimate(graph: Graph, y: Float64Array, value: number, warm: Float64Array | null): { gap: number; dual: number; top: Float64Array; products: number } {
   const top = lanczosExtreme(shiftedLaplacianOperator(graph, y), {
     which: "largest",
     // A rough θ suffices to decide when to stop (the certificate is established separately),
@@ -195,7 +195,7 @@ function gapEstimate(graph: Graph, y: Float64Array, value: number, warm: Float64
     ...(warm === null ? {} : { start: warm }),
   });
   const dual = dualBoundValue(y, Math.max(0, top.values[0]));
-  return { gap: dual - value, dual, top: top.vectors[0] };
+  return { gap: dual - value, dual, top: top.vectors[0], products: top.iterations };
 }
 
 /** Solve the max-cut SDP approximately by the mixing method. Weighted graphs (any sign) are fine. */
@@ -227,7 +227,10 @@ export function solveSdp(graph: Graph, options: SdpOptions = {}): SdpRecord {
   let gap = NaN;
   let warm: Float64Array | null = null;
   let nextCheck = checkEvery;
-  let checkTotalMs = 0;
+  // Costs in arc visits, not milliseconds, so the sweeps at which the gap is checked (and with them
+  // the result) do not depend on the machine or its load: a sweep touches every arc `r` times, a
+  // check's Lanczos product every arc once plus its basis of 24 vectors.
+  const sweepCost = (n + 2 * graph.m) * r;
   while (status === "iteration-limit" && sweeps < maxSweeps) {
     let gain = 0;
     let grad2 = 0;
@@ -253,16 +256,13 @@ export function solveSdp(graph: Graph, options: SdpOptions = {}): SdpRecord {
     lastImprovement = gain;
     if (gain <= tol * Math.abs(value) || Math.sqrt(grad2) <= gradTol * absWeight) status = "converged";
     else if (gapTol > 0 && sweeps >= nextCheck) {
-      const c0 = performance.now();
       const est = gapEstimate(graph, sdpDualEstimate(graph, V, r).y, value, warm);
-      const checkMs = performance.now() - c0;
       gap = est.gap;
       warm = est.top;
       if (gap <= gapTol * Math.abs(est.dual)) status = "converged";
-      // Space the checks so they cost at most ~15% of the sweeps' time.
-      const sweepMs = (c0 - t0 - checkTotalMs) / sweeps;
-      checkTotalMs += checkMs;
-      nextCheck = sweeps + Math.max(checkEvery, Math.ceil(checkMs / (0.15 * Math.max(sweepMs, 1e-6))));
+      // Space the checks so they cost at most ~15% of the sweeps' work.
+      const checkCost = (est.products + 1) * (n + 2 * graph.m + 24 * n);
+      nextCheck = sweeps + Math.max(checkEvery, Math.ceil(checkCost / (0.15 * Math.max(sweepCost, 1))));
     }
     if (status === "iteration-limit" && performance.now() > deadline) status = "time-limit";
   }
