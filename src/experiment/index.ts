@@ -16,3 +16,4 @@ export * from "./fit-rows.js";
 export * from "./records.js";
 export { packPartition, unpackPartition } from "./witness.js";
 export { halfplusVersion } from "./provenance.js";
+export type { HuntFrontierRow, HuntFrontierFilter } from "./hunt-store.js";

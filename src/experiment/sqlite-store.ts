@@ -10,6 +10,7 @@ import { dirname } from "node:path";
 import { InputError } from "../errors.js";
 import { COLUMNS, rowValues, type CellValue, type ColumnSpec, type StoredRow } from "./columns.js";
 import type { OpenStoreOptions, ResultStore, RowFilter, SweepLogEntry } from "./store.js";
+import { huntRows, putHuntRow, type HuntFrontierFilter, type HuntFrontierRow } from "./hunt-store.js";
 
 /**
  * The native binding is loaded on first use, so commands that never open a store (graph, cut, ...)
@@ -213,6 +214,17 @@ class SqliteStore implements ResultStore {
 
   sweeps(): SweepLogEntry[] {
     return this.db.prepare(`SELECT * FROM sweeps ORDER BY startedAt, id`).all() as SweepLogEntry[];
+  }
+
+  // ---- hunt frontier (hunt-store.ts holds the table's definition) ----
+
+  putHuntEntry(row: HuntFrontierRow): boolean {
+    if (this.readonly) throw new Error(`${this.path}: opened read-only`);
+    return putHuntRow(this.db, row);
+  }
+
+  huntEntries(filter: HuntFrontierFilter = {}): HuntFrontierRow[] {
+    return huntRows(this.db, filter);
   }
 
   close(): void {

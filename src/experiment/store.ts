@@ -3,6 +3,7 @@
 // can be swapped for Node's built-in SQLite without touching sweeps, exports or merges.
 
 import type { CellValue, StoredRow } from "./columns.js";
+import type { HuntFrontierFilter, HuntFrontierRow } from "./hunt-store.js";
 
 export interface RowFilter {
   /** Only rows of these family labels. */
@@ -49,6 +50,10 @@ export interface ResultStore {
   transaction<T>(fn: () => T): T;
   logSweep(entry: SweepLogEntry): void;
   sweeps(): SweepLogEntry[];
+  /** Hunt frontier (table `hunt_frontier`, see hunt-store.ts): keep `row` when it is new or beats the stored one; true if kept. */
+  putHuntEntry(row: HuntFrontierRow): boolean;
+  /** Stored frontier rows, ordered by (pattern, n, objective, m); none when the store has no hunt table. */
+  huntEntries(filter?: HuntFrontierFilter): HuntFrontierRow[];
   close(): void;
 }
 

@@ -13,5 +13,6 @@ import { sweepCommand } from "./sweep.js";
 import { exportCommand } from "./export.js";
 import { importCommand } from "./import.js";
 import { mergeCommand } from "./merge.js";
+import { huntCommand } from "./hunt.js";
 
-export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, kernelCommand];
+export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, huntCommand, kernelCommand];
