@@ -184,3 +184,11 @@ describe("hunt: budgets and determinism", () => {
     expect(() => hunt({ ...base, iterations: undefined })).toThrow(/budget/);
   });
 });
+
+describe("hunt: a fixed m that no start reaches", () => {
+  it("ends with the work budget and an empty frontier (ex(8, K3) = 16 < 17: Mantel 1907)", () => {
+    const r = hunt({ pattern: patternGraph("K3"), patternName: "K3", n: 8, objective: { kind: "surplus", m: 17 }, iterations: 20, solverSeed: 0 });
+    expect(r.iterations).toBe(20);
+    expect(r.frontier).toEqual([]);
+  });
+});

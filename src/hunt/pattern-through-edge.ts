@@ -15,7 +15,7 @@ interface RootedOrder {
   back: Int32Array[];
 }
 
-/** H prepared for rooted tests: one search order per oriented edge of H (up to the edge's reversal when H has that symmetry is not worth finding). */
+/** H prepared for rooted tests: one search order per oriented edge of H (symmetric duplicates are kept: H is small). */
 export interface RootedPattern {
   /** The pattern, as given. */
   graph: Graph;

@@ -340,7 +340,11 @@ export function hunt(options: HuntOptions): HuntResult {
     }
     chains++;
     const chain = new Chain(g, new RootedSearch(g, rooted), rng);
-    if (keepM && !fitEdgeCount(chain, (objective as { m: number }).m)) continue;
+    if (keepM && !fitEdgeCount(chain, (objective as { m: number }).m)) {
+      // A start that cannot reach m edges still costs a move, so an m no H-free graph reaches ends with the budget.
+      iterations++;
+      continue;
+    }
     let cur = screenGraph(g.toGraph(), objective, null, { sweeps: 10 * sweeps, solverSeed: seed });
     currentM = g.m;
     offer(cur, label, 0);
