@@ -7,7 +7,7 @@
 // HALFPLUS_HUNT_MINUTES (default 10) sets the budget per case; HALFPLUS_HUNT_CASES picks cases
 // by name (comma-separated, e.g. "C4-31,K3-24").
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, rmSync } from "node:fs";
+import { mkdirSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -48,4 +48,5 @@ for (const c of cases.filter((c) => wanted === undefined || wanted.includes(c.na
   });
 }
 rmSync(dir, { recursive: true, force: true });
+mkdirSync(join(here, "out"), { recursive: true });
 report("hunt", rows);

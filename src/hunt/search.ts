@@ -95,7 +95,7 @@ export interface HuntResult {
   objective: HuntObjective;
   /** Best certified graph per m, ascending m. */
   frontier: FrontierEntry[];
-  /** The known constructions on n vertices, certified the same way (reference lines). */
+  /** The known constructions on n vertices and the H-free process outputs, certified the same way (reference values). */
   references: ReferencePoint[];
   best: FrontierEntry | null;
   iterations: number;
@@ -282,15 +282,18 @@ export function hunt(options: HuntOptions): HuntResult {
   // Reference lines: the known constructions, certified like any frontier graph (a long screen first).
   const references: ReferencePoint[] = [];
   const known = referenceConstructions(n, pattern);
-  for (const k of known) {
+  const processed = processOutputs(n, rooted, options.patternName ?? null, options.processRuns ?? 4, seed);
+  // The constructions and the process outputs are reference values whatever the chains start from.
+  for (const k of [...known, ...processed]) {
+    if (k.graph.m === 0) continue;
     const s = screenGraph(k.graph, objective, null, { sweeps: 500, solverSeed: seed });
     const c = certifyScreen(s, objective, seed, [`reference construction ${k.label}`]);
-    references.push({ label: k.label, m: k.graph.m, degeneracy: c.degeneracy, value: c.value, record: c.record });
+    if (Number.isFinite(c.value)) references.push({ label: k.label, m: k.graph.m, degeneracy: c.degeneracy, value: c.value, record: c.record });
   }
 
   const starts: Construction[] = [];
   if (startsMode === "references") starts.push(...known);
-  if (startsMode !== "empty") starts.push(...processOutputs(n, rooted, options.patternName ?? null, options.processRuns ?? 4, seed));
+  if (startsMode !== "empty") starts.push(...processed);
   if (startsMode === "empty" || starts.length === 0) starts.push({ label: "empty graph, filled greedily", graph: new MutableGraph(n).toGraph() });
   for (const s of starts) if (!provedFree(s.graph, pattern)) throw new Error(`hunt: starting graph ${s.label} contains H`);
 
