@@ -109,6 +109,7 @@ describeNeeds([tool("nauty-pickg")], "halfplus hunt", () => {
       [["--free", "Q7", "--n", "10", "--iterations", "5"], /Q7/],
       [["--free", "C4", "--n", "3", "--iterations", "5"], /--n 3/],
       [["--free", "C4", "--n", "10", "--iterations", "5", "--m", "4"], /--m belongs/],
+      [["--free", "C4", "--n", "10", "--minutes", "0"], /--minutes must be positive/],
     ];
     for (const [args, message] of cases) {
       const r = halfplus(["hunt", ...args, "--store", join(dir, "bad.db"), "--no-progress"]);

@@ -1,10 +1,10 @@
-// The extremal search: simulated annealing over H-free graphs on n vertices. Every move keeps the
-// graph H-free (an added edge passes the rooted test of pattern-through-edge.ts), the SDP of each
-// new graph is warm-started from the vectors of the graph it came from, every graph is screened
-// cheaply, and only those that could enter the frontier (the best certified graph per m) are
-// certified. Chains start from known constructions, H-free process outputs or the empty graph,
-// and later from frontier graphs; all randomness comes from one seeded Rng, so under a work
-// budget (iterations) the search is deterministic.
+// The extremal search: simulated annealing (Kirkpatrick, Gelatt & Vecchi 1983) over H-free graphs
+// on n vertices. Every move keeps the graph H-free (an added edge passes the rooted test of
+// pattern-through-edge.ts), the SDP of each new graph is warm-started from the vectors of the
+// graph it came from, every graph is screened cheaply, and only those that could enter the
+// frontier (the best certified graph per m) are certified. Chains start from known constructions,
+// H-free process outputs or the empty graph, and later from frontier graphs; all randomness comes
+// from one seeded Rng, so under a work budget (iterations) the search is deterministic.
 
 import { invalidParameter } from "../errors.js";
 import type { BracketRecord } from "../cut/bracket/record.js";

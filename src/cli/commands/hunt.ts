@@ -76,7 +76,7 @@ export const huntCommand: CommandSpec = {
   minPositionals: 0,
   maxPositionals: 0,
   description: [
-    "Simulated annealing over H-free graphs: every move (add an edge that creates no copy of H, delete one, swap one for another, redraw a vertex's neighbourhood) keeps the graph H-free. Each graph is screened with a few mixing-method sweeps started from the previous graph's SDP vectors; a graph that could beat the best one stored for its number of edges m is certified: the SDP is solved further, its dual is certified, and the bracket record (which `halfplus verify` re-checks) gives the proven surplus upper end the objective is computed from.",
+    "Simulated annealing over H-free graphs: every move (add an edge that creates no copy of H, delete one, swap one for another, redraw a vertex's neighbourhood) keeps the graph H-free. Each graph is screened with a few mixing-method sweeps started from the previous graph's SDP vectors; a graph that could beat the best one found so far for its number of edges m is certified: the SDP is solved further, its dual is certified, and the bracket record (which `halfplus verify` re-checks) gives the proven surplus upper end the objective is computed from.",
     "Chains start from the known constructions on n vertices that are proved H-free (polarity graphs, Kneser graphs, blow-ups, …) and from H-free process outputs (--start references), from process outputs only (--start process), or from the empty graph (--start empty); later chains start from frontier graphs. The constructions are certified the same way and reported as reference values.",
     "Budgets: --iterations N moves (deterministic: the same seed gives the same frontier on any machine) and/or --minutes M (or --seconds S); the search stops at whichever runs out first.",
   ],
@@ -110,6 +110,7 @@ export const huntCommand: CommandSpec = {
     if (o["n"] === undefined) throw new InputError("--n N is required: the number of vertices");
     if (o["minutes"] !== undefined && o["seconds"] !== undefined) throw new InputError("--minutes and --seconds: give one time budget");
     const seconds = o["minutes"] !== undefined ? (o["minutes"] as number) * 60 : (o["seconds"] as number | undefined);
+    if (seconds !== undefined && !(seconds > 0)) throw new InputError(`--${o["minutes"] !== undefined ? "minutes" : "seconds"} must be positive (got 0)`);
     const iterations = o["iterations"] as number | undefined;
     if (seconds === undefined && iterations === undefined) throw new InputError("a budget is required: --minutes M, --seconds S or --iterations N");
     const h = await patternFrom(o["free"] as string);
