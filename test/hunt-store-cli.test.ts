@@ -73,6 +73,11 @@ describe("the frontier figure", () => {
     expect(fig.layout.meta.figure).toBe("hunt-frontier");
     expect(fig.layout.title?.text).toContain("C4-free, n = 31");
   });
+  it("breaks the frontier line where an m was not reached", () => {
+    const g = huntFrontierFigure([{ m: 3, value: 1 }, { m: 4, value: 0.9 }, { m: 7, value: 0.8 }]);
+    expect(g.data[0].x).toEqual([3, 4, null, 7]);
+    expect(g.data[0].y).toEqual([1, 0.9, null, 0.8]);
+  });
   it("refuses a point without a finite value, naming it", () => {
     expect(() => huntFrontierFigure([{ m: 3, value: Number.NaN }])).toThrow(/frontier point 1: `value`/);
     expect(() => huntFrontierFigure([], [{ label: "x", m: 0, value: 1 }])).toThrow(/reference 1: `m`/);

@@ -41,7 +41,7 @@ function checkPoint(what: string, i: number, p: { m: unknown; value: unknown }):
   if (!(typeof p.value === "number" && Number.isFinite(p.value))) throw new InputError(`${OWNER}: ${what} ${i + 1}: \`value\` should be a finite number (got ${String(p.value)})`);
 }
 
-/** Frontier value against m, with the reference constructions as markers and a dotted line at their best value. */
+/** Frontier value against m (the line broken where no m was reached), the reference constructions as markers, a dotted line at their best value. */
 export function huntFrontierFigure(frontier: readonly HuntFrontierPoint[], references: readonly HuntReferencePoint[] = [], options: HuntFrontierOptions = {}): PlotFigure {
   frontier.forEach((p, i) => checkPoint("frontier point", i, p));
   references.forEach((p, i) => checkPoint("reference", i, p));
@@ -51,14 +51,26 @@ export function huntFrontierFigure(frontier: readonly HuntFrontierPoint[], refer
   const data: PlotTrace[] = [];
   const hunt = seriesStyle(0);
   if (pts.length > 0) {
+    // A gap in m (no graph found there) breaks the line rather than bridging it.
+    const x: (number | null)[] = [], y: (number | null)[] = [], text: string[] = [];
+    pts.forEach((p, i) => {
+      if (i > 0 && p.m > pts[i - 1].m + 1) {
+        x.push(null);
+        y.push(null);
+        text.push("");
+      }
+      x.push(p.m);
+      y.push(p.value);
+      text.push(p.start ?? "");
+    });
     data.push({
       type: "scatter",
       uid: "frontier",
       name: "hunt frontier",
       mode: "lines+markers",
-      x: pts.map((p) => p.m),
-      y: pts.map((p) => p.value),
-      text: pts.map((p) => p.start ?? ""),
+      x,
+      y,
+      text,
       hovertemplate: `m = %{x}<br>${objective} ≤ %{y:.4g}<br>%{text}<extra>frontier</extra>`,
       marker: { symbol: hunt.symbol, color: hunt.colour, size: hunt.size - 2, line: { color: hunt.outline, width: 1 } },
       line: { color: hunt.colour, width: 1.4, dash: "solid" },
