@@ -59,12 +59,12 @@ describe("the hunt frontier in the results store", () => {
 
 describe("the frontier figure", () => {
   const fig = huntFrontierFigure(
-    [{ m: 72, value: 0.46, start: "a" }, { m: 70, value: 0.47 }],
+    [{ m: 72, value: 0.46, start: "a" }, { m: 71, value: 0.47 }],
     [{ label: "polarity:q=5", m: 90, value: 0.4472 }, { label: "cycle:n=31", m: 31, value: 0.66 }],
     { n: 31, pattern: "C4" },
   );
   it("draws the frontier in m order, one marker per construction and a line at the best construction", () => {
-    expect(fig.data[0].x).toEqual([70, 72]);
+    expect(fig.data[0].x).toEqual([71, 72]);
     expect(fig.data[0].y).toEqual([0.47, 0.46]);
     expect(fig.data.filter((t) => t.uid.startsWith("reference-") && t.mode === "markers").map((t) => t.name)).toEqual(["polarity:q=5", "cycle:n=31"]);
     const line = fig.data.find((t) => t.uid === "reference-best")!;
