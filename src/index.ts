@@ -13,6 +13,7 @@ export * from "./families/index.js";
 export * from "./bounds/index.js";
 export * from "./cut/index.js";
 export * from "./sources/index.js";
+export * from "./hunt/index.js";
 export * from "./experiment/index.js";
 export * from "./fit/index.js";
 export * from "./plot/index.js";

@@ -27,6 +27,7 @@ const LAYERS: readonly [number, string, (p: string) => boolean][] = [
   [11, "cut/account", (p) => p.startsWith("src/cut/account/")],
   [12, "cut/index", (p) => p === "src/cut/index.ts"],
   [13, "sources", (p) => p.startsWith("src/sources/")],
+  [13, "hunt", (p) => p.startsWith("src/hunt/")],
   [14, "experiment", (p) => p.startsWith("src/experiment/")],
   [15, "fit", (p) => p.startsWith("src/fit/")],
   [16, "plot", (p) => p.startsWith("src/plot/")],

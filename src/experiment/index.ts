@@ -19,3 +19,4 @@ export { packPartition, unpackPartition } from "./witness.js";
 export { halfplusVersion } from "./provenance.js";
 export * from "./cluster/index.js";
 export * from "./census/index.js";
+export type { HuntFrontierRow, HuntFrontierFilter } from "./hunt-store.js";

@@ -11,6 +11,7 @@ import { InputError } from "../errors.js";
 import { COLUMNS, rowValues, type CellValue, type ColumnSpec, type StoredRow } from "./columns.js";
 import type { OpenStoreOptions, ResultStore, RowFilter, SweepLogEntry } from "./store.js";
 import { censusTables, createCensusSchema, type CensusTables } from "./census/census-store.js";
+import { huntRows, putHuntRow, type HuntFrontierFilter, type HuntFrontierRow } from "./hunt-store.js";
 
 /**
  * The native binding is loaded on first use, so commands that never open a store (graph, cut, ...)
@@ -222,6 +223,17 @@ class SqliteStore implements ResultStore {
   census(): CensusTables {
     this.censusCache ??= censusTables(this.db, this.path, this.readonly);
     return this.censusCache;
+  }
+
+  // ---- hunt frontier (hunt-store.ts holds the table's definition) ----
+
+  putHuntEntry(row: HuntFrontierRow): boolean {
+    if (this.readonly) throw new Error(`${this.path}: opened read-only`);
+    return putHuntRow(this.db, row);
+  }
+
+  huntEntries(filter: HuntFrontierFilter = {}): HuntFrontierRow[] {
+    return huntRows(this.db, filter);
   }
 
   close(): void {

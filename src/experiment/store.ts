@@ -4,6 +4,7 @@
 
 import type { CellValue, StoredRow } from "./columns.js";
 import type { CensusTables } from "./census/census-store.js";
+import type { HuntFrontierFilter, HuntFrontierRow } from "./hunt-store.js";
 
 export interface RowFilter {
   /** Only rows of these family labels. */
@@ -52,6 +53,10 @@ export interface ResultStore {
   sweeps(): SweepLogEntry[];
   /** The census tables: per-(n, m) aggregates of exhaustive graph streams and their resume state. */
   census(): CensusTables;
+  /** Hunt frontier (table `hunt_frontier`, see hunt-store.ts): keep `row` when it is new or beats the stored one; true if kept. */
+  putHuntEntry(row: HuntFrontierRow): boolean;
+  /** Stored frontier rows, ordered by (pattern, n, objective, m); none when the store has no hunt table. */
+  huntEntries(filter?: HuntFrontierFilter): HuntFrontierRow[];
   close(): void;
 }
 

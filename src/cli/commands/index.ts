@@ -16,5 +16,6 @@ import { mergeCommand } from "./merge.js";
 import { fitCommand } from "./fit.js";
 import { clusterCommand } from "./cluster.js";
 import { censusCommand } from "./census.js";
+import { huntCommand } from "./hunt.js";
 
-export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, fitCommand, censusCommand, clusterCommand, kernelCommand];
+export const COMMANDS: readonly CommandSpec[] = [familiesCommand, graphCommand, encodeCommand, cutCommand, boundsCommand, verifyCommand, sdpExportCommand, sweepCommand, exportCommand, importCommand, mergeCommand, fitCommand, censusCommand, huntCommand, clusterCommand, kernelCommand];

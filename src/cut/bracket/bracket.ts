@@ -665,3 +665,41 @@ function snapshotOf(state: BracketState): BracketSnapshot {
     source: envelope.source,
   };
 }
+
+// ---- A bracket from results already computed (the extremal search, src/hunt) ----
+
+export interface BracketFromResultsOptions {
+  /** Cuts found elsewhere (each re-evaluated with cutValue: only the confirmed value counts). */
+  cuts: readonly CutRecord[];
+  /** Certified upper bounds found elsewhere (dual certificates; rounded down like the bracket's own). */
+  bounds: readonly UpperBoundRecord[];
+  /** The seed the caller drew its randomness from. */
+  solverSeed: number;
+  /** The effort word the caller's work corresponds to (default "heuristic": no exact search). */
+  effort?: BracketEffort;
+  source?: GraphSource;
+  notes?: readonly string[];
+}
+
+/**
+ * The bracket record of cuts and dual certificates computed by a caller (e.g. a search that
+ * warm-starts its SDP across many graphs), through the same state as `bracket()`: the same
+ * rounding, the same choice of the best end and the same record, so `verifyBracket` treats it
+ * like any other. Runs nothing itself.
+ */
+export function bracketFromResults(graph: Graph, options: BracketFromResultsOptions): BracketRecord {
+  const owner = "bracketFromResults";
+  const seed = checkSeed(owner, "solverSeed", options.solverSeed);
+  const effort = options.effort ?? "heuristic";
+  if (!BRACKET_EFFORTS.includes(effort)) throw invalidParameter(owner, "effort", `should be one of ${BRACKET_EFFORTS.join(", ")}`, effort);
+  // Runs nothing itself: a work budget of 0 units, so the record is the same on every machine.
+  const state = new BracketState(graph, new BudgetMeter("work", 0), undefined, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
+  if (graph.m === 0) {
+    state.exact = true;
+    state.upper = 0;
+  } else {
+    for (const c of options.cuts) state.offerCut(c);
+    for (const b of options.bounds) state.offerDual(b);
+  }
+  return recordFromSnapshot(snapshotOf(state));
+}

@@ -5,4 +5,5 @@ export * from "./normalised-ratio.js";
 export * from "./exponents.js";
 export * from "./bound-tightness.js";
 export * from "./degree-distribution.js";
+export * from "./hunt-frontier.js";
 export { barsFromEnds } from "./points.js";
