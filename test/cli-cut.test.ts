@@ -217,7 +217,7 @@ describe("records that stand alone", () => {
   it("every command's --help explains its options, and cut's names both seeds", () => {
     const top = halfplus(["--help"]);
     expect(top.code).toBe(0);
-    for (const cmd of ["families", "graph", "encode", "cut", "bounds", "verify", "sdp-export", "sweep", "export", "import", "merge", "fit", "census", "cluster", "kernel"]) {
+    for (const cmd of ["families", "graph", "encode", "cut", "bounds", "verify", "sdp-export", "sweep", "export", "import", "merge", "fit", "census", "hunt", "cluster", "kernel"]) {
       expect(top.stdout).toContain(`  ${cmd} `);
       const h = halfplus([cmd, "--help"]);
       expect(h.code, cmd).toBe(0);
