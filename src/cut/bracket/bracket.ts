@@ -16,7 +16,7 @@ import { BreakoutSearcher } from "../heuristic/breakout.js";
 import { hyperplaneRound } from "../heuristic/hyperplane-rounding.js";
 import { localSearch } from "../heuristic/local-search.js";
 import { vectorMethodRound } from "../heuristic/vector-rounding.js";
-import { DENSE_PROOF_LIMIT, upperKindOf } from "../relaxation/certificate.js";
+import { DEFAULT_FAILURE_PROBABILITY, DENSE_PROOF_LIMIT, upperKindOf } from "../relaxation/certificate.js";
 import { eigenvalueUpperBound } from "../relaxation/eigenvalue-bound.js";
 import { certifySdpDual } from "../relaxation/sdp-bound.js";
 import { solveSdp, type SdpRecord } from "../relaxation/sdp-mixing.js";
@@ -63,6 +63,11 @@ export interface BracketOptions {
   source?: GraphSource;
   /** Notes to carry into the record (e.g. what the reader merged or dropped). */
   notes?: readonly string[];
+  /**
+   * δ of a probable upper end (default 1e-9): above the dense proof's size, when the sparse proof does
+   * not fit its work limit, the shift holds with probability ≥ 1 − δ; 0 gives a bare Lanczos estimate instead.
+   */
+  failureProbability?: number;
 }
 
 /** A seed per method, derived from the bracket's solverSeed so every run is reproducible. */
@@ -77,8 +82,17 @@ function plainDetails(d: CutRecord["details"]): BracketRun["details"] {
   return out;
 }
 
+/** The δ of probable upper ends: a number in [0, 1), default DEFAULT_FAILURE_PROBABILITY (0: bare estimates instead). */
+function checkFailureProbability(owner: string, v: number | undefined): number {
+  if (v === undefined) return DEFAULT_FAILURE_PROBABILITY;
+  if (!(typeof v === "number" && v >= 0 && v < 1)) throw invalidParameter(owner, "failureProbability", "should be a number in [0, 1) (0: no probable upper ends)", v);
+  return v;
+}
+
 /** Mutable state of one bracket run: best cut, best certified bound, the run log. */
 class BracketState {
+  /** δ for probable shifts (BracketOptions.failureProbability). */
+  failureProbability = DEFAULT_FAILURE_PROBABILITY;
   readonly graph: Graph;
   readonly integral: boolean;
   /** Non-integer weights: how far `upper` may sit above `lower` in a closed bracket (closingTolerance). */
@@ -248,7 +262,7 @@ class BracketState {
 }
 
 function toPlainDual(c: DualCertificate, roundedDown: boolean, tolerance: number): BracketCertificate {
-  return { kind: "psd-dual", y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, roundedDown, tolerance };
+  return { kind: "psd-dual", y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, roundedDown, tolerance, ...(c.probable === undefined ? {} : { probable: { ...c.probable } }) };
 }
 
 /** Run breakout search in slices, reporting progress, until `seconds` or `rounds` run out or the bracket closes. */
@@ -306,7 +320,7 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
 
   // The eigenvalue bound (the dual certificate with y = 0): one Lanczos run, or a small dense proof.
   const tEigen0 = nowSeconds();
-  state.attempt("eigenvalue", "upper", () => state.offerDual(eigenvalueUpperBound(g, { tolerance, denseLimit: denseLimitFor(0.05) })));
+  state.attempt("eigenvalue", "upper", () => state.offerDual(eigenvalueUpperBound(g, { tolerance, denseLimit: denseLimitFor(0.05), failureProbability: state.failureProbability })));
   const eigenSeconds = nowSeconds() - tEigen0;
   if (state.closed()) return;
 
@@ -332,7 +346,7 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
     if (solved !== null) {
       const sdp: SdpRecord = solved;
       state.runs.push({ method: sdp.method, role: "relaxation", value: sdp.value, status: sdp.status, seconds: sdp.seconds, solverSeed: sdp.solverSeed, details: { sweeps: sdp.sweeps, rank: sdp.rank } });
-      state.attempt("sdp-certified", "upper", () => state.offerDual(certifySdpDual(g, sdp, { tolerance, denseLimit: dense })));
+      state.attempt("sdp-certified", "upper", () => state.offerDual(certifySdpDual(g, sdp, { tolerance, denseLimit: dense, failureProbability: state.failureProbability })));
       if (state.closed()) return;
       const trials = quick ? 8 : n <= 5000 ? 64 : 16;
       state.offerCut(hyperplaneRound(g, sdp.vectors, sdp.rank, { trials, solverSeed: methodSeed(seed, 3), polish: true }));
@@ -367,6 +381,7 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
   const effort = options.effort ?? "auto";
   if (!BRACKET_EFFORTS.includes(effort)) throw invalidParameter(owner, "effort", `should be one of ${BRACKET_EFFORTS.join(", ")}`, effort);
   const state = new BracketState(graph, seconds, options.onProgress, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
+  state.failureProbability = checkFailureProbability(owner, options.failureProbability);
   state.progress("start");
 
   if (graph.m > 0) {

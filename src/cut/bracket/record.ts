@@ -3,15 +3,17 @@
 // the envelope (kind, version, graphHash, source) with every other result record.
 
 import type { RecordEnvelope } from "../../graph/record/envelope.js";
-import type { ShiftProof, SolverStatus, UpperKind } from "../types.js";
+import type { ProbableShift, ShiftProof, SolverStatus, UpperKind } from "../types.js";
 
 /** The `kind` every bracket record carries, so verify can refuse other JSON. */
 export const BRACKET_RECORD_KIND = "halfplus/bracket";
 /**
  * Version 2: the shared envelope, `effort`, `solverSeed`, `upperKind`, `shiftProof`, `roundedDown`,
  * `notes`; optional `interrupted`; run statuses include `work-limit` and `skipped`.
+ * Version 3: shift proofs `sparse-cholesky` and `chebyshev-probable`; a probable certificate carries
+ * `probable` (δ, seed, filter degree and interval) and the record's `upperKind` is then "probable".
  */
-export const BRACKET_RECORD_VERSION = 2;
+export const BRACKET_RECORD_VERSION = 3;
 
 /**
  * How much work the bracket puts in. auto: exact search when the graph is small, heuristics and
@@ -27,7 +29,7 @@ export const BRACKET_EFFORTS: readonly BracketEffort[] = ["auto", "exact", "heur
  * far a closed bracket's `upper` may sit above `lower` (the exact search's rounding slack).
  */
 export type BracketCertificate =
-  | { kind: "psd-dual"; y: number[]; shift: number; shiftProof: ShiftProof; roundedDown: boolean; tolerance: number }
+  | { kind: "psd-dual"; y: number[]; shift: number; shiftProof: ShiftProof; roundedDown: boolean; tolerance: number; probable?: ProbableShift }
   | { kind: "exhaustive"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
   | { kind: "unfinished-search"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
   | { kind: "positive-weights"; roundedDown: boolean; tolerance: number };
@@ -58,7 +60,7 @@ export interface BracketRecord extends RecordEnvelope<typeof BRACKET_RECORD_KIND
   upper: number;
   /** True when the bracket is closed by proof (for non-integer weights: within certificate.tolerance). */
   exact: boolean;
-  /** How far `upper` can be trusted: "estimate" when it rests on a Lanczos shift (large n) rather than a proof. */
+  /** How far `upper` can be trusted: "probable" when it rests on a Chebyshev shift (holds with probability ≥ 1 − certificate.probable.failureProbability), "estimate" on a Lanczos shift. */
   upperKind: UpperKind;
   surplusLower: number;
   surplusUpper: number;
