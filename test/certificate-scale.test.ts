@@ -2,6 +2,9 @@
 // matrices that are not PSD by less than the rounding level; the probable (Chebyshev) shift against
 // λmax from numpy's LAPACK over 1000 trials; verify re-deriving both and refusing tampered ones.
 import { execFileSync } from "node:child_process";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { bracket } from "../src/cut/bracket/bracket.js";
 import { verifyBracket } from "../src/cut/bracket/verify.js";
@@ -17,6 +20,7 @@ import { envelopePlan, provePsdByEnvelopeCholesky } from "../src/linalg/envelope
 import { symmetricEigen } from "../src/linalg/dense-eigen.js";
 import { Rng } from "../src/random/prng.js";
 import { randomGraph } from "./helpers/graphs.js";
+import { ensureBuilt, halfplus } from "./helpers/cli.js";
 import { itNeeds, python } from "./helpers/requirements.js";
 
 /** The a×b torus C_a □ C_b (vertex r·b + c), weights from `weight`. */
@@ -218,8 +222,34 @@ describe("verify re-derives sparse and probable certificates and refuses tampere
     };
     const v = verifyBracket(g, forged);
     expect(v).toMatchObject({ ok: true, verdict: "probable", upperKind: "probable", failureProbability: 1e-9 });
+    // The command line: `verify` says probable and exits 3 (0 with --accept-estimates), like an estimate.
+    ensureBuilt();
+    const dir = mkdtempSync(join(tmpdir(), "halfplus-probable-"));
+    try {
+      const path = join(dir, "probable.json");
+      writeFileSync(path, JSON.stringify(forged) + "\n");
+      const r = halfplus(["verify", path]);
+      expect(r.code, r.stderr).toBe(3);
+      expect(r.stdout).toMatch(/probable: max cut in \[/);
+      expect(halfplus(["verify", path, "--accept-estimates"]).code).toBe(0);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
     expect(verifyBracket(g, { ...forged, upperKind: "proven" }).verdict).toBe("rejected");
     expect(verifyBracket(g, { ...forged, upper: upper - 1, surplusUpper: upper - 1 - g.totalWeight / 2 }).verdict).toBe("rejected");
+  });
+});
+
+describe("cut --risk", () => {
+  it("is refused outside [0, 0.5] with one line naming it, and accepted inside", () => {
+    ensureBuilt();
+    const bad = halfplus(["cut", "petersen", "--risk", "2"]);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/--risk/);
+    expect(bad.stderr.trim().split("\n")).toHaveLength(1);
+    const ok = halfplus(["cut", "petersen", "--risk", "1e-6", "--json", "--seconds", "1"]);
+    expect(ok.code, ok.stderr).toBe(0);
+    expect(JSON.parse(ok.stdout)).toMatchObject({ version: 3, upperKind: "proven" });
   });
 });
 
