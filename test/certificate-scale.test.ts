@@ -19,6 +19,7 @@ import { provePsdByCholesky } from "../src/linalg/cholesky.js";
 import { envelopePlan, provePsdByEnvelopeCholesky } from "../src/linalg/envelope-cholesky.js";
 import { symmetricEigen } from "../src/linalg/dense-eigen.js";
 import { Rng } from "../src/random/prng.js";
+import { exact, largestDoubleBelow } from "./helpers/exact.js";
 import { randomGraph } from "./helpers/graphs.js";
 import { ensureBuilt, halfplus } from "./helpers/cli.js";
 import { itNeeds, python } from "./helpers/requirements.js";
@@ -118,6 +119,32 @@ describe("sparse Cholesky proof", () => {
         }
       }
     }
+  });
+
+  it("refuses a rounded signless Laplacian of a bipartite torus certified indefinite by exact arithmetic", () => {
+    // Diag(Σ_j w_ij) + W has zᵀ(·)z = 0 for z = ±1 by colour class (bipartite: every edge joins the
+    // classes). With each diagonal entry the largest double below its exact row sum, zᵀAz, summed
+    // exactly over the doubles (test/helpers/exact.ts), is negative: A is not PSD, by about an ulp.
+    let checked = 0;
+    for (let t = 0; t < 20; t++) {
+      const [a, b] = [4 + 2 * (t % 4), 6 + 2 * (t % 3)];
+      const g = torus(a, b, (rng) => 0.5 + rng.nextFloat(), 100 + t);
+      const diagonal = new Float64Array(g.n);
+      let quad = 0n;
+      for (let i = 0; i < g.n; i++) {
+        let row = 0n, guess = 0;
+        for (let k = g.offsets[i]; k < g.offsets[i + 1]; k++) {
+          row += exact(g.weights![k]);
+          guess += g.weights![k];
+        }
+        diagonal[i] = largestDoubleBelow(row, guess);
+        quad += exact(diagonal[i]) - row; // Σ_i c_i − Σ_i Σ_j w_ij = zᵀAz
+      }
+      expect(quad < 0n).toBe(true);
+      expect(provePsdByEnvelopeCholesky(g, envelopePlan(g), diagonal, 0).proven, `trial ${t}`).toBe(false);
+      checked++;
+    }
+    expect(checked).toBe(20);
   });
 
   it("keeps the envelope narrow on a torus (width about twice the short side) and wide on a random graph", () => {
