@@ -29,7 +29,8 @@ function torus(a, b, seed) {
 }
 
 function sparseRandom(n, m, seed) {
-  return graphFromEdges(n, randomDistinctPairs(n, m, new Rng(seed)));
+  const { us, vs } = randomDistinctPairs(n, m, new Rng(seed));
+  return graphFromEdges(n, Array.from(us, (u, k) => [u, vs[k]]));
 }
 
 function measure(label, g, options = {}) {
