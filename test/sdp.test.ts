@@ -141,9 +141,9 @@ describe("eigenvalue bound", () => {
     }
   });
 
-  it("above denseLimit it is an honest estimate, labelled as such", () => {
+  it("above denseLimit, with the sparse and probable shifts turned off, it is an honest estimate, labelled as such", () => {
     const g = randomGraph(300, 0.05, 77, "none");
-    const e = eigenvalueUpperBound(g, { denseLimit: 100 });
+    const e = eigenvalueUpperBound(g, { denseLimit: 100, sparseWorkLimit: 0, failureProbability: 0 });
     expect(e.certificate?.shiftProof).toBe("lanczos-estimate");
     const proved = eigenvalueUpperBound(g);
     expect(proved.certificate?.shiftProof).toBe("cholesky");

@@ -22,33 +22,36 @@ export function verdictText(what: string, record: Pick<BracketRecord, "exact" | 
       ? `verified: max cut ${range}`
       : v.verdict === "estimate"
         ? `estimate: max cut in [${record.lower}, ${record.upper}]; the upper end is an estimate, not a proof`
+        : v.verdict === "probable"
+          ? `probable: max cut in [${record.lower}, ${record.upper}]; the upper end fails with probability at most ${v.failureProbability}`
         : `REJECTED (${v.checks.filter((c) => !c.ok).map((c) => c.name).join(", ")})`;
   const rows = formatRows(v.checks.map((c) => [`${c.ok ? "pass" : "FAIL"}  ${c.name}`, c.message] as const));
   return [`${what}: ${head}`, ...rows].join("\n");
 }
 
 /** The JSON fields of a verdict, after the fields that say which record it is. */
-export function verdictJson(v: BracketVerdict): { ok: boolean; verdict: VerdictWord; upperKind: BracketVerdict["upperKind"]; checks: BracketVerdict["checks"] } {
-  return { ok: v.ok, verdict: v.verdict, upperKind: v.upperKind, checks: v.checks };
+export function verdictJson(v: BracketVerdict): { ok: boolean; verdict: VerdictWord; upperKind: BracketVerdict["upperKind"]; failureProbability?: number; checks: BracketVerdict["checks"] } {
+  return { ok: v.ok, verdict: v.verdict, upperKind: v.upperKind, ...(v.failureProbability === undefined ? {} : { failureProbability: v.failureProbability }), checks: v.checks };
 }
 
 /** Counts of verdicts over a run: the closing line and the exit status. */
 export class VerdictTally {
   verified = 0;
   estimate = 0;
+  probable = 0;
   rejected = 0;
 
   add(v: BracketVerdict): void {
-    this[v.verdict === "verified" ? "verified" : v.verdict === "estimate" ? "estimate" : "rejected"]++;
+    this[v.verdict]++;
   }
 
   get total(): number {
-    return this.verified + this.estimate + this.rejected;
+    return this.verified + this.probable + this.estimate + this.rejected;
   }
 
   /** "3 of 4 records verified (1 with an estimated upper end)"; `noun` is plural ("records", "stored rows"). */
   summary(noun: string, tail = ""): string {
-    const extra = [this.estimate > 0 ? `${this.estimate} with an estimated upper end` : "", this.rejected > 0 ? `${this.rejected} rejected` : ""].filter(Boolean);
+    const extra = [this.probable > 0 ? `${this.probable} with a probable upper end` : "", this.estimate > 0 ? `${this.estimate} with an estimated upper end` : "", this.rejected > 0 ? `${this.rejected} rejected` : ""].filter(Boolean);
     return `${this.verified} of ${this.total} ${noun} verified${extra.length > 0 ? ` (${extra.join(", ")})` : ""}${tail}`;
   }
 

@@ -31,15 +31,30 @@ export interface CutRecord {
 /**
  * How the shift of a dual certificate is established. cholesky: proved by a floating-point
  * Cholesky factorisation with a rounding-error margin. gershgorin: proved by Gershgorin's circle
- * theorem. lanczos-estimate: a Lanczos Ritz value plus residual, a high-confidence estimate
+ * theorem. sparse-cholesky: the same proof on a sparse factor (reverse Cuthill–McKee envelope).
+ * chebyshev-probable: holds with probability ≥ 1 − δ over a seeded start vector.
+ * lanczos-estimate: a Lanczos Ritz value plus residual, a high-confidence estimate
  * rather than a proof (see src/cut/relaxation/certificate.ts).
  */
-export type ShiftProof = "cholesky" | "gershgorin" | "lanczos-estimate";
+export type ShiftProof = "cholesky" | "gershgorin" | "sparse-cholesky" | "chebyshev-probable" | "lanczos-estimate";
+
+/**
+ * What re-derives a probable shift (shiftProof "chebyshev-probable"): the Chebyshev filter of
+ * `degree` on [bottom, top] applied to the Gaussian start drawn from `solverSeed`; the shift then
+ * bounds λmax(L − Diag(y)) with probability ≥ 1 − failureProbability (src/linalg/probable-top-bound.ts).
+ */
+export interface ProbableShift {
+  failureProbability: number;
+  solverSeed: number;
+  degree: number;
+  top: number;
+  bottom: number;
+}
 
 /**
  * How far an upper bound can be trusted. proven: a theorem, checked in floating point with
  * rounding margins (exhaustive search, a Cholesky or Gershgorin shift, the positive-weight sum).
- * probable: holds with a stated probability (kept for probabilistic shift proofs). estimate: a
+ * probable: holds with a stated probability over a recorded seed (a Chebyshev shift). estimate: a
  * high-confidence numerical estimate, not a proof (a Lanczos shift).
  */
 export type UpperKind = "proven" | "probable" | "estimate";
@@ -68,6 +83,8 @@ export interface DualCertificate {
   /** Upper estimate of λmax(L − Diag(y)), rounded up. */
   shift: number;
   shiftProof: ShiftProof;
+  /** Present for shiftProof "chebyshev-probable": what verify re-runs. */
+  probable?: ProbableShift;
 }
 
 export interface UpperBoundRecord {

@@ -2,6 +2,7 @@
 // bounds with m and the degree measures) and SurplusRow (the same plus the bounds a figure sets
 // against the bracket, as cut values).
 
+import { invalidParameter } from "../errors.js";
 import type { StoredRow } from "./columns.js";
 import type { FitRow, SurplusRow } from "./rows.js";
 import type { ResultStore, RowFilter } from "./store.js";
@@ -9,16 +10,27 @@ import type { ResultStore, RowFilter } from "./store.js";
 export interface FitRowFilter extends RowFilter {
   /** Closed brackets only. */
   exactOnly?: boolean;
+  /**
+   * Rows whose upper end is at least this certain (the `upperKind` column): "proven" keeps proven upper
+   * ends only, "probable" also those holding with a stated probability, "estimate" (default) every row.
+   */
+  upperAtLeast?: "proven" | "probable" | "estimate";
 }
 
-const FIT_COLUMNS = ["key", "family", "n", "m", "degeneracy", "maxDegree", "averageDegree", "surplusLower", "surplusUpper", "exact", "lower", "sdpUpper", "totalWeight", "vectorMethod", "edwardsEdges"];
+/** Rank of each upper-end kind, most certain first; rows with another or no kind count as estimates. */
+const CERTAINTY: Readonly<Record<string, number>> = { proven: 2, probable: 1, estimate: 0 };
+
+const FIT_COLUMNS = ["key", "family", "n", "m", "degeneracy", "maxDegree", "averageDegree", "surplusLower", "surplusUpper", "exact", "lower", "sdpUpper", "totalWeight", "vectorMethod", "edwardsEdges", "upperKind"];
 
 const numOrNull = (v: unknown): number | null => (typeof v === "number" ? v : null);
 
 function* selected(store: ResultStore, filter: FitRowFilter | undefined): Generator<StoredRow> {
+  const least = filter?.upperAtLeast;
+  if (least !== undefined && !(least in CERTAINTY)) throw invalidParameter("fitRowsFromStore", "upperAtLeast", "should be one of proven, probable, estimate", least);
   for (const r of store.rows(filter, FIT_COLUMNS)) {
     if (typeof r.m !== "number") continue; // every stored row has m; guards hand-edited stores
     if (filter?.exactOnly === true && r.exact !== 1) continue;
+    if (filter?.upperAtLeast !== undefined && (CERTAINTY[String(r.upperKind)] ?? 0) < (CERTAINTY[filter.upperAtLeast] ?? 0)) continue;
     yield r;
   }
 }

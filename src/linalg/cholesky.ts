@@ -11,6 +11,10 @@
 //   λmin(A) ≥ c − γ'·tr B − u·(max|ã_ii| + c) − e − (underflow),
 // so the test proves A ⪰ 0 once the right-hand side is ≥ 0. Gradual underflow adds at most
 // n²·2^-1022·(1 + max|ã_ii|) to ‖ΔB‖ (a generous overestimate; Rump's theorem carries a like term).
+// A sparse factor (src/linalg/envelope-cholesky.ts) rests on the same theorem: its inner products skip
+// only exact zeros, so γ_{t+1}, t the most nonzero terms in a row of the factor, replaces γ_{n+1}
+// (Higham's proof bounds each entry through its own inner product, Lemma 8.4). `certifyCholesky` is the
+// one place these margins are computed and checked.
 
 import { InputError } from "../errors.js";
 import { MIN_NORMAL, UNIT_ROUNDOFF, roundoffGamma } from "./float-rounding.js";
@@ -36,30 +40,65 @@ export function provePsdByCholesky(a: Float64Array, n: number, diagonalError = 0
   if (!Number.isInteger(n) || n < 0 || a.length < n * n) {
     throw new InputError(`provePsdByCholesky: expected a row-major ${n}×${n} matrix, got ${a.length} entries`);
   }
+  const diagonal = new Float64Array(n);
+  for (let i = 0; i < n; i++) diagonal[i] = a[i * n + i];
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < i; j++) if (!Number.isFinite(a[i * n + j])) return fail(0, i, `entry (${i}, ${j}) is ${a[i * n + j]}`);
+  }
+  return certifyCholesky({ n, termCount: n, diagonal, diagonalError }, (c, minPivot) => {
+    for (let i = 0; i < n; i++) a[i * n + i] -= c;
+    return factorLower(a, n, minPivot);
+  });
+}
+
+/** What the rounding-error margin of a Cholesky proof depends on (see the file header). */
+export interface CholeskyProofInput {
+  /** Order of the matrix. */
+  n: number;
+  /**
+   * Most nonzero terms in one row of the factor, diagonal included (n for a dense factor): every
+   * inner product of the factorisation has at most this many nonzero terms, and a zero term adds
+   * nothing to a rounded sum, so γ_{termCount+1} replaces Higham's γ_{n+1}.
+   */
+  termCount: number;
+  /** The floating-point diagonal of Ã (before the shift). */
+  diagonal: ArrayLike<number>;
+  /** Bound on |A − Ã| on the diagonal (off-diagonal entries must be exact). */
+  diagonalError: number;
+}
+
+/**
+ * The one home of the Cholesky proof's rigour, for any storage (dense rows, an envelope): computes
+ * the margin c of the file header from the input, calls `factor(c, minPivot)`, which must subtract
+ * c from the diagonal, run a Cholesky factorisation whose inner products obey Higham's Lemma 8.4
+ * (any summation order) and return the first row whose pivot was ≤ minPivot, or −1; then checks
+ * the a-posteriori inequality λmin(A) ≥ c − γ'·tr B − u·(max|ã_ii| + c) − e − underflow ≥ 0.
+ */
+export function certifyCholesky(input: CholeskyProofInput, factor: (c: number, minPivot: number) => number): PsdProof {
+  const { n, termCount, diagonal, diagonalError } = input;
   if (!(diagonalError >= 0) || !Number.isFinite(diagonalError)) {
     throw new InputError(`provePsdByCholesky: invalid \`diagonalError\`: should be a finite number ≥ 0 (got ${diagonalError})`);
   }
+  if (!(Number.isInteger(termCount) && termCount >= Math.min(1, n) && termCount <= n)) {
+    throw new InputError(`provePsdByCholesky: invalid \`termCount\`: should be an integer between 1 and n = ${n} (got ${termCount})`);
+  }
   const u = UNIT_ROUNDOFF;
-  const g = roundoffGamma(n + 1);
+  const g = roundoffGamma(termCount + 1);
   const gp = (g / (1 - g)) * (1 + 4 * u);
   let traceAbs = 0;
   let maxDiag = 0;
   for (let i = 0; i < n; i++) {
-    const d = a[i * n + i];
+    const d = diagonal[i];
     if (!Number.isFinite(d)) return fail(0, i, `diagonal entry ${i} is ${d}`);
     traceAbs += Math.abs(d);
     maxDiag = Math.max(maxDiag, Math.abs(d));
-  }
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < i; j++) if (!Number.isFinite(a[i * n + j])) return fail(0, i, `entry (${i}, ${j}) is ${a[i * n + j]}`);
   }
   traceAbs *= 1 + roundoffGamma(n + 1);
   const underflow = n * n * MIN_NORMAL * (1 + maxDiag);
   // Twice the needed margin, so the a-posteriori check below passes whenever the factorisation does.
   const c = 2 * (gp * traceAbs + u * maxDiag + diagonalError + underflow) + MIN_NORMAL;
-  for (let i = 0; i < n; i++) a[i * n + i] -= c;
 
-  const failedAt = factorLower(a, n, MIN_NORMAL * 2 ** 60);
+  const failedAt = factor(c, MIN_NORMAL * 2 ** 60);
   if (failedAt >= 0) return fail(c, failedAt, `pivot ${failedAt} is not positive after shifting the diagonal by ${c}`);
   // b_ii = fl(ã_ii − c) ≤ |ã_ii|, so the rounded-up trace of |Ã| bounds tr B.
   const needed = (gp * traceAbs + u * (maxDiag + c) + diagonalError + underflow) * (1 + 1e-10);

@@ -36,6 +36,8 @@ const SHIFT_WORDS: Readonly<Record<string, string>> = {
   cholesky: "proven by a Cholesky factorisation",
   gershgorin: "proven by Gershgorin's circle theorem",
   "lanczos-estimate": "a Lanczos estimate, not a proof",
+  "sparse-cholesky": "proven by a sparse Cholesky factorisation",
+  "chebyshev-probable": "probable (a Chebyshev filter from a recorded random start)",
 };
 
 export function words(method: string): string {
@@ -87,7 +89,8 @@ export function formatBracket(label: string, r: Shown): string {
   rows.push(["graph", `n = ${r.n}, m = ${r.m}, W = ${num(r.totalWeight)} (total weight)`]);
   rows.push(["cut found by", words(r.lowerMethod)]);
   rows.push(["upper bound", certificateText(r)]);
-  if (r.upperKind !== "proven") rows.push(["caution", `the upper bound is ${r.upperKind === "estimate" ? "an estimate" : "probable"}, not a proof`]);
+  const delta = r.certificate.kind === "psd-dual" ? r.certificate.probable?.failureProbability : undefined;
+  if (r.upperKind !== "proven") rows.push(["caution", `the upper bound is ${r.upperKind === "estimate" ? "an estimate" : `probable (wrong with probability at most ${delta})`}, not a proof`]);
   if (r.interrupted === true) rows.push(["caution", "interrupted: the best bracket found before the run was stopped"]);
   rows.push(["time", `${num(r.seconds)} s (effort ${r.effort}, solver seed ${r.solverSeed})`]);
   if (r.budget !== undefined) rows.push(...budgetRows(r.budget));
@@ -153,6 +156,15 @@ export const cutCommand: CommandSpec = {
     { name: "json", type: "boolean", description: "one JSON record per graph, one per line (what `halfplus verify` reads)" },
     { name: "out", short: "o", type: "string", description: "also write the JSON records to FILE", placeholder: "FILE" },
     { name: "progress", type: "boolean", description: "report progress on stderr (default: only when stderr is a terminal)" },
+    {
+      name: "risk",
+      type: "number",
+      description: "on graphs too large to prove the upper end, the largest chance that a probable upper end is wrong (0: leave it an unproven estimate)",
+      default: 1e-9,
+      min: 0,
+      max: 0.5,
+      placeholder: "P",
+    },
     ...SOURCE_OPTIONS,
   ],
   refused: {
@@ -219,7 +231,7 @@ export const cutCommand: CommandSpec = {
       let first = true;
       for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
         const progress = wantProgress ? progressWriter(io.stderr, item.label) : null;
-        running = runner.run(item.graph, { ...budget, solverSeed, effort, source: item.source, notes: item.notes, onProgress: progress?.update });
+        running = runner.run(item.graph, { ...budget, solverSeed, effort, source: item.source, notes: item.notes, onProgress: progress?.update, failureProbability: o["risk"] as number });
         let outcome: Awaited<RunningBracket["done"]>;
         try {
           outcome = await running.done;

@@ -21,7 +21,7 @@ import { hyperplaneRound } from "../heuristic/hyperplane-rounding.js";
 import { localSearch } from "../heuristic/local-search.js";
 import { MEMETIC_MIN_VERTICES, memeticSearch } from "../heuristic/memetic.js";
 import { vectorMethodRound } from "../heuristic/vector-rounding.js";
-import { DENSE_PROOF_LIMIT, upperKindOf } from "../relaxation/certificate.js";
+import { DEFAULT_FAILURE_PROBABILITY, DENSE_PROOF_LIMIT, upperKindOf } from "../relaxation/certificate.js";
 import { eigenvalueUpperBound } from "../relaxation/eigenvalue-bound.js";
 import { certifySdpDual } from "../relaxation/sdp-bound.js";
 import { defaultSdpRank, solveSdp, type SdpRecord } from "../relaxation/sdp-mixing.js";
@@ -79,6 +79,11 @@ export interface BracketOptions {
   source?: GraphSource;
   /** Notes to carry into the record (e.g. what the reader merged or dropped). */
   notes?: readonly string[];
+  /**
+   * δ of a probable upper end (default 1e-9): above the dense proof's size, when the sparse proof does
+   * not fit its work limit, the shift holds with probability ≥ 1 − δ; 0 gives a bare Lanczos estimate instead.
+   */
+  failureProbability?: number;
 }
 
 /** A seed per method, derived from the bracket's solverSeed so every run is reproducible. */
@@ -93,8 +98,17 @@ function plainDetails(d: CutRecord["details"]): BracketRun["details"] {
   return out;
 }
 
+/** The δ of probable upper ends: a number in [0, 1), default DEFAULT_FAILURE_PROBABILITY (0: bare estimates instead). */
+function checkFailureProbability(owner: string, v: number | undefined): number {
+  if (v === undefined) return DEFAULT_FAILURE_PROBABILITY;
+  if (!(typeof v === "number" && v >= 0 && v < 1)) throw invalidParameter(owner, "failureProbability", "should be a number in [0, 1) (0: no probable upper ends)", v);
+  return v;
+}
+
 /** Mutable state of one bracket run: best cut, best certified bound, the run log. */
 class BracketState {
+  /** δ for probable shifts (BracketOptions.failureProbability). */
+  failureProbability = DEFAULT_FAILURE_PROBABILITY;
   readonly graph: Graph;
   readonly integral: boolean;
   /** Non-integer weights: how far `upper` may sit above `lower` in a closed bracket (closingTolerance). */
@@ -272,7 +286,7 @@ class BracketState {
 }
 
 function toPlainDual(c: DualCertificate, roundedDown: boolean, tolerance: number): BracketCertificate {
-  return { kind: "psd-dual", y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, roundedDown, tolerance };
+  return { kind: "psd-dual", y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, roundedDown, tolerance, ...(c.probable === undefined ? {} : { probable: { ...c.probable } }) };
 }
 
 /** Units of a certified bound: its Lanczos products and dense proofs (as certifyDual reports them) plus a pass. */
@@ -280,7 +294,11 @@ function certifyUnits(state: BracketState, r: UpperBoundRecord): number {
   const d = r.details ?? {};
   const products = Number(d.lanczosIterations ?? 0);
   const proofs = r.certificate?.shiftProof === "cholesky" ? Number(d.attempts ?? 1) : d.choleskyFailure !== undefined ? 6 : 0;
-  return unitsOf(products, state.costs.matvec) + unitsOf(proofs, state.costs.denseProof) + state.costs.pass;
+  // The sparse proof counts its multiply-adds (one unit each) per attempt; the probable bound's
+  // Chebyshev filter is one operator product per degree.
+  const sparse = r.certificate?.shiftProof === "sparse-cholesky" ? Number(d.sparseWork ?? 0) * Number(d.attempts ?? 1) : 0;
+  const filter = r.certificate?.shiftProof === "chebyshev-probable" ? Number(d.filterDegree ?? 0) : 0;
+  return unitsOf(products + filter, state.costs.matvec) + unitsOf(proofs, state.costs.denseProof) + sparse + state.costs.pass;
 }
 
 /** Run an upper-bound method as a stage: book its work and seconds, then offer its bound. */
@@ -485,7 +503,7 @@ function improveBothEnds(state: BracketState, phaseEnd: number, seed: number, op
       if (sdp !== null) {
         const c0 = meter.position();
         const dense = denseLimitWithin(state, 0.5 * phaseLeft());
-        boundStage(state, "sdp-certified", () => certifySdpDual(g, sdp, { tolerance: SHIFT_TOLERANCE, denseLimit: dense }));
+        boundStage(state, "sdp-certified", () => certifySdpDual(g, sdp, { tolerance: SHIFT_TOLERANCE, denseLimit: dense, failureProbability: state.failureProbability }));
         open = sdp.status === "converged" ? null : { sdp, certifyCost: meter.position() - c0 };
       } else open = null;
     }
@@ -520,7 +538,7 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
 
   // The eigenvalue bound (the dual certificate with y = 0): one Lanczos run, or a small dense proof.
   const eigen0 = meter.position();
-  boundStage(state, "eigenvalue", () => eigenvalueUpperBound(g, { tolerance: SHIFT_TOLERANCE, denseLimit: denseLimitFor(0.05) }));
+  boundStage(state, "eigenvalue", () => eigenvalueUpperBound(g, { tolerance: SHIFT_TOLERANCE, denseLimit: denseLimitFor(0.05), failureProbability: state.failureProbability }));
   const eigenCost = meter.position() - eigen0;
   if (state.closed()) return;
 
@@ -537,7 +555,7 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
     const sdp = sdpStage(state, methodSeed(seed, 2), rank, forSdp, { maxSweeps: quick ? 300 : undefined, minSweeps: n <= 64 ? 20 : 1 });
     if (sdp !== null) {
       const c0 = meter.position();
-      boundStage(state, "sdp-certified", () => certifySdpDual(g, sdp, { tolerance: SHIFT_TOLERANCE, denseLimit: dense }));
+      boundStage(state, "sdp-certified", () => certifySdpDual(g, sdp, { tolerance: SHIFT_TOLERANCE, denseLimit: dense, failureProbability: state.failureProbability }));
       const certified = meter.position() - c0;
       if (state.closed()) return;
       const trials = quick ? 8 : n <= 5000 ? 64 : 16;
@@ -605,12 +623,13 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
   const effort = options.effort ?? "auto";
   if (!BRACKET_EFFORTS.includes(effort)) throw invalidParameter(owner, "effort", `should be one of ${BRACKET_EFFORTS.join(", ")}`, effort);
   const state = new BracketState(graph, meter, options.onProgress, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
+  state.failureProbability = checkFailureProbability(owner, options.failureProbability);
   state.progress("start");
 
   if (graph.m > 0) {
     if (effort === "exact") {
       exactStage(state, seed);
-      if (!state.closed()) boundStage(state, "eigenvalue", () => eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 }));
+      if (!state.closed()) boundStage(state, "eigenvalue", () => eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0, failureProbability: state.failureProbability }));
     } else if (effort === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
       exactStage(state, seed);
       if (!state.closed()) heuristicPhase(state, seed, false, 1);

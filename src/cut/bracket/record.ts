@@ -3,7 +3,7 @@
 // the envelope (kind, version, graphHash, source) with every other result record.
 
 import type { RecordEnvelope } from "../../graph/record/envelope.js";
-import type { ShiftProof, SolverStatus, UpperKind } from "../types.js";
+import type { ProbableShift, ShiftProof, SolverStatus, UpperKind } from "../types.js";
 import type { BracketBudget } from "./budget.js";
 
 /** The `kind` every bracket record carries, so verify can refuse other JSON. */
@@ -11,7 +11,9 @@ export const BRACKET_RECORD_KIND = "halfplus/bracket";
 /**
  * Version 2: the shared envelope, `effort`, `solverSeed`, `upperKind`, `shiftProof`, `roundedDown`,
  * `notes`; optional `interrupted`; run statuses include `work-limit` and `skipped`.
- * Version 3: `budget` (which budget governed, its limits, work and seconds used, per stage).
+ * Version 3: `budget` (which budget governed, its limits, work and seconds used, per stage); shift
+ * proofs `sparse-cholesky` and `chebyshev-probable`; a probable certificate carries
+ * `probable` (δ, seed, filter degree and interval) and the record's `upperKind` is then "probable".
  */
 export const BRACKET_RECORD_VERSION = 3;
 
@@ -29,7 +31,7 @@ export const BRACKET_EFFORTS: readonly BracketEffort[] = ["auto", "exact", "heur
  * far a closed bracket's `upper` may sit above `lower` (the exact search's rounding slack).
  */
 export type BracketCertificate =
-  | { kind: "psd-dual"; y: number[]; shift: number; shiftProof: ShiftProof; roundedDown: boolean; tolerance: number }
+  | { kind: "psd-dual"; y: number[]; shift: number; shiftProof: ShiftProof; roundedDown: boolean; tolerance: number; probable?: ProbableShift }
   | { kind: "exhaustive"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
   | { kind: "unfinished-search"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
   | { kind: "positive-weights"; roundedDown: boolean; tolerance: number };
@@ -60,7 +62,7 @@ export interface BracketRecord extends RecordEnvelope<typeof BRACKET_RECORD_KIND
   upper: number;
   /** True when the bracket is closed by proof (for non-integer weights: within certificate.tolerance). */
   exact: boolean;
-  /** How far `upper` can be trusted: "estimate" when it rests on a Lanczos shift (large n) rather than a proof. */
+  /** How far `upper` can be trusted: "probable" when it rests on a Chebyshev shift (holds with probability ≥ 1 − certificate.probable.failureProbability), "estimate" on a Lanczos shift. */
   upperKind: UpperKind;
   surplusLower: number;
   surplusUpper: number;

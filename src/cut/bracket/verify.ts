@@ -4,7 +4,8 @@
 // B ≤ upper: B carries every rounding allowance of verify's own arithmetic (the dual bound's
 // rounded sum, the exact search's slack), never a tolerance taken from the record. A record whose
 // upper end lies below its own witness cut is rejected outright. A Lanczos shift proves nothing:
-// such an upper end is reported as an estimate, never as verified. The verdict word and the exit
+// such an upper end is reported as an estimate, never as verified. A Chebyshev shift is re-run from
+// its recorded seed and reported as probable, with its failure probability. The verdict word and the exit
 // status it leads to are decided here, once, for record files and results stores alike.
 
 import { InputError, echo } from "../../errors.js";
@@ -34,7 +35,7 @@ export interface BracketCheck {
  * the upper end), `estimate` (every check passed, but the upper end rests on a Lanczos shift: not a
  * proof) or `rejected` (a check failed).
  */
-export type VerdictWord = "verified" | "estimate" | "rejected";
+export type VerdictWord = "verified" | "probable" | "estimate" | "rejected";
 
 export interface BracketVerdict {
   /** Every check passed. With `upperKind` "estimate" the upper end is still not a proof. */
@@ -44,7 +45,9 @@ export interface BracketVerdict {
    * How verify itself established the upper end: "proven" (a certificate re-proved from the graph),
    * "estimate" (a Lanczos shift re-estimated, not a proof), or null when it could not re-derive one.
    */
-  upperKind: "proven" | "estimate" | null;
+  upperKind: UpperKind | null;
+  /** For a probable upper end: the probability that it is wrong, as re-derived (the verdict `probable`). */
+  failureProbability?: number;
   checks: BracketCheck[];
 }
 
@@ -60,9 +63,10 @@ export const EXIT_ESTIMATE = 3;
  * The exit status of a verify run from its verdicts: 1 when any record is rejected, else
  * EXIT_ESTIMATE when any upper end is only an estimate (unless estimates are accepted), else 0.
  */
-export function verifyExitStatus(counts: { rejected: number; estimate: number }, acceptEstimates: boolean): number {
+export function verifyExitStatus(counts: { rejected: number; estimate: number; probable?: number }, acceptEstimates: boolean): number {
   if (counts.rejected > 0) return 1;
-  return counts.estimate > 0 && !acceptEstimates ? EXIT_ESTIMATE : 0;
+  // A probable upper end is not a proof either: the same status as an estimate.
+  return counts.estimate + (counts.probable ?? 0) > 0 && !acceptEstimates ? EXIT_ESTIMATE : 0;
 }
 
 // ---- record shape -----------------------------------------------------------------------------
@@ -196,6 +200,12 @@ export function parseBracketRecord(value: unknown, where: string): BracketRecord
     const shift = f.finite("certificate.shift", c.shift);
     if (!(Math.abs(shift) <= MAX_DUAL_ENTRY)) f.bad("certificate.shift", `a number with |shift| ≤ ${MAX_DUAL_ENTRY}`, shift);
     f.oneOf("certificate.shiftProof", c.shiftProof, SHIFT_PROOFS);
+    if (c.shiftProof === "chebyshev-probable" || Object.prototype.hasOwnProperty.call(c, "probable")) {
+      const p = f.object("certificate.probable", c.probable);
+      for (const k of ["failureProbability", "top", "bottom"]) f.finite(`certificate.probable.${k}`, p[k]);
+      f.count("certificate.probable.solverSeed", p.solverSeed);
+      f.count("certificate.probable.degree", p.degree);
+    }
   } else if (c.kind === "exhaustive" || c.kind === "unfinished-search") {
     f.text("certificate.search", c.search);
     f.optional(c, "graySteps", "certificate.graySteps", f.count);
@@ -210,7 +220,8 @@ export function parseBracketRecord(value: unknown, where: string): BracketRecord
 interface DerivedUpper {
   /** max cut ≤ bound, or NaN when the certificate fails. */
   bound: number;
-  kind: "proven" | "estimate";
+  kind: UpperKind;
+  failureProbability?: number;
   /** Why the certificate fails, or what it proved. */
   message: string;
   /** An exact search that ran out of time: more --seconds may prove a lower bound. */
@@ -223,12 +234,12 @@ function deriveUpper(graph: Graph, record: BracketRecord, integral: boolean, sec
   switch (cert.kind) {
     case "psd-dual": {
       if (cert.y.length !== graph.n) return failed(`dual vector y has ${cert.y.length} entries, the graph ${graph.n} vertices`);
-      const v = verifyCertificate(graph, { kind: "psd-dual", y: Float64Array.from(cert.y), shift: cert.shift, shiftProof: cert.shiftProof });
+      const v = verifyCertificate(graph, { kind: "psd-dual", y: Float64Array.from(cert.y), shift: cert.shift, shiftProof: cert.shiftProof, ...(cert.probable === undefined ? {} : { probable: cert.probable }) });
       if (!v.ok) return failed(`dual certificate rejected: ${v.message}`);
       // Exact integer weights: every cut is an integer, so the rounded-up bound may be rounded down.
       const bound = integral ? floorCutBound(v.value) : v.value;
-      const kind = v.proven ? "proven" : "estimate";
-      return { bound, kind, message: `dual certificate (${cert.shiftProof}${v.proven ? "" : ": an estimate, not a proof"}) gives max cut ≤ ${bound}` };
+      const how = v.kind === "proven" ? "" : v.kind === "probable" ? `: holds with probability ≥ 1 − ${v.failureProbability}` : ": an estimate, not a proof";
+      return { bound, kind: v.kind, failureProbability: v.failureProbability, message: `dual certificate (${cert.shiftProof}${how}) gives max cut ≤ ${bound}` };
     }
     case "positive-weights": {
       const bound = positiveWeightBound(graph);
@@ -275,6 +286,7 @@ export function verifyBracket(graph: Graph, record: BracketRecord, options: Brac
   // Upper end: re-derived from the certificate and the graph alone.
   const cert = record.certificate;
   let upperKind: BracketVerdict["upperKind"] = null;
+  let failureProbability: number | undefined;
   if (cert.roundedDown && !integral) {
     add("upper", false, "certificate says its bound was rounded down to an integer, but the graph's weights are not exact integers");
   } else if (!same) {
@@ -291,9 +303,18 @@ export function verifyBracket(graph: Graph, record: BracketRecord, options: Brac
     if (Number.isNaN(d.bound)) add("upper", false, d.message);
     else {
       upperKind = d.kind;
+      failureProbability = d.failureProbability;
       const ok = record.upper >= d.bound;
       add("upper", ok, ok ? `${d.message} ≤ claimed ${record.upper}` : `${d.message}, above the claimed upper ${record.upper}${d.stopped === true ? "; rerun with more --seconds" : ""}`);
     }
+  }
+  if (upperKind === "probable") {
+    // A probable shift is no proof: `upperKind: "proven"` and `exact` are refused as for an estimate, and a
+    // record must not claim less doubt than verify re-derived (test/certificate-scale.test.ts).
+    const claims = [record.upperKind === "proven" ? "a proven upper bound" : "", record.exact ? "an exact value" : ""].filter(Boolean);
+    add("proof", claims.length === 0, claims.length === 0
+      ? `upper end holds with probability ≥ 1 − ${failureProbability} (re-run from its seed), not a proof`
+      : `record claims ${claims.join(" and ")} but the shift is probable (δ = ${failureProbability}), not a proof`);
   }
   if (upperKind === "estimate") {
     // `upperKind: "proven"` and `exact` claim a proof; an estimated shift cannot carry either (test/bracket.test.ts "unproven").
@@ -318,5 +339,6 @@ export function verifyBracket(graph: Graph, record: BracketRecord, options: Brac
     add("exact", closed, closed ? `bracket closed${gap > 0 ? ` within the search slack ${tol}` : ""}: the cut is optimal` : `record claims exact but upper − lower = ${gap}${integral ? "" : `, outside [0, ${tol}] (the closing tolerance)`}`);
   }
   const ok = checks.every((c) => c.ok);
-  return { ok, verdict: !ok ? "rejected" : upperKind === "estimate" ? "estimate" : "verified", upperKind, checks };
+  const verdict: VerdictWord = !ok ? "rejected" : upperKind === "estimate" ? "estimate" : upperKind === "probable" ? "probable" : "verified";
+  return { ok, verdict, upperKind, ...(failureProbability === undefined ? {} : { failureProbability }), checks };
 }

@@ -8,6 +8,14 @@
 //                       (src/linalg/cholesky.ts states the bound). Dense, O(n³): n ≤ denseLimit.
 //   "gershgorin"        proof: λmax ≤ max_i (d_i − y_i + Σ_j |w_ij|) (Gershgorin's circle theorem), rounded up.
 //                       Loose in general; chosen automatically whenever it is as good as the estimate.
+//   "sparse-cholesky"   proof: the same margins (src/linalg/cholesky.ts, certifyCholesky) on a Cholesky factor
+//                       kept inside the envelope of a reverse Cuthill–McKee order (src/linalg/envelope-cholesky.ts);
+//                       used above denseLimit when the envelope's predicted work is within sparseWorkLimit
+//                       (planar and toroidal graphs), deterministic.
+//   "chebyshev-probable" holds with probability ≥ 1 − δ over a seeded Gaussian start: the Chebyshev-filter
+//                       form of the Kuczyński–Woźniakowski (1992) bound, rigorous against rounding
+//                       (src/linalg/probable-top-bound.ts states the inequality); δ and the seed are in
+//                       the certificate so verify re-runs it to the same δ. Used when neither proof fits.
 //   "lanczos-estimate"  estimate, not a proof: a Ritz pair (θ, u) with ρ = ‖Au − θu‖ guarantees an
 //                       eigenvalue in [θ − ρ, θ + ρ] but not that none lies above; we take θ + 2ρ
 //                       (+ a relative margin) from the better of two seeded runs. Used above denseLimit.
@@ -18,19 +26,27 @@ import { InputError, invalidParameter } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
 import { checkMemory } from "../../limits/memory.js";
 import { provePsdByCholesky, type PsdProof } from "../../linalg/cholesky.js";
+import { envelopePlan, provePsdByEnvelopeCholesky, type EnvelopePlan } from "../../linalg/envelope-cholesky.js";
+import { probableFilterDegree, probableTopBound, type ProbableTopBound } from "../../linalg/probable-top-bound.js";
 import { lanczosExtreme } from "../../linalg/lanczos.js";
 import { shiftedLaplacianOperator } from "../../linalg/operator.js";
 import { UNIT_ROUNDOFF, roundoffGamma, roundUp } from "../../linalg/float-rounding.js";
 import { checkSeed } from "../../random/seed.js";
 import { dualBoundValue } from "./dual-bound.js";
-import type { DualCertificate, ShiftProof, SolverStatus, UpperBoundRecord, UpperKind } from "../types.js";
+import type { DualCertificate, ProbableShift, ShiftProof, SolverStatus, UpperBoundRecord, UpperKind } from "../types.js";
 
-export const SHIFT_PROOFS: readonly ShiftProof[] = ["cholesky", "gershgorin", "lanczos-estimate"];
+export const SHIFT_PROOFS: readonly ShiftProof[] = ["cholesky", "gershgorin", "sparse-cholesky", "chebyshev-probable", "lanczos-estimate"];
 
-/** How far a bound resting on this shift can be trusted: Cholesky and Gershgorin are proofs, Lanczos an estimate. */
+/** How far a bound resting on this shift can be trusted: the Cholesky and Gershgorin shifts are proofs, the Chebyshev one probable, Lanczos an estimate. */
 export function upperKindOf(shiftProof: ShiftProof): UpperKind {
-  return shiftProof === "lanczos-estimate" ? "estimate" : "proven";
+  return shiftProof === "lanczos-estimate" ? "estimate" : shiftProof === "chebyshev-probable" ? "probable" : "proven";
 }
+
+/** Default δ of a probable shift: the bound fails with probability at most 10⁻⁹ over its seeded start vector. */
+export const DEFAULT_FAILURE_PROBABILITY = 1e-9;
+
+/** Default work limit of the sparse Cholesky proof, in multiply-adds (a few seconds; a 20,000-vertex torus needs about 4·10⁸). */
+export const SPARSE_PROOF_WORK = 5e8;
 
 export interface CertifyOptions {
   /** auto (default): Cholesky when n ≤ denseLimit, else a Lanczos estimate (Gershgorin whenever it is as good); or force one. */
@@ -43,6 +59,13 @@ export interface CertifyOptions {
   tolerance?: number;
   /** Record name (default "dual-certificate"). */
   name?: string;
+  /**
+   * δ of a probable shift (default DEFAULT_FAILURE_PROBABILITY), used above denseLimit when the sparse
+   * proof does not fit in sparseWorkLimit; 0 turns probable shifts off (a bare Lanczos estimate instead).
+   */
+  failureProbability?: number;
+  /** Most multiply-adds the sparse Cholesky proof may take (default SPARSE_PROOF_WORK; 0 turns it off). Deterministic. */
+  sparseWorkLimit?: number;
 }
 
 const OWNER = "certifyDual";
@@ -76,6 +99,12 @@ function checkCertifyOptions(o: CertifyOptions): void {
   }
   checkSeed(OWNER, "solverSeed", o.solverSeed);
   if (o.tolerance !== undefined && !(o.tolerance > 0 && o.tolerance < 1)) throw invalidParameter(OWNER, "tolerance", "should be a number in (0, 1)", o.tolerance);
+  if (o.failureProbability !== undefined && !(o.failureProbability >= 0 && o.failureProbability < 1)) {
+    throw invalidParameter(OWNER, "failureProbability", "should be a number in [0, 1) (0: no probable shifts)", o.failureProbability);
+  }
+  if (o.sparseWorkLimit !== undefined && !(o.sparseWorkLimit >= 0 && o.sparseWorkLimit <= 1e15)) {
+    throw invalidParameter(OWNER, "sparseWorkLimit", "should be a number of multiply-adds between 0 and 1e15", o.sparseWorkLimit);
+  }
 }
 
 /** Per-row data the rigorous methods need: rounded degrees and Σ_j |w_ij|. */
@@ -124,20 +153,82 @@ export function proveShift(graph: Graph, y: ArrayLike<number>, shift: number): P
   if (n > 46000) throw new InputError(`proveShift: n = ${n} is too large for a dense Cholesky proof (at most 46000)`);
   checkMemory(8 * n * n, `proveShift: a dense Cholesky proof at n = ${n}`);
   const a = new Float64Array(n * n);
-  const { d, abs } = rowSums(graph);
-  let diagError = 0;
+  const { diagonal, error } = shiftedDiagonal(graph, y, shift);
   for (let i = 0; i < n; i++) {
     const row = i * n;
     for (let k = offsets[i]; k < offsets[i + 1]; k++) {
       const j = neighbors[k];
       if (j < i) a[row + j] = weights === null ? 1 : weights[k];
     }
-    a[row + i] = y[i] + shift - d[i];
-    const deg = offsets[i + 1] - offsets[i];
-    const e = roundoffGamma(deg + 3) * (Math.abs(y[i]) + Math.abs(shift) + abs[i]);
-    if (e > diagError) diagError = e;
+    a[row + i] = diagonal[i];
   }
-  return provePsdByCholesky(a, n, diagError * (1 + 4 * UNIT_ROUNDOFF));
+  return provePsdByCholesky(a, n, error);
+}
+
+/**
+ * The diagonal of Diag(y) + shift·I − L in floating point, fl(fl(y_i + shift) − d̃_i), and the most
+ * any entry is off: γ_{deg+3}·(|y_i| + |shift| + Σ_j|w_ij|). Off-diagonal entries w_ij are exact.
+ */
+function shiftedDiagonal(graph: Graph, y: ArrayLike<number>, shift: number): { diagonal: Float64Array; error: number } {
+  const { n, offsets } = graph;
+  const { d, abs } = rowSums(graph);
+  const diagonal = new Float64Array(n);
+  let error = 0;
+  for (let i = 0; i < n; i++) {
+    diagonal[i] = y[i] + shift - d[i];
+    const e = roundoffGamma(offsets[i + 1] - offsets[i] + 3) * (Math.abs(y[i]) + Math.abs(shift) + abs[i]);
+    if (e > error) error = e;
+  }
+  return { diagonal, error: error * (1 + 4 * UNIT_ROUNDOFF) };
+}
+
+/**
+ * The sparse form of `proveShift`: Cholesky of Diag(y) + shift·I − L inside the envelope of `plan`
+ * (default: the graph's reverse Cuthill–McKee envelope), with the dense proof's margins.
+ */
+export function proveShiftSparse(graph: Graph, y: ArrayLike<number>, shift: number, plan: EnvelopePlan = envelopePlan(graph)): PsdProof {
+  checkY(graph, y, "proveShiftSparse");
+  if (!Number.isFinite(shift)) throw new InputError(`proveShiftSparse: \`shift\` is ${shift}, expected a finite number`);
+  const { diagonal, error } = shiftedDiagonal(graph, y, shift);
+  return provePsdByEnvelopeCholesky(graph, plan, diagonal, error);
+}
+
+/** A rigorous lower bound on λmin(L − Diag(y)) by Gershgorin: min_i (d_i − y_i − Σ_j |w_ij|), rounded down. */
+function gershgorinBottom(graph: Graph, y: ArrayLike<number>): number {
+  const { d, abs } = rowSums(graph);
+  let best = Infinity;
+  for (let i = 0; i < graph.n; i++) {
+    const deg = graph.offsets[i + 1] - graph.offsets[i];
+    const bound = d[i] - y[i] - abs[i] - roundoffGamma(2 * deg + 3) * (Math.abs(y[i]) + 2 * abs[i]);
+    if (bound < best) best = bound;
+  }
+  return -roundUp(-best, 2);
+}
+
+/**
+ * A shift that bounds λmax(L − Diag(y)) with probability ≥ 1 − δ over the seeded start vector
+ * (src/linalg/probable-top-bound.ts), from the matrix L − Diag(y) = Diag(d − y) − W.
+ */
+export function probableShift(graph: Graph, y: ArrayLike<number>, p: ProbableShift): ProbableTopBound {
+  checkY(graph, y, "probableShift");
+  const { d, abs } = rowSums(graph);
+  const diagonal = new Float64Array(graph.n);
+  let error = 0;
+  for (let i = 0; i < graph.n; i++) {
+    diagonal[i] = d[i] - y[i];
+    const e = roundoffGamma(graph.offsets[i + 1] - graph.offsets[i] + 2) * (Math.abs(y[i]) + abs[i]);
+    if (e > error) error = e;
+  }
+  return probableTopBound(graph, diagonal, error * (1 + 4 * UNIT_ROUNDOFF), p);
+}
+
+/** The parameters of a probable shift for y: the filter from a Lanczos estimate θ + 3ρ up, Gershgorin's λmin bound down. */
+function probableParameters(graph: Graph, y: ArrayLike<number>, theta: number, residual: number, scale: number, delta: number, seed: number): ProbableShift {
+  let maxDeg = 0;
+  for (let i = 0; i < graph.n; i++) maxDeg = Math.max(maxDeg, graph.offsets[i + 1] - graph.offsets[i]);
+  const top = theta + 3 * residual + 1e-9 * scale;
+  const bottom = Math.min(gershgorinBottom(graph, y), top - 1e-6 * scale - 1e-300);
+  return { failureProbability: delta, solverSeed: seed, degree: probableFilterDegree(graph.n, delta, maxDeg), top, bottom };
 }
 
 interface ShiftEstimate {
@@ -161,6 +252,23 @@ interface EstablishedShift {
   proven: boolean;
   converged: boolean;
   details: Record<string, number | string | boolean | null>;
+  probable?: ProbableShift;
+}
+
+/**
+ * Try Cholesky proofs at θ + ρ + margin with margins growing tenfold, then a thousandfold, per failed
+ * attempt (a failure usually means Lanczos missed the top of the spectrum); null after six.
+ */
+function proveNearEstimate(est: ShiftEstimate, scale: number, prove: (shift: number) => PsdProof): { shift: number; proof: PsdProof; margin: number; attempts: number } | { failure: string } {
+  let margin = Math.max(2 * est.residual, 1e-10 * scale);
+  let last: PsdProof | null = null;
+  for (let attempt = 1; attempt <= 6; attempt++) {
+    const shift = roundUp(est.theta + est.residual + margin, 2);
+    last = prove(shift);
+    if (last.proven) return { shift, proof: last, margin, attempts: attempt };
+    margin *= attempt < 3 ? 10 : 1000;
+  }
+  return { failure: last?.message ?? "no attempt" };
 }
 
 function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOptions): EstablishedShift {
@@ -184,6 +292,43 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
     return { shift: gersh, shiftProof: "gershgorin", proven: true, converged: true, details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations: est.iterations, proof: true } };
   }
   const useCholesky = wanted === "cholesky" || (wanted === "auto" && n <= denseLimit);
+  const base = { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations: est.iterations };
+  const notes: Record<string, string | number> = {};
+  if (!useCholesky && (wanted === "auto" || wanted === "sparse-cholesky")) {
+    // Sparse proof when the envelope's predicted work is within the (deterministic) limit.
+    const plan = envelopePlan(graph);
+    const limit = options.sparseWorkLimit ?? SPARSE_PROOF_WORK;
+    if (plan.work <= limit) {
+      const r = proveNearEstimate(est, scale, (shift) => proveShiftSparse(graph, y, shift, plan));
+      if ("proof" in r) {
+        return {
+          shift: r.shift,
+          shiftProof: "sparse-cholesky",
+          proven: true,
+          converged: true,
+          details: { ...base, margin: r.margin, choleskyShift: r.proof.shift, attempts: r.attempts, envelopeEntries: plan.entries, envelopeWidth: plan.width, sparseWork: plan.work, proof: true },
+        };
+      }
+      notes.sparseFailure = r.failure;
+    } else notes.sparseRefused = `envelope work ${plan.work} > limit ${limit}`;
+    notes.sparseWork = plan.work;
+  }
+  const delta = options.failureProbability ?? DEFAULT_FAILURE_PROBABILITY;
+  if (!useCholesky && delta > 0 && (wanted === "auto" || wanted === "chebyshev-probable" || wanted === "sparse-cholesky")) {
+    const params = probableParameters(graph, y, est.theta, est.residual, scale, delta, (seed + 2) >>> 0);
+    const r = probableShift(graph, y, params);
+    if (r.found) {
+      return {
+        shift: r.bound,
+        shiftProof: "chebyshev-probable",
+        proven: false,
+        converged: true,
+        details: { ...base, ...notes, failureProbability: delta, filterDegree: params.degree, filterTop: params.top, filterBottom: params.bottom, roundingTotal: r.roundingTotal, proof: false },
+        probable: params,
+      };
+    }
+    notes.probableFailure = r.message;
+  }
   if (!useCholesky) {
     const second = estimateTop(graph, y, (seed + 1) >>> 0, tol);
     const a = est.theta + 2 * est.residual;
@@ -195,25 +340,18 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
       shiftProof: "lanczos-estimate",
       proven: false,
       converged: est.converged && second.converged,
-      details: { ritzValue: best.theta, ritzResidual: best.residual, lanczosIterations: est.iterations + second.iterations, proof: false },
+      details: { ...notes, ritzValue: best.theta, ritzResidual: best.residual, lanczosIterations: est.iterations + second.iterations, proof: false },
     };
   }
-  // Margins grow tenfold per failed attempt; a failure usually means Lanczos missed the top of the spectrum.
-  let margin = Math.max(2 * est.residual, 1e-10 * scale);
-  let last: PsdProof | null = null;
-  for (let attempt = 1; attempt <= 6; attempt++) {
-    const shift = roundUp(est.theta + est.residual + margin, 2);
-    last = proveShift(graph, y, shift);
-    if (last.proven) {
-      return {
-        shift,
-        shiftProof: "cholesky",
-        proven: true,
-        converged: true,
-        details: { ritzValue: est.theta, ritzResidual: est.residual, margin, choleskyShift: last.shift, attempts: attempt, lanczosIterations: est.iterations, proof: true },
-      };
-    }
-    margin *= attempt < 3 ? 10 : 1000;
+  const r = proveNearEstimate(est, scale, (shift) => proveShift(graph, y, shift));
+  if ("proof" in r) {
+    return {
+      shift: r.shift,
+      shiftProof: "cholesky",
+      proven: true,
+      converged: true,
+      details: { ...base, margin: r.margin, choleskyShift: r.proof.shift, attempts: r.attempts, proof: true },
+    };
   }
   // Fall back to the loose but unconditional bound rather than report nothing.
   return {
@@ -221,7 +359,7 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
     shiftProof: "gershgorin",
     proven: true,
     converged: true,
-    details: { ritzValue: est.theta, ritzResidual: est.residual, choleskyFailure: last?.message ?? null, proof: true },
+    details: { ritzValue: est.theta, ritzResidual: est.residual, choleskyFailure: r.failure, proof: true },
   };
 }
 
@@ -240,7 +378,7 @@ export function certifyDual(graph: Graph, y: ArrayLike<number>, options: Certify
   const t0 = performance.now();
   const yy = Float64Array.from(y);
   const s = establishShift(graph, yy, options);
-  const certificate: DualCertificate = { kind: "psd-dual", y: yy, shift: s.shift, shiftProof: s.shiftProof };
+  const certificate: DualCertificate = { kind: "psd-dual", y: yy, shift: s.shift, shiftProof: s.shiftProof, ...(s.probable === undefined ? {} : { probable: s.probable }) };
   const status: SolverStatus = s.converged ? "converged" : "iteration-limit";
   return {
     method: options.name ?? "dual-certificate",
@@ -255,8 +393,12 @@ export function certifyDual(graph: Graph, y: ArrayLike<number>, options: Certify
 export interface CertificateCheck {
   /** The certificate is well formed and its shift was re-established from y. */
   ok: boolean;
-  /** True when the check is a proof (Cholesky or Gershgorin), false for the Lanczos estimate. */
+  /** True when the check is a proof (Cholesky, sparse Cholesky or Gershgorin), false for probable and estimated shifts. */
   proven: boolean;
+  /** proven, probable (re-run from the certificate's seed, holds with probability ≥ 1 − failureProbability) or estimate. */
+  kind: UpperKind;
+  /** For a probable shift: its δ as re-derived. */
+  failureProbability?: number;
   /** ¼(Σy + n·shift) rounded up, or NaN when malformed. */
   value: number;
   /** Independent upper estimate θ + ρ of λmax(L − Diag(y)) from a fresh Lanczos run (NaN when malformed). */
@@ -271,10 +413,26 @@ export interface VerifyOptions {
   solverSeed?: number;
   /** Largest n for re-running a Cholesky proof (default 6000). */
   denseLimit?: number;
+  /** Most multiply-adds for re-running a sparse Cholesky proof (default 10·SPARSE_PROOF_WORK). */
+  sparseWorkLimit?: number;
 }
 
 function rejected(shiftProof: string, message: string): CertificateCheck {
-  return { ok: false, proven: false, value: NaN, recomputedShift: NaN, shiftProof, message };
+  return { ok: false, proven: false, kind: "estimate", value: NaN, recomputedShift: NaN, shiftProof, message };
+}
+
+/** The probable-shift parameters of a certificate, checked field by field (null when malformed). */
+function probableOf(c: DualCertificate): ProbableShift | string {
+  const p = (c as { probable?: unknown }).probable;
+  if (p === null || typeof p !== "object") return "a chebyshev-probable certificate needs `probable` {failureProbability, solverSeed, degree, top, bottom}";
+  const q = p as Record<string, unknown>;
+  const num = (k: string): number => (typeof q[k] === "number" ? (q[k] as number) : NaN);
+  const r: ProbableShift = { failureProbability: num("failureProbability"), solverSeed: num("solverSeed"), degree: num("degree"), top: num("top"), bottom: num("bottom") };
+  if (!(r.failureProbability > 0 && r.failureProbability < 1)) return `probable.failureProbability is ${String(q.failureProbability)}, expected a number in (0, 1)`;
+  if (!(Number.isInteger(r.solverSeed) && r.solverSeed >= 0 && r.solverSeed <= 0xffffffff)) return `probable.solverSeed is ${String(q.solverSeed)}, expected a seed`;
+  if (!(Number.isInteger(r.degree) && r.degree >= 1 && r.degree <= 1e6)) return `probable.degree is ${String(q.degree)}, expected an integer between 1 and 1000000`;
+  if (!(Math.abs(r.top) <= MAX_DUAL_ENTRY && Math.abs(r.bottom) <= MAX_DUAL_ENTRY && r.top > r.bottom)) return `probable.top (${String(q.top)}) should be a finite number above probable.bottom (${String(q.bottom)})`;
+  return r;
 }
 
 /**
@@ -293,36 +451,62 @@ export function verifyCertificate(graph: Graph, certificate: DualCertificate, op
   }
   if (typeof shift !== "number" || !(Math.abs(shift) <= MAX_DUAL_ENTRY)) return rejected(method, `shift is ${String(shift)}, expected a finite number with |shift| ≤ ${MAX_DUAL_ENTRY}`);
   const value = dualBoundValue(y, shift);
-  if (graph.n === 0) return { ok: true, proven: true, value, recomputedShift: 0, shiftProof: method, message: "empty graph" };
+  if (graph.n === 0) return { ok: true, proven: true, kind: "proven", value, recomputedShift: 0, shiftProof: method, message: "empty graph" };
 
   const est = estimateTop(graph, y, options.solverSeed ?? 7, 1e-10);
   const recomputedShift = est.theta + est.residual;
   // Ritz values lie below λmax, so a shift under one (beyond rounding) is certainly too small.
   const slack = 64 * UNIT_ROUNDOFF * Math.max(1, est.normEstimate);
   if (shift < est.theta - slack) {
-    return { ok: false, proven: false, value, recomputedShift, shiftProof: method, message: `shift ${shift} is below the Ritz value ${est.theta} of L − Diag(y): Diag(y + shift) − L is not PSD` };
+    return { ok: false, proven: false, kind: "estimate", value, recomputedShift, shiftProof: method, message: `shift ${shift} is below the Ritz value ${est.theta} of L − Diag(y): Diag(y + shift) − L is not PSD` };
   }
+  const proof = (ok: boolean, message: string): CertificateCheck => ({ ok, proven: ok, kind: "proven", value, recomputedShift, shiftProof: method, message });
   if (method === "gershgorin") {
     const g = gershgorinShift(graph, y);
-    const ok = shift >= g;
-    return { ok, proven: ok, value, recomputedShift, shiftProof: method, message: ok ? "shift ≥ the Gershgorin bound recomputed from y" : `shift ${shift} is below the Gershgorin bound ${g}` };
+    return proof(shift >= g, shift >= g ? "shift ≥ the Gershgorin bound recomputed from y" : `shift ${shift} is below the Gershgorin bound ${g}`);
   }
   if (method === "cholesky") {
     const limit = options.denseLimit ?? 6000;
-    if (graph.n > limit) return { ok: false, proven: false, value, recomputedShift, shiftProof: method, message: `n = ${graph.n} exceeds denseLimit = ${limit}: the Cholesky proof was not redone` };
-    const proof = proveShift(graph, y, shift);
-    return { ok: proof.proven, proven: proof.proven, value, recomputedShift, shiftProof: method, message: proof.proven ? `re-proved: ${proof.message}` : `Cholesky check failed: ${proof.message}` };
+    if (graph.n > limit) return proof(false, `n = ${graph.n} exceeds denseLimit = ${limit}: the Cholesky proof was not redone`);
+    const p = proveShift(graph, y, shift);
+    return proof(p.proven, p.proven ? `re-proved: ${p.message}` : `Cholesky check failed: ${p.message}`);
+  }
+  if (method === "sparse-cholesky") {
+    const plan = envelopePlan(graph);
+    const limit = options.sparseWorkLimit ?? 10 * SPARSE_PROOF_WORK;
+    if (plan.work > limit) return proof(false, `the sparse Cholesky proof needs ${plan.work} multiply-adds, over the limit ${limit}: not redone`);
+    const p = proveShiftSparse(graph, y, shift, plan);
+    return proof(p.proven, p.proven ? `re-proved in the envelope of ${plan.entries} entries: ${p.message}` : `sparse Cholesky check failed: ${p.message}`);
+  }
+  if (method === "chebyshev-probable") {
+    const params = probableOf(certificate);
+    if (typeof params === "string") return { ok: false, proven: false, kind: "probable", value, recomputedShift, shiftProof: method, message: params };
+    const r = probableShift(graph, y, params);
+    const ok = r.found && shift >= r.bound;
+    return {
+      ok,
+      proven: false,
+      kind: "probable",
+      failureProbability: params.failureProbability,
+      value,
+      recomputedShift,
+      shiftProof: method,
+      message: ok
+        ? `shift ≥ ${r.bound}, re-derived from seed ${params.solverSeed}: holds with probability ≥ 1 − ${params.failureProbability}`
+        : r.found ? `shift ${shift} is below the re-derived probable bound ${r.bound}` : `the probable bound was not re-derived: ${r.message}`,
+    };
   }
   if (method === "lanczos-estimate") {
     const ok = shift >= recomputedShift - slack;
     return {
       ok,
       proven: false,
+      kind: "estimate",
       value,
       recomputedShift,
       shiftProof: method,
       message: ok ? "shift ≥ the recomputed Ritz value + residual (an estimate, not a proof)" : `shift ${shift} is below the recomputed estimate ${recomputedShift}`,
     };
   }
-  return { ok: false, proven: false, value, recomputedShift, shiftProof: method, message: `unknown shift proof ${JSON.stringify(method)}` };
+  return { ok: false, proven: false, kind: "estimate", value, recomputedShift, shiftProof: method, message: `unknown shift proof ${JSON.stringify(method)}` };
 }

@@ -1,6 +1,13 @@
 // The Goemans–Williamson relaxation max ¼⟨L, X⟩ s.t. diag X = 1, X ⪰ 0, solved in the low-rank
 // factorisation X = VVᵀ (Burer–Monteiro) by the mixing method of Wang, Chang & Kolter (2017):
-// cyclic exact updates v_i ← −normalise(Σ_j w_ij v_j). Returns the primal vectors and a dual estimate y.
+// cyclic exact updates v_i ← −normalise(Σ_j w_ij v_j), over-relaxed: v_i moves ω times as far towards
+// that maximiser and is normalised again (successive over-relaxation, Young 1950, applied to the
+// mixing method's coordinate update; our choice, measured in bench/sdp.bench.mjs). For 1 ≤ ω < 2 the new
+// v_i is never farther in angle from the maximiser than the old one (the chord point v + ω(v* − v) lies
+// between v* and 2v* − v, whose angle to v* is below v's), so every update still raises the objective.
+// On grid-like graphs (the toroidal ±1 G-set graphs) plain sweeps shed the surplus rank of V very slowly;
+// ω = 1.7 reaches the same certified bound in about a tenth of the sweeps there and in half on random
+// graphs. Returns the primal vectors and a dual estimate y.
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
@@ -35,6 +42,8 @@ export interface SdpOptions {
   seconds?: number;
   /** Start from these vectors (n×rank, row-major; rows are normalised, zero rows replaced by random ones). */
   initial?: Float64Array;
+  /** Over-relaxation factor ω of each update, 1 ≤ ω < 2 (default 1.7; 1 is the plain mixing method). */
+  overRelaxation?: number;
 }
 
 export interface SdpRecord {
@@ -61,6 +70,12 @@ export interface SdpRecord {
 
 const OWNER = "solveSdp";
 
+/** Default over-relaxation factor ω of the mixing method's updates (see the file header). */
+export const DEFAULT_OVER_RELAXATION = 1.7;
+
+/** Over-relaxation stops once a sweep gains at most this fraction of the objective. */
+const OVER_RELAXED_UNTIL = 1e-7;
+
 /** Default rank ⌈√(2n)⌉ + 1, at most n. */
 export function defaultSdpRank(n: number): number {
   return Math.max(1, Math.min(n, Math.ceil(Math.sqrt(2 * n)) + 1));
@@ -80,6 +95,7 @@ function checkOptions(graph: Graph, o: SdpOptions): void {
   }
   if (o.maxSweeps !== undefined && !(Number.isInteger(o.maxSweeps) && o.maxSweeps >= 0)) throw invalidParameter(OWNER, "maxSweeps", "should be a non-negative integer", o.maxSweeps);
   if (o.seconds !== undefined) checkSeconds(OWNER, o.seconds, 1);
+  if (o.overRelaxation !== undefined && !(o.overRelaxation >= 1 && o.overRelaxation < 2)) throw invalidParameter(OWNER, "overRelaxation", "should be a number in [1, 2)", o.overRelaxation);
   const r = o.rank ?? defaultSdpRank(n);
   if (o.initial !== undefined && o.initial.length !== n * r) {
     throw invalidParameter(OWNER, "initial", `should hold n·rank = ${n * r} numbers`, `${o.initial.length} numbers`);
@@ -210,6 +226,10 @@ export function solveSdp(graph: Graph, options: SdpOptions = {}): SdpRecord {
   const checkEvery = options.checkEvery ?? 20;
   const gradTol = options.gradientTolerance ?? 0;
   const maxSweeps = options.maxSweeps ?? 10000;
+  // Over-relaxed sweeps until one gains at most OVER_RELAXED_UNTIL·|objective|, then plain ones: the
+  // duality-gap checks judge plain sweeps only (an over-relaxed V is not stationary, so its dual
+  // estimate is poor and a rough gap check may stop too early).
+  let omega = options.overRelaxation ?? DEFAULT_OVER_RELAXATION;
   const deadline = options.seconds === undefined ? Infinity : t0 + options.seconds * 1000;
   // V, its dual estimate and scratch: refuse up front rather than fail inside an allocation.
   checkMemory(8 * n * r + 64 * n, `${OWNER}: n = ${n} vertices at rank ${r}`);
@@ -246,15 +266,42 @@ export function solveSdp(graph: Graph, options: SdpOptions = {}): SdpRecord {
       const gn = Math.sqrt(gg);
       if (!(gn > 1e-300)) continue;
       grad2 += Math.max(0, gg - gv * gv);
-      // The exact maximiser of the objective in v_i alone; it gains ½(‖g‖ + ⟨g, v_i⟩) ≥ 0.
-      gain += 0.5 * (gn + gv);
       const inv = -1 / gn;
-      for (let t = 0; t < r; t++) V[bi + t] = g[t] * inv;
+      if (omega === 1) {
+        // The exact maximiser of the objective in v_i alone; it gains ½(‖g‖ + ⟨g, v_i⟩) ≥ 0.
+        gain += 0.5 * (gn + gv);
+        for (let t = 0; t < r; t++) V[bi + t] = g[t] * inv;
+      } else {
+        // v_i + ω(v* − v_i), normalised; the objective in v_i is −½⟨g, v_i⟩, so the gain is ½(⟨g, v_old⟩ − ⟨g, v_new⟩).
+        let ss = 0;
+        for (let t = 0; t < r; t++) {
+          const x = V[bi + t] + omega * (g[t] * inv - V[bi + t]);
+          V[bi + t] = x;
+          ss += x * x;
+        }
+        if (!(ss > 1e-300)) {
+          for (let t = 0; t < r; t++) V[bi + t] = g[t] * inv;
+          gain += 0.5 * (gn + gv);
+          continue;
+        }
+        const s = 1 / Math.sqrt(ss);
+        let gvNew = 0;
+        for (let t = 0; t < r; t++) {
+          V[bi + t] *= s;
+          gvNew += g[t] * V[bi + t];
+        }
+        gain += 0.5 * (gv - gvNew);
+      }
     }
     sweeps++;
     value += gain;
     lastImprovement = gain;
-    if (gain <= tol * Math.abs(value) || Math.sqrt(grad2) <= gradTol * absWeight) status = "converged";
+    if (omega !== 1) {
+      if (gain <= OVER_RELAXED_UNTIL * Math.abs(value)) {
+        omega = 1;
+        nextCheck = sweeps + checkEvery;
+      }
+    } else if (gain <= tol * Math.abs(value) || Math.sqrt(grad2) <= gradTol * absWeight) status = "converged";
     else if (gapTol > 0 && sweeps >= nextCheck) {
       const est = gapEstimate(graph, sdpDualEstimate(graph, V, r).y, value, warm);
       gap = est.gap;
