@@ -169,29 +169,27 @@ class SqliteStore implements ResultStore {
   }
 
   /**
-   * Set-based union: the source's key and compared columns go into a temporary table of this
-   * connection (ATTACH would be shorter, but a transaction cannot DETACH, and at most 10 files can
-   * be attached, while one merge takes any number of shard stores in one transaction). One join on
-   * key with `IS NOT` (null-safe) counts the disagreements; only when there are none are the rows
-   * with new keys read in full (evidence blobs included) and copied.
+   * Set-based union: the source's rows go into a temporary table of this connection (ATTACH would
+   * be shorter, but a transaction cannot DETACH and at most 10 files can be attached, while one
+   * merge takes any number of shard stores in one transaction). One join on key with `IS NOT`
+   * (null-safe) counts the disagreements; only when there are none is anything copied, by one
+   * INSERT … SELECT of the rows whose key is new.
    */
   unionFrom(source: ResultStore, compared: readonly string[]): UnionOutcome | undefined {
     if (!(source instanceof SqliteStore)) return undefined;
     if (this.readonly) throw new Error(`${this.path}: opened read-only`);
-    const specs: ColumnSpec[] = [];
-    for (const name of new Set([...ORDER, ...compared])) {
-      const spec = columnSpec(name);
-      if (spec === undefined) throw new Error(`unionFrom: unknown column ${JSON.stringify(name)}`);
-      specs.push(spec);
-    }
+    for (const name of compared) if (columnSpec(name) === undefined) throw new Error(`unionFrom: unknown column ${JSON.stringify(name)}`);
+    // This store's columns (all of COLUMNS once opened for writing); a column the source lacks reads as null.
+    const cols = this.positions.map((i) => COLUMNS[i]);
+    const list = cols.map((c) => q(c.name)).join(", ");
     const incoming = `temp.${q(INCOMING)}`;
     return this.db.transaction((): UnionOutcome => {
       this.db.exec(`DROP TABLE IF EXISTS ${incoming}`);
-      this.db.exec(`CREATE TABLE ${incoming} (${specs.map((c) => `${q(c.name)} ${SQL_TYPE[c.type]}${c.name === "key" ? " PRIMARY KEY NOT NULL" : ""}`).join(", ")})`);
+      this.db.exec(`CREATE TABLE ${incoming} (${cols.map((c) => `${q(c.name)} ${SQL_TYPE[c.type]}${c.name === "key" ? " PRIMARY KEY NOT NULL" : ""}`).join(", ")})`);
       try {
-        const load = this.db.prepare(`INSERT INTO ${incoming} VALUES (${specs.map(() => "?").join(", ")})`);
+        const load = this.db.prepare(`INSERT INTO ${incoming} (${list}) VALUES (${cols.map(() => "?").join(", ")})`);
         let rows = 0;
-        for (const r of source.db.prepare(`SELECT ${specs.map((c) => source.selectable(c.name)).join(", ")} FROM results`).raw().iterate() as IterableIterator<unknown[]>) {
+        for (const r of source.db.prepare(`SELECT ${cols.map((c) => source.selectable(c.name)).join(", ")} FROM results`).raw().iterate() as IterableIterator<unknown[]>) {
           load.run(r);
           rows++;
         }
@@ -202,14 +200,7 @@ class SqliteStore implements ResultStore {
           const first = this.db.prepare(`SELECT i.key ${joined} WHERE ${differ} ORDER BY ${ORDER.map((c) => `i.${q(c)}`).join(", ")} LIMIT 1`).pluck().get() as string;
           return { rows, added: 0, alreadyThere: found.present - found.conflicting, conflicting: found.conflicting, firstConflict: first };
         }
-        const fresh = new Set(this.db.prepare(`SELECT key FROM ${incoming} WHERE key NOT IN (SELECT key FROM main.results)`).pluck().all() as string[]);
-        let added = 0;
-        if (fresh.size > 0) {
-          // This store's columns, in the order of its insert statement; key (COLUMNS[0]) comes first.
-          const cols = this.positions.map((i) => COLUMNS[i].name);
-          const full = source.db.prepare(`SELECT ${cols.map((c) => source.selectable(c)).join(", ")} FROM results`).raw();
-          for (const r of full.iterate() as IterableIterator<unknown[]>) if (fresh.has(r[0] as string)) added += this.insertStmt.run(r).changes;
-        }
+        const added = this.db.prepare(`INSERT INTO main.results (${list}) SELECT ${list} FROM ${incoming} WHERE key NOT IN (SELECT key FROM main.results)`).run().changes;
         return { rows, added, alreadyThere: found.present, conflicting: 0 };
       } finally {
         this.db.exec(`DROP TABLE IF EXISTS ${incoming}`);
