@@ -1,12 +1,14 @@
 // Union of results stores: rows whose key is new are copied, rows already present must agree on
 // every result column (columns.ts `comparedColumns`: not timing, provenance or evidence), and any
 // disagreement refuses the whole merge, naming the key and the fields. Merging twice adds nothing.
+// The store does each source's union itself where it can (set-based in SQLite: sqlite-store.ts
+// `unionFrom`); `unionRowByRow` is the plain path for any other store, with the same outcome.
 
 import { realpathSync, existsSync } from "node:fs";
 import { InputError } from "../errors.js";
 import { comparedColumns, type CellValue, type StoredRow } from "./columns.js";
 import { openStore } from "./sqlite-store.js";
-import type { ResultStore } from "./store.js";
+import type { ResultStore, UnionOutcome } from "./store.js";
 
 const COMPARED = comparedColumns();
 
@@ -45,41 +47,63 @@ function realOrSelf(path: string): string {
   return existsSync(path) ? realpathSync(path) : path;
 }
 
-/** Copy into `target` the rows of each source (in one transaction; nothing is written on a conflict). */
-export function mergeInto(target: ResultStore, sources: readonly ResultStore[]): MergeReport {
-  const reports: MergeSourceReport[] = [];
-  target.transaction(() => {
-    for (const src of sources) {
-      const rep: MergeSourceReport = { path: src.path, rows: 0, added: 0, alreadyThere: 0 };
-      const conflicts: string[] = [];
-      let conflicting = 0;
+const COMPARED_NAMES = COMPARED.map((c) => c.name);
+
+/** Thrown inside the row-by-row union to roll its writes back; never leaves this module. */
+class Refused {
+  constructor(readonly outcome: UnionOutcome) {}
+}
+
+/**
+ * The plain union, for a store that cannot do it set-based (`unionFrom` gives undefined): each
+ * source row is looked up by key, new rows are inserted in batches, and a disagreement rolls the
+ * source's writes back, so the outcome is the same as the store's own.
+ */
+export function unionRowByRow(target: ResultStore, src: ResultStore): UnionOutcome {
+  try {
+    return target.transaction((): UnionOutcome => {
+      const out: UnionOutcome = { rows: 0, added: 0, alreadyThere: 0, conflicting: 0 };
       let batch: StoredRow[] = [];
       for (const row of src.rows()) {
-        rep.rows++;
+        out.rows++;
         const key = String(row.key);
         const have = target.get(key);
         if (have === undefined) {
           batch.push(row);
           if (batch.length >= 1000) {
-            rep.added += target.insert(batch);
+            out.added += target.insert(batch);
             batch = [];
           }
-          continue;
-        }
-        const diff = disagreements(have, row);
-        if (diff.length === 0) rep.alreadyThere++;
+        } else if (disagreements(have, row).length === 0) out.alreadyThere++;
         else {
-          conflicting++;
-          if (conflicts.length === 0) conflicts.push(`key ${JSON.stringify(key)} differs in ${diff.join(", ")}`);
+          out.conflicting++;
+          out.firstConflict ??= key;
         }
       }
-      rep.added += target.insert(batch);
-      if (conflicting > 0) {
-        const more = conflicting > 1 ? ` (and ${conflicting - 1} more row${conflicting > 2 ? "s" : ""})` : "";
-        throw new InputError(`${src.path}: disagrees with ${target.path}: ${conflicts[0]}${more}; nothing merged`);
+      out.added += target.insert(batch);
+      if (out.conflicting > 0) throw new Refused({ ...out, added: 0 });
+      return out;
+    });
+  } catch (e) {
+    if (e instanceof Refused) return e.outcome;
+    throw e;
+  }
+}
+
+/** Copy into `target` the rows of each source (in one transaction; nothing is written on a conflict). */
+export function mergeInto(target: ResultStore, sources: readonly ResultStore[]): MergeReport {
+  const reports: MergeSourceReport[] = [];
+  target.transaction(() => {
+    for (const src of sources) {
+      const out = target.unionFrom(src, COMPARED_NAMES) ?? unionRowByRow(target, src);
+      if (out.conflicting > 0) {
+        const key = out.firstConflict!;
+        const diff = disagreements(target.get(key)!, [...src.rows({ keys: [key] })][0]);
+        const more = out.conflicting > 1 ? ` (and ${out.conflicting - 1} more row${out.conflicting > 2 ? "s" : ""})` : "";
+        throw new InputError(`${src.path}: disagrees with ${target.path}: key ${JSON.stringify(key)} differs in ${diff.join(", ")}${more}; nothing merged`);
       }
       for (const s of src.sweeps()) target.logSweep(s);
-      reports.push(rep);
+      reports.push({ path: src.path, rows: out.rows, added: out.added, alreadyThere: out.alreadyThere });
     }
   });
   return { into: target.path, sources: reports, total: target.count() };

@@ -8,8 +8,8 @@ import { createRequire } from "node:module";
 import { existsSync, mkdirSync, readSync, openSync, closeSync, statSync } from "node:fs";
 import { dirname } from "node:path";
 import { InputError } from "../errors.js";
-import { COLUMNS, rowValues, type CellValue, type ColumnSpec, type StoredRow } from "./columns.js";
-import type { OpenStoreOptions, ResultStore, RowFilter, SweepLogEntry } from "./store.js";
+import { COLUMNS, columnSpec, rowValues, type CellValue, type ColumnSpec, type StoredRow } from "./columns.js";
+import type { OpenStoreOptions, ResultStore, RowFilter, SweepLogEntry, UnionOutcome } from "./store.js";
 import { censusTables, createCensusSchema, type CensusTables } from "./census/census-store.js";
 import { huntRows, putHuntRow, type HuntFrontierFilter, type HuntFrontierRow } from "./hunt-store.js";
 
@@ -33,6 +33,12 @@ const SQL_TYPE: Record<ColumnSpec["type"], string> = { integer: "INTEGER", real:
 
 /** Identifiers are our own column names (letters only), quoted anyway. */
 const q = (name: string): string => `"${name}"`;
+
+/** The temporary table a merge loads a source's compared columns into (one connection's temp schema). */
+const INCOMING = "merge_incoming";
+
+/** Columns the export order sorts by (rows(), and the first conflict a merge reports). */
+const ORDER = ["family", "n", "m", "key"];
 
 const SWEEP_FIELDS = ["id", "plan", "planText", "startedAt", "finishedAt", "shard", "workers", "version", "gitCommit", "computed", "status"] as const;
 
@@ -69,6 +75,7 @@ class SqliteStore implements ResultStore {
   private readonly present: Set<string>;
   private readonly insertStmt: Database.Statement;
   private readonly hasStmt: Database.Statement;
+  private readonly getStmt: Database.Statement;
   private readonly insertMany: (rows: readonly (readonly CellValue[])[]) => number;
   /** For each column this store has, its position in COLUMNS (an older store may lack some). */
   private readonly positions: number[];
@@ -113,6 +120,7 @@ class SqliteStore implements ResultStore {
       ? this.db.prepare("SELECT 1")
       : this.db.prepare(`INSERT INTO results (${cols.map((c) => q(c.name)).join(", ")}) VALUES (${cols.map(() => "?").join(", ")}) ON CONFLICT(key) DO NOTHING`);
     this.hasStmt = this.db.prepare(`SELECT 1 FROM results WHERE key = ?`).pluck();
+    this.getStmt = this.db.prepare(`SELECT * FROM results WHERE key = ?`);
     this.insertMany = this.db.transaction((rows: readonly (readonly CellValue[])[]) => {
       let added = 0;
       const cells = new Array<unknown>(this.positions.length);
@@ -152,7 +160,52 @@ class SqliteStore implements ResultStore {
   }
 
   get(key: string): StoredRow | undefined {
-    return this.db.prepare(`SELECT * FROM results WHERE key = ?`).get(key) as StoredRow | undefined;
+    return this.getStmt.get(key) as StoredRow | undefined;
+  }
+
+  /** `name`, or NULL where this (older) store lacks the column: it reads as null, as in rows(). */
+  private selectable(name: string): string {
+    return this.present.has(name) ? q(name) : `NULL AS ${q(name)}`;
+  }
+
+  /**
+   * Set-based union: the source's rows go into a temporary table of this connection (ATTACH would
+   * be shorter, but a transaction cannot DETACH and at most 10 files can be attached, while one
+   * merge takes any number of shard stores in one transaction). One join on key with `IS NOT`
+   * (null-safe) counts the disagreements; only when there are none is anything copied, by one
+   * INSERT … SELECT of the rows whose key is new.
+   */
+  unionFrom(source: ResultStore, compared: readonly string[]): UnionOutcome | undefined {
+    if (!(source instanceof SqliteStore)) return undefined;
+    if (this.readonly) throw new Error(`${this.path}: opened read-only`);
+    for (const name of compared) if (columnSpec(name) === undefined) throw new Error(`unionFrom: unknown column ${JSON.stringify(name)}`);
+    // This store's columns (all of COLUMNS once opened for writing); a column the source lacks reads as null.
+    const cols = this.positions.map((i) => COLUMNS[i]);
+    const list = cols.map((c) => q(c.name)).join(", ");
+    const incoming = `temp.${q(INCOMING)}`;
+    return this.db.transaction((): UnionOutcome => {
+      this.db.exec(`DROP TABLE IF EXISTS ${incoming}`);
+      this.db.exec(`CREATE TABLE ${incoming} (${cols.map((c) => `${q(c.name)} ${SQL_TYPE[c.type]}${c.name === "key" ? " PRIMARY KEY NOT NULL" : ""}`).join(", ")})`);
+      try {
+        const load = this.db.prepare(`INSERT INTO ${incoming} (${list}) VALUES (${cols.map(() => "?").join(", ")})`);
+        let rows = 0;
+        for (const r of source.db.prepare(`SELECT ${cols.map((c) => source.selectable(c.name)).join(", ")} FROM results`).raw().iterate() as IterableIterator<unknown[]>) {
+          load.run(r);
+          rows++;
+        }
+        const joined = `FROM ${incoming} i JOIN main.results r ON r.key = i.key`;
+        const differ = compared.map((c) => `i.${q(c)} IS NOT r.${q(c)}`).join(" OR ") || "0";
+        const found = this.db.prepare(`SELECT count(*) AS present, coalesce(sum(${differ}), 0) AS conflicting ${joined}`).get() as { present: number; conflicting: number };
+        if (found.conflicting > 0) {
+          const first = this.db.prepare(`SELECT i.key ${joined} WHERE ${differ} ORDER BY ${ORDER.map((c) => `i.${q(c)}`).join(", ")} LIMIT 1`).pluck().get() as string;
+          return { rows, added: 0, alreadyThere: found.present - found.conflicting, conflicting: found.conflicting, firstConflict: first };
+        }
+        const added = this.db.prepare(`INSERT INTO main.results (${list}) SELECT ${list} FROM ${incoming} WHERE key NOT IN (SELECT key FROM main.results)`).run().changes;
+        return { rows, added, alreadyThere: found.present, conflicting: 0 };
+      } finally {
+        this.db.exec(`DROP TABLE IF EXISTS ${incoming}`);
+      }
+    })();
   }
 
   insert(rows: readonly StoredRow[]): number {

@@ -31,6 +31,20 @@ export interface SweepLogEntry {
   status: string;
 }
 
+/** What adding one source's rows to a store found (merge.ts). */
+export interface UnionOutcome {
+  /** Rows in the source. */
+  rows: number;
+  /** Rows copied (0 whenever `conflicting` > 0: then nothing is written). */
+  added: number;
+  /** Rows this store already held, equal on every compared column. */
+  alreadyThere: number;
+  /** Rows whose key is here but which differ on some compared column. */
+  conflicting: number;
+  /** The first of those keys in export order (family, n, m, key). */
+  firstConflict?: string;
+}
+
 export interface ResultStore {
   /** The file, as opened. */
   readonly path: string;
@@ -49,6 +63,13 @@ export interface ResultStore {
   count(filter?: RowFilter): number;
   /** Run fn in one transaction (nested calls join it). */
   transaction<T>(fn: () => T): T;
+  /**
+   * Add the rows of `source` whose key is new here and compare the others on the columns named by
+   * `compared`, all or nothing: on any disagreement nothing is written and the outcome says where.
+   * A backend does this set-based where it can; undefined means it cannot for this source (another
+   * kind of store), and the caller goes row by row (merge.ts) with the same result.
+   */
+  unionFrom(source: ResultStore, compared: readonly string[]): UnionOutcome | undefined;
   logSweep(entry: SweepLogEntry): void;
   sweeps(): SweepLogEntry[];
   /** The census tables: per-(n, m) aggregates of exhaustive graph streams and their resume state. */
