@@ -163,7 +163,7 @@ describe("records that stand alone", () => {
     const r = halfplus(["cut", "-", "--json"], "DQc\n");
     expect(r.code).toBe(0);
     const rec = JSON.parse(r.stdout);
-    expect(rec).toMatchObject({ kind: "halfplus/bracket", version: 2, lower: 4, upper: 4, exact: true, upperKind: "proven", effort: "auto", solverSeed: 0 });
+    expect(rec).toMatchObject({ kind: "halfplus/bracket", version: 3, lower: 4, upper: 4, exact: true, upperKind: "proven", effort: "auto", solverSeed: 0 });
     expect(rec.source).toMatchObject({ path: "-", position: 1, format: "graph6", embedded: { format: "graph6", text: "DQc" } });
     expect(rec.graphHash).toMatch(/^sha256:[0-9a-f]{64}$/);
     const f = join(dir, "r.jsonl");

@@ -21,6 +21,8 @@ import { eigenvalueUpperBound } from "../relaxation/eigenvalue-bound.js";
 import { certifySdpDual } from "../relaxation/sdp-bound.js";
 import { solveSdp, type SdpRecord } from "../relaxation/sdp-mixing.js";
 import { positiveWeightBound } from "../positive-weights.js";
+import { solveTriangleSdp, type TriangleSdpRecord } from "../relaxation/triangle-sdp.js";
+import { TREE_RELAXATIONS, relaxationTreeSearch, type TreeRelaxation, type TreeSearchRecord } from "../tree/relaxation-tree.js";
 import type { CutRecord, DualCertificate, UpperBoundRecord, UpperKind } from "../types.js";
 import { recordEnvelope } from "../../graph/record/envelope.js";
 import type { GraphSource } from "../../graph/record/source.js";
@@ -63,6 +65,10 @@ export interface BracketOptions {
   source?: GraphSource;
   /** Notes to carry into the record (e.g. what the reader merged or dropped). */
   notes?: readonly string[];
+  /** Effort "deep": the node bound of its branch and bound (default "triangles"). */
+  relaxation?: TreeRelaxation;
+  /** Effort "deep": a deterministic budget of branch-and-bound nodes (default: time only). */
+  treeNodes?: number;
 }
 
 /** A seed per method, derived from the bracket's solverSeed so every run is reproducible. */
@@ -220,6 +226,38 @@ class BracketState {
     this.progress(r.method);
   }
 
+  /** The SDP with triangle inequalities: its certified bound (effort "deep"). */
+  offerTriangle(r: TriangleSdpRecord): void {
+    this.runs.push({ method: r.method, role: "upper", value: r.value, status: r.status, seconds: r.seconds, solverSeed: r.solverSeed, details: { plainValue: r.plainValue, rounds: r.rounds, inequalities: r.inequalities } });
+    const bound = this.round(r.value);
+    if (Number.isFinite(bound) && bound < this.upper) {
+      const c = r.certificate;
+      this.upper = bound;
+      this.upperMethod = r.method;
+      this.upperKind = "proven";
+      this.certificate = { kind: "triangle-dual", y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, triangles: Array.from(c.triangles), mu: Array.from(c.mu), roundedDown: this.integral, tolerance: this.tolerance };
+    }
+    this.progress(r.method);
+  }
+
+  /** Relaxation-bounded branch and bound (effort "deep"): its cut, and its regions when they prove a better bound. */
+  offerTree(r: TreeSearchRecord): void {
+    this.runs.push({ method: r.method, role: "exact", value: r.value, upper: r.upper, status: r.status, seconds: r.seconds, solverSeed: r.solverSeed, details: plainDetails(r.details) });
+    this.takeCut(r);
+    if (r.certificate.regions.length > 0 && r.upper < this.upper) {
+      this.upper = r.upper;
+      this.upperMethod = r.method;
+      this.upperKind = "proven";
+      this.certificate = { kind: "sdp-tree", rootVertex: r.certificate.rootVertex, relaxation: r.relaxation, regions: r.certificate.regions, nodes: r.nodes, roundedDown: true, tolerance: this.tolerance };
+    }
+    this.progress(r.method);
+  }
+
+  /** Progress of the tree search: its incumbent and its running upper end (certified at the end). */
+  treeProgress(method: string): (p: { lower: number; upper: number }) => void {
+    return (p) => this.onProgress?.({ method, lower: Math.max(this.lower, p.lower), upper: Math.min(this.upper, p.upper), elapsed: this.elapsed(), snapshot: () => snapshotOf(this) });
+  }
+
   /**
    * Run an optional method; when it refuses this graph (it would not fit in memory, or the graph is
    * too large for it: an InputError), log it as skipped with the reason and go on without it.
@@ -350,6 +388,31 @@ function heuristicPhase(state: BracketState, seed: number, quick: boolean, budge
   runBreakout(state, phaseLeft(), 1000 + 50 * n * n, methodSeed(seed, 5));
 }
 
+/**
+ * Effort "deep": the SDP with triangle inequalities (a fifth of what is left), then branch and bound
+ * bounded by the chosen relaxation, warm-started from the best cut, for the rest. The tree search
+ * needs integer weights; other graphs keep the strengthened bound (the search is logged as skipped).
+ */
+function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation, treeNodes: number | undefined): void {
+  const g = state.graph;
+  state.attempt("sdp-triangles", "upper", () =>
+    state.offerTriangle(solveTriangleSdp(g, { solverSeed: methodSeed(seed, 6), seconds: Math.max(1e-3, 0.2 * state.left()), iterations: 60, target: state.lower })),
+  );
+  if (state.closed()) return;
+  state.attempt("exact-sdp-tree", "exact", () =>
+    state.offerTree(
+      relaxationTreeSearch(g, {
+        seconds: Math.max(1e-3, state.left()),
+        work: treeNodes,
+        solverSeed: methodSeed(seed, 7),
+        initial: state.partition,
+        relaxation,
+        onProgress: state.treeProgress("sdp tree"),
+      }),
+    ),
+  );
+}
+
 /** Is branch and bound worth part of the budget? A practical rule from bench/cut-exact: small or sparse graphs. */
 function exactLooksFeasible(g: Graph): boolean {
   return g.n <= 50 || (g.n <= 150 && g.m <= 3 * g.n);
@@ -366,6 +429,8 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
   const seed = checkSeed(owner, "solverSeed", options.solverSeed);
   const effort = options.effort ?? "auto";
   if (!BRACKET_EFFORTS.includes(effort)) throw invalidParameter(owner, "effort", `should be one of ${BRACKET_EFFORTS.join(", ")}`, effort);
+  if (options.relaxation !== undefined && !TREE_RELAXATIONS.includes(options.relaxation)) throw invalidParameter(owner, "relaxation", `should be one of ${TREE_RELAXATIONS.join(", ")}`, options.relaxation);
+  if (options.treeNodes !== undefined && !(Number.isInteger(options.treeNodes) && options.treeNodes > 0)) throw invalidParameter(owner, "treeNodes", "should be a positive integer", options.treeNodes);
   const state = new BracketState(graph, seconds, options.onProgress, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
   state.progress("start");
 
@@ -373,6 +438,9 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
     if (effort === "exact") {
       state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, onProgress: state.exactProgress("exact search") }));
       if (!state.closed()) state.attempt("eigenvalue", "upper", () => state.offerDual(eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0 })));
+    } else if (effort === "deep") {
+      heuristicPhase(state, seed, false, 0.15);
+      if (!state.closed()) deepPhase(state, seed, options.relaxation ?? "triangles", options.treeNodes);
     } else if (effort === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
       state.offerExact(exactMaxCut(graph, { seconds: Math.max(1e-3, state.left()), solverSeed: seed, onProgress: state.exactProgress("exact search") }));
       if (!state.closed()) heuristicPhase(state, seed, false, 1);
