@@ -157,7 +157,7 @@ export function certifyTriangleDual(graph: Graph, y: ArrayLike<number>, triangle
   const yy = Float64Array.from(y);
   const cert: TriangleCertificate = { kind: "triangle-dual", y: yy, shift: 0, shiftProof: "cholesky", triangles: Int32Array.from(triangles), mu: Float64Array.from(mu) };
   if (n === 0) return { value: dualBoundValue(yy, 0, cert.mu), certificate: cert, proven: true };
-  const est = lanczosExtreme(denseOperator(strengthenedMatrix(graph, yy, triangles, mu), n), { which: "largest", k: 1, tolerance: 1e-10, solverSeed, maxRestarts: 100 });
+  const est = lanczosExtreme(denseOperator(strengthenedMatrix(graph, yy, triangles, mu), n), { which: "largest", k: 1, tolerance: 1e-10, solverSeed, maxRestarts: 100, denseBelow: 0, maxBasis: Math.min(n, 40) });
   const theta = est.values[0];
   const scale = Math.max(est.normEstimate, 1e-300);
   let margin = Math.max(2 * est.residuals[0], 1e-10 * scale);
