@@ -1,11 +1,7 @@
 // Exact max cut (Gray code, branch and bound, the component-splitting front end) checked against
 // known values, brute force, and the max-cut MILP solved by a Debian solver (cbc or glpsol).
 
-import { execFileSync, spawnSync } from "node:child_process";
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
-import { afterAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { buildGraph } from "../src/graph/builder.js";
 import type { Graph } from "../src/graph/graph.js";
 import { family } from "../src/families/registry.js";
@@ -18,8 +14,7 @@ import { Rng } from "../src/random/prng.js";
 import { randomGraph } from "./helpers/graphs.js";
 import { cutOfPartition } from "./helpers/maxcut.js";
 import { check, itNeeds } from "./helpers/requirements.js";
-
-const has = (tool: string): boolean => spawnSync("which", [tool]).status === 0;
+import { milpSolver, solveMilp } from "./helpers/milp.js";
 
 /**
  * Every bipartition with vertex 0 on side 0, each valued edge by edge with the test folder's own
@@ -197,52 +192,6 @@ describe("exact max cut: bad input", () => {
 });
 
 // ---- MILP cross-check -------------------------------------------------------------------
-
-const milpSolver = has("cbc") ? "cbc" : has("glpsol") ? "glpsol" : null;
-const workDir = mkdtempSync(join(tmpdir(), "halfplus-milp-"));
-afterAll(() => rmSync(workDir, { recursive: true, force: true }));
-
-/**
- * The standard max-cut MILP in CPLEX LP format: binary x_i (side), y_ij ≤ x_i + x_j and
- * y_ij ≤ 2 − x_i − x_j for edges of positive weight; y_ij ≥ x_i − x_j and y_ij ≥ x_j − x_i for
- * negative weights; maximise Σ w_ij y_ij. x_0 = 0 removes the mirror symmetry.
- */
-function maxCutLp(g: Graph): string {
-  const { us, vs, ws } = g.edgeArrays();
-  const obj: string[] = [];
-  const rows: string[] = [];
-  for (let e = 0; e < g.m; e++) {
-    const w = ws === null ? 1 : ws[e];
-    const [i, j] = [us[e], vs[e]];
-    obj.push(`${w >= 0 ? "+" : "-"} ${Math.abs(w)} y${e}`);
-    if (w >= 0) {
-      rows.push(` a${e}: y${e} - x${i} - x${j} <= 0`, ` b${e}: y${e} + x${i} + x${j} <= 2`);
-    } else {
-      rows.push(` c${e}: y${e} - x${i} + x${j} >= 0`, ` d${e}: y${e} + x${i} - x${j} >= 0`);
-    }
-  }
-  const lines = ["Maximize", ` obj: ${obj.join(" ") || "0 x0"}`, "Subject To", ...rows, " fix: x0 = 0", "Bounds"];
-  for (let e = 0; e < g.m; e++) lines.push(` 0 <= y${e} <= 1`);
-  lines.push("Binary", " " + Array.from({ length: g.n }, (_, i) => `x${i}`).join(" "), "End", "");
-  return lines.join("\n");
-}
-
-function solveMilp(g: Graph, name: string): number {
-  const lp = join(workDir, `${name}.lp`);
-  const out = join(workDir, `${name}.out`);
-  writeFileSync(lp, maxCutLp(g));
-  if (milpSolver === "cbc") {
-    execFileSync("cbc", [lp, "solve", "solu", out], { stdio: "ignore" });
-    const first = readFileSync(out, "utf8").split("\n")[0];
-    const m = /^Optimal - objective value\s+(-?[0-9.eE+-]+)/.exec(first);
-    if (m === null) throw new Error(`cbc: unexpected solution header ${JSON.stringify(first)}`);
-    return Number(m[1]);
-  }
-  execFileSync("glpsol", ["--lp", lp, "-o", out], { stdio: "ignore" });
-  const m = /Objective:\s+obj = (-?[0-9.eE+-]+) \(MAXimum\)/.exec(readFileSync(out, "utf8"));
-  if (m === null) throw new Error("glpsol: no objective in the report");
-  return Number(m[1]);
-}
 
 describe("exact max cut agrees with a MILP solver", () => {
   itNeeds([check("a MILP solver, cbc (coinor-cbc) or glpsol (glpk-utils)", () => milpSolver !== null)], "50 random graphs with n ≤ 30 (cbc, else glpsol, from the Debian archive)", () => {

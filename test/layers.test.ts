@@ -22,6 +22,8 @@ const LAYERS: readonly [number, string, (p: string) => boolean][] = [
   [9, "cut/exact", (p) => p.startsWith("src/cut/exact/")],
   [9, "cut/heuristic", (p) => p.startsWith("src/cut/heuristic/")],
   [9, "cut/relaxation", (p) => p.startsWith("src/cut/relaxation/")],
+  // Branch and bound bounded by the relaxation: uses the three solver folders, serves the bracket.
+  [9.5, "cut/tree", (p) => p.startsWith("src/cut/tree/")],
   [10, "cut/bracket", (p) => p.startsWith("src/cut/bracket/")],
   [10, "cut/decomposition", (p) => p.startsWith("src/cut/decomposition/")],
   [11, "cut/account", (p) => p.startsWith("src/cut/account/")],

@@ -6,6 +6,7 @@ export * from "./positive-weights.js";
 export * from "./exact/index.js";
 export * from "./heuristic/index.js";
 export * from "./relaxation/index.js";
+export * from "./tree/index.js";
 export * from "./bracket/index.js";
 export * from "./decomposition/index.js";
 export * from "./account/index.js";

@@ -35,7 +35,7 @@ export const COLUMNS: readonly ColumnSpec[] = [
   { name: "sourceFormat", type: "text", group: "identity", description: "format of that file" },
   { name: "graphHash", type: "text", group: "identity", description: "SHA-256 of the edge list (as in bracket records)" },
   { name: "solverSeed", type: "integer", group: "identity", description: "seed of the randomised solvers" },
-  { name: "effort", type: "text", group: "identity", description: "bracket effort: auto, exact, heuristic or quick" },
+  { name: "effort", type: "text", group: "identity", description: "bracket effort: auto, exact, heuristic, quick or deep" },
   { name: "budgetSeconds", type: "real", group: "identity", description: "wall-clock budget given to the bracket" },
   { name: "workLimit", type: "integer", group: "identity", description: "deterministic work budget given to the bracket (null: none)" },
   { name: "version", type: "text", group: "identity", description: "halfplus version that computed the row" },

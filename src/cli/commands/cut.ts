@@ -6,6 +6,7 @@ import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
 import { DEFAULT_BRACKET_SECONDS, MAX_BRACKET_WORK, type BracketProgress } from "../../cut/bracket/bracket.js";
 import { BracketRunner, type RunningBracket } from "../../cut/bracket/bracket-runner.js";
+import { TREE_RELAXATIONS, type TreeRelaxation } from "../../cut/tree/relaxation-tree.js";
 import { BRACKET_EFFORTS, recordJson, type BracketEffort, type BracketRecord, type BracketSnapshot } from "../../cut/bracket/record.js";
 import type { BracketBudget } from "../../cut/bracket/budget.js";
 import { MAX_SEED } from "../../random/seed.js";
@@ -30,6 +31,8 @@ const METHOD_WORDS: Readonly<Record<string, string>> = {
   "positive-weights": "sum of the positive edge weights",
   eigenvalue: "eigenvalue bound n·λmax(L)/4",
   "sdp-certified": "Goemans–Williamson SDP",
+  "sdp-triangles": "SDP with triangle inequalities",
+  "exact-sdp-tree": "branch and bound on SDP bounds",
 };
 
 const SHIFT_WORDS: Readonly<Record<string, string>> = {
@@ -59,6 +62,10 @@ function certificateText(r: Shown): string {
       return `${words(r.upperMethod)}: dual certificate, eigenvalue shift ${SHIFT_WORDS[c.shiftProof] ?? c.shiftProof}${rounded}`;
     case "positive-weights":
       return `${words("positive-weights")}${rounded}`;
+    case "triangle-dual":
+      return `${words(r.upperMethod)}: dual vector, ${c.mu.length} weighted triangle inequalities, shift proven by a Cholesky factorisation${rounded}`;
+    case "sdp-tree":
+      return `${words(r.upperMethod)} (${c.relaxation === "triangles" ? "SDP with triangle inequalities" : "plain SDP"} at each node): ${c.regions.length} regions after ${c.nodes} nodes, each with its certificate`;
   }
 }
 
@@ -147,11 +154,20 @@ export const cutCommand: CommandSpec = {
     {
       name: "effort",
       type: "string",
-      description: "auto: exact search on small graphs, heuristics and certified bounds otherwise; exact: exact search only; heuristic: never exact search; quick: cheap methods, for large batches",
+      description: "auto: exact search on small graphs, heuristics and certified bounds otherwise; exact: exact search only; heuristic: never exact search; quick: cheap methods, for large batches; deep: heuristics, the SDP with triangle inequalities, then branch and bound on SDP bounds (graphs of about a hundred vertices)",
       default: "auto",
       choices: BRACKET_EFFORTS,
       placeholder: "E",
     },
+    {
+      name: "node-bound",
+      type: "string",
+      description: "effort deep: what bounds each branch-and-bound node, triangles (the SDP with triangle inequalities) or plain (the SDP alone, cheaper per node)",
+      default: "triangles",
+      choices: TREE_RELAXATIONS,
+      placeholder: "B",
+    },
+    { name: "node-budget", type: "integer", description: "effort deep: stop branch and bound after N nodes (a budget that gives the same result on any machine)", min: 1, max: 1e12, placeholder: "N" },
     { name: "solver-seed", type: "integer", description: "seed of the randomised solvers (local search, SDP start, rounding, breakout)", default: 0, min: 0, max: MAX_SEED, placeholder: "N" },
     { name: "json", type: "boolean", description: "one JSON record per graph, one per line (what `halfplus verify` reads)" },
     { name: "out", short: "o", type: "string", description: "also write the JSON records to FILE", placeholder: "FILE" },
@@ -178,6 +194,7 @@ export const cutCommand: CommandSpec = {
     "nauty-geng -c 9 | halfplus cut - --json --seconds 1",
     "halfplus cut G1.txt --seconds 60 --effort heuristic",
     "halfplus cut polarity:q=13 --work 200000000 --json   # the same record on any machine",
+    "halfplus cut polarity:q=7 --effort deep --seconds 600",
   ],
   async run(args, io) {
     const o = args.options;
@@ -188,6 +205,7 @@ export const cutCommand: CommandSpec = {
     const budget = work !== undefined ? { work } : { seconds: seconds ?? DEFAULT_BRACKET_SECONDS };
     const solverSeed = o["solver-seed"] as number;
     const effort = o["effort"] as BracketEffort;
+    const deep = { relaxation: o["node-bound"] as TreeRelaxation, treeNodes: o["node-budget"] as number | undefined };
     const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
     const outPath = o["out"] as string | undefined;
     if (outPath === "") throw new InputError("--out needs a file name");
@@ -231,7 +249,7 @@ export const cutCommand: CommandSpec = {
       let first = true;
       for await (const item of openSource(args.positionals[0], sourceOptionsFrom(args, io.stdin))) {
         const progress = wantProgress ? progressWriter(io.stderr, item.label) : null;
-        running = runner.run(item.graph, { ...budget, solverSeed, effort, source: item.source, notes: item.notes, onProgress: progress?.update, failureProbability: o["risk"] as number });
+        running = runner.run(item.graph, { ...budget, solverSeed, effort, ...deep, source: item.source, notes: item.notes, onProgress: progress?.update, failureProbability: o["risk"] as number });
         let outcome: Awaited<RunningBracket["done"]>;
         try {
           outcome = await running.done;

@@ -26,6 +26,8 @@ import { eigenvalueUpperBound } from "../relaxation/eigenvalue-bound.js";
 import { certifySdpDual } from "../relaxation/sdp-bound.js";
 import { defaultSdpRank, solveSdp, type SdpRecord } from "../relaxation/sdp-mixing.js";
 import { positiveWeightBound } from "../positive-weights.js";
+import { solveTriangleSdp, type TriangleSdpRecord } from "../relaxation/triangle-sdp.js";
+import { TREE_RELAXATIONS, relaxationTreeSearch, type TreeRelaxation, type TreeSearchRecord } from "../tree/relaxation-tree.js";
 import type { CutRecord, DualCertificate, UpperBoundRecord, UpperKind } from "../types.js";
 import { recordEnvelope } from "../../graph/record/envelope.js";
 import type { GraphSource } from "../../graph/record/source.js";
@@ -84,6 +86,10 @@ export interface BracketOptions {
    * not fit its work limit, the shift holds with probability ≥ 1 − δ; 0 gives a bare Lanczos estimate instead.
    */
   failureProbability?: number;
+  /** Effort "deep": the node bound of its branch and bound (default "triangles"). */
+  relaxation?: TreeRelaxation;
+  /** Effort "deep": a deterministic budget of branch-and-bound nodes (default: time only). */
+  treeNodes?: number;
 }
 
 /** A seed per method, derived from the bracket's solverSeed so every run is reproducible. */
@@ -256,6 +262,38 @@ class BracketState {
       }
     }
     this.progress(r.method);
+  }
+
+  /** The SDP with triangle inequalities: its certified bound (effort "deep"). */
+  offerTriangle(r: TriangleSdpRecord): void {
+    this.runs.push({ method: r.method, role: "upper", value: r.value, status: r.status, seconds: r.seconds, solverSeed: r.solverSeed, details: { plainValue: r.plainValue, rounds: r.rounds, inequalities: r.inequalities } });
+    const bound = this.round(r.value);
+    if (Number.isFinite(bound) && bound < this.upper) {
+      const c = r.certificate;
+      this.upper = bound;
+      this.upperMethod = r.method;
+      this.upperKind = "proven";
+      this.certificate = { kind: "triangle-dual", y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, triangles: Array.from(c.triangles), mu: Array.from(c.mu), roundedDown: this.integral, tolerance: this.tolerance };
+    }
+    this.progress(r.method);
+  }
+
+  /** Relaxation-bounded branch and bound (effort "deep"): its cut, and its regions when they prove a better bound. */
+  offerTree(r: TreeSearchRecord): void {
+    this.runs.push({ method: r.method, role: "exact", value: r.value, upper: r.upper, status: r.status, seconds: r.seconds, solverSeed: r.solverSeed, details: plainDetails(r.details) });
+    this.takeCut(r);
+    if (r.certificate.regions.length > 0 && r.upper < this.upper) {
+      this.upper = r.upper;
+      this.upperMethod = r.method;
+      this.upperKind = "proven";
+      this.certificate = { kind: "sdp-tree", rootVertex: r.certificate.rootVertex, relaxation: r.relaxation, regions: r.certificate.regions, nodes: r.nodes, roundedDown: true, tolerance: this.tolerance };
+    }
+    this.progress(r.method);
+  }
+
+  /** Progress of the tree search: its incumbent and its running upper end (certified at the end). */
+  treeProgress(method: string): (p: { lower: number; upper: number }) => void {
+    return (p) => this.onProgress?.({ method, lower: Math.max(this.lower, p.lower), upper: Math.min(this.upper, p.upper), elapsed: this.elapsed(), snapshot: () => snapshotOf(this) });
   }
 
   /**
@@ -595,6 +633,47 @@ function exactStage(state: BracketState, seed: number, initial?: Uint8Array): vo
   state.offerExact(r);
 }
 
+/**
+ * Effort "deep": the SDP with triangle inequalities (a fifth of what is left), then branch and bound
+ * bounded by the chosen relaxation, warm-started from the best cut, for the rest. The tree search
+ * needs integer weights; other graphs keep the strengthened bound (the search is logged as skipped).
+ */
+function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation, treeNodes: number | undefined): void {
+  const { graph: g, meter, costs } = state;
+  // Work per stage (our own estimates, bench/sdp-tree): the strengthened SDP is a first solve of up
+  // to 2000 sweeps and 60 rounds of 60 warm-started sweeps with a dense proof each; a tree node is
+  // about 500 sweeps with the plain node bound and 20 times that with the triangle bound.
+  const rank = defaultSdpRank(g.n);
+  const roundCost = 60 * costs.sweep(rank) + costs.denseProof;
+  const triangleRounds = 60;
+  const t0 = meter.position();
+  state.attempt("sdp-triangles", "upper", () => {
+    const r = solveTriangleSdp(g, {
+      solverSeed: methodSeed(seed, 6),
+      seconds: state.solverSeconds(0.2 * state.left()),
+      iterations: meter.isWork ? Math.max(1, Math.min(triangleRounds, Math.floor((0.2 * state.left() - 2000 * costs.sweep(rank)) / roundCost))) : triangleRounds,
+      target: state.lower,
+    });
+    meter.charge("sdp-triangles", 2000 * costs.sweep(rank) + r.rounds * roundCost, meter.isWork ? r.seconds : meter.position() - t0);
+    state.offerTriangle(r);
+  });
+  if (state.closed()) return;
+  const nodeCost = (relaxation === "triangles" ? 20 : 1) * 500 * costs.sweep(rank);
+  const nodes = treeNodes ?? (meter.isWork ? Math.max(1, Math.floor(state.left() / nodeCost)) : undefined);
+  state.attempt("exact-sdp-tree", "exact", () => {
+    const r = relaxationTreeSearch(g, {
+      seconds: state.solverSeconds(state.left()),
+      work: nodes,
+      solverSeed: methodSeed(seed, 7),
+      initial: state.partition,
+      relaxation,
+      onProgress: state.treeProgress("sdp tree"),
+    });
+    meter.charge("exact-sdp-tree", unitsOf(Number(r.details?.workUsed ?? 0), nodeCost), r.seconds);
+    state.offerTree(r);
+  });
+}
+
 /** Is branch and bound worth part of the budget? A practical rule from bench/cut-exact: small or sparse graphs. */
 function exactLooksFeasible(g: Graph): boolean {
   return g.n <= 50 || (g.n <= 150 && g.m <= 3 * g.n);
@@ -622,6 +701,8 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
   const seed = checkSeed(owner, "solverSeed", options.solverSeed);
   const effort = options.effort ?? "auto";
   if (!BRACKET_EFFORTS.includes(effort)) throw invalidParameter(owner, "effort", `should be one of ${BRACKET_EFFORTS.join(", ")}`, effort);
+  if (options.relaxation !== undefined && !TREE_RELAXATIONS.includes(options.relaxation)) throw invalidParameter(owner, "relaxation", `should be one of ${TREE_RELAXATIONS.join(", ")}`, options.relaxation);
+  if (options.treeNodes !== undefined && !(Number.isInteger(options.treeNodes) && options.treeNodes > 0)) throw invalidParameter(owner, "treeNodes", "should be a positive integer", options.treeNodes);
   const state = new BracketState(graph, meter, options.onProgress, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
   state.failureProbability = checkFailureProbability(owner, options.failureProbability);
   state.progress("start");
@@ -630,6 +711,9 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
     if (effort === "exact") {
       exactStage(state, seed);
       if (!state.closed()) boundStage(state, "eigenvalue", () => eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0, failureProbability: state.failureProbability }));
+    } else if (effort === "deep") {
+      heuristicPhase(state, seed, false, 0.15);
+      if (!state.closed()) deepPhase(state, seed, options.relaxation ?? "triangles", options.treeNodes);
     } else if (effort === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
       exactStage(state, seed);
       if (!state.closed()) heuristicPhase(state, seed, false, 1);

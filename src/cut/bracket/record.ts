@@ -5,6 +5,7 @@
 import type { RecordEnvelope } from "../../graph/record/envelope.js";
 import type { ProbableShift, ShiftProof, SolverStatus, UpperKind } from "../types.js";
 import type { BracketBudget } from "./budget.js";
+import type { TreeRegion, TreeRelaxation } from "../tree/relaxation-tree.js";
 
 /** The `kind` every bracket record carries, so verify can refuse other JSON. */
 export const BRACKET_RECORD_KIND = "halfplus/bracket";
@@ -13,17 +14,21 @@ export const BRACKET_RECORD_KIND = "halfplus/bracket";
  * `notes`; optional `interrupted`; run statuses include `work-limit` and `skipped`.
  * Version 3: `budget` (which budget governed, its limits, work and seconds used, per stage); shift
  * proofs `sparse-cholesky` and `chebyshev-probable`; a probable certificate carries
- * `probable` (δ, seed, filter degree and interval) and the record's `upperKind` is then "probable".
+ * `probable` (δ, seed, filter degree and interval) and the record's `upperKind` is then "probable";
+ * effort `deep`; certificates `triangle-dual` (the SDP with triangle inequalities) and `sdp-tree`
+ * (the regions of a relaxation-bounded branch and bound).
  */
 export const BRACKET_RECORD_VERSION = 3;
 
 /**
  * How much work the bracket puts in. auto: exact search when the graph is small, heuristics and
  * certified bounds otherwise; exact: exact search only (plus the eigenvalue bound if it stops
- * early); heuristic: never exact search; quick: cheap methods only, for large batches of graphs.
+ * early); heuristic: never exact search; quick: cheap methods only, for large batches of graphs;
+ * deep: heuristics, then the SDP with triangle inequalities, then branch and bound bounded by the
+ * relaxation (`relaxation` option) for the rest of the budget (graphs of about a hundred vertices).
  */
-export type BracketEffort = "auto" | "exact" | "heuristic" | "quick";
-export const BRACKET_EFFORTS: readonly BracketEffort[] = ["auto", "exact", "heuristic", "quick"];
+export type BracketEffort = "auto" | "exact" | "heuristic" | "quick" | "deep";
+export const BRACKET_EFFORTS: readonly BracketEffort[] = ["auto", "exact", "heuristic", "quick", "deep"];
 
 /**
  * How `upper` is proven. `roundedDown`: the graph has integer weights, so every cut is an integer
@@ -34,7 +39,9 @@ export type BracketCertificate =
   | { kind: "psd-dual"; y: number[]; shift: number; shiftProof: ShiftProof; roundedDown: boolean; tolerance: number; probable?: ProbableShift }
   | { kind: "exhaustive"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
   | { kind: "unfinished-search"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
-  | { kind: "positive-weights"; roundedDown: boolean; tolerance: number };
+  | { kind: "positive-weights"; roundedDown: boolean; tolerance: number }
+  | { kind: "triangle-dual"; y: number[]; shift: number; shiftProof: "cholesky"; triangles: number[]; mu: number[]; roundedDown: boolean; tolerance: number }
+  | { kind: "sdp-tree"; rootVertex: number; relaxation: TreeRelaxation; regions: TreeRegion[]; nodes: number; roundedDown: boolean; tolerance: number };
 
 /** One method's contribution, summarised. */
 export interface BracketRun {

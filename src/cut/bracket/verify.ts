@@ -18,6 +18,8 @@ import { exactMaxCut } from "../exact/exact-max-cut.js";
 import { closingTolerance } from "../exact/exact-slack.js";
 import { MAX_DUAL_ENTRY, SHIFT_PROOFS, verifyCertificate } from "../relaxation/certificate.js";
 import { positiveWeightBound } from "../positive-weights.js";
+import { verifyTriangleCertificate } from "../relaxation/triangle-dual.js";
+import { TREE_RELAXATIONS, verifyTreeCertificate } from "../tree/relaxation-tree.js";
 import type { UpperKind } from "../types.js";
 import { BRACKET_EFFORTS, BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, type BracketRecord } from "./record.js";
 import { BUDGET_KINDS } from "./budget.js";
@@ -72,7 +74,7 @@ export function verifyExitStatus(counts: { rejected: number; estimate: number; p
 // ---- record shape -----------------------------------------------------------------------------
 
 const HASH_RE = /^sha256:[0-9a-f]{64}$/;
-const CERTIFICATE_KINDS = ["psd-dual", "exhaustive", "unfinished-search", "positive-weights"];
+const CERTIFICATE_KINDS = ["psd-dual", "exhaustive", "unfinished-search", "positive-weights", "triangle-dual", "sdp-tree"];
 const EMBEDDED_FORMATS = ["graph6", "sparse6", "edgelist"];
 
 /** Field checks that throw one InputError naming the record and the field. */
@@ -206,12 +208,42 @@ export function parseBracketRecord(value: unknown, where: string): BracketRecord
       f.count("certificate.probable.solverSeed", p.solverSeed);
       f.count("certificate.probable.degree", p.degree);
     }
+  } else if (c.kind === "triangle-dual" || c.kind === "sdp-tree") {
+    parseStrengthened(f, c);
   } else if (c.kind === "exhaustive" || c.kind === "unfinished-search") {
     f.text("certificate.search", c.search);
     f.optional(c, "graySteps", "certificate.graySteps", f.count);
     f.optional(c, "branchNodes", "certificate.branchNodes", f.count);
   }
   return value as BracketRecord;
+}
+
+/** Shapes of the strengthened-SDP certificates (effort deep): numbers where numbers belong; truth is checked later. */
+function parseStrengthened(f: Fields, c: Record<string, unknown>): void {
+  const numbers = (field: string, v: unknown): void => {
+    if (!Array.isArray(v) || !v.every((x) => typeof x === "number" && Number.isFinite(x))) f.bad(field, "an array of finite numbers", v);
+  };
+  const dual = (field: string, d: Record<string, unknown>): void => {
+    numbers(`${field}.y`, d.y);
+    f.finite(`${field}.shift`, d.shift);
+    f.oneOf(`${field}.shiftProof`, d.shiftProof, ["cholesky"]);
+    numbers(`${field}.triangles`, d.triangles);
+    numbers(`${field}.mu`, d.mu);
+  };
+  if (c.kind === "triangle-dual") return dual("certificate", c);
+  f.count("certificate.rootVertex", c.rootVertex);
+  f.count("certificate.nodes", c.nodes);
+  f.oneOf("certificate.relaxation", c.relaxation, TREE_RELAXATIONS);
+  if (!Array.isArray(c.regions)) f.bad("certificate.regions", "an array", c.regions);
+  (c.regions as unknown[]).forEach((reg, q) => {
+    const r = f.object(`certificate.regions[${q}]`, reg);
+    numbers(`certificate.regions[${q}].vertices`, r.vertices);
+    numbers(`certificate.regions[${q}].sides`, r.sides);
+    f.finite(`certificate.regions[${q}].bound`, r.bound);
+    const rc = f.object(`certificate.regions[${q}].certificate`, r.certificate);
+    f.oneOf(`certificate.regions[${q}].certificate.kind`, rc.kind, ["triangle-dual", "exhaustive"]);
+    if (rc.kind === "triangle-dual") dual(`certificate.regions[${q}].certificate`, rc);
+  });
 }
 
 // ---- verdict ----------------------------------------------------------------------------------
@@ -240,6 +272,18 @@ function deriveUpper(graph: Graph, record: BracketRecord, integral: boolean, sec
       const bound = integral ? floorCutBound(v.value) : v.value;
       const how = v.kind === "proven" ? "" : v.kind === "probable" ? `: holds with probability ≥ 1 − ${v.failureProbability}` : ": an estimate, not a proof";
       return { bound, kind: v.kind, failureProbability: v.failureProbability, message: `dual certificate (${cert.shiftProof}${how}) gives max cut ≤ ${bound}` };
+    }
+    case "triangle-dual": {
+      const v = verifyTriangleCertificate(graph, { kind: "triangle-dual", y: Float64Array.from(cert.y), shift: cert.shift, shiftProof: cert.shiftProof, triangles: Int32Array.from(cert.triangles), mu: Float64Array.from(cert.mu) });
+      if (!v.ok) return failed(`triangle certificate rejected: ${v.message}`);
+      const bound = integral ? floorCutBound(v.value) : v.value;
+      return { bound, kind: "proven", message: `SDP with ${cert.mu.length} triangle inequalities (Cholesky shift) gives max cut ≤ ${bound}` };
+    }
+    case "sdp-tree": {
+      if (!integral) return failed("an SDP tree certificate needs integer weights");
+      const v = verifyTreeCertificate(graph, { rootVertex: cert.rootVertex, relaxation: cert.relaxation, regions: cert.regions });
+      if (!v.ok) return failed(`tree certificate rejected: ${v.message}`);
+      return { bound: v.bound, kind: "proven", message: `branch and bound: ${v.message}` };
     }
     case "positive-weights": {
       const bound = positiveWeightBound(graph);

@@ -142,11 +142,21 @@ export function gershgorinShift(graph: Graph, y: ArrayLike<number>): number {
 }
 
 /**
- * Cholesky test that Diag(y) + shift·I − L ⪰ 0, i.e. shift ≥ λmax(L − Diag(y)), for the exact
- * weights and y. Off-diagonal entries w_ij are copied exactly; each diagonal entry is computed as
- * fl(fl(y_i + shift) − d̃_i) and carries at most γ_{deg+3}·(|y_i| + |shift| + Σ_j|w_ij|) of error.
+ * Further off-diagonal terms of the matrix a shift proof tests (the multipliers of valid
+ * inequalities, src/cut/relaxation/triangle-dual.ts): `add` adds them to the lower triangle of the
+ * row-major matrix (which holds w_ij there) and returns ρ ≥ ‖E‖₂, E the exact matrix minus what it
+ * wrote (its rounding, zero on the diagonal). A ⪰ Ã_off + Diag(A) − ρ·I, so proving the image with
+ * ρ more diagonal error proves A ⪰ 0.
  */
-export function proveShift(graph: Graph, y: ArrayLike<number>, shift: number): PsdProof {
+export type OffDiagonalTerms = (a: Float64Array, n: number) => number;
+
+/**
+ * Cholesky test that Diag(y) + shift·I − L (+ the `extra` terms) ⪰ 0, i.e. shift ≥ λmax(L − Diag(y)
+ * − extra), for the exact weights and y. Off-diagonal entries w_ij are copied exactly; each diagonal
+ * entry is computed as fl(fl(y_i + shift) − d̃_i) and carries at most γ_{deg+3}·(|y_i| + |shift| +
+ * Σ_j|w_ij|) of error; `extra` adds its own rounding bound ρ to that allowance.
+ */
+export function proveShift(graph: Graph, y: ArrayLike<number>, shift: number, extra?: OffDiagonalTerms): PsdProof {
   checkY(graph, y, "proveShift");
   if (!Number.isFinite(shift)) throw new InputError(`proveShift: \`shift\` is ${shift}, expected a finite number`);
   const { n, offsets, neighbors, weights } = graph;
@@ -162,7 +172,9 @@ export function proveShift(graph: Graph, y: ArrayLike<number>, shift: number): P
     }
     a[row + i] = diagonal[i];
   }
-  return provePsdByCholesky(a, n, error);
+  const rho = extra === undefined ? 0 : extra(a, n);
+  if (!(rho >= 0) || !Number.isFinite(rho)) return { proven: false, shift: 0, lambdaMinLowerBound: NaN, failedAt: -1, message: `extra terms' rounding bound is ${rho}` };
+  return provePsdByCholesky(a, n, rho === 0 ? error : roundUp((error + rho) * (1 + 4 * UNIT_ROUNDOFF), 2));
 }
 
 /**

@@ -6,3 +6,5 @@ export * from "./certificate.js";
 export * from "./sdp-bound.js";
 export * from "./eigenvalue-bound.js";
 export * from "./sdpa.js";
+export * from "./triangle-dual.js";
+export * from "./triangle-sdp.js";

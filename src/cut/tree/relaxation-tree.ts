@@ -1,0 +1,378 @@
+// Exact max cut for graphs of about a hundred vertices: best-first branch and bound whose nodes are
+// bounded by the SDP relaxation, plain or strengthened by triangle inequalities (the scheme of the
+// SDP-based exact solvers, Rendl, Rinaldi and Wiegele, Math. Programming 121 (2010)).
+//
+// One vertex (the largest degree) is fixed on side 0 by symmetry. A node fixes more vertices and is
+// solved as its reduced problem (./reduced-graph.ts): offset + a bound of a graph on the free
+// vertices plus z. Nodes with few free vertices are solved exactly (Gray code). A node is closed when
+// ⌊offset + bound⌋ ≤ the best cut; otherwise its vectors are rounded for a better cut, and it branches
+// on the free vertex least decided by the relaxation (|⟨v_z, v_u⟩| smallest). The open node with the
+// largest bound goes next, so that bound is the search's upper end at every moment (anytime).
+//
+// The evidence (`regions`): closed nodes with their certificates, and for an unfinished search the
+// parents of the open nodes with theirs; together they cover every cut with the fixed vertex on
+// side 0 (`verifyTreeCertificate` checks the covering and re-proves every bound).
+
+import { InputError, invalidParameter } from "../../errors.js";
+import { checkPartition, cutValue, floorCutBound } from "../../graph/cut-value.js";
+import type { Graph } from "../../graph/graph.js";
+import { EXACT_INTEGER_TOTAL, hasIntegerWeights, positiveWeightSum } from "../../graph/weights.js";
+import { roundUp } from "../../linalg/float-rounding.js";
+import { checkSeed } from "../../random/seed.js";
+import { checkSeconds } from "../../validate.js";
+import { checkWork, nowSeconds, PROGRESS_INTERVAL } from "../exact/common.js";
+import { exactMaxCut } from "../exact/exact-max-cut.js";
+import { hyperplaneRound } from "../heuristic/hyperplane-rounding.js";
+import { localSearch } from "../heuristic/local-search.js";
+import { verifyTriangleCertificate, type TriangleCertificate } from "../relaxation/triangle-dual.js";
+import { solveTriangleSdp } from "../relaxation/triangle-sdp.js";
+import type { CutRecord } from "../types.js";
+import { reducedProblem } from "./reduced-graph.js";
+
+/** Which relaxation bounds the nodes: the plain SDP, or the SDP with triangle inequalities. */
+export type TreeRelaxation = "plain" | "triangles";
+export const TREE_RELAXATIONS: readonly TreeRelaxation[] = ["plain", "triangles"];
+
+/** Nodes with at most this many free vertices are solved exactly by Gray code. */
+export const TREE_LEAF_VERTICES = 16;
+
+/**
+ * A part of the search space and why no cut in it beats the record's upper end: the vertices fixed
+ * on the way to it (in branching order) with their sides, and either a strengthened-SDP certificate
+ * of its reduced problem or "exhaustive" (verify solves the small reduced problem itself).
+ */
+export interface TreeRegion {
+  vertices: number[];
+  sides: number[];
+  /** offset + the reduced problem's bound, rounded down: no cut in the region exceeds it. */
+  bound: number;
+  certificate: (Omit<TriangleCertificate, "y" | "triangles" | "mu"> & { y: number[]; triangles: number[]; mu: number[] }) | { kind: "exhaustive" };
+}
+
+export interface TreeCertificate {
+  /** The vertex fixed on side 0 by symmetry. */
+  rootVertex: number;
+  relaxation: TreeRelaxation;
+  regions: TreeRegion[];
+}
+
+export interface TreeSearchOptions {
+  /** Wall-clock budget (default 600 s); checked between nodes. */
+  seconds?: number;
+  /** Deterministic work budget: nodes (default none). Same seed and work give the same result. */
+  work?: number;
+  solverSeed?: number;
+  /** A known good partition to start from (the best cut so far). */
+  initial?: ArrayLike<number>;
+  /** Node bound (default "triangles"). */
+  relaxation?: TreeRelaxation;
+  /** Separation rounds per node for "triangles" (default 25). */
+  roundsPerNode?: number;
+  /** Called about every half second with the bracket so far. */
+  onProgress?: (p: { lower: number; upper: number; nodes: number; open: number; seconds: number }) => void;
+}
+
+export interface TreeSearchRecord extends CutRecord {
+  status: "optimal" | "time-limit" | "work-limit";
+  /** Proven: no cut exceeds it (the largest bound of a region, or the cut itself). */
+  upper: number;
+  nodes: number;
+  relaxation: TreeRelaxation;
+  certificate: TreeCertificate;
+}
+
+interface Node {
+  side: Uint8Array;
+  path: number[];
+  depth: number;
+  /** The parent's bound (Infinity at the root): an upper end for every cut in the node. */
+  bound: number;
+  parent: Node | null;
+  /** The parent's SDP vectors restricted to this node's reduced vertices (a warm start), and their rank. */
+  warm: Float64Array | null;
+  rank: number;
+  /** Set when the node was evaluated: its own region evidence. */
+  region: TreeRegion | null;
+  seq: number;
+}
+
+/** Max-heap on (bound, depth, −seq): best bound first, deeper first among equals, then oldest. */
+class NodeHeap {
+  private readonly a: Node[] = [];
+  get size(): number {
+    return this.a.length;
+  }
+  top(): Node | undefined {
+    return this.a[0];
+  }
+  private before(x: Node, y: Node): boolean {
+    return x.bound !== y.bound ? x.bound > y.bound : x.depth !== y.depth ? x.depth > y.depth : x.seq < y.seq;
+  }
+  push(x: Node): void {
+    const a = this.a;
+    a.push(x);
+    let i = a.length - 1;
+    while (i > 0) {
+      const p = (i - 1) >> 1;
+      if (!this.before(a[i], a[p])) break;
+      [a[i], a[p]] = [a[p], a[i]];
+      i = p;
+    }
+  }
+  pop(): Node | undefined {
+    const a = this.a;
+    const top = a[0];
+    const last = a.pop();
+    if (a.length > 0 && last !== undefined) {
+      a[0] = last;
+      let i = 0;
+      for (;;) {
+        const l = 2 * i + 1, r = l + 1;
+        let b = i;
+        if (l < a.length && this.before(a[l], a[b])) b = l;
+        if (r < a.length && this.before(a[r], a[b])) b = r;
+        if (b === i) break;
+        [a[i], a[b]] = [a[b], a[i]];
+        i = b;
+      }
+    }
+    return top;
+  }
+  all(): Node[] {
+    return this.a.slice();
+  }
+}
+
+const OWNER = "relaxationTreeSearch";
+
+function plainCertificate(c: TriangleCertificate): TreeRegion["certificate"] {
+  return { kind: c.kind, y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, triangles: Array.from(c.triangles), mu: Array.from(c.mu) };
+}
+
+/** Exact max cut by relaxation-bounded branch and bound (see the file header). Integer weights only. */
+export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = {}): TreeSearchRecord {
+  const t0 = nowSeconds();
+  const seconds = checkSeconds(OWNER, options.seconds, 600);
+  const workLimit = checkWork(OWNER, options.work);
+  const seed = checkSeed(OWNER, "solverSeed", options.solverSeed);
+  const relaxation = options.relaxation ?? "triangles";
+  if (!TREE_RELAXATIONS.includes(relaxation)) throw invalidParameter(OWNER, "relaxation", `should be one of ${TREE_RELAXATIONS.join(", ")}`, relaxation);
+  const rounds = options.roundsPerNode ?? 25;
+  if (!(Number.isInteger(rounds) && rounds >= 0)) throw invalidParameter(OWNER, "roundsPerNode", "should be a non-negative integer", rounds);
+  if (!hasIntegerWeights(graph) || positiveWeightSum(graph) > EXACT_INTEGER_TOTAL) {
+    throw new InputError(`${OWNER}: the graph should have integer weights (every cut then is an exact integer)`);
+  }
+  if (options.initial !== undefined) checkPartition(graph, options.initial, `${OWNER}: initial`);
+  const n = graph.n;
+  const deadline = t0 + seconds;
+
+  // The incumbent: the caller's cut or a quick local search, whichever is better.
+  let partition: Uint8Array = Uint8Array.from(options.initial ?? localSearch(graph, { iterations: 8, solverSeed: seed }).partition);
+  let lower = cutValue(graph, partition);
+  const offer = (p: Uint8Array): void => {
+    const v = cutValue(graph, p);
+    if (v > lower) {
+      lower = v;
+      partition = p;
+    }
+  };
+
+  let rootVertex = 0;
+  for (let v = 1; v < n; v++) if (graph.degree(v) > graph.degree(rootVertex)) rootVertex = v;
+  const closed: Node[] = [];
+  const heap = new NodeHeap();
+  let seq = 0;
+  const rootSide = new Uint8Array(n).fill(255);
+  if (n > 0) rootSide[rootVertex] = 0;
+  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, rank: 0, region: null, seq: seq++ });
+  let nodes = 0;
+  let status: TreeSearchRecord["status"] = "optimal";
+  let lastProgress = t0;
+  const upperNow = (): number => Math.max(lower, heap.size > 0 ? heap.top()!.bound : -Infinity);
+
+  while (heap.size > 0) {
+    const node = heap.top()!;
+    if (node.bound <= lower) {
+      // Every open node is beaten by the incumbent: closed by its parent's bound.
+      break;
+    }
+    if (nodes >= workLimit) {
+      status = "work-limit";
+      break;
+    }
+    if (nowSeconds() > deadline) {
+      status = "time-limit";
+      break;
+    }
+    heap.pop();
+    nodes++;
+    const red = reducedProblem(graph, node.side);
+    const freeCount = red.free.length;
+    const toFull = (redSide: ArrayLike<number>): Uint8Array => {
+      const p = new Uint8Array(n);
+      for (let v = 0; v < n; v++) p[v] = node.side[v] === 255 ? 0 : node.side[v];
+      for (let i = 0; i < freeCount; i++) p[red.free[i]] = redSide[i + 1] === redSide[0] ? 0 : 1;
+      return p;
+    };
+    if (freeCount <= TREE_LEAF_VERTICES) {
+      const ex = exactMaxCut(red.graph, { seconds: 60, solverSeed: seed });
+      offer(toFull(ex.partition));
+      node.region = { vertices: node.path.filter((_, i) => i % 2 === 0), sides: node.path.filter((_, i) => i % 2 === 1), bound: floorCutBound(red.offset + ex.upper), certificate: { kind: "exhaustive" } };
+      closed.push(node);
+      continue;
+    }
+    const target = lower - red.offset;
+    const warm = node.warm !== null ? { initial: node.warm, rank: node.rank } : {};
+    const sdp = solveTriangleSdp(red.graph, { solverSeed: seed, iterations: relaxation === "triangles" ? rounds : 0, target, stopGap: 1, firstTolerance: 1e-7, ...warm });
+    // offset is an exact integer, the bound a float rounded up: round the sum up, then down to an integer.
+    const bound = floorCutBound(roundUp(red.offset + sdp.value, 1));
+    node.region = {
+      vertices: node.path.filter((_, i) => i % 2 === 0),
+      sides: node.path.filter((_, i) => i % 2 === 1),
+      bound,
+      certificate: plainCertificate(sdp.certificate),
+    };
+    // A better cut from the node's vectors.
+    const rounded = hyperplaneRound(red.graph, sdp.vectors, sdp.rank, { trials: 8, solverSeed: seed, polish: true });
+    offer(toFull(rounded.partition));
+    if (bound <= lower) {
+      closed.push(node);
+    } else {
+      // Branch on the free vertex least decided relative to z.
+      const r = sdp.rank, V = sdp.vectors;
+      let pick = 1, best = Infinity;
+      for (let i = 1; i <= freeCount; i++) {
+        let dot = 0;
+        for (let t = 0; t < r; t++) dot += V[t] * V[i * r + t];
+        if (Math.abs(dot) < best) {
+          best = Math.abs(dot);
+          pick = i;
+        }
+      }
+      const v = red.free[pick - 1];
+      // Children keep z and every free vertex but v, in the same order: their warm start drops v's row.
+      const childWarm = new Float64Array(freeCount * r);
+      childWarm.set(V.subarray(0, pick * r));
+      childWarm.set(V.subarray((pick + 1) * r), pick * r);
+      for (const s of [0, 1]) {
+        const side = node.side.slice();
+        side[v] = s;
+        heap.push({ side, path: [...node.path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, rank: r, region: null, seq: seq++ });
+      }
+    }
+    const now = nowSeconds();
+    if (options.onProgress !== undefined && now - lastProgress >= PROGRESS_INTERVAL) {
+      lastProgress = now;
+      options.onProgress({ lower, upper: upperNow(), nodes, open: heap.size, seconds: now - t0 });
+    }
+  }
+  // The evidence: closed regions, plus the parents of open nodes still above the incumbent (their
+  // own region covers both children). Open nodes at or below the incumbent are covered the same way.
+  const regionNodes = new Set<Node>(closed);
+  // The root still open (a budget spent before it was bounded): no evidence, no bound.
+  const rootOpen = heap.all().some((x) => x.parent === null);
+  for (const open of heap.all()) if (open.parent !== null) regionNodes.add(open.parent);
+  // A region whose ancestor is a region adds nothing: drop it.
+  const regions: TreeRegion[] = [];
+  let upper = lower;
+  for (const node of regionNodes) {
+    let a = node.parent;
+    let covered = false;
+    while (a !== null) {
+      if (regionNodes.has(a)) {
+        covered = true;
+        break;
+      }
+      a = a.parent;
+    }
+    if (covered) continue;
+    regions.push(node.region!);
+    upper = Math.max(upper, node.region!.bound);
+  }
+  if (rootOpen) upper = floorCutBound(positiveWeightSum(graph));
+  return {
+    method: `exact-sdp-tree`,
+    value: lower,
+    partition,
+    status,
+    seconds: nowSeconds() - t0,
+    solverSeed: seed,
+    upper,
+    nodes,
+    relaxation,
+    certificate: { rootVertex, relaxation, regions },
+    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size },
+  };
+}
+
+export interface TreeCheck {
+  ok: boolean;
+  /** The largest proven region bound (NaN when a check fails). */
+  bound: number;
+  message: string;
+}
+
+/**
+ * Re-check a tree certificate from the graph alone: the regions must cover every cut with the root
+ * vertex on side 0 (a region covers all cuts agreeing with its fixed vertices; an uncovered prefix
+ * needs both sides of one vertex covered below it), and every region's bound is re-derived from
+ * its reduced problem (a strengthened-SDP certificate re-proved, or the small problem re-solved).
+ */
+export function verifyTreeCertificate(graph: Graph, cert: TreeCertificate): TreeCheck {
+  const bad = (message: string): TreeCheck => ({ ok: false, bound: NaN, message });
+  const n = graph.n;
+  if (!Number.isInteger(cert.rootVertex) || cert.rootVertex < 0 || cert.rootVertex >= Math.max(1, n)) return bad(`rootVertex ${cert.rootVertex} is not a vertex`);
+  if (!Array.isArray(cert.regions) || cert.regions.length === 0) return bad("no regions");
+  // Trie of region paths.
+  interface Trie { region: boolean; kids: Map<string, Trie> }
+  const root: Trie = { region: false, kids: new Map() };
+  let bound = -Infinity;
+  for (let q = 0; q < cert.regions.length; q++) {
+    const reg = cert.regions[q];
+    if (!Array.isArray(reg.vertices) || !Array.isArray(reg.sides) || reg.vertices.length !== reg.sides.length) return bad(`region ${q}: vertices and sides differ in length`);
+    const side = new Uint8Array(n).fill(255);
+    if (n > 0) side[cert.rootVertex] = 0;
+    let at = root;
+    for (let k = 0; k < reg.vertices.length; k++) {
+      const v = reg.vertices[k], s = reg.sides[k];
+      if (!Number.isInteger(v) || v < 0 || v >= n || side[v] !== 255 || (s !== 0 && s !== 1)) return bad(`region ${q}: fixing ${k} (vertex ${v}, side ${s}) is invalid or repeated`);
+      side[v] = s;
+      const key = `${v}:${s}`;
+      let next = at.kids.get(key);
+      if (next === undefined) {
+        next = { region: false, kids: new Map() };
+        at.kids.set(key, next);
+      }
+      at = next;
+    }
+    at.region = true;
+    const red = reducedProblem(graph, side);
+    let b: number;
+    if (reg.certificate.kind === "exhaustive") {
+      if (red.free.length > TREE_LEAF_VERTICES) return bad(`region ${q}: ${red.free.length} free vertices are too many for an exhaustive region`);
+      const ex = exactMaxCut(red.graph, { seconds: 60 });
+      if (ex.status !== "optimal") return bad(`region ${q}: the exact search did not finish`);
+      b = floorCutBound(red.offset + ex.upper);
+    } else if (reg.certificate.kind === "triangle-dual") {
+      const c = reg.certificate;
+      const check = verifyTriangleCertificate(red.graph, { kind: "triangle-dual", y: Float64Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, triangles: Int32Array.from(c.triangles), mu: Float64Array.from(c.mu) });
+      if (!check.ok) return bad(`region ${q}: ${check.message}`);
+      b = floorCutBound(roundUp(red.offset + check.value, 1));
+    } else return bad(`region ${q}: unknown certificate kind`);
+    if (b > reg.bound) return bad(`region ${q}: re-derived bound ${b} is above the claimed ${reg.bound}`);
+    bound = Math.max(bound, b);
+  }
+  const covers = (t: Trie): boolean => {
+    if (t.region) return true;
+    const byVertex = new Map<string, number>();
+    for (const [key, kid] of t.kids) {
+      if (!covers(kid)) continue;
+      const v = key.split(":")[0];
+      byVertex.set(v, (byVertex.get(v) ?? 0) + 1);
+    }
+    for (const c of byVertex.values()) if (c === 2) return true;
+    return false;
+  };
+  if (!covers(root)) return bad("the regions do not cover every cut");
+  return { ok: true, bound, message: `${cert.regions.length} regions cover every cut; largest bound ${bound}` };
+}
