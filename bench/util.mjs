@@ -1,6 +1,6 @@
 // Shared helpers for benchmark scripts: timing, the ../shared reference folder and its tables,
 // random edge sets, output files.
-import { existsSync, readFileSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -49,5 +49,6 @@ export function timeBest(f, reps = 3) {
 
 export function report(name, rows) {
   console.table(rows);
+  mkdirSync(join(here, "out"), { recursive: true }); // a bench run on its own, not through run.mjs
   writeFileSync(join(here, "out", `${name}.json`), JSON.stringify(rows, null, 2));
 }
