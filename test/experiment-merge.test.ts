@@ -14,6 +14,7 @@ import { openStore } from "../src/experiment/sqlite-store.js";
 import type { ResultStore } from "../src/experiment/store.js";
 import { runSweep } from "../src/experiment/sweep.js";
 import type { SweepPlan } from "../src/experiment/plan.js";
+import { allRows } from "./helpers/store.js";
 
 const dir = mkdtempSync(join(tmpdir(), "halfplus-merge-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -33,15 +34,6 @@ beforeAll(async () => {
   rows = allRows(full);
   expect(rows).toHaveLength(JOBS);
 });
-
-function allRows(path: string): StoredRow[] {
-  const st = openStore(path, { readonly: true });
-  try {
-    return [...st.rows()];
-  } finally {
-    st.close();
-  }
-}
 
 /** A value of the column's type that differs from `v` (null included). */
 function changed(spec: ColumnSpec, v: CellValue): CellValue {

@@ -22,6 +22,7 @@ import { family } from "../src/families/registry.js";
 import { Rng } from "../src/random/prng.js";
 import { boundTightnessFigure } from "../src/plot/figures/bound-tightness.js";
 import { bruteForceMaxCut } from "./helpers/maxcut.js";
+import { allRows } from "./helpers/store.js";
 
 const dir = mkdtempSync(join(tmpdir(), "halfplus-store-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -43,15 +44,6 @@ beforeAll(async () => {
   const s = await runSweep(PLAN, { store: full, workers: 0 });
   expect(s).toMatchObject({ total: JOBS, computed: JOBS, skipped: 0, stopped: false });
 });
-
-function allRows(path: string): StoredRow[] {
-  const st = openStore(path, { readonly: true });
-  try {
-    return [...st.rows()];
-  } finally {
-    st.close();
-  }
-}
 
 function csvOf(path: string, timing = false): string {
   const st = openStore(path, { readonly: true });

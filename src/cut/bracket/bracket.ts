@@ -646,7 +646,6 @@ function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation
   const rank = defaultSdpRank(g.n);
   const roundCost = 60 * costs.sweep(rank) + costs.denseProof;
   const triangleRounds = 60;
-  const t0 = meter.position();
   state.attempt("sdp-triangles", "upper", () => {
     const r = solveTriangleSdp(g, {
       solverSeed: methodSeed(seed, 6),
@@ -654,7 +653,7 @@ function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation
       iterations: meter.isWork ? Math.max(1, Math.min(triangleRounds, Math.floor((0.2 * state.left() - 2000 * costs.sweep(rank)) / roundCost))) : triangleRounds,
       target: state.lower,
     });
-    meter.charge("sdp-triangles", 2000 * costs.sweep(rank) + r.rounds * roundCost, meter.isWork ? r.seconds : meter.position() - t0);
+    meter.charge("sdp-triangles", 2000 * costs.sweep(rank) + r.rounds * roundCost, r.seconds);
     state.offerTriangle(r);
   });
   if (state.closed()) return;
