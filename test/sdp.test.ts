@@ -122,7 +122,8 @@ describeNeeds([file(join(GSET_REFERENCE, "sdp-upper-bound.csv"), "../shared/refe
       const g = parseGset(readFileSync(join(GSET_REFERENCE, `${name}.txt`))).graph;
       const ref = table.get(name)!;
       const b = sdpUpperBound(g, { sdp: { gapTolerance: 1e-4 } });
-      expect(b.certificate?.shiftProof).toBe("cholesky");
+      // G11 is a toroidal grid: its narrow envelope makes the sparse proof far cheaper than the dense one.
+      expect(b.certificate?.shiftProof).toBe(name === "G11" ? "sparse-cholesky" : "cholesky");
       // The table rounds to 4–6 significant digits; a proof may sit below it by that rounding only.
       expect(b.value).toBeGreaterThanOrEqual(ref * (1 - 1e-5));
       expect((b.value - ref) / ref).toBeLessThan(5e-4);
