@@ -49,13 +49,17 @@ export const DEFAULT_FAILURE_PROBABILITY = 1e-9;
 export const SPARSE_PROOF_WORK = 5e8;
 
 export interface CertifyOptions {
-  /** auto (default): Cholesky when n ≤ denseLimit, else a Lanczos estimate (Gershgorin whenever it is as good); or force one. */
+  /**
+   * auto (default): Cholesky when n ≤ denseLimit (the sparse proof instead when it costs at most a quarter),
+   * above it the sparse proof when it fits sparseWorkLimit, else a probable shift or a Lanczos estimate
+   * (Gershgorin whenever it is as good); or force one.
+   */
   shiftProof?: "auto" | ShiftProof;
   /** Largest n for the dense Cholesky proof (default 3000: n² doubles of memory, n³/6 multiply-adds). */
   denseLimit?: number;
   /** Seed of the Lanczos start vector (default 1; a Lanczos estimate also runs seed + 1, wrapping to 0). */
   solverSeed?: number;
-  /** Lanczos residual tolerance relative to ‖L − Diag(y)‖ (default 1e-9). */
+  /** Lanczos residual tolerance relative to ‖L − Diag(y)‖, and a bisection's final bracket (default 1e-9). */
   tolerance?: number;
   /** Record name (default "dual-certificate"). */
   name?: string;
@@ -64,7 +68,7 @@ export interface CertifyOptions {
    * proof does not fit in sparseWorkLimit; 0 turns probable shifts off (a bare Lanczos estimate instead).
    */
   failureProbability?: number;
-  /** Most multiply-adds the sparse Cholesky proof may take (default SPARSE_PROOF_WORK; 0 turns it off). Deterministic. */
+  /** Most multiply-adds one sparse Cholesky factorisation may take (default SPARSE_PROOF_WORK; 0 turns the sparse proof off). Deterministic. A bisection repeats factorisations of at most 50 Lanczos products each, at most 48 times. */
   sparseWorkLimit?: number;
 }
 

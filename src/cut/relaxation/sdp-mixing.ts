@@ -86,7 +86,7 @@ const GRID_MIN_VERTICES = 256;
 
 /**
  * Grid-like: the breadth-first search from vertex 0 reaches at least GRID_MIN_VERTICES vertices and a
- * depth of at least the square root of their number (a k×k grid or torus has depth ≥ k/2·2 = k; random
+ * depth of at least the square root of their number (a k×k torus has depth k = √n, a k×k grid from its corner 2k − 2; random
  * graphs of any degree have depth O(log n)). O(n + m), a pure function of the graph.
  */
 export function isGridLike(graph: Graph): boolean {
