@@ -127,7 +127,7 @@ class SqliteStore implements ResultStore {
       for (const r of rows) {
         if (r.length !== COLUMNS.length) throw new Error(`row of ${r.length} values, expected ${COLUMNS.length}`);
         for (let i = 0; i < cells.length; i++) cells[i] = toCell(r[all ? i : this.positions[i]]);
-        added += this.insertStmt.run(...cells).changes;
+        added += this.insertStmt.run(cells).changes;
       }
       return added;
     });

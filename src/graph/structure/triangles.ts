@@ -54,3 +54,18 @@ export function countTriangles(g: Graph): TriangleCount {
   const witness = wa < 0 ? null : [vertexOf[wa], vertexOf[wb], vertexOf[wc]];
   return { total, perVertex, witness };
 }
+
+/**
+ * The triangle count of a graph, computed once per Graph object and shared: a sweep job asks for
+ * it in the structure summary and in four lower-bound evaluators. Graphs are immutable, so the
+ * count stays valid; callers must treat the record (its perVertex array above all) as read-only.
+ */
+const shared = new WeakMap<Graph, TriangleCount>();
+export function sharedTriangleCount(g: Graph): TriangleCount {
+  let t = shared.get(g);
+  if (t === undefined) {
+    t = countTriangles(g);
+    shared.set(g, t);
+  }
+  return t;
+}
