@@ -218,6 +218,8 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     for (const r of store.rows(undefined, ["key"])) stored.add(String(r.key));
   }
 
+  // Log checkpoints on a thread of their own: the main thread only schedules and appends rows.
+  const stopMaintenance = store.backgroundMaintenance?.() ?? null;
   let stopped = false;
   let batch: PlannedJob[] = [];
   try {
@@ -256,6 +258,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     log.computed = computed;
     log.status = failure !== null ? "failed" : stopped ? "stopped" : "finished";
     store.logSweep(log);
+    await stopMaintenance?.();
     if (ownStore) store.close();
   }
   if (failure !== null) throw failure;

@@ -301,6 +301,13 @@ function peel(graph: Graph, c: number): Peeled {
   }
 }
 
+/** The ids as a plain array in ascending order (they usually arrive sorted: then no sort). */
+function ascending(ids: Int32Array): number[] {
+  const out = Array.from(ids);
+  for (let i = 1; i < out.length; i++) if (out[i - 1] > out[i]) return out.sort((a, b) => a - b);
+  return out;
+}
+
 /** A derived seed per rounded stage, so every stage is reproducible from the one solverSeed. */
 function stageSeed(run: Run): number {
   run.roundings++;
@@ -379,7 +386,7 @@ function decompose(run: Run, graph: Graph, ids: Int32Array, level: number, withi
     m: rest.m,
     guarantee: restGuarantee,
     surplus: surplusOf(rest, cutValue(rest, restSide)),
-    details: { ...restDetails, triangleThreshold: threshold, piecesSetAside: peeled.pieces.length },
+    details: Object.assign(restDetails, { triangleThreshold: threshold, piecesSetAside: peeled.pieces.length }),
   });
   for (let i = 0; i < rest.n; i++) {
     side[peeled.remainder[i]] = restSide[i];
@@ -393,7 +400,8 @@ function decompose(run: Run, graph: Graph, ids: Int32Array, level: number, withi
   const { offsets: off, neighbors: nb } = graph;
   for (const p of peeled.pieces) {
     const sub = inducedSubgraph(graph, p.vertices);
-    const pieceIds = Int32Array.from(p.vertices, (v) => ids[v]);
+    const pieceIds = new Int32Array(p.vertices.length);
+    for (let i = 0; i < pieceIds.length; i++) pieceIds[i] = ids[p.vertices[i]];
     const id = run.pieces.length;
     const triangles = sub.m === 0 ? 0 : sharedTriangleCount(sub).total;
     const piece: DecompositionPiece = {
@@ -401,7 +409,7 @@ function decompose(run: Run, graph: Graph, ids: Int32Array, level: number, withi
       parent: within,
       level: level + 1,
       centre: ids[p.centre],
-      vertices: Array.from(pieceIds).sort((a, b) => a - b),
+      vertices: ascending(pieceIds),
       n: sub.n,
       m: sub.m,
       triangles,
