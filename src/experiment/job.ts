@@ -226,7 +226,14 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
     if (embedded !== null && embedded.length <= EMBED_MAX_CHARS) source.embedded = embeddedOfText(embedded);
   }
   const t0 = performance.now();
-  const rec = bracket(graph, { ...budgetOption(job.settings), solverSeed: job.solverSeed, effort: job.settings.effort, source });
+  // The options written out (not spread from budgetOption): a tiny job's bracket is a few microseconds.
+  const settings = job.settings;
+  const rec = bracket(
+    graph,
+    settings.work !== null
+      ? { work: settings.work, solverSeed: job.solverSeed, effort: settings.effort, source }
+      : { seconds: settings.seconds ?? DEFAULT_BRACKET_SECONDS, solverSeed: job.solverSeed, effort: settings.effort, source },
+  );
   const solverSeconds = (performance.now() - t0) / 1000;
   const s = describeGraph(graph, { maxSearchNodes: STRUCTURE_SEARCH_NODES });
   const keep = context.degrees;
