@@ -281,10 +281,26 @@ export function optimiseVectorChoice(graph: Graph, options: VectorChoiceOptions 
   };
 }
 
+/**
+ * optimiseVectorChoice with the default options, computed once per Graph object: a sweep job asks
+ * for it in the vector-optimised evaluator and again in the decomposition cut, whose remainder is
+ * often the whole graph. Graphs are immutable; callers must treat the record as read-only.
+ */
+const sharedChoices = new WeakMap<Graph, VectorChoiceRecord>();
+export function sharedVectorChoice(graph: Graph): VectorChoiceRecord {
+  let r = sharedChoices.get(graph);
+  if (r === undefined) {
+    r = optimiseVectorChoice(graph);
+    sharedChoices.set(graph, r);
+  }
+  return r;
+}
+
 /** The optimised guarantee as a plain lower-bound record ("does not apply" for weighted graphs). */
 export function vectorOptimisedBound(graph: Graph, options: VectorChoiceOptions = {}): LowerBoundRecord {
   if (graph.weighted) return boundDoesNotApply(NAME, "proved for unweighted graphs only");
-  const { name, value, surplus, applies, reason } = optimiseVectorChoice(graph, options).guarantee;
+  const defaults = options.optimiseSets === undefined && options.maxSweeps === undefined;
+  const { name, value, surplus, applies, reason } = (defaults ? sharedVectorChoice(graph) : optimiseVectorChoice(graph, options)).guarantee;
   return { name, value, surplus, applies, reason };
 }
 
