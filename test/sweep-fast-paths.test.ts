@@ -16,6 +16,7 @@ import { componentSubgraph, inducedSubgraph } from "../src/graph/induced.js";
 import { countTriangles, sharedTriangleCount } from "../src/graph/structure/triangles.js";
 import { describeGraph } from "../src/graph/structure/describe.js";
 import { Rng } from "../src/random/prng.js";
+import { resolveVectorSets } from "../src/bounds/vector-sets.js";
 import { randomGraph } from "./helpers/graphs.js";
 
 /** The k-th labelled graph on n vertices: bit i of k says whether the i-th pair (u < v, v outer) is an edge. */
@@ -145,5 +146,25 @@ describe("results shared per graph object", () => {
         expect(sharedTriangleCount(g).witness).toEqual(countTriangles(g).witness);
       }
     }
+  });
+});
+
+describe("vector sets given in ascending order", () => {
+  it("resolve to the same sets as shuffled lists, and bad lists fail with the same message either way", () => {
+    const rng = new Rng(9);
+    for (let t = 0; t < 40; t++) {
+      const g = randomGraph(3 + rng.nextInt(20), 0.2 + 0.6 * rng.nextFloat(), rng);
+      const sorted = Array.from({ length: g.n }, (_, i) => Array.from(g.neighborsOf(i)).filter(() => rng.nextFloat() < 0.7));
+      const shuffled = sorted.map((s) => rng.shuffle(s.slice()));
+      const a = resolveVectorSets(g, { sets: sorted });
+      const b = resolveVectorSets(g, { sets: shuffled });
+      expect(Array.from(a.offsets)).toEqual(Array.from(b.offsets));
+      expect(Array.from(a.members)).toEqual(Array.from(b.members));
+      expect(Array.from(a.eps)).toEqual(Array.from(b.eps));
+    }
+    // Vertex 0 of a path 0–1–2: 2 is not a neighbour; [1, 1] repeats.
+    const path = graphFromEdges(3, [[0, 1], [1, 2]]);
+    expect(() => resolveVectorSets(path, { sets: [[1, 2], [], []] })).toThrow("vector method: invalid `sets[0]`: should contain only neighbours of vertex 0; 2 is not one (got [1,2])");
+    expect(() => resolveVectorSets(path, { sets: [[1, 1], [], []] })).toThrow(/should not repeat vertex 1/);
   });
 });
