@@ -15,6 +15,8 @@ import type { Graph } from "../src/graph/graph.js";
 import { componentSubgraph, inducedSubgraph } from "../src/graph/induced.js";
 import { countTriangles, sharedTriangleCount } from "../src/graph/structure/triangles.js";
 import { describeGraph } from "../src/graph/structure/describe.js";
+import { degeneracy, sharedDegeneracy } from "../src/graph/structure/degeneracy.js";
+import { findClique } from "../src/graph/structure/cliques.js";
 import { Rng } from "../src/random/prng.js";
 import { resolveVectorSets } from "../src/bounds/vector-sets.js";
 import { randomGraph } from "./helpers/graphs.js";
@@ -130,15 +132,35 @@ describe("decomposition cut memo of tiny stage graphs", () => {
   });
 });
 
+/** Is there a K_r? Every r-subset tried (small graphs only). */
+function hasClique(g: Graph, r: number): boolean {
+  const pick: number[] = [];
+  const grow = (from: number): boolean => {
+    if (pick.length === r) return true;
+    for (let v = from; v < g.n; v++) {
+      if (pick.every((u) => g.hasEdge(u, v))) {
+        pick.push(v);
+        if (grow(v + 1)) return true;
+        pick.pop();
+      }
+    }
+    return false;
+  };
+  return grow(0);
+}
+
 describe("results shared per graph object", () => {
   it("the shared vector choice and triangle count equal fresh ones", () => {
     const rng = new Rng(5);
     for (let t = 0; t < 40; t++) {
-      const g = randomGraph(2 + rng.nextInt(25), rng.nextFloat(), rng);
+      const g = randomGraph(2 + rng.nextInt(16), rng.nextFloat(), rng);
       const fresh = optimiseVectorChoice(g);
       expect(sharedVectorChoice(g)).toEqual(fresh);
       expect(vectorOptimisedBound(g).surplus).toBe(fresh.guarantee.surplus);
       expect(sharedTriangleCount(g)).toEqual(countTriangles(g));
+      expect(sharedDegeneracy(g)).toEqual(degeneracy(g));
+      // Clique searches on the shared ordering: the same answers as the clique number by definition would give.
+      for (let r = 3; r <= 5; r++) expect(findClique(g, r).found).toBe(hasClique(g, r));
       // describeGraph hands out its own copy of the shared witness.
       const s = describeGraph(g);
       if (s.witnesses.K3 !== null) {

@@ -18,7 +18,7 @@
 
 import { invalidParameter, InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
-import { sharedTriangleCount } from "../graph/structure/triangles.js";
+import { SHARED_RESULTS_MAX_SIZE, sharedTriangleCount } from "../graph/structure/triangles.js";
 import { boundDoesNotApply, type LowerBoundRecord } from "./types.js";
 import { fewTrianglesChoice } from "./few-triangles.js";
 import { VECTOR_LINEAR_FACTOR, VECTOR_OVERLAP_FACTOR, vectorMethodGuaranteeFor, type VectorGuaranteeRecord } from "./vector-guarantee.js";
@@ -288,6 +288,7 @@ export function optimiseVectorChoice(graph: Graph, options: VectorChoiceOptions 
  */
 const sharedChoices = new WeakMap<Graph, VectorChoiceRecord>();
 export function sharedVectorChoice(graph: Graph): VectorChoiceRecord {
+  if (graph.n + graph.neighbors.length > SHARED_RESULTS_MAX_SIZE) return optimiseVectorChoice(graph);
   let r = sharedChoices.get(graph);
   if (r === undefined) {
     r = optimiseVectorChoice(graph);

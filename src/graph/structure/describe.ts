@@ -7,7 +7,7 @@ import { bipartition } from "./bipartite.js";
 import { findClique } from "./cliques.js";
 import { connectedComponents } from "./components.js";
 import { findCycle } from "./cycles.js";
-import { degeneracy } from "./degeneracy.js";
+import { sharedDegeneracy } from "./degeneracy.js";
 import { degreeStats } from "./degrees.js";
 import { countFourCycles } from "./four-cycles.js";
 import { girth } from "./girth.js";
@@ -62,7 +62,7 @@ export function describeGraph(g: Graph, options: DescribeOptions = {}): GraphSum
   const deg = degreeStats(g);
   const comps = connectedComponents(g);
   const bip = bipartition(g);
-  const dg = degeneracy(g);
+  const dg = sharedDegeneracy(g);
   const bipartite = bip.bipartite;
 
   const tri = skip.has("triangles") ? null : sharedTriangleCount(g);
