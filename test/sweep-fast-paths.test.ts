@@ -3,10 +3,16 @@
 // exact search's popcount table for unweighted blocks (against the cut of every pattern counted
 // edge by edge), the decomposition cut's memo of tiny stage graphs (memo on against memo off, on
 // every labelled graph of up to 5 vertices and a sample of 6–8 and larger ones), the vector
-// choice shared per graph (against a fresh optimisation), and the shared triangle count. The
+// choice shared per graph (against a fresh optimisation), the shared triangle count, and the
+// store's background log checkpoints (every committed row still there). The
 // reference values are definitions (common practice, no source): a subgraph's edges, a cut's
 // crossing weight, and the same function run twice.
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import { afterEach, describe, expect, it } from "vitest";
+import { COLUMNS } from "../src/experiment/columns.js";
+import { openStore } from "../src/experiment/sqlite-store.js";
 import { decompositionCut, setDecompositionMemo } from "../src/cut/decomposition/decomposition-cut.js";
 import { CutBlock } from "../src/cut/exact/cut-block.js";
 import { optimiseVectorChoice, sharedVectorChoice, vectorOptimisedBound } from "../src/bounds/vector-choice.js";
@@ -188,5 +194,49 @@ describe("vector sets given in ascending order", () => {
     const path = graphFromEdges(3, [[0, 1], [1, 2]]);
     expect(() => resolveVectorSets(path, { sets: [[1, 2], [], []] })).toThrow("vector method: invalid `sets[0]`: should contain only neighbours of vertex 0; 2 is not one (got [1,2])");
     expect(() => resolveVectorSets(path, { sets: [[1, 1], [], []] })).toThrow(/should not repeat vertex 1/);
+  });
+});
+
+describe("log checkpoints on a background thread", () => {
+  it("every row committed meanwhile is in the file after stop and close, and the log is copied in", async () => {
+    const dir = mkdtempSync(join(tmpdir(), "halfplus-checkpoint-"));
+    try {
+      const path = join(dir, "s.db");
+      const store = openStore(path);
+      const stop = store.backgroundMaintenance!();
+      const blank = (k: number) => COLUMNS.map((c) => (c.name === "key" ? `k${k}` : c.name === "runs" ? "x".repeat(900) : null));
+      let k = 0;
+      for (let batch = 0; batch < 40; batch++) {
+        store.insertValues(Array.from({ length: 50 }, () => blank(k++)));
+        await new Promise((r) => setTimeout(r, 5));
+      }
+      await stop();
+      await stop(); // a second call waits for the same stop
+      store.close();
+      // The last connection's close folds the log into the file and removes it (SQLite's WAL rules).
+      expect(existsSync(`${path}-wal`)).toBe(false);
+      const again = openStore(path, { readonly: true });
+      expect(again.count()).toBe(2000);
+      again.close();
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
+  it("a checkpointer that cannot open the file leaves the writer working", async () => {
+    const dir = mkdtempSync(join(tmpdir(), "halfplus-checkpoint-"));
+    try {
+      const store = openStore(join(dir, "s.db"));
+      // Point the checkpointer at a folder: its open fails and the thread ends.
+      Object.defineProperty(store, "path", { value: dir });
+      const stop = store.backgroundMaintenance!();
+      await new Promise((r) => setTimeout(r, 200));
+      expect(store.insertValues([COLUMNS.map((c) => (c.name === "key" ? "only" : null))])).toBe(1);
+      await stop();
+      expect(store.count()).toBe(1);
+      store.close();
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   });
 });

@@ -316,17 +316,17 @@ class SqliteStore implements ResultStore {
     const driver = createRequire(import.meta.url).resolve("better-sqlite3");
     const worker = new Worker(CHECKPOINTER, { eval: true, workerData: { path: this.path, driver, every: CHECKPOINT_EVERY_MS } });
     worker.unref();
+    // A checkpointer that fails (the file taken away, say) only leaves the checkpoints to the writer.
+    worker.on("error", () => {});
+    const exited = new Promise<void>((resolve) => worker.once("exit", () => resolve()));
     this.db.pragma(`wal_autocheckpoint = ${WRITER_CHECKPOINT_PAGES}`);
     let stopped: Promise<void> | null = null;
     return () => {
       stopped ??= (async () => {
         try {
-          await new Promise<void>((resolve) => {
-            worker.once("message", () => resolve());
-            worker.once("error", () => resolve());
-            worker.once("exit", () => resolve());
-            worker.postMessage("stop");
-          });
+          const closed = new Promise<void>((resolve) => worker.once("message", () => resolve()));
+          worker.postMessage("stop");
+          await Promise.race([closed, exited]);
         } finally {
           await worker.terminate();
           if (this.db.open) this.db.pragma("wal_autocheckpoint = 1000");
