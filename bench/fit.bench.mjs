@@ -34,12 +34,12 @@ const row = (step, target, t, result) => out.push({ step, ms: Math.round(t.ms), 
 
 const plain = timeBoth(() => fitPowerLaw(rows, { bootstrap: false }), 3);
 row("fitPowerLaw m-and-d, no bootstrap", null, plain, `a=${plain.result.coefficient("mExponent").estimate.toFixed(4)}`);
-const boot = timeBoth(() => fitPowerLaw(rows, { bootstrap: { resamples: 1000, seed: 1 } }), 2);
+const boot = timeBoth(() => fitPowerLaw(rows, { bootstrap: { resamples: 1000, solverSeed: 1 } }), 2);
 const bi = boot.result.bootstrapInterval("mExponent");
 row("fitPowerLaw m-and-d, 1000 resamples", 5000, boot, `a in [${bi.lower.toFixed(4)}, ${bi.upper.toFixed(4)}]`);
-const one = timeBoth(() => fitPowerLaw(rows, { law: "m-over-sqrt-d", bootstrap: { resamples: 1000, seed: 1 } }), 2);
+const one = timeBoth(() => fitPowerLaw(rows, { law: "m-over-sqrt-d", bootstrap: { resamples: 1000, solverSeed: 1 } }), 2);
 row("fitPowerLaw m-over-sqrt-d, 1000 resamples", 5000, one, `slope=${one.result.coefficient("slope").estimate.toFixed(4)}`);
-const c = timeBoth(() => fitConstant(rows, { bootstrap: { resamples: 1000, seed: 1 } }), 2);
+const c = timeBoth(() => fitConstant(rows, { bootstrap: { resamples: 1000, solverSeed: 1 } }), 2);
 row("fitConstant slope 1, 1000 resamples", null, c, `C=${c.result.scale().estimate.toFixed(4)}`);
 const q = timeBoth(() => boot.result.summary(), 3);
 row("summary() (no refitting)", null, q, `${q.result.length} chars`);

@@ -6,7 +6,7 @@
 // triangle-free value m/(π√Δ), a surplus of order m/√Δ; above that, g(ε*) = m²/(6π²T).
 
 import type { Graph } from "../graph/graph.js";
-import { countTriangles } from "../graph/structure/triangles.js";
+import { sharedTriangleCount } from "../graph/structure/triangles.js";
 import { boundApplies, boundDoesNotApply, type LowerBoundRecord } from "./types.js";
 import { VECTOR_LINEAR_FACTOR, VECTOR_OVERLAP_FACTOR } from "./vector-guarantee.js";
 
@@ -43,18 +43,25 @@ export function fewTrianglesBound(graph: Graph): FewTrianglesRecord {
   const m = graph.m;
   const halfValueTriangles = (m * Math.sqrt(maxDegree)) / (3 * Math.PI);
   if (graph.weighted) {
-    return { ...boundDoesNotApply(name, "proved for unweighted graphs only"), triangles: 0, maxDegree, eps: 0, regime: "degree-capped", halfValueTriangles };
+    const b = boundDoesNotApply(name, "proved for unweighted graphs only");
+    return { name: b.name, value: b.value, surplus: b.surplus, applies: b.applies, reason: b.reason, triangles: 0, maxDegree, eps: 0, regime: "degree-capped", halfValueTriangles };
   }
-  const triangles = m === 0 ? 0 : countTriangles(graph).total;
-  const cap = maxDegree === 0 ? 0 : 1 / Math.sqrt(maxDegree);
-  // The parabola's vertex m/(3πT) is where the derivative m/π − 3Tε vanishes.
-  const vertex = triangles === 0 ? Infinity : m / (3 * Math.PI * triangles);
-  const eps = Math.min(cap, vertex);
-  const regime: FewTrianglesRegime = cap <= vertex ? "degree-capped" : "triangle-limited";
+  const triangles = m === 0 ? 0 : sharedTriangleCount(graph).total;
+  const { eps, regime } = fewTrianglesChoice(m, triangles, maxDegree);
   const surplus = fewTrianglesValue(m, triangles, eps);
   const reason =
     regime === "degree-capped"
       ? `uniform ε = 1/√Δ (Δ = ${maxDegree}; T = ${triangles} triangles, at most m√Δ/(3π)): m/(π√Δ) − 3T/(2Δ)`
       : `uniform ε = m/(3πT) (T = ${triangles} triangles, above m√Δ/(3π)): m²/(6π²T)`;
-  return { ...boundApplies(name, m, surplus, reason), triangles, maxDegree, eps, regime, halfValueTriangles };
+  // Field by field rather than spread: this record is made several times per sweep job.
+  const b = boundApplies(name, m, surplus, reason);
+  return { name: b.name, value: b.value, surplus: b.surplus, applies: b.applies, reason: b.reason, triangles, maxDegree, eps, regime, halfValueTriangles };
+}
+
+/** ε* = min(1/√Δ, m/(3πT)) and which side of the minimum it is (the vector optimiser's uniform start uses it too). */
+export function fewTrianglesChoice(m: number, triangles: number, maxDegree: number): { eps: number; regime: FewTrianglesRegime } {
+  const cap = maxDegree === 0 ? 0 : 1 / Math.sqrt(maxDegree);
+  // The parabola's vertex m/(3πT) is where the derivative m/π − 3Tε vanishes.
+  const vertex = triangles === 0 ? Infinity : m / (3 * Math.PI * triangles);
+  return { eps: Math.min(cap, vertex), regime: cap <= vertex ? "degree-capped" : "triangle-limited" };
 }

@@ -18,11 +18,11 @@
 
 import { invalidParameter, InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
-import { countTriangles } from "../graph/structure/triangles.js";
+import { SHARED_RESULTS_MAX_SIZE, sharedTriangleCount } from "../graph/structure/triangles.js";
 import { boundDoesNotApply, type LowerBoundRecord } from "./types.js";
-import { fewTrianglesBound } from "./few-triangles.js";
+import { fewTrianglesChoice } from "./few-triangles.js";
 import { VECTOR_LINEAR_FACTOR, VECTOR_OVERLAP_FACTOR, vectorMethodGuaranteeFor, type VectorGuaranteeRecord } from "./vector-guarantee.js";
-import { resolveVectorSets, type VectorSets } from "./vector-sets.js";
+import { resolveVectorSets, vectorEdgeTerms, type VectorSets } from "./vector-sets.js";
 
 const OWNER = "vector choice";
 const NAME = "vector-optimised";
@@ -67,15 +67,42 @@ interface AscentResult {
   trace: number[];
 }
 
-/** Block coordinate ascent from (inSet, eps); both arrays are updated in place. */
-function ascend(graph: Graph, inSet: Uint8Array, eps: Float64Array, start: number, inTriangle: Float64Array, optimiseSets: boolean, maxSweeps: number): AscentResult {
-  const { n, offsets: off, neighbors: nb } = graph;
+/** Work arrays of the ascent, shared by both starts. */
+interface Scratch {
+  b: Float64Array;
+  order: Int32Array;
+  /** owner[k] = i while block i is evaluated; it only ever holds i for k ∈ N(i), so stale entries never match. */
+  owner: Int32Array;
+  slot: Int32Array;
+}
+
+function scratchFor(graph: Graph): Scratch {
+  const { n, offsets: off } = graph;
   let maxDeg = 0;
   for (let i = 0; i < n; i++) maxDeg = Math.max(maxDeg, off[i + 1] - off[i]);
-  const b = new Float64Array(maxDeg);
-  const order = new Int32Array(maxDeg);
-  const owner = new Int32Array(n).fill(-1);
-  const slot = new Int32Array(n);
+  return { b: new Float64Array(maxDeg), order: new Int32Array(maxDeg), owner: new Int32Array(n).fill(-1), slot: new Int32Array(n) };
+}
+
+/**
+ * order[0..d) := 0..d−1 sorted by b descending, ties by index ascending: the one order the
+ * comparator (x, y) ↦ b[y] − b[x] || x − y defines (a total order), by insertion (d is a degree).
+ */
+function sortByGain(order: Int32Array, b: Float64Array, d: number): void {
+  for (let t = 0; t < d; t++) {
+    const bt = b[t];
+    let s = t - 1;
+    while (s >= 0 && b[order[s]] < bt) {
+      order[s + 1] = order[s];
+      s--;
+    }
+    order[s + 1] = t;
+  }
+}
+
+/** Block coordinate ascent from (inSet, eps); both arrays are updated in place. */
+function ascend(graph: Graph, inSet: Uint8Array, eps: Float64Array, start: number, inTriangle: Float64Array, optimiseSets: boolean, maxSweeps: number, scratch: Scratch): AscentResult {
+  const { n, offsets: off, neighbors: nb } = graph;
+  const { b, order, owner, slot } = scratch;
   const L = VECTOR_LINEAR_FACTOR;
   const Q = VECTOR_OVERLAP_FACTOR;
   // Block i's optimum depends only on (V_j, ε_j) for j ∈ N(i): a vertex is looked at again only
@@ -127,12 +154,10 @@ function ascend(graph: Graph, inSet: Uint8Array, eps: Float64Array, start: numbe
           bestSize = d;
         }
       } else {
-        for (let t = 0; t < d; t++) order[t] = t;
-        const ord = order.subarray(0, d);
-        ord.sort((x, y) => b[y] - b[x] || x - y);
+        sortByGain(order, b, d);
         let prefix = 0;
         for (let s = 1; s <= d; s++) {
-          prefix += b[ord[s - 1]];
+          prefix += b[order[s - 1]];
           const v = prefix / Math.sqrt(s);
           if (v > best) {
             best = v;
@@ -165,7 +190,9 @@ function ascend(graph: Graph, inSet: Uint8Array, eps: Float64Array, start: numbe
 /** The CSR sets of a choice given by per-arc membership flags (the graph's own lists when nothing is dropped). */
 function setsOf(graph: Graph, inSet: Uint8Array, eps: Float64Array): VectorSets {
   const n = graph.n;
-  if (inSet.every((x) => x === 1)) return { offsets: graph.offsets, members: graph.neighbors, eps, neighbourhoods: true };
+  let all = true;
+  for (let a = 0; a < inSet.length && all; a++) all = inSet[a] === 1;
+  if (all) return { offsets: graph.offsets, members: graph.neighbors, eps, neighbourhoods: true };
   const offsets = new Int32Array(n + 1);
   for (let i = 0; i < n; i++) {
     let s = 0;
@@ -175,7 +202,8 @@ function setsOf(graph: Graph, inSet: Uint8Array, eps: Float64Array): VectorSets 
   const members = new Int32Array(offsets[n]);
   let p = 0;
   for (let a = 0; a < inSet.length; a++) if (inSet[a] === 1) members[p++] = graph.neighbors[a];
-  const e = Float64Array.from(eps, (x, i) => (offsets[i + 1] === offsets[i] ? 0 : x));
+  const e = new Float64Array(n);
+  for (let i = 0; i < n; i++) e[i] = offsets[i + 1] === offsets[i] ? 0 : eps[i];
   return { offsets, members, eps: e, neighbourhoods: false };
 }
 
@@ -192,22 +220,32 @@ export function optimiseVectorChoice(graph: Graph, options: VectorChoiceOptions 
   const maxSweeps = options.maxSweeps ?? 100;
   if (!Number.isInteger(maxSweeps) || maxSweeps < 1 || maxSweeps > 1e6) throw invalidParameter(OWNER, "maxSweeps", "should be an integer between 1 and 1e6", maxSweeps);
 
+  const { n, offsets } = graph;
   const arcs = graph.neighbors.length;
-  const inTriangle = countTriangles(graph).perVertex;
+  const triangles = sharedTriangleCount(graph);
+  const inTriangle = triangles.perVertex;
   const defaultSets = resolveVectorSets(graph);
-  const defaultSurplus = vectorMethodGuaranteeFor(graph, defaultSets).surplus as number;
-  const uniformEps = fewTrianglesBound(graph).eps;
-  const uniformSets = resolveVectorSets(graph, { eps: Float64Array.from({ length: graph.n }, (_, i) => (graph.degree(i) > 0 ? uniformEps : 0)) });
-  const uniformSurplus = vectorMethodGuaranteeFor(graph, uniformSets).surplus as number;
+  // With V_i = N(i) the per-edge overlaps depend on the graph alone: both starts share them.
+  const terms = vectorEdgeTerms(graph, defaultSets);
+  const defaultSurplus = vectorMethodGuaranteeFor(graph, defaultSets, terms).surplus as number;
+  // The few-triangles bound's uniform ε* (unweighted here), on every vertex with an edge.
+  let maxDegree = 0;
+  for (let i = 0; i < n; i++) maxDegree = Math.max(maxDegree, offsets[i + 1] - offsets[i]);
+  const uniformEps = fewTrianglesChoice(graph.m, graph.m === 0 ? 0 : triangles.total, maxDegree).eps;
+  const uniform = new Float64Array(n);
+  for (let i = 0; i < n; i++) uniform[i] = offsets[i + 1] > offsets[i] ? uniformEps : 0;
+  const uniformSets: VectorSets = { offsets, members: graph.neighbors, eps: uniform, neighbourhoods: true };
+  const uniformSurplus = vectorMethodGuaranteeFor(graph, uniformSets, terms).surplus as number;
 
-  const fromDefault = ascend(graph, new Uint8Array(arcs).fill(1), Float64Array.from(defaultSets.eps), defaultSurplus, inTriangle, optimiseSets, maxSweeps);
-  const fromUniform = ascend(graph, new Uint8Array(arcs).fill(1), Float64Array.from(uniformSets.eps), uniformSurplus, inTriangle, optimiseSets, maxSweeps);
+  const scratch = scratchFor(graph);
+  const fromDefault = ascend(graph, new Uint8Array(arcs).fill(1), defaultSets.eps.slice(), defaultSurplus, inTriangle, optimiseSets, maxSweeps, scratch);
+  const fromUniform = ascend(graph, new Uint8Array(arcs).fill(1), uniform.slice(), uniformSurplus, inTriangle, optimiseSets, maxSweeps, scratch);
   const last = (r: AscentResult) => r.trace[r.trace.length - 1];
   const win = last(fromUniform) > last(fromDefault) ? fromUniform : fromDefault;
   const start: VectorChoiceStart = win === fromDefault ? "default" : "uniform";
 
   const choice = setsOf(graph, win.inSet, win.eps);
-  const g = vectorMethodGuaranteeFor(graph, choice);
+  const g = vectorMethodGuaranteeFor(graph, choice, choice.neighbourhoods ? terms : undefined);
   let switchedOff = 0;
   let droppedMembers = 0;
   for (let i = 0; i < graph.n; i++) {
@@ -218,9 +256,15 @@ export function optimiseVectorChoice(graph: Graph, options: VectorChoiceOptions 
   }
   const what = optimiseSets ? "the best V_i ⊆ N(i) and ε_i found" : "V_i = N(i) and the best ε_i found";
   const guarantee: VectorGuaranteeRecord = {
-    ...g,
     name: NAME,
+    value: g.value,
+    surplus: g.surplus,
+    applies: g.applies,
     reason: `explicit vector method with ${what} by block coordinate ascent (${switchedOff} vertices switched off, ${droppedMembers} set members dropped)`,
+    linearTerm: g.linearTerm,
+    overlapTerm: g.overlapTerm,
+    overlapEdges: g.overlapEdges,
+    normedTerm: g.normedTerm,
   };
   return {
     guarantee,
@@ -237,10 +281,27 @@ export function optimiseVectorChoice(graph: Graph, options: VectorChoiceOptions 
   };
 }
 
+/**
+ * optimiseVectorChoice with the default options, computed once per Graph object: a sweep job asks
+ * for it in the vector-optimised evaluator and again in the decomposition cut, whose remainder is
+ * often the whole graph. Graphs are immutable; callers must treat the record as read-only.
+ */
+const sharedChoices = new WeakMap<Graph, VectorChoiceRecord>();
+export function sharedVectorChoice(graph: Graph): VectorChoiceRecord {
+  if (graph.n + graph.neighbors.length > SHARED_RESULTS_MAX_SIZE) return optimiseVectorChoice(graph);
+  let r = sharedChoices.get(graph);
+  if (r === undefined) {
+    r = optimiseVectorChoice(graph);
+    sharedChoices.set(graph, r);
+  }
+  return r;
+}
+
 /** The optimised guarantee as a plain lower-bound record ("does not apply" for weighted graphs). */
 export function vectorOptimisedBound(graph: Graph, options: VectorChoiceOptions = {}): LowerBoundRecord {
   if (graph.weighted) return boundDoesNotApply(NAME, "proved for unweighted graphs only");
-  const { name, value, surplus, applies, reason } = optimiseVectorChoice(graph, options).guarantee;
+  const defaults = options.optimiseSets === undefined && options.maxSweeps === undefined;
+  const { name, value, surplus, applies, reason } = (defaults ? sharedVectorChoice(graph) : optimiseVectorChoice(graph, options)).guarantee;
   return { name, value, surplus, applies, reason };
 }
 

@@ -40,8 +40,23 @@ export function resolveVectorSets(graph: Graph, options: VectorSetOptions = {}):
     offsets = new Int32Array(n + 1);
     for (let i = 0; i < n; i++) offsets[i + 1] = offsets[i] + sets[i].length;
     members = new Int32Array(offsets[n]);
+    // mark[x] = i for x ∈ N(i): a set already listed in ascending order is checked in one pass
+    // (the common case: choices made by the optimiser); any other goes the general way below.
+    const mark = new Int32Array(n).fill(-1);
+    const { offsets: go, neighbors: nb } = graph;
     for (let i = 0; i < n; i++) {
-      const s = Array.from(sets[i]).sort((a, b) => a - b);
+      const raw = sets[i];
+      for (let a = go[i]; a < go[i + 1]; a++) mark[nb[a]] = i;
+      let fast = true;
+      for (let k = 0; k < raw.length && fast; k++) {
+        const x = raw[k];
+        fast = Number.isInteger(x) && x >= 0 && x < n && mark[x] === i && (k === 0 || raw[k - 1] < x);
+      }
+      if (fast) {
+        for (let k = 0; k < raw.length; k++) members[offsets[i] + k] = raw[k];
+        continue;
+      }
+      const s = Array.from(raw).sort((a, b) => a - b);
       for (let k = 0; k < s.length; k++) {
         const x = s[k];
         if (!graph.hasEdge(i, x)) throw invalidParameter(OWNER, `sets[${i}]`, `should contain only neighbours of vertex ${i}; ${x} is not one`, Array.from(sets[i]));

@@ -10,7 +10,7 @@ import { graphFromParts } from "../graph/graph.js";
 import { graphHash } from "../graph/hash.js";
 import { describeGraph } from "../graph/structure/describe.js";
 import type { GraphFormat } from "../graph/formats/types.js";
-import { embedGraph } from "../graph/record/embed.js";
+import { EMBED_MAX_CHARS, embedGraph } from "../graph/record/embed.js";
 import type { EmbeddedGraph, GraphSource } from "../graph/record/source.js";
 import { familyWithInfo, getFamily, predictedSizeOf } from "../families/registry.js";
 import { checkEdgeLimit } from "../families/limits.js";
@@ -210,6 +210,7 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
   let graph: Graph;
   let notes: string[] = [];
   let source: GraphSource;
+  let embedded: string | null = null;
   if (job.graph.kind === "spec") {
     const f = familyWithInfo(job.graph.spec);
     graph = f.graph;
@@ -219,9 +220,20 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
     graph = graphFromParts(job.graph.parts);
     const s = job.graph.source;
     source = { path: s.path, position: s.position, format: s.format, graphSeed: null };
+    embedded = embedGraph(graph, EMBED_LIMIT)?.text ?? null;
+    // The bracket record embeds the same text when it fits the record's own limit: hand it over
+    // rather than encoding the graph twice (the record's source is not stored in the row anyway).
+    if (embedded !== null && embedded.length <= EMBED_MAX_CHARS) source.embedded = embeddedOfText(embedded);
   }
   const t0 = performance.now();
-  const rec = bracket(graph, { ...budgetOption(job.settings), solverSeed: job.solverSeed, effort: job.settings.effort, source });
+  // The options written out (not spread from budgetOption): a tiny job's bracket is a few microseconds.
+  const settings = job.settings;
+  const rec = bracket(
+    graph,
+    settings.work !== null
+      ? { work: settings.work, solverSeed: job.solverSeed, effort: settings.effort, source }
+      : { seconds: settings.seconds ?? DEFAULT_BRACKET_SECONDS, solverSeed: job.solverSeed, effort: settings.effort, source },
+  );
   const solverSeconds = (performance.now() - t0) / 1000;
   const s = describeGraph(graph, { maxSearchNodes: STRUCTURE_SEARCH_NODES });
   const keep = context.degrees;
@@ -242,7 +254,7 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
     v[I.sourcePath] = file.path;
     v[I.sourcePosition] = file.position;
     v[I.sourceFormat] = file.format;
-    v[I.embedded] = embeddedText(graph);
+    v[I.embedded] = embedded;
   }
   v[I.graphHash] = rec.graphHash;
   v[I.solverSeed] = rec.solverSeed;

@@ -7,6 +7,7 @@ import type Database from "better-sqlite3";
 import { createRequire } from "node:module";
 import { existsSync, mkdirSync, readSync, openSync, closeSync, statSync } from "node:fs";
 import { dirname } from "node:path";
+import { Worker } from "node:worker_threads";
 import { InputError } from "../errors.js";
 import { COLUMNS, columnSpec, rowValues, type CellValue, type ColumnSpec, type StoredRow } from "./columns.js";
 import type { OpenStoreOptions, ResultStore, RowFilter, SweepLogEntry, UnionOutcome } from "./store.js";
@@ -70,6 +71,27 @@ function toCell(v: CellValue | boolean | undefined): unknown {
   return v;
 }
 
+/**
+ * A thread that copies the write-ahead log into the database file (PASSIVE checkpoints, which
+ * never block the writer) every CHECKPOINT_EVERY_MS while the main connection only appends. A
+ * checkpoint syncs the files to disk, which takes tens of milliseconds on a busy disk: done on
+ * the writing thread it stalls the sweep's scheduling. Checkpoints are crash-safe by SQLite's
+ * design, and a commit is in the log before it returns, whichever thread checkpoints.
+ */
+const CHECKPOINT_EVERY_MS = 250;
+/** The writer checkpoints itself only when the log passes this many pages (4 KiB each): a safety net. */
+const WRITER_CHECKPOINT_PAGES = 16384;
+const CHECKPOINTER = `
+const { parentPort, workerData } = require("node:worker_threads");
+const Database = require(workerData.driver);
+const db = new Database(workerData.path, { fileMustExist: true });
+db.pragma("busy_timeout = 0");
+db.pragma("synchronous = NORMAL");
+const tick = () => { try { db.pragma("wal_checkpoint(PASSIVE)"); } catch {} };
+const timer = setInterval(tick, workerData.every);
+parentPort.on("message", () => { clearInterval(timer); db.close(); parentPort.postMessage("closed"); });
+`;
+
 class SqliteStore implements ResultStore {
   private readonly db: Database.Database;
   private readonly present: Set<string>;
@@ -127,7 +149,7 @@ class SqliteStore implements ResultStore {
       for (const r of rows) {
         if (r.length !== COLUMNS.length) throw new Error(`row of ${r.length} values, expected ${COLUMNS.length}`);
         for (let i = 0; i < cells.length; i++) cells[i] = toCell(r[all ? i : this.positions[i]]);
-        added += this.insertStmt.run(...cells).changes;
+        added += this.insertStmt.run(cells).changes;
       }
       return added;
     });
@@ -287,6 +309,31 @@ class SqliteStore implements ResultStore {
 
   huntEntries(filter: HuntFrontierFilter = {}): HuntFrontierRow[] {
     return huntRows(this.db, filter);
+  }
+
+  backgroundMaintenance(): () => Promise<void> {
+    if (this.readonly || this.path === ":memory:" || this.db.pragma("journal_mode", { simple: true }) !== "wal") return async () => {};
+    const driver = createRequire(import.meta.url).resolve("better-sqlite3");
+    const worker = new Worker(CHECKPOINTER, { eval: true, workerData: { path: this.path, driver, every: CHECKPOINT_EVERY_MS } });
+    worker.unref();
+    // A checkpointer that fails (the file taken away, say) only leaves the checkpoints to the writer.
+    worker.on("error", () => {});
+    const exited = new Promise<void>((resolve) => worker.once("exit", () => resolve()));
+    this.db.pragma(`wal_autocheckpoint = ${WRITER_CHECKPOINT_PAGES}`);
+    let stopped: Promise<void> | null = null;
+    return () => {
+      stopped ??= (async () => {
+        try {
+          const closed = new Promise<void>((resolve) => worker.once("message", () => resolve()));
+          worker.postMessage("stop");
+          await Promise.race([closed, exited]);
+        } finally {
+          await worker.terminate();
+          if (this.db.open) this.db.pragma("wal_autocheckpoint = 1000");
+        }
+      })();
+      return stopped;
+    };
   }
 
   close(): void {

@@ -78,6 +78,12 @@ export interface ResultStore {
   putHuntEntry(row: HuntFrontierRow): boolean;
   /** Stored frontier rows, ordered by (pattern, n, objective, m); none when the store has no hunt table. */
   huntEntries(filter?: HuntFrontierFilter): HuntFrontierRow[];
+  /**
+   * For a long run of small writes (a sweep): move the store's own housekeeping off the calling
+   * thread where the backend can (the SQLite store copies its write-ahead log into the file from a
+   * thread of its own). Call the returned function before closing. Optional; commits stay as durable.
+   */
+  backgroundMaintenance?(): () => Promise<void>;
   close(): void;
 }
 

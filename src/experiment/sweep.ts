@@ -57,6 +57,8 @@ export interface SweepSummary {
 /** Batches aim at this many seconds of work, so tiny jobs do not pay one message each. */
 const BATCH_TARGET_SECONDS = 0.03;
 const MAX_BATCH = 256;
+/** Rows written before the store's background maintenance starts: fewer rows make a log of a few megabytes at most. */
+const BACKGROUND_MAINTENANCE_ROWS = 2000;
 /** Stores up to this many rows have their keys read into memory at the start of a sweep. */
 const KEYS_IN_MEMORY = 250_000;
 
@@ -166,6 +168,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   let failure: Error | null = null;
   let secondsPerJob: number | null = null;
   const where = new Map<string, string>();
+  const maintenance: { started: boolean; stop: (() => Promise<void>) | null } = { started: false, stop: null };
 
   const written = (r: BatchResult): void => {
     const rows: CellValue[][] = [];
@@ -186,6 +189,12 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
       }
     }
     computed += store.insertValues(rows);
+    // Log checkpoints on a thread of their own once the sweep is long enough to need them (a
+    // short one never fills the log): the main thread then only schedules and appends rows.
+    if (!maintenance.started && computed >= BACKGROUND_MAINTENANCE_ROWS) {
+      maintenance.started = true;
+      maintenance.stop = store.backgroundMaintenance?.() ?? null;
+    }
     for (const res of r.results) where.delete(res.key);
     const ok = r.results.filter((x) => x.error === undefined).length;
     if (ok > 0) {
@@ -256,6 +265,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     log.computed = computed;
     log.status = failure !== null ? "failed" : stopped ? "stopped" : "finished";
     store.logSweep(log);
+    await maintenance.stop?.();
     if (ownStore) store.close();
   }
   if (failure !== null) throw failure;

@@ -4,6 +4,10 @@
 import { createHash } from "node:crypto";
 import type { Graph } from "./graph.js";
 
+// Reused between calls (hash.update copies what it is given): sweeps hash one small graph per job.
+const HEAD = Buffer.alloc(24);
+const CHUNKS = Buffer.alloc(4096 * 16);
+
 /**
  * SHA-256 over n, m and the sorted edge list (u < v, u32 little-endian each, weight as f64
  * little-endian; unweighted edges hash with weight 1), hex-encoded with a "sha256:" prefix.
@@ -11,14 +15,14 @@ import type { Graph } from "./graph.js";
  */
 export function graphHash(graph: Graph): string {
   const h = createHash("sha256");
-  const head = Buffer.alloc(24);
+  const head = HEAD;
   head.write("hpg1", 0, "latin1");
   head.writeUInt32LE(0, 4);
   head.writeDoubleLE(graph.n, 8);
   head.writeDoubleLE(graph.m, 16);
   h.update(head);
   const CHUNK = Math.max(1, Math.min(4096, graph.m));
-  const buf = Buffer.allocUnsafe(CHUNK * 16);
+  const buf = CHUNKS.subarray(0, CHUNK * 16);
   let k = 0;
   const { offsets, neighbors, weights } = graph;
   for (let u = 0; u < graph.n; u++) {

@@ -3,8 +3,7 @@
 // Vertices outside the list must never be reached from it in componentSubgraph (a component is closed).
 
 import { invalidParameter } from "../errors.js";
-import { EdgeBuffer } from "./builder.js";
-import type { Graph } from "./graph.js";
+import { Graph } from "./graph.js";
 
 /** Vertices must be distinct ids in [0, n); a bad list is an InputError naming `owner`'s `vertices`. */
 export function inducedSubgraph(graph: Graph, vertices: ArrayLike<number>, owner = "inducedSubgraph"): Graph {
@@ -32,15 +31,39 @@ export function componentSubgraph(graph: Graph, vertices: ArrayLike<number>, pos
 }
 
 function induced(graph: Graph, vertices: ArrayLike<number>, position: ArrayLike<number>): Graph {
+  // CSR written directly (what buildGraph would make of the edge list, without its general
+  // machinery: a subgraph of a simple graph has no loops or repeats). A member's neighbours map to
+  // ascending new ids when the list is ascending; otherwise each list is sorted by insertion.
   const k = vertices.length;
-  const buf = new EdgeBuffer({ weighted: graph.weighted });
   const { offsets, neighbors, weights } = graph;
+  const off = new Int32Array(k + 1);
   for (let i = 0; i < k; i++) {
     const v = vertices[i];
+    let d = 0;
+    for (let a = offsets[v]; a < offsets[v + 1]; a++) if (position[neighbors[a]] >= 0) d++;
+    off[i + 1] = off[i] + d;
+  }
+  const nb = new Int32Array(off[k]);
+  const w = weights === null ? null : new Float64Array(off[k]);
+  for (let i = 0; i < k; i++) {
+    const v = vertices[i];
+    const start = off[i];
+    let p = start;
     for (let a = offsets[v]; a < offsets[v + 1]; a++) {
       const j = position[neighbors[a]];
-      if (j > i) buf.add(i, j, weights === null ? 1 : weights[a]);
+      if (j < 0) continue;
+      // Insertion into the sorted run nb[start..p) (no moves when the ids arrive ascending).
+      const wj = w === null ? 0 : weights![a];
+      let q = p;
+      while (q > start && nb[q - 1] > j) {
+        nb[q] = nb[q - 1];
+        if (w !== null) w[q] = w[q - 1];
+        q--;
+      }
+      nb[q] = j;
+      if (w !== null) w[q] = wj;
+      p++;
     }
   }
-  return buf.build(k).graph;
+  return new Graph(k, off, nb, w);
 }

@@ -32,10 +32,10 @@ import type { Graph } from "../../graph/graph.js";
 import { inducedSubgraph } from "../../graph/induced.js";
 import { findClique, MAX_CLIQUE_ORDER } from "../../graph/structure/cliques.js";
 import { parsePatternName } from "../../graph/structure/patterns.js";
-import { countTriangles } from "../../graph/structure/triangles.js";
+import { sharedTriangleCount } from "../../graph/structure/triangles.js";
 import { fewTrianglesBound } from "../../bounds/few-triangles.js";
 import { boundApplies, boundDoesNotApply, type LowerBoundRecord } from "../../bounds/types.js";
-import { optimiseVectorChoice, vectorChoiceOptions } from "../../bounds/vector-choice.js";
+import { optimiseVectorChoice, sharedVectorChoice, vectorChoiceOptions } from "../../bounds/vector-choice.js";
 import { checkSeed } from "../../random/seed.js";
 import { exactMaxCut } from "../exact/exact-max-cut.js";
 import { GRAY_MAX_VERTICES } from "../exact/gray-code.js";
@@ -251,7 +251,7 @@ interface Peeled {
 function peel(graph: Graph, c: number): Peeled {
   const { n, offsets: off, neighbors: nb } = graph;
   const alive = new Uint8Array(n).fill(1);
-  const tri = Float64Array.from(countTriangles(graph).perVertex);
+  const tri = sharedTriangleCount(graph).perVertex.slice(); // counted down below: a copy
   let triangles = 0;
   for (let v = 0; v < n; v++) triangles += tri[v];
   triangles /= 3;
@@ -301,16 +301,115 @@ function peel(graph: Graph, c: number): Peeled {
   }
 }
 
+/** The ids as a plain array in ascending order (they usually arrive sorted: then no sort). */
+function ascending(ids: Int32Array): number[] {
+  const out = Array.from(ids);
+  for (let i = 1; i < out.length; i++) if (out[i - 1] > out[i]) return out.sort((a, b) => a - b);
+  return out;
+}
+
 /** A derived seed per rounded stage, so every stage is reproducible from the one solverSeed. */
 function stageSeed(run: Run): number {
   run.roundings++;
   return (run.settings.solverSeed + Math.imul(run.roundings, 0x9e3779b9)) >>> 0;
 }
 
+// ---- Tiny stage graphs: the same results, remembered ----
+//
+// A sweep over many small graphs meets the same labelled remainders and pieces (relabelled
+// 0..k−1 in ascending order) again and again. Both sub-steps below are deterministic functions of
+// the stage graph and of the run's settings, seed and rounding count, so on graphs of at most
+// SMALL_VERTICES vertices their results are kept, keyed by the exact edge set and those inputs, and
+// handed back as a fresh run would compute them (test/cut-decomposition.test.ts compares the two
+// paths). The memo is bounded: it is emptied when it reaches MEMO_LIMIT entries.
+
+/** Stage graphs up to this many vertices are remembered (their edge set fits one 28-bit key). */
+const SMALL_VERTICES = 8;
+const MEMO_LIMIT = 1 << 16;
+const memo = new Map<string, unknown>();
+let memoEnabled = true;
+
+/** Turn the memo off (and empty it) or on again: tests compare both paths. */
+export function setDecompositionMemo(enabled: boolean): void {
+  memoEnabled = enabled;
+  memo.clear();
+}
+
+/** "n:bits" with bit v(v−1)/2 + u set for each edge u < v, or null when the graph is not tiny. */
+function tinyGraphKey(graph: Graph): string | null {
+  if (!memoEnabled || graph.n > SMALL_VERTICES || graph.weighted) return null;
+  const { n, offsets, neighbors } = graph;
+  let bits = 0;
+  for (let v = 1; v < n; v++) {
+    for (let a = offsets[v]; a < offsets[v + 1]; a++) {
+      const u = neighbors[a];
+      if (u < v) bits |= 1 << ((v * (v - 1)) / 2 + u);
+    }
+  }
+  return `${n}:${bits}`;
+}
+
+function remember<T>(key: string, value: T): T {
+  if (memo.size >= MEMO_LIMIT) memo.clear();
+  memo.set(key, value);
+  return value;
+}
+
+interface ExactPiece {
+  status: string;
+  partition: Uint8Array;
+  value: number;
+  graySteps: number;
+  branchNodes: number;
+}
+
+/** exactMaxCut of a piece (only the fields the decomposition reads). */
+function exactPiece(sub: Graph, solverSeed: number): ExactPiece {
+  const key = tinyGraphKey(sub);
+  const k = key === null ? null : `x|${key}|${solverSeed}`;
+  const known = k === null ? undefined : (memo.get(k) as ExactPiece | undefined);
+  if (known !== undefined) return known;
+  const ex = exactMaxCut(sub, { solverSeed });
+  const piece: ExactPiece = { status: ex.status, partition: ex.partition, value: ex.value, graySteps: ex.graySteps, branchNodes: ex.branchNodes };
+  return k === null ? piece : remember(k, piece);
+}
+
+interface Rounded {
+  side: Uint8Array;
+  guarantee: number;
+  details: DecompositionStage["details"];
+  /** Rounding batches used (each takes one stage seed) and whether the guarantee was reached. */
+  batches: number;
+  reached: boolean;
+}
+
 /** Round the best vector choice of `graph` until a cut reaches its guarantee (or maxTrials run out). */
 function roundToGuarantee(run: Run, graph: Graph): { side: Uint8Array; guarantee: number; details: DecompositionStage["details"] } {
+  const key = tinyGraphKey(graph);
+  const { trials, maxTrials, optimiseSets, solverSeed } = run.settings;
+  const k = key === null ? null : `r|${key}|${solverSeed}|${run.roundings}|${trials}|${maxTrials}|${optimiseSets}`;
+  let r = k === null ? undefined : (memo.get(k) as Rounded | undefined);
+  if (r === undefined) {
+    r = roundFresh(run, graph);
+    if (k !== null) remember(k, r);
+  }
+  run.roundings += r.batches;
+  if (!r.reached) run.reached = false;
+  // The details object ends up in a stage record, which callers own: a copy each time.
+  return { side: r.side, guarantee: r.guarantee, details: Object.assign({}, r.details) };
+}
+
+function roundFresh(run: Run, graph: Graph): Rounded {
+  // Seeds are taken from a private copy of the counter: the caller advances the run's own.
+  const local: Run = { settings: run.settings, pieces: [], stages: [], roundings: run.roundings, reached: true };
+  const r = roundFrom(local, graph);
+  return { side: r.side, guarantee: r.guarantee, details: r.details, batches: local.roundings - run.roundings, reached: local.reached };
+}
+
+function roundFrom(run: Run, graph: Graph): { side: Uint8Array; guarantee: number; details: DecompositionStage["details"] } {
   const { trials, maxTrials, optimiseSets } = run.settings;
-  const best = optimiseVectorChoice(graph, { optimiseSets });
+  // The default choice is shared with the vector-optimised bound of the same graph object.
+  const best = optimiseSets ? sharedVectorChoice(graph) : optimiseVectorChoice(graph, { optimiseSets });
   const guarantee = best.guarantee.surplus as number;
   const choice = vectorChoiceOptions(best.choice);
   let used = 0;
@@ -357,7 +456,9 @@ function decompose(run: Run, graph: Graph, ids: Int32Array, level: number, withi
   const placed = new Uint8Array(graph.n);
 
   // Step 2: the remainder.
-  const rest = inducedSubgraph(graph, peeled.remainder);
+  // Nothing set aside: the remainder is the graph itself (the same CSR), kept as the same object so
+  // what was computed for it (triangles, the vector choice) is shared.
+  const rest = peeled.pieces.length === 0 ? graph : inducedSubgraph(graph, peeled.remainder);
   const threshold = s.triangleFactor * peeled.m * Math.sqrt(peeled.maxDegree);
   let restSide: Uint8Array;
   let restGuarantee = 0;
@@ -379,7 +480,7 @@ function decompose(run: Run, graph: Graph, ids: Int32Array, level: number, withi
     m: rest.m,
     guarantee: restGuarantee,
     surplus: surplusOf(rest, cutValue(rest, restSide)),
-    details: { ...restDetails, triangleThreshold: threshold, piecesSetAside: peeled.pieces.length },
+    details: Object.assign(restDetails, { triangleThreshold: threshold, piecesSetAside: peeled.pieces.length }),
   });
   for (let i = 0; i < rest.n; i++) {
     side[peeled.remainder[i]] = restSide[i];
@@ -393,15 +494,16 @@ function decompose(run: Run, graph: Graph, ids: Int32Array, level: number, withi
   const { offsets: off, neighbors: nb } = graph;
   for (const p of peeled.pieces) {
     const sub = inducedSubgraph(graph, p.vertices);
-    const pieceIds = Int32Array.from(p.vertices, (v) => ids[v]);
+    const pieceIds = new Int32Array(p.vertices.length);
+    for (let i = 0; i < pieceIds.length; i++) pieceIds[i] = ids[p.vertices[i]];
     const id = run.pieces.length;
-    const triangles = sub.m === 0 ? 0 : countTriangles(sub).total;
+    const triangles = sub.m === 0 ? 0 : sharedTriangleCount(sub).total;
     const piece: DecompositionPiece = {
       id,
       parent: within,
       level: level + 1,
       centre: ids[p.centre],
-      vertices: Array.from(pieceIds).sort((a, b) => a - b),
+      vertices: ascending(pieceIds),
       n: sub.n,
       m: sub.m,
       triangles,
@@ -418,7 +520,7 @@ function decompose(run: Run, graph: Graph, ids: Int32Array, level: number, withi
     if (sub.m === 0) {
       pieceSide = new Uint8Array(sub.n);
     } else if (sub.n <= s.exactVertices) {
-      const ex = exactMaxCut(sub, { solverSeed: s.solverSeed });
+      const ex = exactPiece(sub, s.solverSeed);
       if (ex.status === "optimal") {
         piece.method = "exact";
         pieceSide = ex.partition;
@@ -495,7 +597,8 @@ export function decompositionCut(graph: Graph, options: DecompositionOptions = {
   if (graph.weighted) throw new InputError(`${OWNER}: the graph is weighted; the construction is for unweighted graphs`);
   const { settings, pattern, patternFrom } = checkOptions(graph, options);
   const run: Run = { settings, pieces: [], stages: [], roundings: 0, reached: true };
-  const ids = Int32Array.from({ length: graph.n }, (_, i) => i);
+  const ids = new Int32Array(graph.n);
+  for (let i = 0; i < graph.n; i++) ids[i] = i;
   const { side, remainder } = decompose(run, graph, ids, 0, null, pattern);
   let guarantee = 0;
   let stageSurplus = 0;
@@ -516,9 +619,15 @@ export function decompositionCut(graph: Graph, options: DecompositionOptions = {
   if (patternFrom === "clique-number") notes.push(`H = ${pattern}: the graph's clique number is ${Number(pattern!.slice(1)) - 1}`);
   if (patternFrom === "unknown") notes.push("H unknown: the clique search ran out of budget, so pieces carry no H′ claim");
   if (!run.reached) notes.push("a rounded stage did not reach its guarantee within maxTrials; the stage guarantees may exceed the cut's surplus");
+  // Field by field rather than spread from the cut record (cheaper; the same fields in the same order).
   return {
-    ...rec,
     method: "decomposition",
+    value: rec.value,
+    partition: rec.partition,
+    status: rec.status,
+    seconds: rec.seconds,
+    solverSeed: rec.solverSeed,
+    details: rec.details,
     surplus,
     guarantee,
     pattern,

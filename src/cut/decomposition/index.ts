@@ -5,6 +5,7 @@ export {
   decompositionCut,
   decompositionBounds,
   decompositionBoundsOf,
+  setDecompositionMemo,
   patternMinusVertex,
   DEFAULT_TRIANGLE_FACTOR,
   DEFAULT_EXACT_VERTICES,

@@ -84,9 +84,15 @@ export function exactRecord(
   const cut = cutRecordOf(method, graph, partition, search.status, nowSeconds() - search.t0, search.solverSeed, details);
   const { upper, slack } = search;
   const base = upper === null ? cut.value : Math.max(upper, cut.value);
+  // Field by field rather than spread (the same fields in the same order): small graphs make many of these.
   return {
-    ...cut,
+    method: cut.method,
+    value: cut.value,
+    partition: cut.partition,
     status: search.status,
+    seconds: cut.seconds,
+    solverSeed: cut.solverSeed,
+    details: cut.details,
     upper: slack === 0 ? base : roundUp(base + slack, 2),
     graySteps: search.graySteps,
     branchNodes: search.branchNodes,

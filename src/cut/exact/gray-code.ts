@@ -40,7 +40,18 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
 
   // Roles: the highest-degree vertex is fixed (it never flips, saving its O(deg) updates); the
   // lowest-degree outer vertices take the low Gray bits, which flip most often.
-  const byDegree = Array.from({ length: n }, (_, v) => v).sort((a, c) => graph.degree(a) - graph.degree(c) || a - c);
+  // By (degree, id) ascending, by insertion (n ≤ GRAY_MAX_VERTICES): the order the comparator
+  // (a, c) ↦ deg a − deg c || a − c defines.
+  const byDegree = new Int32Array(n);
+  for (let v = 0; v < n; v++) {
+    const dv = graph.degree(v);
+    let s = v - 1;
+    while (s >= 0 && graph.degree(byDegree[s]) > dv) {
+      byDegree[s + 1] = byDegree[s];
+      s--;
+    }
+    byDegree[s + 1] = v;
+  }
   const fixed = byDegree[n - 1];
   const outer = new Int32Array(n - 1 - b);
   const blockVerts = new Int32Array(b);

@@ -3,8 +3,21 @@
 
 import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../graph.js";
-import { degeneracy } from "./degeneracy.js";
-import { firstAbove, rankedAdjacency } from "./orientation.js";
+import { sharedDegeneracy, type DegeneracyResult } from "./degeneracy.js";
+import { firstAbove, rankedAdjacency, type RankedAdjacency } from "./orientation.js";
+import { SHARED_RESULTS_MAX_SIZE } from "./triangles.js";
+
+/** The degeneracy-ordered adjacency, kept per Graph object (small graphs): a clique number is several searches. */
+const rankings = new WeakMap<Graph, RankedAdjacency>();
+function sharedRanking(g: Graph, dg: DegeneracyResult): RankedAdjacency {
+  if (g.n + g.neighbors.length > SHARED_RESULTS_MAX_SIZE) return rankedAdjacency(g, dg.order);
+  let ra = rankings.get(g);
+  if (ra === undefined) {
+    ra = rankedAdjacency(g, dg.order);
+    rankings.set(g, ra);
+  }
+  return ra;
+}
 
 /** Largest r accepted; the search is exponential in r (intended use is r ≤ 6). */
 export const MAX_CLIQUE_ORDER = 16;
@@ -42,10 +55,10 @@ export function findClique(g: Graph, r: number, options: SearchBudget = {}): Cli
     for (let u = 0; u < g.n; u++) if (g.degree(u) > 0) return { r, found: true, witness: [u, g.neighbors[g.offsets[u]]], exhaustive: true, nodesExplored: 1 };
     return none(true, 0);
   }
-  const dg = degeneracy(g);
+  const dg = sharedDegeneracy(g);
   // A K_r has a vertex with r-1 later neighbours in any ordering, so d < r-1 rules it out.
   if (dg.degeneracy < r - 1) return none(true, 0);
-  const { n, offsets: off, neighbors: nb, vertexOf } = rankedAdjacency(g, dg.order);
+  const { n, offsets: off, neighbors: nb, vertexOf } = sharedRanking(g, dg);
   const core = dg.coreNumber;
   const d = dg.degeneracy;
   // cand[level] holds the common forward neighbours of the chosen vertices, sorted by rank.

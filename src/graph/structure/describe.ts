@@ -7,11 +7,11 @@ import { bipartition } from "./bipartite.js";
 import { findClique } from "./cliques.js";
 import { connectedComponents } from "./components.js";
 import { findCycle } from "./cycles.js";
-import { degeneracy } from "./degeneracy.js";
+import { sharedDegeneracy } from "./degeneracy.js";
 import { degreeStats } from "./degrees.js";
 import { countFourCycles } from "./four-cycles.js";
 import { girth } from "./girth.js";
-import { countTriangles } from "./triangles.js";
+import { sharedTriangleCount } from "./triangles.js";
 
 /** The pieces that can be expensive on huge graphs and may be skipped. */
 export const DESCRIBE_PIECES = ["triangles", "fourCycles", "girth", "K4", "C5"] as const;
@@ -62,10 +62,10 @@ export function describeGraph(g: Graph, options: DescribeOptions = {}): GraphSum
   const deg = degreeStats(g);
   const comps = connectedComponents(g);
   const bip = bipartition(g);
-  const dg = degeneracy(g);
+  const dg = sharedDegeneracy(g);
   const bipartite = bip.bipartite;
 
-  const tri = skip.has("triangles") ? null : countTriangles(g);
+  const tri = skip.has("triangles") ? null : sharedTriangleCount(g);
   const c4 = skip.has("fourCycles") ? null : countFourCycles(g);
   const gi = skip.has("girth") ? null : girth(g);
   if (tri === null) unknown.push("triangles");
@@ -80,7 +80,7 @@ export function describeGraph(g: Graph, options: DescribeOptions = {}): GraphSum
   let K3: boolean | null;
   if (tri !== null) {
     K3 = tri.total === 0;
-    witnesses.K3 = tri.witness;
+    witnesses.K3 = tri.witness === null ? null : tri.witness.slice(); // the shared count stays unchanged
   } else if (bipartite || dg.degeneracy < 2) K3 = true;
   else {
     K3 = girthSays(3);

@@ -54,3 +54,26 @@ export function countTriangles(g: Graph): TriangleCount {
   const witness = wa < 0 ? null : [vertexOf[wa], vertexOf[wb], vertexOf[wc]];
   return { total, perVertex, witness };
 }
+
+/**
+ * Largest graph (n + 2m) whose derived results are kept per Graph object (sharedTriangleCount and
+ * the like): a small graph's results cost little to keep, while a huge graph's would hold
+ * hundreds of megabytes for as long as the graph lives. Larger graphs compute afresh each time.
+ */
+export const SHARED_RESULTS_MAX_SIZE = 1 << 20;
+
+/**
+ * The triangle count of a graph, computed once per Graph object and shared: a sweep job asks for
+ * it in the structure summary and in four lower-bound evaluators. Graphs are immutable, so the
+ * count stays valid; callers must treat the record (its perVertex array above all) as read-only.
+ */
+const shared = new WeakMap<Graph, TriangleCount>();
+export function sharedTriangleCount(g: Graph): TriangleCount {
+  if (g.n + g.neighbors.length > SHARED_RESULTS_MAX_SIZE) return countTriangles(g);
+  let t = shared.get(g);
+  if (t === undefined) {
+    t = countTriangles(g);
+    shared.set(g, t);
+  }
+  return t;
+}

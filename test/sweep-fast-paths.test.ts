@@ -1,0 +1,242 @@
+// The shortcuts the sweep's speed work added give the same values as the plain paths they stand
+// in for: induced subgraphs written as CSR directly (against buildGraph on the edge list), the
+// exact search's popcount table for unweighted blocks (against the cut of every pattern counted
+// edge by edge), the decomposition cut's memo of tiny stage graphs (memo on against memo off, on
+// every labelled graph of up to 5 vertices and a sample of 6–8 and larger ones), the vector
+// choice shared per graph (against a fresh optimisation), the shared triangle count, and the
+// store's background log checkpoints (every committed row still there). The
+// reference values are definitions (common practice, no source): a subgraph's edges, a cut's
+// crossing weight, and the same function run twice.
+import { existsSync, mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { afterEach, describe, expect, it } from "vitest";
+import { COLUMNS } from "../src/experiment/columns.js";
+import { openStore } from "../src/experiment/sqlite-store.js";
+import { decompositionCut, setDecompositionMemo } from "../src/cut/decomposition/decomposition-cut.js";
+import { CutBlock } from "../src/cut/exact/cut-block.js";
+import { optimiseVectorChoice, sharedVectorChoice, vectorOptimisedBound } from "../src/bounds/vector-choice.js";
+import { buildGraph, graphFromEdges } from "../src/graph/builder.js";
+import type { Graph } from "../src/graph/graph.js";
+import { componentSubgraph, inducedSubgraph } from "../src/graph/induced.js";
+import { countTriangles, sharedTriangleCount } from "../src/graph/structure/triangles.js";
+import { describeGraph } from "../src/graph/structure/describe.js";
+import { degeneracy, sharedDegeneracy } from "../src/graph/structure/degeneracy.js";
+import { findClique } from "../src/graph/structure/cliques.js";
+import { Rng } from "../src/random/prng.js";
+import { resolveVectorSets } from "../src/bounds/vector-sets.js";
+import { randomGraph } from "./helpers/graphs.js";
+
+/** The k-th labelled graph on n vertices: bit i of k says whether the i-th pair (u < v, v outer) is an edge. */
+function labelled(n: number, k: number): Graph {
+  const e: [number, number][] = [];
+  let i = 0;
+  for (let v = 1; v < n; v++) for (let u = 0; u < v; u++) if (Math.floor(k / 2 ** i++) % 2 === 1) e.push([u, v]);
+  return graphFromEdges(n, e);
+}
+
+/** The induced subgraph by definition: keep the edges with both ends listed, relabel by list position, build. */
+function inducedByDefinition(g: Graph, vertices: number[]): Graph {
+  const at = new Map(vertices.map((v, i) => [v, i]));
+  const us: number[] = [], vs: number[] = [], ws: number[] = [];
+  g.forEachEdge((u, v, w) => {
+    if (at.has(u) && at.has(v)) {
+      us.push(at.get(u)!);
+      vs.push(at.get(v)!);
+      ws.push(w);
+    }
+  });
+  return buildGraph(vertices.length, us, vs, g.weighted ? ws : null).graph;
+}
+
+function sameGraph(a: Graph, b: Graph): void {
+  expect(a.n).toBe(b.n);
+  expect(Array.from(a.offsets)).toEqual(Array.from(b.offsets));
+  expect(Array.from(a.neighbors)).toEqual(Array.from(b.neighbors));
+  expect(a.weights === null ? null : Array.from(a.weights)).toEqual(b.weights === null ? null : Array.from(b.weights));
+  expect(a.totalWeight).toBe(b.totalWeight);
+}
+
+describe("induced subgraphs written as CSR", () => {
+  it("equal buildGraph on the edge list, for sorted and shuffled vertex lists, weighted and not", () => {
+    const rng = new Rng(7);
+    for (let t = 0; t < 200; t++) {
+      const n = 1 + rng.nextInt(30);
+      const weighted = t % 3 === 0;
+      const g = randomGraph(n, rng.nextFloat(), rng, weighted ? { weight: (r) => Math.round(100 * (r.nextFloat() - 0.3)) / 8 } : {});
+      const all = Array.from({ length: n }, (_, i) => i);
+      const k = rng.nextInt(n + 1);
+      for (let i = n - 1; i > 0; i--) {
+        const j = rng.nextInt(i + 1);
+        [all[i], all[j]] = [all[j], all[i]];
+      }
+      const shuffled = all.slice(0, k);
+      const sorted = shuffled.slice().sort((a, b) => a - b);
+      sameGraph(inducedSubgraph(g, shuffled), inducedByDefinition(g, shuffled));
+      sameGraph(inducedSubgraph(g, sorted), inducedByDefinition(g, sorted));
+    }
+  });
+
+  it("componentSubgraph reads only the members' positions", () => {
+    // Two components; the shared position array holds stale values for the other one.
+    const g = graphFromEdges(7, [[0, 2], [2, 4], [4, 0], [1, 3], [3, 5], [5, 6]]);
+    const position = [0, 9, 1, 9, 2, 9, 9];
+    sameGraph(componentSubgraph(g, [0, 2, 4], position), inducedByDefinition(g, [0, 2, 4]));
+  });
+});
+
+describe("exact search blocks", () => {
+  /** Cut of pattern c by definition: the weight of the block pairs on different sides. */
+  function cutOf(size: number, w: (i: number, j: number) => number, c: number): number {
+    let s = 0;
+    for (let i = 0; i < size; i++) for (let j = i + 1; j < size; j++) if (((c >>> i) & 1) !== ((c >>> j) & 1)) s += w(i, j);
+    return s;
+  }
+
+  it("tabulate every pattern's cut, unweighted (popcount path) and with integer weights (general path)", () => {
+    const rng = new Rng(11);
+    for (let t = 0; t < 60; t++) {
+      const size = rng.nextInt(13);
+      const unit = t % 2 === 0;
+      const w = new Float64Array(size * size);
+      for (let i = 0; i < size; i++) {
+        for (let j = i + 1; j < size; j++) {
+          const x = rng.nextFloat() < 0.5 ? 0 : unit ? 1 : 1 + rng.nextInt(5);
+          w[i * size + j] = w[j * size + i] = x;
+        }
+      }
+      const weight = (i: number, j: number) => w[i * size + j];
+      const block = new CutBlock(size, weight);
+      let best = 0;
+      for (let c = 0; c < 1 << size; c++) {
+        expect(block.table[c]).toBe(cutOf(size, weight, c));
+        best = Math.max(best, block.table[c]);
+      }
+      expect(block.tableMax).toBe(best);
+    }
+  });
+});
+
+describe("decomposition cut memo of tiny stage graphs", () => {
+  afterEach(() => setDecompositionMemo(true));
+
+  const graphs: Graph[] = [];
+  for (let n = 1; n <= 5; n++) for (let k = 0; k < 2 ** ((n * (n - 1)) / 2); k++) graphs.push(labelled(n, k));
+  const rng = new Rng(3);
+  for (const n of [6, 7, 8]) for (let t = 0; t < 150; t++) graphs.push(labelled(n, rng.nextInt(2 ** ((n * (n - 1)) / 2))));
+  for (let t = 0; t < 20; t++) graphs.push(randomGraph(9 + rng.nextInt(12), 0.2 + 0.6 * rng.nextFloat(), rng));
+
+  it("gives the same records as the plain path (twice over, so the second pass reads the memo)", () => {
+    const strip = (g: Graph, seed: number) => {
+      const { seconds: _s, ...rest } = decompositionCut(g, { solverSeed: seed });
+      return rest;
+    };
+    setDecompositionMemo(false);
+    const plain = graphs.map((g, i) => strip(g, i % 3));
+    setDecompositionMemo(true);
+    for (let pass = 0; pass < 2; pass++) graphs.forEach((g, i) => expect(strip(g, i % 3)).toEqual(plain[i]));
+  });
+});
+
+/** Is there a K_r? Every r-subset tried (small graphs only). */
+function hasClique(g: Graph, r: number): boolean {
+  const pick: number[] = [];
+  const grow = (from: number): boolean => {
+    if (pick.length === r) return true;
+    for (let v = from; v < g.n; v++) {
+      if (pick.every((u) => g.hasEdge(u, v))) {
+        pick.push(v);
+        if (grow(v + 1)) return true;
+        pick.pop();
+      }
+    }
+    return false;
+  };
+  return grow(0);
+}
+
+describe("results shared per graph object", () => {
+  it("the shared vector choice and triangle count equal fresh ones", () => {
+    const rng = new Rng(5);
+    for (let t = 0; t < 40; t++) {
+      const g = randomGraph(2 + rng.nextInt(16), rng.nextFloat(), rng);
+      const fresh = optimiseVectorChoice(g);
+      expect(sharedVectorChoice(g)).toEqual(fresh);
+      expect(vectorOptimisedBound(g).surplus).toBe(fresh.guarantee.surplus);
+      expect(sharedTriangleCount(g)).toEqual(countTriangles(g));
+      expect(sharedDegeneracy(g)).toEqual(degeneracy(g));
+      // Clique searches on the shared ordering: the same answers as the clique number by definition would give.
+      for (let r = 3; r <= 5; r++) expect(findClique(g, r).found).toBe(hasClique(g, r));
+      // describeGraph hands out its own copy of the shared witness.
+      const s = describeGraph(g);
+      if (s.witnesses.K3 !== null) {
+        s.witnesses.K3.reverse();
+        expect(sharedTriangleCount(g).witness).toEqual(countTriangles(g).witness);
+      }
+    }
+  });
+});
+
+describe("vector sets given in ascending order", () => {
+  it("resolve to the same sets as shuffled lists, and bad lists fail with the same message either way", () => {
+    const rng = new Rng(9);
+    for (let t = 0; t < 40; t++) {
+      const g = randomGraph(3 + rng.nextInt(20), 0.2 + 0.6 * rng.nextFloat(), rng);
+      const sorted = Array.from({ length: g.n }, (_, i) => Array.from(g.neighborsOf(i)).filter(() => rng.nextFloat() < 0.7));
+      const shuffled = sorted.map((s) => rng.shuffle(s.slice()));
+      const a = resolveVectorSets(g, { sets: sorted });
+      const b = resolveVectorSets(g, { sets: shuffled });
+      expect(Array.from(a.offsets)).toEqual(Array.from(b.offsets));
+      expect(Array.from(a.members)).toEqual(Array.from(b.members));
+      expect(Array.from(a.eps)).toEqual(Array.from(b.eps));
+    }
+    // Vertex 0 of a path 0–1–2: 2 is not a neighbour; [1, 1] repeats.
+    const path = graphFromEdges(3, [[0, 1], [1, 2]]);
+    expect(() => resolveVectorSets(path, { sets: [[1, 2], [], []] })).toThrow("vector method: invalid `sets[0]`: should contain only neighbours of vertex 0; 2 is not one (got [1,2])");
+    expect(() => resolveVectorSets(path, { sets: [[1, 1], [], []] })).toThrow(/should not repeat vertex 1/);
+  });
+});
+
+describe("log checkpoints on a background thread", () => {
+  it("every row committed meanwhile is in the file after stop and close, and the log is copied in", async () => {
+    const dir = mkdtempSync(join(tmpdir(), "halfplus-checkpoint-"));
+    try {
+      const path = join(dir, "s.db");
+      const store = openStore(path);
+      const stop = store.backgroundMaintenance!();
+      const blank = (k: number) => COLUMNS.map((c) => (c.name === "key" ? `k${k}` : c.name === "runs" ? "x".repeat(900) : null));
+      let k = 0;
+      for (let batch = 0; batch < 40; batch++) {
+        store.insertValues(Array.from({ length: 50 }, () => blank(k++)));
+        await new Promise((r) => setTimeout(r, 5));
+      }
+      await stop();
+      await stop(); // a second call waits for the same stop
+      store.close();
+      // The last connection's close folds the log into the file and removes it (SQLite's WAL rules).
+      expect(existsSync(`${path}-wal`)).toBe(false);
+      const again = openStore(path, { readonly: true });
+      expect(again.count()).toBe(2000);
+      again.close();
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+
+  it("a checkpointer that cannot open the file leaves the writer working", async () => {
+    const dir = mkdtempSync(join(tmpdir(), "halfplus-checkpoint-"));
+    try {
+      const store = openStore(join(dir, "s.db"));
+      // Point the checkpointer at a folder: its open fails and the thread ends.
+      Object.defineProperty(store, "path", { value: dir });
+      const stop = store.backgroundMaintenance!();
+      await new Promise((r) => setTimeout(r, 200));
+      expect(store.insertValues([COLUMNS.map((c) => (c.name === "key" ? "only" : null))])).toBe(1);
+      await stop();
+      expect(store.count()).toBe(1);
+      store.close();
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
