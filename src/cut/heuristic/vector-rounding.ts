@@ -65,13 +65,19 @@ export function vectorMethodExpectedCut(graph: Graph, options: VectorSetOptions 
   return expectedCutFor(graph, sets, vectorEdgeTerms(graph, sets));
 }
 
-/** Round the explicit vectors `trials` times; the record holds the best cut and the statistics. */
-export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions = {}): CutRecord {
-  const t0 = performance.now();
-  const sets = resolveVectorSets(graph, options);
-  const trials = checkTrials(OWNER, options.trials, 100);
-  const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
-  const polish = options.polish ?? false;
+interface Trials {
+  bestSide: Uint8Array;
+  /** Best (polished, when asked) cut value and best raw rounded cut value. */
+  best: number;
+  bestRaw: number;
+  /** Running mean and sum of squared deviations of the raw surplus. */
+  mean: number;
+  m2: number;
+  trialSeconds: number;
+}
+
+/** The rounding trials themselves: `trials` Gaussian vectors from `solverSeed`, the best side kept. */
+function roundTrials(graph: Graph, sets: VectorSets, trials: number, solverSeed: number, polish: boolean): Trials {
   const rng = new Rng(solverSeed);
   const n = graph.n;
   const { offsets, members, eps } = sets;
@@ -129,7 +135,17 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
       bestSide.set(side);
     }
   }
-  const trialSeconds = (performance.now() - tTrials) / 1000;
+  return { bestSide, best, bestRaw, mean, m2, trialSeconds: (performance.now() - tTrials) / 1000 };
+}
+
+/** Round the explicit vectors `trials` times; the record holds the best cut and the statistics. */
+export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions = {}): CutRecord {
+  const t0 = performance.now();
+  const sets = resolveVectorSets(graph, options);
+  const trials = checkTrials(OWNER, options.trials, 100);
+  const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
+  const polish = options.polish ?? false;
+  const { bestSide, bestRaw, mean, m2, trialSeconds } = roundTrials(graph, sets, trials, solverSeed, polish);
   const variance = trials > 1 ? m2 / (trials - 1) : 0;
   const terms = vectorEdgeTerms(graph, sets);
   const guarantee = vectorMethodGuaranteeFor(graph, sets, terms);
@@ -146,4 +162,26 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
     polish,
     trialSeconds,
   });
+}
+
+/** What vectorMethodRound's record says of the cut and the trials, without its guarantee and statistics. */
+export interface VectorRoundingCut {
+  /** The best cut's sides (owned by the caller) and its value. */
+  partition: Uint8Array;
+  value: number;
+  /** Mean raw rounded surplus over the trials (the record's `meanSurplus`). */
+  meanSurplus: number;
+}
+
+/**
+ * The best cut and mean surplus of vectorMethodRound with the same options, equal to the record's
+ * `partition`, `value` and `details.meanSurplus`, without the guarantee, the expected cut and the
+ * record (callers that round one vector choice many times compute those once: the decomposition).
+ */
+export function vectorMethodRoundCut(graph: Graph, options: VectorRoundingOptions = {}): VectorRoundingCut {
+  const sets = resolveVectorSets(graph, options);
+  const trials = checkTrials(OWNER, options.trials, 100);
+  const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
+  const r = roundTrials(graph, sets, trials, solverSeed, options.polish ?? false);
+  return { partition: r.bestSide, value: cutValue(graph, r.bestSide), meanSurplus: r.mean };
 }
