@@ -72,8 +72,14 @@ export interface TreeSearchOptions {
   relaxation?: TreeRelaxation;
   /** Separation rounds per node for "triangles" (default 25). */
   roundsPerNode?: number;
-  /** "triangles": strengthen a node only when its plain bound is within this much of pruning (default 2; Infinity: always). */
+  /**
+   * "triangles": strengthen a node only when its plain bound is within this much, plus 1.5 times what
+   * the inequalities gained at the nearest strengthened ancestor, of pruning (default 2; the root is
+   * always strengthened; Infinity: every node).
+   */
   strengthenWithin?: number;
+  /** "triangles": separation every this many rounds after the first two (default 3). */
+  separateEvery?: number;
   /** Branching rule (default "least-decided"): the free vertex whose SDP vector is closest to orthogonal to z's, or closest to ±z's. */
   branching?: TreeBranching;
   /** Called about every half second with the bracket so far; `closedShare` is the share of all cuts in closed regions (2^−depth each). */
@@ -101,6 +107,8 @@ interface Node {
   rank: number;
   /** The parent's triangle inequalities and multipliers written for this node (a warm start), or null. */
   warmTriangles: { triangles: Int32Array; mu: Float64Array } | null;
+  /** How much the inequalities lowered the nearest strengthened ancestor's bound (Infinity at the root). */
+  gain: number;
   /** Set when the node was evaluated: its own region evidence. */
   region: TreeRegion | null;
   seq: number;
@@ -196,7 +204,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   let seq = 0;
   const rootSide = new Uint8Array(n).fill(255);
   if (n > 0) rootSide[rootVertex] = 0;
-  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, rank: 0, region: null, seq: seq++, warmTriangles: null });
+  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, rank: 0, region: null, seq: seq++, warmTriangles: null, gain: Infinity });
   let nodes = 0;
   let status: TreeSearchRecord["status"] = "optimal";
   let lastProgress = t0;
@@ -242,7 +250,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     const warmTri = node.warmTriangles !== null ? { warmTriangles: node.warmTriangles.triangles, warmMu: node.warmTriangles.mu } : {};
     const sdp = solveTriangleSdp(red.graph, {
       solverSeed: seed, iterations: relaxation === "triangles" ? rounds : 0, target, stopGap: 1, firstTolerance: 1e-7,
-      strengthenWithin, stopWhenHopeless: true, ...warm, ...warmTri,
+      strengthenWithin: strengthenWithin + 1.5 * node.gain, stopWhenHopeless: true, separateEvery: options.separateEvery ?? 3, ...warm, ...warmTri,
     });
     // offset is an exact integer, the bound a float rounded up: round the sum up, then down to an integer.
     const bound = floorCutBound(roundUp(red.offset + sdp.value, 1));
@@ -280,7 +288,8 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
         const side = node.side.slice();
         side[v] = s;
         const inherited = relaxation === "triangles" && sdp.certificate.mu.length > 0 ? mapTrianglesAfterFix(sdp.certificate.triangles, sdp.certificate.mu, pick, s) : null;
-        heap.push({ side, path: [...node.path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, rank: r, region: null, seq: seq++, warmTriangles: inherited });
+        const gain = sdp.rounds > 0 ? sdp.plainValue - sdp.value : node.gain;
+        heap.push({ side, path: [...node.path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, rank: r, region: null, seq: seq++, warmTriangles: inherited, gain });
       }
     }
     const now = nowSeconds();
