@@ -70,8 +70,10 @@ export interface TreeSearchOptions {
   initial?: ArrayLike<number>;
   /** Node bound (default "triangles"). */
   relaxation?: TreeRelaxation;
-  /** Separation rounds per node for "triangles" (default 25). */
+  /** Separation rounds per node for "triangles" (default 100; fewer when the descent is too slow to prune). */
   roundsPerNode?: number;
+  /** Separation rounds at the root (default 1000: on a random 3-regular graph with 100 vertices the bound fell from 138.6 after 25 rounds to 135.0 after 800, bench/exact-hundred). */
+  rootRounds?: number;
   /**
    * "triangles": strengthen a node only when its plain bound is within this much, plus 1.5 times what
    * the inequalities gained at the nearest strengthened ancestor, of pruning (default 2; the root is
@@ -175,8 +177,10 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   const seed = checkSeed(OWNER, "solverSeed", options.solverSeed);
   const relaxation = options.relaxation ?? "triangles";
   if (!TREE_RELAXATIONS.includes(relaxation)) throw invalidParameter(OWNER, "relaxation", `should be one of ${TREE_RELAXATIONS.join(", ")}`, relaxation);
-  const rounds = options.roundsPerNode ?? 25;
+  const rounds = options.roundsPerNode ?? 100;
   if (!(Number.isInteger(rounds) && rounds >= 0)) throw invalidParameter(OWNER, "roundsPerNode", "should be a non-negative integer", rounds);
+  const rootRounds = options.rootRounds ?? 1000;
+  if (!(Number.isInteger(rootRounds) && rootRounds >= 0)) throw invalidParameter(OWNER, "rootRounds", "should be a non-negative integer", rootRounds);
   if (!hasIntegerWeights(graph) || positiveWeightSum(graph) > EXACT_INTEGER_TOTAL) {
     throw new InputError(`${OWNER}: the graph should have integer weights (every cut then is an exact integer)`);
   }
@@ -249,7 +253,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     const warm = node.warm !== null ? { initial: node.warm, rank: node.rank } : {};
     const warmTri = node.warmTriangles !== null ? { warmTriangles: node.warmTriangles.triangles, warmMu: node.warmTriangles.mu } : {};
     const sdp = solveTriangleSdp(red.graph, {
-      solverSeed: seed, iterations: relaxation === "triangles" ? rounds : 0, target, stopGap: 1, firstTolerance: 1e-7,
+      solverSeed: seed, iterations: relaxation === "triangles" ? (node.parent === null ? rootRounds : rounds) : 0, target, stopGap: 1, firstTolerance: 1e-7,
       strengthenWithin: strengthenWithin + 1.5 * node.gain, stopWhenHopeless: true, separateEvery: options.separateEvery ?? 3, ...warm, ...warmTri,
     });
     // offset is an exact integer, the bound a float rounded up: round the sum up, then down to an integer.
