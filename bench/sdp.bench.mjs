@@ -2,10 +2,12 @@
 // table (target: within 0.05%), its time against dsdp5 on our SDPA export in the same run (target:
 // at least 5× faster on G1 and G22), the eigenvalue bound's time, and time and memory of the SDP on
 // a random graph with 10^6 edges. Set SDP_BENCH_DSDP=all to time dsdp5 on every instance;
-// SDP_BENCH_ONLY=G11,G14 runs only those G-set graphs (and skips the 10^6-edge graph).
+// SDP_BENCH_ONLY=G11,G14 runs only those G-set graphs (and skips the 10^6-edge graph). Beside the wall
+// clock, CPU-seconds of ours (process.cpuUsage) and of dsdp5 (bash's `time`) and the load average, since
+// the machine is shared.
 import { spawnSync } from "node:child_process";
 import { existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { loadavg, tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 import { solveAndCertifySdp, eigenvalueUpperBound, verifyCertificate, toSdpa } from "../dist/cut/index.js";
 import { parseGset } from "../dist/graph/formats/gset.js";
@@ -23,10 +25,12 @@ function dsdpSeconds(graph, name) {
   const file = join(work, `${name}.dat-s`);
   writeFileSync(file, toSdpa(graph));
   const t0 = process.hrtime.bigint();
-  const r = spawnSync("dsdp5", [file], { maxBuffer: 1 << 26, cwd: dirname(file) }); // dsdp5 writes a results file into its cwd
+  // Through bash's `time` (user and system CPU-seconds on stderr), since the wall clock of a loaded machine is noisy.
+  const r = spawnSync("bash", ["-c", 'TIMEFORMAT="cpu %U %S"; time dsdp5 "$1"', "bash", file], { maxBuffer: 1 << 26, cwd: dirname(file) }); // dsdp5 writes a results file into its cwd
   const seconds = Number(process.hrtime.bigint() - t0) / 1e9;
   const m = /DSDP Solution:\s*(\S+)/.exec(r.stdout.toString());
-  return { seconds, value: m === null ? NaN : -Number(m[1]) };
+  const c = /cpu (\S+) (\S+)\s*$/.exec(r.stderr.toString());
+  return { seconds, cpu: c === null ? NaN : Number(c[1]) + Number(c[2]), value: m === null ? NaN : -Number(m[1]) };
 }
 
 const dir = join(SHARED_REFERENCE, "gset");
@@ -42,8 +46,10 @@ if (!hasShared() || !existsSync(join(dir, "sdp-upper-bound.csv"))) {
     const ref = table.get(name);
     globalThis.gc?.();
     const t0 = process.hrtime.bigint();
+    const c0 = process.cpuUsage();
     const { sdp, bound } = solveAndCertifySdp(g);
     const ours = Number(process.hrtime.bigint() - t0) / 1e9;
+    const c1 = process.cpuUsage(c0);
     const check = verifyCertificate(g, bound.certificate);
     const t1 = process.hrtime.bigint();
     const eig = eigenvalueUpperBound(g);
@@ -65,12 +71,16 @@ if (!hasShared() || !existsSync(join(dir, "sdp-upper-bound.csv"))) {
       sweeps: sdp.sweeps,
       "sdp s": Number(sdp.seconds.toFixed(2)),
       "ours s": Number(ours.toFixed(2)),
+      "ours cpu s": Number(((c1.user + c1.system) / 1e6).toFixed(2)),
       "dsdp5 s": d === null ? null : Number(d.seconds.toFixed(2)),
+      "dsdp5 cpu s": d === null ? null : Number(d.cpu.toFixed(2)),
       "dsdp5 value": d === null ? null : Number(d.value.toFixed(3)),
       speedup: d === null ? null : Number((d.seconds / ours).toFixed(1)),
+      "cpu speedup": d === null ? null : Number((d.cpu / ((c1.user + c1.system) / 1e6)).toFixed(1)),
       "5× target": target ? (d === null ? "dsdp5 absent" : d.seconds / ours >= 5 ? "met" : "MISSED") : "",
       "eigen bound": Number(eig.value.toFixed(1)),
       "eigen s": Number(eigSeconds.toFixed(2)),
+      load: Number(loadavg()[0].toFixed(1)),
     });
     console.log(JSON.stringify(rows[rows.length - 1]));
   }

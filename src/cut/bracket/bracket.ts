@@ -336,7 +336,8 @@ function certifyUnits(state: BracketState, r: UpperBoundRecord): number {
   const proofs = r.certificate?.shiftProof === "cholesky" ? Number(d.attempts ?? 1) : d.choleskyFailure !== undefined ? 6 : 0;
   // The sparse proof counts its multiply-adds (one unit each) per attempt; the probable bound's
   // Chebyshev filter is one operator product per degree.
-  const sparse = r.certificate?.shiftProof === "sparse-cholesky" ? Number(d.sparseWork ?? 0) * Number(d.attempts ?? 1) : 0;
+  // A bisection (details.bisection) that ended in a Gershgorin shift still did its factorisations.
+  const sparse = r.certificate?.shiftProof === "sparse-cholesky" || d.bisection === true ? Number(d.sparseWork ?? 0) * Number(d.attempts ?? 1) : 0;
   const filter = r.certificate?.shiftProof === "chebyshev-probable" ? Number(d.filterDegree ?? 0) : 0;
   return unitsOf(products + filter, state.costs.matvec) + unitsOf(proofs, state.costs.denseProof) + sparse + state.costs.pass;
 }

@@ -49,13 +49,17 @@ export const DEFAULT_FAILURE_PROBABILITY = 1e-9;
 export const SPARSE_PROOF_WORK = 5e8;
 
 export interface CertifyOptions {
-  /** auto (default): Cholesky when n ≤ denseLimit, else a Lanczos estimate (Gershgorin whenever it is as good); or force one. */
+  /**
+   * auto (default): Cholesky when n ≤ denseLimit (the sparse proof instead when it costs at most a quarter),
+   * above it the sparse proof when it fits sparseWorkLimit, else a probable shift or a Lanczos estimate
+   * (Gershgorin whenever it is as good); or force one.
+   */
   shiftProof?: "auto" | ShiftProof;
   /** Largest n for the dense Cholesky proof (default 3000: n² doubles of memory, n³/6 multiply-adds). */
   denseLimit?: number;
   /** Seed of the Lanczos start vector (default 1; a Lanczos estimate also runs seed + 1, wrapping to 0). */
   solverSeed?: number;
-  /** Lanczos residual tolerance relative to ‖L − Diag(y)‖ (default 1e-9). */
+  /** Lanczos residual tolerance relative to ‖L − Diag(y)‖, and a bisection's final bracket (default 1e-9). */
   tolerance?: number;
   /** Record name (default "dual-certificate"). */
   name?: string;
@@ -64,7 +68,7 @@ export interface CertifyOptions {
    * proof does not fit in sparseWorkLimit; 0 turns probable shifts off (a bare Lanczos estimate instead).
    */
   failureProbability?: number;
-  /** Most multiply-adds the sparse Cholesky proof may take (default SPARSE_PROOF_WORK; 0 turns it off). Deterministic. */
+  /** Most multiply-adds one sparse Cholesky factorisation may take (default SPARSE_PROOF_WORK; 0 turns the sparse proof off). Deterministic. A bisection repeats factorisations of at most 50 Lanczos products each, at most 48 times. */
   sparseWorkLimit?: number;
 }
 
@@ -251,10 +255,10 @@ interface ShiftEstimate {
   iterations: number;
 }
 
-function estimateTop(graph: Graph, y: ArrayLike<number>, seed: number, tolerance: number): ShiftEstimate {
+function estimateTop(graph: Graph, y: ArrayLike<number>, seed: number, tolerance: number, maxRestarts = 100): ShiftEstimate {
   // The residual enters the shift, so a looser tolerance costs a little bound, never validity;
   // the restart cap keeps clustered spectra near an SDP optimum from running long.
-  const l = lanczosExtreme(shiftedLaplacianOperator(graph, y), { which: "largest", k: 1, tolerance, solverSeed: seed, maxRestarts: 100 });
+  const l = lanczosExtreme(shiftedLaplacianOperator(graph, y), { which: "largest", k: 1, tolerance, solverSeed: seed, maxRestarts });
   return { theta: l.values[0], residual: l.residuals[0], normEstimate: l.normEstimate, converged: l.converged, iterations: l.iterations };
 }
 
@@ -283,6 +287,78 @@ function proveNearEstimate(est: ShiftEstimate, scale: number, prove: (shift: num
   return { failure: last?.message ?? "no attempt" };
 }
 
+/**
+ * Multiply-adds of one Lanczos product in `estimateTop`: the 2m arcs of the operator plus about 160n for
+ * orthogonalising against a basis of up to 40 vectors (one or two passes). Common practice, no source:
+ * read off the code, to compare a Lanczos estimate's work with a factorisation's.
+ */
+function lanczosProductWork(graph: Graph): number {
+  return 2 * graph.m + 160 * graph.n;
+}
+
+/**
+ * A sparse factorisation costing at most this many Lanczos products may be repeated: the least provable
+ * shift is then found by bisection on the proof itself whenever a Lanczos estimate does not converge within
+ * about the work of a bisection. On the clustered top spectrum of a near-optimal SDP dual (the toroidal
+ * ±1 graphs: G11's top eigenvalues of L − Diag(y) lie within 10⁻⁴ of each other) a tight estimate takes
+ * thousands of products; a bisection takes about 20 factorisations. Measured in bench/sdp.bench.mjs.
+ */
+const BISECTION_MAX_RATIO = 50;
+
+/** Factorisations a bisection typically needs: the Lanczos estimate before it gets about their work. */
+const BISECTION_PROOFS = 24;
+
+/** Fewest restarts of the Lanczos estimate before a bisection (a basis of 40, then 20 products per restart). */
+const ROUGH_RESTARTS = 2;
+
+/** Most factorisations one bisection may take. */
+const MAX_BISECTION_PROOFS = 48;
+
+/** Multiply-adds of a dense Cholesky proof: n³/6. */
+function denseProofWork(n: number): number {
+  return (n * n * n) / 6;
+}
+
+/**
+ * The least shift `prove` establishes, to within `width`, by bisection on the proof itself. The Ritz
+ * value θ is the lower end (λmax ≥ θ, so no smaller shift is provable beyond rounding); the upper end
+ * is found by trying θ + ρ and growing the step fourfold per failure. The bisection only aims: the
+ * shift returned is one whose proof succeeded, so its validity never rests on monotonicity.
+ */
+function bisectProvenShift(est: ShiftEstimate, width: number, prove: (shift: number) => PsdProof): { shift: number; proof: PsdProof; attempts: number; lower: number } | { failure: string; attempts: number } {
+  let lo = est.theta;
+  let step = Math.max(est.residual, width);
+  let attempts = 0;
+  let hi = NaN;
+  let proof: PsdProof | null = null;
+  let last = "no attempt";
+  while (proof === null) {
+    if (attempts >= 12) return { failure: last, attempts };
+    const shift = roundUp(lo + step, 2);
+    attempts++;
+    const p = prove(shift);
+    if (p.proven) {
+      hi = shift;
+      proof = p;
+    } else {
+      last = p.message;
+      lo = shift;
+      step *= 4;
+    }
+  }
+  while (hi - lo > width && attempts < MAX_BISECTION_PROOFS) {
+    const mid = lo + (hi - lo) / 2;
+    if (!(mid > lo && mid < hi)) break;
+    attempts++;
+    const p = prove(mid);
+    if (p.proven) {
+      hi = mid;
+      proof = p;
+    } else lo = mid;
+  }
+  return { shift: hi, proof, attempts, lower: lo };
+}
+
 function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOptions): EstablishedShift {
   const n = graph.n;
   const seed = options.solverSeed ?? 1;
@@ -293,38 +369,71 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
   if (wanted === "gershgorin") {
     return { shift: gershgorinShift(graph, y), shiftProof: "gershgorin", proven: true, converged: true, details: {} };
   }
-  const est = estimateTop(graph, y, seed, tol);
+  const useCholesky = wanted === "cholesky" || (wanted === "auto" && n <= denseLimit);
+  // The envelope is sized first (O(n + m), deterministic) whenever a sparse proof may be used: above
+  // denseLimit, when forced, and in place of the dense proof when it costs at most a quarter of n³/6
+  // (toroidal and other narrow-envelope graphs, e.g. G48: 9·10⁶ against 4.5·10⁹ multiply-adds).
+  const limit = options.sparseWorkLimit ?? SPARSE_PROOF_WORK;
+  const plan = wanted === "sparse-cholesky" || wanted === "auto" ? envelopePlan(graph) : null;
+  const sparse = plan !== null && plan.work <= limit && (!useCholesky || 4 * plan.work <= denseProofWork(n)) ? plan : null;
+  // A repeatable sparse proof: the estimate gets about a bisection's work, and a bisection follows if it did not converge.
+  const ratio = sparse === null ? Infinity : sparse.work / lanczosProductWork(graph);
+  const canBisect = ratio <= BISECTION_MAX_RATIO;
+  const restarts = canBisect ? Math.min(100, Math.max(ROUGH_RESTARTS, Math.floor((BISECTION_PROOFS * ratio - 40) / 20))) : 100;
+  let est = estimateTop(graph, y, seed, tol, restarts);
+  const bisect = canBisect && !est.converged;
   const scale = Math.max(est.normEstimate, 1e-300);
   // Gershgorin costs O(m) and is a proof; where it is as good as the estimate (e.g. regular
   // bipartite graphs at y = 0, or y = 2d), it saves the O(n³) Cholesky and beats an estimate.
+  // Before a bisection (an unconverged estimate) it must match the Ritz value itself.
   const gersh = gershgorinShift(graph, y);
-  const candidate = est.theta + 3 * est.residual + 1e-10 * scale;
+  const candidate = bisect ? est.theta + tol * scale : est.theta + 3 * est.residual + 1e-10 * scale;
   const gValue = dualBoundValue(y, gersh);
   if (gValue <= dualBoundValue(y, candidate) + 1e-9 * Math.abs(gValue)) {
     return { shift: gersh, shiftProof: "gershgorin", proven: true, converged: true, details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations: est.iterations, proof: true } };
   }
-  const useCholesky = wanted === "cholesky" || (wanted === "auto" && n <= denseLimit);
-  const base = { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations: est.iterations };
+  let lanczosIterations = est.iterations;
   const notes: Record<string, string | number> = {};
-  if (!useCholesky && (wanted === "auto" || wanted === "sparse-cholesky")) {
-    // Sparse proof when the envelope's predicted work is within the (deterministic) limit.
-    const plan = envelopePlan(graph);
-    const limit = options.sparseWorkLimit ?? SPARSE_PROOF_WORK;
-    if (plan.work <= limit) {
-      const r = proveNearEstimate(est, scale, (shift) => proveShiftSparse(graph, y, shift, plan));
-      if ("proof" in r) {
-        return {
-          shift: r.shift,
-          shiftProof: "sparse-cholesky",
-          proven: true,
-          converged: true,
-          details: { ...base, margin: r.margin, choleskyShift: r.proof.shift, attempts: r.attempts, envelopeEntries: plan.entries, envelopeWidth: plan.width, sparseWork: plan.work, proof: true },
-        };
+  if (plan !== null && (wanted === "sparse-cholesky" || !useCholesky || sparse !== null)) {
+    if (sparse !== null) {
+      const proveSparse = (shift: number): PsdProof => proveShiftSparse(graph, y, shift, sparse);
+      const envelope = { envelopeEntries: sparse.entries, envelopeWidth: sparse.width, sparseWork: sparse.work };
+      if (bisect) {
+        const r = bisectProvenShift(est, tol * scale, proveSparse);
+        // Gershgorin may still match the bisected shift (the rough Ritz value sat below λmax): prefer the simpler proof.
+        if ("proof" in r && gValue <= dualBoundValue(y, r.shift)) {
+          return { shift: gersh, shiftProof: "gershgorin", proven: true, converged: true, details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations, attempts: r.attempts, bisection: true, ...envelope, proof: true } };
+        }
+        if ("proof" in r) {
+          return {
+            shift: r.shift,
+            shiftProof: "sparse-cholesky",
+            proven: true,
+            converged: true,
+            details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations, margin: r.shift - est.theta, unprovenBelow: r.lower, choleskyShift: r.proof.shift, attempts: r.attempts, bisection: true, ...envelope, proof: true },
+          };
+        }
+        notes.sparseFailure = r.failure;
+        // The rough estimate would widen every later margin: estimate again as the other routes expect.
+        est = estimateTop(graph, y, seed, tol);
+        lanczosIterations += est.iterations;
+      } else {
+        const r = proveNearEstimate(est, scale, proveSparse);
+        if ("proof" in r) {
+          return {
+            shift: r.shift,
+            shiftProof: "sparse-cholesky",
+            proven: true,
+            converged: true,
+            details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations, margin: r.margin, choleskyShift: r.proof.shift, attempts: r.attempts, ...envelope, proof: true },
+          };
+        }
+        notes.sparseFailure = r.failure;
       }
-      notes.sparseFailure = r.failure;
-    } else notes.sparseRefused = `envelope work ${plan.work} > limit ${limit}`;
+    } else if (plan.work > limit) notes.sparseRefused = `envelope work ${plan.work} > limit ${limit}`;
     notes.sparseWork = plan.work;
   }
+  const base = { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations };
   const delta = options.failureProbability ?? DEFAULT_FAILURE_PROBABILITY;
   if (!useCholesky && delta > 0 && (wanted === "auto" || wanted === "chebyshev-probable" || wanted === "sparse-cholesky")) {
     const params = probableParameters(graph, y, est.theta, est.residual, scale, delta, (seed + 2) >>> 0);
@@ -352,7 +461,7 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
       shiftProof: "lanczos-estimate",
       proven: false,
       converged: est.converged && second.converged,
-      details: { ...notes, ritzValue: best.theta, ritzResidual: best.residual, lanczosIterations: est.iterations + second.iterations, proof: false },
+      details: { ...notes, ritzValue: best.theta, ritzResidual: best.residual, lanczosIterations: lanczosIterations + second.iterations, proof: false },
     };
   }
   const r = proveNearEstimate(est, scale, (shift) => proveShift(graph, y, shift));
@@ -413,7 +522,7 @@ export interface CertificateCheck {
   failureProbability?: number;
   /** ¼(Σy + n·shift) rounded up, or NaN when malformed. */
   value: number;
-  /** Independent upper estimate θ + ρ of λmax(L − Diag(y)) from a fresh Lanczos run (NaN when malformed). */
+  /** Independent estimate θ + ρ of λmax(L − Diag(y)) from a fresh Lanczos run, of 10 restarts only for the proofs, which are redone (NaN when malformed). */
   recomputedShift: number;
   /** The certificate's claimed shift proof, as written (or "unknown"). */
   shiftProof: string;
@@ -465,7 +574,10 @@ export function verifyCertificate(graph: Graph, certificate: DualCertificate, op
   const value = dualBoundValue(y, shift);
   if (graph.n === 0) return { ok: true, proven: true, kind: "proven", value, recomputedShift: 0, shiftProof: method, message: "empty graph" };
 
-  const est = estimateTop(graph, y, options.solverSeed ?? 7, 1e-10);
+  // For the proofs the estimate only screens (the proof itself is redone below), so a few restarts do:
+  // any Ritz value is a lower bound on λmax. Estimates and probable shifts are judged against it, so it stays tight there.
+  const screenOnly = method === "cholesky" || method === "sparse-cholesky" || method === "gershgorin";
+  const est = estimateTop(graph, y, options.solverSeed ?? 7, 1e-10, screenOnly ? 10 : 100);
   const recomputedShift = est.theta + est.residual;
   // Ritz values lie below λmax, so a shift under one (beyond rounding) is certainly too small.
   const slack = 64 * UNIT_ROUNDOFF * Math.max(1, est.normEstimate);
