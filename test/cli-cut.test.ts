@@ -48,6 +48,7 @@ describe("halfplus cut", () => {
     for (const args of [
       ["cut", "petersen", "--seconds", "0"],
       ["cut", "petersen", "--effort", "fastest"],
+      ["cut", "petersen", "--effort", "deep", "--branching", "random"],
       ["cut", "petersen", "--solver-seed", "-3"],
       ["cut", "petersen", "--seed", "3"],
       ["cut", "petersen", "--method", "exact"],

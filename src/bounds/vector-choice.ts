@@ -18,7 +18,8 @@
 
 import { invalidParameter, InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
-import { SHARED_RESULTS_MAX_SIZE, sharedTriangleCount } from "../graph/structure/triangles.js";
+import { sharedTriangleCount } from "../graph/structure/triangles.js";
+import { perGraph } from "../graph/per-graph.js";
 import { boundDoesNotApply, type LowerBoundRecord } from "./types.js";
 import { fewTrianglesChoice } from "./few-triangles.js";
 import { VECTOR_LINEAR_FACTOR, VECTOR_OVERLAP_FACTOR, vectorMethodGuaranteeFor, type VectorGuaranteeRecord } from "./vector-guarantee.js";
@@ -286,16 +287,7 @@ export function optimiseVectorChoice(graph: Graph, options: VectorChoiceOptions 
  * for it in the vector-optimised evaluator and again in the decomposition cut, whose remainder is
  * often the whole graph. Graphs are immutable; callers must treat the record as read-only.
  */
-const sharedChoices = new WeakMap<Graph, VectorChoiceRecord>();
-export function sharedVectorChoice(graph: Graph): VectorChoiceRecord {
-  if (graph.n + graph.neighbors.length > SHARED_RESULTS_MAX_SIZE) return optimiseVectorChoice(graph);
-  let r = sharedChoices.get(graph);
-  if (r === undefined) {
-    r = optimiseVectorChoice(graph);
-    sharedChoices.set(graph, r);
-  }
-  return r;
-}
+export const sharedVectorChoice: (graph: Graph) => VectorChoiceRecord = perGraph((g) => optimiseVectorChoice(g));
 
 /** The optimised guarantee as a plain lower-bound record ("does not apply" for weighted graphs). */
 export function vectorOptimisedBound(graph: Graph, options: VectorChoiceOptions = {}): LowerBoundRecord {

@@ -6,7 +6,7 @@ import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
 import { DEFAULT_BRACKET_SECONDS, MAX_BRACKET_WORK, type BracketProgress } from "../../cut/bracket/bracket.js";
 import { BracketRunner, type RunningBracket } from "../../cut/bracket/bracket-runner.js";
-import { TREE_RELAXATIONS, type TreeRelaxation } from "../../cut/tree/relaxation-tree.js";
+import { TREE_BRANCHINGS, TREE_RELAXATIONS, type TreeBranching, type TreeRelaxation } from "../../cut/tree/relaxation-tree.js";
 import { BRACKET_EFFORTS, recordJson, type BracketEffort, type BracketRecord, type BracketSnapshot } from "../../cut/bracket/record.js";
 import type { BracketBudget } from "../../cut/bracket/budget.js";
 import { MAX_SEED } from "../../random/seed.js";
@@ -167,6 +167,14 @@ export const cutCommand: CommandSpec = {
       choices: TREE_RELAXATIONS,
       placeholder: "B",
     },
+    {
+      name: "branching",
+      type: "string",
+      description: "effort deep: the free vertex each branch-and-bound node splits on, least-decided (its SDP vector closest to orthogonal to the fixed side's) or most-decided (closest to parallel; fewer nodes on polarity graphs, bench/exact-hundred)",
+      default: "least-decided",
+      choices: TREE_BRANCHINGS,
+      placeholder: "R",
+    },
     { name: "node-budget", type: "integer", description: "effort deep: stop branch and bound after N nodes (a budget that gives the same result on any machine)", min: 1, max: 1e12, placeholder: "N" },
     { name: "solver-seed", type: "integer", description: "seed of the randomised solvers (local search, SDP start, rounding, breakout)", default: 0, min: 0, max: MAX_SEED, placeholder: "N" },
     { name: "json", type: "boolean", description: "one JSON record per graph, one per line (what `halfplus verify` reads)" },
@@ -205,7 +213,7 @@ export const cutCommand: CommandSpec = {
     const budget = work !== undefined ? { work } : { seconds: seconds ?? DEFAULT_BRACKET_SECONDS };
     const solverSeed = o["solver-seed"] as number;
     const effort = o["effort"] as BracketEffort;
-    const deep = { relaxation: o["node-bound"] as TreeRelaxation, treeNodes: o["node-budget"] as number | undefined };
+    const deep = { relaxation: o["node-bound"] as TreeRelaxation, treeNodes: o["node-budget"] as number | undefined, branching: o["branching"] as TreeBranching };
     const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
     const outPath = o["out"] as string | undefined;
     if (outPath === "") throw new InputError("--out needs a file name");

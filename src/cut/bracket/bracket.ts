@@ -27,7 +27,7 @@ import { certifySdpDual } from "../relaxation/sdp-bound.js";
 import { defaultSdpRank, solveSdp, type SdpRecord } from "../relaxation/sdp-mixing.js";
 import { positiveWeightBound } from "../positive-weights.js";
 import { solveTriangleSdp, type TriangleSdpRecord } from "../relaxation/triangle-sdp.js";
-import { TREE_RELAXATIONS, relaxationTreeSearch, type TreeRelaxation, type TreeSearchRecord } from "../tree/relaxation-tree.js";
+import { TREE_BRANCHINGS, TREE_RELAXATIONS, relaxationTreeSearch, type TreeBranching, type TreeRelaxation, type TreeSearchRecord } from "../tree/relaxation-tree.js";
 import type { CutRecord, DualCertificate, UpperBoundRecord, UpperKind } from "../types.js";
 import { recordEnvelope } from "../../graph/record/envelope.js";
 import type { GraphSource } from "../../graph/record/source.js";
@@ -90,6 +90,8 @@ export interface BracketOptions {
   relaxation?: TreeRelaxation;
   /** Effort "deep": a deterministic budget of branch-and-bound nodes (default: time only). */
   treeNodes?: number;
+  /** Effort "deep": the branching rule of its branch and bound (default "least-decided"). */
+  branching?: TreeBranching;
 }
 
 /** A seed per method, derived from the bracket's solverSeed so every run is reproducible. */
@@ -639,7 +641,7 @@ function exactStage(state: BracketState, seed: number, initial?: Uint8Array): vo
  * bounded by the chosen relaxation, warm-started from the best cut, for the rest. The tree search
  * needs integer weights; other graphs keep the strengthened bound (the search is logged as skipped).
  */
-function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation, treeNodes: number | undefined): void {
+function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation, treeNodes: number | undefined, branching: TreeBranching | undefined): void {
   const { graph: g, meter, costs } = state;
   // Work per stage (our own estimates, bench/sdp-tree): the strengthened SDP is a first solve of up
   // to 2000 sweeps and 60 rounds of 60 warm-started sweeps with a dense proof each; a tree node is
@@ -667,6 +669,7 @@ function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation
       solverSeed: methodSeed(seed, 7),
       initial: state.partition,
       relaxation,
+      branching,
       onProgress: state.treeProgress("sdp tree"),
     });
     meter.charge("exact-sdp-tree", unitsOf(Number(r.details?.workUsed ?? 0), nodeCost), r.seconds);
@@ -702,6 +705,7 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
   const effort = options.effort ?? "auto";
   if (!BRACKET_EFFORTS.includes(effort)) throw invalidParameter(owner, "effort", `should be one of ${BRACKET_EFFORTS.join(", ")}`, effort);
   if (options.relaxation !== undefined && !TREE_RELAXATIONS.includes(options.relaxation)) throw invalidParameter(owner, "relaxation", `should be one of ${TREE_RELAXATIONS.join(", ")}`, options.relaxation);
+  if (options.branching !== undefined && !TREE_BRANCHINGS.includes(options.branching)) throw invalidParameter(owner, "branching", `should be one of ${TREE_BRANCHINGS.join(", ")}`, options.branching);
   if (options.treeNodes !== undefined && !(Number.isInteger(options.treeNodes) && options.treeNodes > 0)) throw invalidParameter(owner, "treeNodes", "should be a positive integer", options.treeNodes);
   const state = new BracketState(graph, meter, options.onProgress, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
   state.failureProbability = checkFailureProbability(owner, options.failureProbability);
@@ -713,7 +717,7 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
       if (!state.closed()) boundStage(state, "eigenvalue", () => eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0, failureProbability: state.failureProbability }));
     } else if (effort === "deep") {
       heuristicPhase(state, seed, false, 0.15);
-      if (!state.closed()) deepPhase(state, seed, options.relaxation ?? "triangles", options.treeNodes);
+      if (!state.closed()) deepPhase(state, seed, options.relaxation ?? "triangles", options.treeNodes, options.branching);
     } else if (effort === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
       exactStage(state, seed);
       if (!state.closed()) heuristicPhase(state, seed, false, 1);

@@ -63,25 +63,21 @@ export class CutBlock {
         table[c] = v;
         if (v > best) best = v;
       }
-      this.table = table;
-      this.tableMax = best;
-      this.lowSums = new Float64Array(1 << this.lowBits);
-      this.highSums = new Float64Array(1 << this.highBits);
-      return;
-    }
-    for (let c = 1; c < count; c++) {
-      const j = 31 - Math.clz32(c & -c);
-      const rest = c & (c - 1);
-      let delta = 0;
-      const row = j * size;
-      for (let k = 0; k < size; k++) {
-        if (k === j) continue;
-        const wk = w[row + k];
-        if (wk !== 0) delta += (rest >>> k) & 1 ? -wk : wk;
+    } else {
+      for (let c = 1; c < count; c++) {
+        const j = 31 - Math.clz32(c & -c);
+        const rest = c & (c - 1);
+        let delta = 0;
+        const row = j * size;
+        for (let k = 0; k < size; k++) {
+          if (k === j) continue;
+          const wk = w[row + k];
+          if (wk !== 0) delta += (rest >>> k) & 1 ? -wk : wk;
+        }
+        const v = table[rest] + delta;
+        table[c] = v;
+        if (v > best) best = v;
       }
-      const v = table[rest] + delta;
-      table[c] = v;
-      if (v > best) best = v;
     }
     this.table = table;
     this.tableMax = best;

@@ -271,6 +271,11 @@ interface EstablishedShift {
   probable?: ProbableShift;
 }
 
+/** A shift proven by the sparse (envelope) Cholesky route, with what the route found. */
+function sparseProven(shift: number, details: Record<string, number | string | boolean | null>): EstablishedShift {
+  return { shift, shiftProof: "sparse-cholesky", proven: true, converged: true, details: { ...details, proof: true } };
+}
+
 /**
  * Try Cholesky proofs at θ + ρ + margin with margins growing tenfold, then a thousandfold, per failed
  * attempt (a failure usually means Lanczos missed the top of the spectrum); null after six.
@@ -404,30 +409,14 @@ function establishShift(graph: Graph, y: ArrayLike<number>, options: CertifyOpti
         if ("proof" in r && gValue <= dualBoundValue(y, r.shift)) {
           return { shift: gersh, shiftProof: "gershgorin", proven: true, converged: true, details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations, attempts: r.attempts, bisection: true, ...envelope, proof: true } };
         }
-        if ("proof" in r) {
-          return {
-            shift: r.shift,
-            shiftProof: "sparse-cholesky",
-            proven: true,
-            converged: true,
-            details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations, margin: r.shift - est.theta, unprovenBelow: r.lower, choleskyShift: r.proof.shift, attempts: r.attempts, bisection: true, ...envelope, proof: true },
-          };
-        }
+        if ("proof" in r) return sparseProven(r.shift, { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations, margin: r.shift - est.theta, unprovenBelow: r.lower, choleskyShift: r.proof.shift, attempts: r.attempts, bisection: true, ...envelope });
         notes.sparseFailure = r.failure;
         // The rough estimate would widen every later margin: estimate again as the other routes expect.
         est = estimateTop(graph, y, seed, tol);
         lanczosIterations += est.iterations;
       } else {
         const r = proveNearEstimate(est, scale, proveSparse);
-        if ("proof" in r) {
-          return {
-            shift: r.shift,
-            shiftProof: "sparse-cholesky",
-            proven: true,
-            converged: true,
-            details: { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations, margin: r.margin, choleskyShift: r.proof.shift, attempts: r.attempts, ...envelope, proof: true },
-          };
-        }
+        if ("proof" in r) return sparseProven(r.shift, { ritzValue: est.theta, ritzResidual: est.residual, lanczosIterations, margin: r.margin, choleskyShift: r.proof.shift, attempts: r.attempts, ...envelope });
         notes.sparseFailure = r.failure;
       }
     } else if (plan.work > limit) notes.sparseRefused = `envelope work ${plan.work} > limit ${limit}`;

@@ -20,7 +20,7 @@ import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";
 import type { SolverStatus } from "../types.js";
 import { solveSdp } from "./sdp-mixing.js";
-import { TRIANGLE_DENSE_LIMIT, TRIANGLE_SIGNS, certifyTriangleDual, type TriangleCertificate } from "./triangle-dual.js";
+import { TRIANGLE_DENSE_LIMIT, TRIANGLE_SIGNS, certifyTriangleDual, triangleListProblem, type TriangleCertificate } from "./triangle-dual.js";
 
 export interface TriangleSdpOptions {
   /** Seed of the SDP start vectors and Lanczos runs (default 0). */
@@ -45,6 +45,26 @@ export interface TriangleSdpOptions {
   /** Relative gain per sweep below which the first solve stops (default 1e-9). */
   firstTolerance?: number;
   sweeps?: number;
+  /**
+   * Inequalities to start from (four integers each, as in the certificate) and their multipliers,
+   * e.g. a parent node's mapped to this graph (`mapTrianglesAfterFix`). Only a start: the bound is
+   * certified from scratch either way.
+   */
+  warmTriangles?: Int32Array;
+  warmMu?: Float64Array;
+  /**
+   * Cheap bounds first: run the rounds only when the plain bound is within stopGap + this of the
+   * target (default Infinity); otherwise stop after the plain bound with status "completed".
+   */
+  strengthenWithin?: number;
+  /**
+   * Stop the rounds early (status "completed") when the dual value falls so slowly that at the rate
+   * of the last ten accepted rounds it would not reach target + stopGap with the rounds left, even at twice
+   * that rate (default false: every round is run).
+   */
+  stopWhenHopeless?: boolean;
+  /** After the first two rounds, separate new inequalities only every this many rounds (default 1). */
+  separateEvery?: number;
 }
 
 export interface TriangleSdpRecord {
@@ -73,6 +93,9 @@ const START_STEP = 1;
 const REJECTIONS_PER_HALVING = 1;
 /** Relative rise of the dual value a step may cause and still be kept (0, 0.002 and 0.01 tried on G(40, 0.3), KG(8,3): 0.01 closed most). */
 const ACCEPT_RISE = 0.01;
+
+/** Accepted rounds over which `stopWhenHopeless` measures the rate of descent (4 stopped rounds that a longer run would have used, on 3-regular graphs). */
+const HOPELESS_WINDOW = 10;
 
 /** Active inequalities: packed (i, j, k, pattern), multipliers, and a key set against duplicates. */
 class ActiveSet {
@@ -174,7 +197,18 @@ function separate(graph: Graph, X: Float64Array, active: ActiveSet, count: numbe
   const cand = new Candidates();
   const full = n * n * n / 6 <= 4 * graph.m * n || n <= 120;
   if (full) {
-    for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) for (let k = j + 1; k < n; k++) checkTriple(X, n, i, j, k, active, cand);
+    // Every pattern's value is at most |a| + |b| + |c|: triples below 1 + 1e-4 there are skipped
+    // without the four sums (most triples, once X is near a cut matrix only where it is decided).
+    for (let i = 0; i < n; i++) {
+      const ri = i * n;
+      for (let j = i + 1; j < n; j++) {
+        const rj = j * n;
+        const a = Math.abs(X[ri + j]);
+        for (let k = j + 1; k < n; k++) {
+          if (a + Math.abs(X[ri + k]) + Math.abs(X[rj + k]) > 1 + 1e-4) checkTriple(X, n, i, j, k, active, cand);
+        }
+      }
+    }
   } else {
     // Triples holding at least one edge, each once: enumerated from its least edge in (min, max) order.
     const { offsets, neighbors } = graph;
@@ -235,6 +269,22 @@ function lagrangianGraph(graph: Graph, active: ActiveSet): Graph {
   return buildGraph(n, us, vs, ws).graph;
 }
 
+/** The plain SDP of G_μ warm-started from V: its vectors, the dual vector y of the original problem, and θ(μ). */
+function innerSolve(graph: Graph, active: ActiveSet, d: Float64Array, V: Float64Array, r: number, seed: number, sweeps: number): { V: Float64Array; y: Float64Array; theta: number } {
+  const n = graph.n;
+  const gm = lagrangianGraph(graph, active);
+  const dm = weightedDegrees(gm);
+  const sol = solveSdp(gm, { solverSeed: seed, initial: V, rank: r, maxSweeps: sweeps, gapTolerance: 0, tolerance: 1e-9 });
+  let cSum = 0, muSum = 0;
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    y[i] = sol.y[i] + d[i] - dm[i];
+    cSum += d[i] - dm[i];
+  }
+  for (const m of active.mu) muSum += m;
+  return { V: sol.vectors, y, theta: sol.value + cSum / 4 + muSum };
+}
+
 /**
  * The triangle-strengthened SDP bound with its certificate (see the file header). Deterministic for
  * a given seed and `iterations`; `seconds` only stops it earlier.
@@ -252,6 +302,8 @@ export function solveTriangleSdp(graph: Graph, options: TriangleSdpOptions = {})
   if (n > TRIANGLE_DENSE_LIMIT) throw invalidParameter(OWNER, "graph", `should have at most ${TRIANGLE_DENSE_LIMIT} vertices (the bound's proof is dense)`, `${n} vertices`);
   const perRound = options.perRound ?? Math.max(20, n);
   const sweeps = options.sweeps ?? 60;
+  const separateEvery = options.separateEvery ?? 1;
+  if (!(Number.isInteger(separateEvery) && separateEvery >= 1)) throw invalidParameter(OWNER, "separateEvery", "should be a positive integer", separateEvery);
   const deadline = t0 + seconds * 1000;
   const d = weightedDegrees(graph);
 
@@ -272,6 +324,49 @@ export function solveTriangleSdp(graph: Graph, options: TriangleSdpOptions = {})
   let stall = 0;
   let theta = first.value;
   let kept = { tri: [] as number[], mu: [] as number[], V: V.slice() };
+  if (status === "iteration-limit" && options.strengthenWithin !== undefined && plain.value - target >= stopGap + options.strengthenWithin) status = "completed";
+  // The multipliers of the last certified bound, to certify the kept ones once more at the end if they moved since.
+  let certifiedKept = kept;
+  const certifyKept = (): void => {
+    certifiedKept = kept;
+    const tri: number[] = [], mu: number[] = [];
+    for (let t = 0; t < kept.mu.length; t++) {
+      if (kept.mu[t] > 0) {
+        tri.push(kept.tri[4 * t], kept.tri[4 * t + 1], kept.tri[4 * t + 2], kept.tri[4 * t + 3]);
+        mu.push(kept.mu[t]);
+      }
+    }
+    if (mu.length === 0) return;
+    const b = certifyTriangleDual(graph, keptY, Int32Array.from(tri), Float64Array.from(mu), seed + 1);
+    if (b.proven && b.value < best.value) best = b;
+  };
+  let keptY: Float64Array = first.y;
+  if (status === "iteration-limit" && options.warmTriangles !== undefined && options.warmMu !== undefined && options.warmMu.length > 0) {
+    const wt = options.warmTriangles, wm = options.warmMu;
+    const problem = triangleListProblem(n, wt, wm);
+    if (problem !== null) throw invalidParameter(OWNER, "warmTriangles", problem, wt.length);
+    for (let t = 0; t < wm.length; t++) {
+      const before = active.mu.length;
+      active.add(wt[4 * t], wt[4 * t + 1], wt[4 * t + 2], wt[4 * t + 3]);
+      if (active.mu.length > before) active.mu[before] = wm[t] >= 0 ? wm[t] : 0;
+    }
+    const sol = innerSolve(graph, active, d, V, r, seed, sweeps);
+    if (sol.theta < first.value + ACCEPT_RISE * Math.abs(first.value)) {
+      V = sol.V;
+      theta = sol.theta;
+      bestTheta = Math.min(theta, bestTheta);
+      kept = { tri: active.tri.slice(), mu: active.mu.slice(), V: V.slice() };
+      keptY = sol.y;
+      if (theta - target < stopGap + 0.5) {
+        certifyKept();
+        if (done()) status = "converged";
+      }
+    } else {
+      active.mu.fill(0);
+      kept = { tri: active.tri.slice(), mu: active.mu.slice(), V: V.slice() };
+    }
+  }
+  const history: number[] = [];
   while (status === "iteration-limit" && rounds < iterations) {
     if (performance.now() > deadline) {
       status = "time-limit";
@@ -279,7 +374,9 @@ export function solveTriangleSdp(graph: Graph, options: TriangleSdpOptions = {})
     }
     rounds++;
     const X = gram(V, n, r);
-    separate(graph, X, active, perRound);
+    // Separation costs n³/6 triple checks, more than the rest of a round: it runs in the first
+    // rounds and then every `separateEvery`-th (the multipliers of the set converge in between).
+    if (rounds <= 2 || rounds % separateEvery === 0) separate(graph, X, active, perRound);
     const T = active.mu.length;
     const g = new Float64Array(T);
     let norm2 = 0;
@@ -297,23 +394,16 @@ export function solveTriangleSdp(graph: Graph, options: TriangleSdpOptions = {})
     const step = (lambda * Math.max(theta - aim, 1e-3 * Math.abs(theta) + 1e-9)) / norm2;
     for (let t = 0; t < T; t++) active.mu[t] = Math.max(0, active.mu[t] - step * g[t]);
     if (rounds % 5 === 0) active.purge(g);
-    const gm = lagrangianGraph(graph, active);
-    const dm = weightedDegrees(gm);
-    const sol = solveSdp(gm, { solverSeed: seed, initial: V, rank: r, maxSweeps: sweeps, gapTolerance: 0, tolerance: 1e-9 });
-    V = sol.vectors;
-    let cSum = 0, muSum = 0;
-    const y = new Float64Array(n);
-    for (let i = 0; i < n; i++) {
-      y[i] = sol.y[i] + d[i] - dm[i];
-      cSum += d[i] - dm[i];
-    }
-    for (const m of active.mu) muSum += m;
-    theta = sol.value + cSum / 4 + muSum;
+    const sol = innerSolve(graph, active, d, V, r, seed, sweeps);
+    V = sol.V;
+    const y = sol.y;
+    theta = sol.theta;
     // Steps that raise the dual value a little are kept (the inner solves are inexact, and a
     // non-monotone method gets past flat stretches); larger rises are undone.
     if (theta < bestTheta + ACCEPT_RISE * Math.abs(bestTheta)) {
       bestTheta = Math.min(theta, bestTheta);
       kept = { tri: active.tri.slice(), mu: active.mu.slice(), V: V.slice() };
+      keptY = y;
       stall = 0;
     } else {
       // A step that raised the dual value is undone (a descent method with backtracking: a fresh
@@ -328,22 +418,21 @@ export function solveTriangleSdp(graph: Graph, options: TriangleSdpOptions = {})
       if (lambda < 1e-4) status = "converged";
       continue;
     }
+    history.push(bestTheta);
     // Certify (an O(n³) proof) when the estimate says the bound may reach the target, every fifth
     // round, and at the last one.
     const last = rounds >= iterations || performance.now() > deadline;
-    if (!(theta - target < stopGap + 0.5 || rounds % 5 === 0 || last)) continue;
-    const tri: number[] = [], mu: number[] = [];
-    for (let t = 0; t < active.mu.length; t++) {
-      if (active.mu[t] > 0) {
-        tri.push(active.tri[4 * t], active.tri[4 * t + 1], active.tri[4 * t + 2], active.tri[4 * t + 3]);
-        mu.push(active.mu[t]);
-      }
+    if (theta - target < stopGap + 0.5 || rounds % 5 === 0 || last) {
+      certifyKept();
+      if (done()) status = "converged";
     }
-    const b = certifyTriangleDual(graph, y, Int32Array.from(tri), Float64Array.from(mu), seed + 1);
-    if (b.proven && b.value < best.value) best = b;
-    if (done()) status = "converged";
     if (lambda < 1e-4) status = "converged";
+    if (status === "iteration-limit" && options.stopWhenHopeless === true && history.length > HOPELESS_WINDOW) {
+      const rate = (history[history.length - 1 - HOPELESS_WINDOW] - bestTheta) / HOPELESS_WINDOW;
+      if (bestTheta - (target + stopGap) > 2 * rate * (iterations - rounds)) status = "completed";
+    }
   }
+  if (certifiedKept !== kept) certifyKept();
   return {
     method: "sdp-triangles",
     value: best.value,

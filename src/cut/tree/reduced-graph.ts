@@ -10,6 +10,7 @@
 import { InputError } from "../../errors.js";
 import { buildGraph } from "../../graph/builder.js";
 import type { Graph } from "../../graph/graph.js";
+import { TRIANGLE_SIGNS } from "../relaxation/triangle-dual.js";
 
 export interface ReducedProblem {
   /** z = vertex 0, then the free vertices in increasing order. */
@@ -60,4 +61,50 @@ export function reducedProblem(graph: Graph, side: Uint8Array): ReducedProblem {
     }
   }
   return { graph: buildGraph(count + 1, us, vs, ws).graph, offset, free };
+}
+
+/**
+ * A parent node's triangle inequalities (four integers each, as in a TriangleCertificate) written
+ * for a child that fixes reduced vertex `pick` (≥ 1) on `side`: in the child X_{a,pick} = σ·X_{a,z}
+ * (σ = +1 on side 0, z's side, else −1), so an inequality through `pick` becomes one on the triple
+ * (z, a, b) with the same sign product (still one of TRIANGLE_SIGNS); one through z and `pick` loses
+ * a pair and is dropped. Indices above `pick` move down by one (the child's reduced graph drops it).
+ * Every mapped inequality holds for all cuts of the child, so the multipliers are a valid warm start
+ * (common practice, no source).
+ */
+export function mapTrianglesAfterFix(triangles: ArrayLike<number>, mu: ArrayLike<number>, pick: number, side: number): { triangles: Int32Array; mu: Float64Array } {
+  const sigma = side === 0 ? 1 : -1;
+  const outT: number[] = [], outM: number[] = [];
+  const seen = new Map<string, number>();
+  const at = (x: number): number => (x > pick ? x - 1 : x);
+  for (let t = 0; t < mu.length; t++) {
+    const i = triangles[4 * t], j = triangles[4 * t + 1], k = triangles[4 * t + 2];
+    const s = TRIANGLE_SIGNS[triangles[4 * t + 3]];
+    let tri: [number, number, number], signs: [number, number, number];
+    if (i !== pick && j !== pick && k !== pick) {
+      tri = [at(i), at(j), at(k)];
+      signs = [s[0], s[1], s[2]];
+    } else {
+      // Pairs (ij, ik, jk); the two vertices other than pick are a < b, with pair signs s_ab, s_a·pick, s_b·pick.
+      let a: number, b: number, sab: number, sap: number, sbp: number;
+      if (k === pick) [a, b, sab, sap, sbp] = [i, j, s[0], s[1], s[2]];
+      else if (j === pick) [a, b, sab, sap, sbp] = [i, k, s[1], s[0], s[2]];
+      else [a, b, sab, sap, sbp] = [j, k, s[2], s[0], s[1]];
+      if (a === 0) continue;
+      // Triple (z = 0, a, b): pairs (za, zb, ab).
+      tri = [0, at(a), at(b)];
+      signs = [sap * sigma, sbp * sigma, sab];
+    }
+    const p = TRIANGLE_SIGNS.findIndex((q) => q[0] === signs[0] && q[1] === signs[1] && q[2] === signs[2]);
+    const key = `${tri[0]},${tri[1]},${tri[2]},${p}`;
+    const prev = seen.get(key);
+    if (prev !== undefined) {
+      outM[prev] += mu[t];
+      continue;
+    }
+    seen.set(key, outM.length);
+    outT.push(tri[0], tri[1], tri[2], p);
+    outM.push(mu[t]);
+  }
+  return { triangles: Int32Array.from(outT), mu: Float64Array.from(outM) };
 }

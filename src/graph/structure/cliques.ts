@@ -5,19 +5,10 @@ import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../graph.js";
 import { sharedDegeneracy, type DegeneracyResult } from "./degeneracy.js";
 import { firstAbove, rankedAdjacency, type RankedAdjacency } from "./orientation.js";
-import { SHARED_RESULTS_MAX_SIZE } from "./triangles.js";
+import { perGraph } from "../per-graph.js";
 
 /** The degeneracy-ordered adjacency, kept per Graph object (small graphs): a clique number is several searches. */
-const rankings = new WeakMap<Graph, RankedAdjacency>();
-function sharedRanking(g: Graph, dg: DegeneracyResult): RankedAdjacency {
-  if (g.n + g.neighbors.length > SHARED_RESULTS_MAX_SIZE) return rankedAdjacency(g, dg.order);
-  let ra = rankings.get(g);
-  if (ra === undefined) {
-    ra = rankedAdjacency(g, dg.order);
-    rankings.set(g, ra);
-  }
-  return ra;
-}
+const sharedRanking: (g: Graph) => RankedAdjacency = perGraph((g) => rankedAdjacency(g, sharedDegeneracy(g).order));
 
 /** Largest r accepted; the search is exponential in r (intended use is r ≤ 6). */
 export const MAX_CLIQUE_ORDER = 16;
@@ -58,7 +49,7 @@ export function findClique(g: Graph, r: number, options: SearchBudget = {}): Cli
   const dg = sharedDegeneracy(g);
   // A K_r has a vertex with r-1 later neighbours in any ordering, so d < r-1 rules it out.
   if (dg.degeneracy < r - 1) return none(true, 0);
-  const { n, offsets: off, neighbors: nb, vertexOf } = sharedRanking(g, dg);
+  const { n, offsets: off, neighbors: nb, vertexOf } = sharedRanking(g);
   const core = dg.coreNumber;
   const d = dg.degeneracy;
   // cand[level] holds the common forward neighbours of the chosen vertices, sorted by rank.

@@ -2,7 +2,7 @@
 // algorithm of Matula & Beck (1983) as arranged by Batagelj & Zaversnik (2003).
 
 import type { Graph } from "../graph.js";
-import { SHARED_RESULTS_MAX_SIZE } from "./triangles.js";
+import { perGraph } from "../per-graph.js";
 
 export interface DegeneracyResult {
   /** max_v coreNumber[v]: the least d such that every subgraph has a vertex of degree ≤ d (0 when n = 0). */
@@ -74,16 +74,7 @@ export function degeneracy(g: Graph): DegeneracyResult {
 }
 
 /**
- * degeneracy(g) computed once per Graph object (graphs up to SHARED_RESULTS_MAX_SIZE): the
- * structure summary and every clique search of a sweep job read it. The result is read-only.
+ * degeneracy(g) computed once per Graph object (../per-graph.ts): the structure summary and every
+ * clique search of a sweep job read it. The result is read-only.
  */
-const shared = new WeakMap<Graph, DegeneracyResult>();
-export function sharedDegeneracy(g: Graph): DegeneracyResult {
-  if (g.n + g.neighbors.length > SHARED_RESULTS_MAX_SIZE) return degeneracy(g);
-  let d = shared.get(g);
-  if (d === undefined) {
-    d = degeneracy(g);
-    shared.set(g, d);
-  }
-  return d;
-}
+export const sharedDegeneracy: (g: Graph) => DegeneracyResult = perGraph(degeneracy);

@@ -2,6 +2,7 @@
 // and scanned (Chiba & Nishizeki 1985; the "forward" algorithm of Schank & Wagner 2005).
 
 import type { Graph } from "../graph.js";
+import { perGraph } from "../per-graph.js";
 import { degreeOrder, firstAbove, rankedAdjacency } from "./orientation.js";
 
 export interface TriangleCount {
@@ -56,24 +57,8 @@ export function countTriangles(g: Graph): TriangleCount {
 }
 
 /**
- * Largest graph (n + 2m) whose derived results are kept per Graph object (sharedTriangleCount and
- * the like): a small graph's results cost little to keep, while a huge graph's would hold
- * hundreds of megabytes for as long as the graph lives. Larger graphs compute afresh each time.
- */
-export const SHARED_RESULTS_MAX_SIZE = 1 << 20;
-
-/**
  * The triangle count of a graph, computed once per Graph object and shared: a sweep job asks for
- * it in the structure summary and in four lower-bound evaluators. Graphs are immutable, so the
- * count stays valid; callers must treat the record (its perVertex array above all) as read-only.
+ * it in the structure summary and in four lower-bound evaluators. Callers must treat the record
+ * (its perVertex array above all) as read-only.
  */
-const shared = new WeakMap<Graph, TriangleCount>();
-export function sharedTriangleCount(g: Graph): TriangleCount {
-  if (g.n + g.neighbors.length > SHARED_RESULTS_MAX_SIZE) return countTriangles(g);
-  let t = shared.get(g);
-  if (t === undefined) {
-    t = countTriangles(g);
-    shared.set(g, t);
-  }
-  return t;
-}
+export const sharedTriangleCount: (g: Graph) => TriangleCount = perGraph(countTriangles);
