@@ -4,7 +4,10 @@
 // edge by edge), the decomposition cut's memo of tiny stage graphs (memo on against memo off, on
 // every labelled graph of up to 5 vertices and a sample of 6–8 and larger ones), the vector
 // choice shared per graph (against a fresh optimisation), the shared triangle count, and the
-// store's background log checkpoints (every committed row still there). The
+// store's background log checkpoints (every committed row still there), the vector rounding's
+// trial loop (against the same trials counted by cutValue), the decomposition's lighter rounding
+// call (against vectorMethodRound's record), a file graph's hash handed to the worker (against
+// hashing the rebuilt graph) and sweep rows bound without conversion (read back equal). The
 // reference values are definitions (common practice, no source): a subgraph's edges, a cut's
 // crossing weight, and the same function run twice.
 import { existsSync, mkdtempSync, rmSync } from "node:fs";
@@ -15,7 +18,7 @@ import { COLUMNS } from "../src/experiment/columns.js";
 import { openStore } from "../src/experiment/sqlite-store.js";
 import { decompositionCut, setDecompositionMemo } from "../src/cut/decomposition/decomposition-cut.js";
 import { CutBlock } from "../src/cut/exact/cut-block.js";
-import { optimiseVectorChoice, sharedVectorChoice, vectorOptimisedBound } from "../src/bounds/vector-choice.js";
+import { optimiseVectorChoice, sharedVectorChoice, vectorChoiceOptions, vectorOptimisedBound } from "../src/bounds/vector-choice.js";
 import { buildGraph, graphFromEdges } from "../src/graph/builder.js";
 import type { Graph } from "../src/graph/graph.js";
 import { componentSubgraph, inducedSubgraph } from "../src/graph/induced.js";
@@ -26,6 +29,12 @@ import { findClique } from "../src/graph/structure/cliques.js";
 import { Rng } from "../src/random/prng.js";
 import { resolveVectorSets } from "../src/bounds/vector-sets.js";
 import { randomGraph } from "./helpers/graphs.js";
+import { vectorMethodExpectedCut, vectorMethodRound, vectorMethodRoundCut } from "../src/cut/heuristic/vector-rounding.js";
+import { FlipState } from "../src/cut/heuristic/flip-state.js";
+import { cutValue, surplusOf } from "../src/graph/cut-value.js";
+import { graphFromParts, graphToParts } from "../src/graph/graph.js";
+import { graphFromPartsWithHash, graphHash } from "../src/graph/hash.js";
+import { runJob, type JobInput } from "../src/experiment/job.js";
 
 /** The k-th labelled graph on n vertices: bit i of k says whether the i-th pair (u < v, v outer) is an edge. */
 function labelled(n: number, k: number): Graph {
@@ -234,6 +243,129 @@ describe("log checkpoints on a background thread", () => {
       expect(store.insertValues([COLUMNS.map((c) => (c.name === "key" ? "only" : null))])).toBe(1);
       await stop();
       expect(store.count()).toBe(1);
+      store.close();
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
+
+/** vectorMethodRound's trials written the plain way: the same Gaussian draws, every cut counted by cutValue. */
+function plainRounding(g: Graph, trials: number, seed: number, polish: boolean): { mean: number; bestRaw: number; best: number; side: number[] } {
+  const sets = resolveVectorSets(g);
+  const rng = new Rng(seed);
+  const x = new Float64Array(g.n);
+  const side = new Uint8Array(g.n);
+  const state = polish ? new FlipState(g) : null;
+  let mean = 0;
+  let bestRaw = -Infinity;
+  let best = -Infinity;
+  let bestSide: number[] = [];
+  for (let t = 0; t < trials; t++) {
+    for (let v = 0; v < g.n; v++) x[v] = rng.nextNormal();
+    for (let v = 0; v < g.n; v++) {
+      let s = 0;
+      for (let a = sets.offsets[v]; a < sets.offsets[v + 1]; a++) s += x[sets.members[a]];
+      side[v] = x[v] - sets.eps[v] * s > 0 ? 1 : 0;
+    }
+    const raw = cutValue(g, side);
+    mean += (surplusOf(g, raw) - mean) / (t + 1);
+    if (raw > bestRaw) bestRaw = raw;
+    const value = state === null ? raw : state.polishInPlace(side);
+    if (value > best) {
+      best = value;
+      bestSide = Array.from(side);
+    }
+  }
+  return { mean, bestRaw, best, side: bestSide };
+}
+
+describe("vector rounding trials", () => {
+  it("count each cut as cutValue does, weighted (non-integer weights) and not, polished and raw", () => {
+    const rng = new Rng(41);
+    let checked = 0;
+    for (const n of [2, 5, 7, 12, 30]) {
+      for (const weighted of [false, true]) {
+        for (const polish of [false, true]) {
+          const g = randomGraph(n, 0.45, rng, weighted ? { weight: (r) => 0.1 + r.nextFloat() * 3 } : {});
+          if (g.m === 0) continue;
+          const seed = rng.nextInt(1000);
+          const rec = vectorMethodRound(g, { trials: 25, solverSeed: seed, polish });
+          const plain = plainRounding(g, 25, seed, polish);
+          // Welford's update of the record and the running mean here are the same arithmetic.
+          expect(rec.details!.meanSurplus).toBe(plain.mean);
+          expect(rec.details!.bestRoundedSurplus).toBe(surplusOf(g, plain.bestRaw));
+          expect(rec.value).toBe(cutValue(g, plain.side));
+          expect(Array.from(rec.partition)).toEqual(plain.side);
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(15);
+  });
+
+  it("vectorMethodRoundCut and vectorMethodExpectedCut give the record's cut, mean and expectation", () => {
+    const rng = new Rng(43);
+    for (let k = 0; k < 30; k++) {
+      const g = randomGraph(4 + (k % 9), 0.5, rng);
+      if (g.m === 0) continue;
+      const choice = vectorChoiceOptions(optimiseVectorChoice(g).choice);
+      const options = { ...choice, trials: 1 + (k % 7), solverSeed: k * 17, polish: k % 2 === 0 };
+      const rec = vectorMethodRound(g, options);
+      const cut = vectorMethodRoundCut(g, options);
+      expect(Array.from(cut.partition)).toEqual(Array.from(rec.partition));
+      expect(cut.value).toBe(rec.value);
+      expect(cut.meanSurplus).toBe(rec.details!.meanSurplus);
+      expect(surplusOf(g, vectorMethodExpectedCut(g, choice))).toBe(rec.details!.expectedSurplus);
+    }
+  });
+});
+
+describe("a file graph's hash handed to the worker", () => {
+  it("is the hash of the graph rebuilt from its parts, and the job's row carries it", () => {
+    const rng = new Rng(47);
+    for (const n of [1, 7, 40]) {
+      const g = randomGraph(n, 0.3, rng, n === 40 ? { weight: (r) => 1 + r.nextInt(4) } : {});
+      const hash = graphHash(g);
+      const rebuilt = graphFromPartsWithHash(graphToParts(g), hash);
+      expect(graphHash(rebuilt)).toBe(hash);
+      // A fresh copy (no remembered hash) hashes to the same text: what is remembered is what would be computed.
+      expect(graphHash(graphFromParts(graphToParts(rebuilt)))).toBe(hash);
+    }
+    const g = randomGraph(7, 0.5, rng);
+    const job: JobInput = {
+      key: "k",
+      family: "f",
+      graph: { kind: "parts", parts: graphToParts(g), hash: graphHash(g), source: { path: "x.g6", position: 1, format: "graph6" } },
+      params: null,
+      graphSeed: null,
+      solverSeed: 0,
+      settings: { effort: "exact", seconds: null, work: 1e9 },
+    };
+    const out = runJob(job, { evaluators: [], degrees: [], version: "0", shared: {} });
+    expect(out.values[COLUMNS.findIndex((c) => c.name === "graphHash")]).toBe(graphHash(graphFromParts(graphToParts(g))));
+  });
+});
+
+describe("sweep rows bound without conversion", () => {
+  it("read back equal: byte arrays (views into a larger buffer too) as blobs, numbers and text as given", () => {
+    const dir = mkdtempSync(join(tmpdir(), "halfplus-bind-"));
+    try {
+      const store = openStore(join(dir, "s.db"));
+      const at = (name: string) => COLUMNS.findIndex((c) => c.name === name);
+      const big = new Uint8Array([9, 8, 7, 6, 5, 4, 3]);
+      const row = (key: string, witness: Uint8Array) => COLUMNS.map((c, i) => (i === at("key") ? key : i === at("witness") ? witness : i === at("n") ? 7 : i === at("averageDegree") ? 2.5 : i === at("notes") ? "[]" : null));
+      expect(store.insertValues([row("a", new Uint8Array([0, 22])), row("b", big.subarray(2, 5))])).toBe(2);
+      // A StoredRow with a boolean goes through the converting path.
+      expect(store.insert([{ key: "c", exact: true, n: 3 } as never])).toBe(1);
+      const a = store.get("a")!;
+      expect(Array.from(a.witness as Uint8Array)).toEqual([0, 22]);
+      expect(a.n).toBe(7);
+      expect(a.averageDegree).toBe(2.5);
+      expect(a.notes).toBe("[]");
+      expect(a.spec).toBe(null);
+      expect(Array.from(store.get("b")!.witness as Uint8Array)).toEqual([7, 6, 5]);
+      expect(store.get("c")!.exact).toBe(1);
       store.close();
     } finally {
       rmSync(dir, { recursive: true, force: true });

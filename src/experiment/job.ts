@@ -6,8 +6,7 @@
 
 import { InputError } from "../errors.js";
 import type { Graph, GraphParts } from "../graph/graph.js";
-import { graphFromParts } from "../graph/graph.js";
-import { graphHash } from "../graph/hash.js";
+import { graphFromPartsWithHash, graphHash } from "../graph/hash.js";
 import { describeGraph } from "../graph/structure/describe.js";
 import type { GraphFormat } from "../graph/formats/types.js";
 import { EMBED_MAX_CHARS, embedGraph } from "../graph/record/embed.js";
@@ -217,7 +216,8 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
     notes = f.notes;
     source = { spec: f.spec, graphSeed: f.graphSeed };
   } else {
-    graph = graphFromParts(job.graph.parts);
+    // The main thread hashed this very graph for the row key (jobs.ts): the bracket record reuses it.
+    graph = graphFromPartsWithHash(job.graph.parts, job.graph.hash);
     const s = job.graph.source;
     source = { path: s.path, position: s.position, format: s.format, graphSeed: null };
     embedded = embedGraph(graph, EMBED_LIMIT)?.text ?? null;

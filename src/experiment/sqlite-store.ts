@@ -71,6 +71,15 @@ function toCell(v: CellValue | boolean | undefined): unknown {
   return v;
 }
 
+/** No cell needs toCell: none is undefined or a boolean (Uint8Array binds as a blob as it is). */
+function bindsAsIs(r: readonly (CellValue | boolean | undefined)[]): boolean {
+  for (let i = 0; i < r.length; i++) {
+    const v = r[i];
+    if (v === undefined || typeof v === "boolean") return false;
+  }
+  return true;
+}
+
 /**
  * A thread that copies the write-ahead log into the database file (PASSIVE checkpoints, which
  * never block the writer) every CHECKPOINT_EVERY_MS while the main connection only appends. A
@@ -148,11 +157,17 @@ class SqliteStore implements ResultStore {
       const cells = new Array<unknown>(this.positions.length);
       for (const r of rows) {
         if (r.length !== COLUMNS.length) throw new Error(`row of ${r.length} values, expected ${COLUMNS.length}`);
-        for (let i = 0; i < cells.length; i++) cells[i] = toCell(r[all ? i : this.positions[i]]);
-        added += this.insertStmt.run(cells).changes;
+        // A sweep's value arrays hold only what the driver binds as is (null, numbers, strings, byte
+        // arrays: it takes any Uint8Array as a blob): bound directly, without a converted copy.
+        added += this.insertStmt.run(all && bindsAsIs(r) ? r : this.cellsOf(r, cells)).changes;
       }
       return added;
     });
+  }
+
+  private cellsOf(r: readonly CellValue[], cells: unknown[]): unknown[] {
+    for (let i = 0; i < cells.length; i++) cells[i] = toCell(r[this.positions.length === COLUMNS.length ? i : this.positions[i]]);
+    return cells;
   }
 
   private createSchema(): void {

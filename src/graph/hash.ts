@@ -2,11 +2,26 @@
 // summary and the graph itself can be matched (and joined in a results store) by hash alone.
 
 import { createHash } from "node:crypto";
-import type { Graph } from "./graph.js";
+import { graphFromParts, type Graph, type GraphParts } from "./graph.js";
 
 // Reused between calls (hash.update copies what it is given): sweeps hash one small graph per job.
 const HEAD = Buffer.alloc(24);
 const CHUNKS = Buffer.alloc(4096 * 16);
+
+/** Hashes already computed for graphs rebuilt from parts (graphFromPartsWithHash); graphs are immutable. */
+const known = new WeakMap<Graph, string>();
+
+/**
+ * The graph of `parts` (graphFromParts, trusted), with `hash` remembered as its graphHash. The
+ * caller vouches that `hash` is graphHash of the graph `parts` came from (graphToParts): a sweep
+ * hashes each file graph for its row key on the main thread and rebuilds it in a worker, where
+ * hashing it again would cost as much as a tiny graph's whole exact search.
+ */
+export function graphFromPartsWithHash(parts: GraphParts, hash: string): Graph {
+  const g = graphFromParts(parts);
+  known.set(g, hash);
+  return g;
+}
 
 /**
  * SHA-256 over n, m and the sorted edge list (u < v, u32 little-endian each, weight as f64
@@ -14,6 +29,8 @@ const CHUNKS = Buffer.alloc(4096 * 16);
  * Vertex labels matter: a relabelled graph is a different input to a partition.
  */
 export function graphHash(graph: Graph): string {
+  const remembered = known.get(graph);
+  if (remembered !== undefined) return remembered;
   const h = createHash("sha256");
   const head = HEAD;
   head.write("hpg1", 0, "latin1");

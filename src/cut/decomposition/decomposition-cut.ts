@@ -39,7 +39,7 @@ import { optimiseVectorChoice, sharedVectorChoice, vectorChoiceOptions } from ".
 import { checkSeed } from "../../random/seed.js";
 import { exactMaxCut } from "../exact/exact-max-cut.js";
 import { GRAY_MAX_VERTICES } from "../exact/gray-code.js";
-import { vectorMethodRound } from "../heuristic/vector-rounding.js";
+import { vectorMethodExpectedCut, vectorMethodRoundCut, type VectorRoundingCut } from "../heuristic/vector-rounding.js";
 import { cutRecordOf, type CutRecord } from "../types.js";
 
 const OWNER = "decomposition cut";
@@ -414,11 +414,13 @@ function roundFrom(run: Run, graph: Graph): { side: Uint8Array; guarantee: numbe
   const choice = vectorChoiceOptions(best.choice);
   let used = 0;
   let batch = trials;
-  let top: CutRecord | null = null;
+  let top: VectorRoundingCut | null = null;
   let mean = 0;
   for (;;) {
-    const rec = vectorMethodRound(graph, { ...choice, trials: batch, solverSeed: stageSeed(run), polish: true });
-    mean += (rec.details!.meanSurplus as number) * batch;
+    // vectorMethodRound's cut and mean without its record: the guarantee is best.guarantee, and the
+    // expected cut depends on the choice only (computed once below).
+    const rec = vectorMethodRoundCut(graph, { ...choice, trials: batch, solverSeed: stageSeed(run), polish: true });
+    mean += rec.meanSurplus * batch;
     used += batch;
     if (top === null || rec.value > top.value) top = rec;
     if (surplusOf(graph, top.value) >= guarantee - 1e-9 || used >= maxTrials) break;
@@ -434,7 +436,7 @@ function roundFrom(run: Run, graph: Graph): { side: Uint8Array; guarantee: numbe
       trials: used,
       reached,
       meanRoundedSurplus: mean / used,
-      expectedSurplus: top.details!.expectedSurplus as number,
+      expectedSurplus: surplusOf(graph, vectorMethodExpectedCut(graph, choice)),
       defaultGuarantee: best.defaultSurplus,
       fewTrianglesGuarantee: few.surplus,
       triangles: few.triangles,

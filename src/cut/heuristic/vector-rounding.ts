@@ -65,13 +65,19 @@ export function vectorMethodExpectedCut(graph: Graph, options: VectorSetOptions 
   return expectedCutFor(graph, sets, vectorEdgeTerms(graph, sets));
 }
 
-/** Round the explicit vectors `trials` times; the record holds the best cut and the statistics. */
-export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions = {}): CutRecord {
-  const t0 = performance.now();
-  const sets = resolveVectorSets(graph, options);
-  const trials = checkTrials(OWNER, options.trials, 100);
-  const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
-  const polish = options.polish ?? false;
+interface Trials {
+  bestSide: Uint8Array;
+  /** Best (polished, when asked) cut value and best raw rounded cut value. */
+  best: number;
+  bestRaw: number;
+  /** Running mean and sum of squared deviations of the raw surplus. */
+  mean: number;
+  m2: number;
+  trialSeconds: number;
+}
+
+/** The rounding trials themselves: `trials` Gaussian vectors from `solverSeed`, the best side kept. */
+function roundTrials(graph: Graph, sets: VectorSets, trials: number, solverSeed: number, polish: boolean): Trials {
   const rng = new Rng(solverSeed);
   const n = graph.n;
   const { offsets, members, eps } = sets;
@@ -84,6 +90,23 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
   let m2 = 0;
   let bestRaw = -Infinity;
   let best = -Infinity;
+  // Each edge once (u < v), in cutValue's order, so the sum below is cutValue's to the last bit;
+  // the sides are 0/1 by construction, so cutValue's check of the partition is not needed per trial.
+  const { offsets: go, neighbors, weights } = graph;
+  const half = graph.totalWeight / 2;
+  const ends = new Int32Array(2 * graph.m);
+  const edgeWeight = weights === null ? null : new Float64Array(graph.m);
+  let e = 0;
+  for (let u = 0; u < n; u++) {
+    for (let a = go[u]; a < go[u + 1]; a++) {
+      const v = neighbors[a];
+      if (v <= u) continue;
+      ends[2 * e] = u;
+      ends[2 * e + 1] = v;
+      if (edgeWeight !== null) edgeWeight[e] = weights![a];
+      e++;
+    }
+  }
   const tTrials = performance.now();
   for (let t = 0; t < trials; t++) {
     for (let v = 0; v < n; v++) g[v] = rng.nextNormal();
@@ -92,8 +115,13 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
       for (let a = offsets[v]; a < offsets[v + 1]; a++) s += g[members[a]];
       side[v] = g[v] - eps[v] * s > 0 ? 1 : 0;
     }
-    const raw = cutValue(graph, side);
-    const surplus = surplusOf(graph, raw);
+    let raw = 0;
+    if (edgeWeight === null) {
+      for (let k = 0; k < e; k++) raw += side[ends[2 * k]] ^ side[ends[2 * k + 1]];
+    } else {
+      for (let k = 0; k < e; k++) if (side[ends[2 * k]] !== side[ends[2 * k + 1]]) raw += edgeWeight[k];
+    }
+    const surplus = raw - half;
     const d = surplus - mean;
     mean += d / (t + 1);
     m2 += d * (surplus - mean);
@@ -107,7 +135,17 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
       bestSide.set(side);
     }
   }
-  const trialSeconds = (performance.now() - tTrials) / 1000;
+  return { bestSide, best, bestRaw, mean, m2, trialSeconds: (performance.now() - tTrials) / 1000 };
+}
+
+/** Round the explicit vectors `trials` times; the record holds the best cut and the statistics. */
+export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions = {}): CutRecord {
+  const t0 = performance.now();
+  const sets = resolveVectorSets(graph, options);
+  const trials = checkTrials(OWNER, options.trials, 100);
+  const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
+  const polish = options.polish ?? false;
+  const { bestSide, bestRaw, mean, m2, trialSeconds } = roundTrials(graph, sets, trials, solverSeed, polish);
   const variance = trials > 1 ? m2 / (trials - 1) : 0;
   const terms = vectorEdgeTerms(graph, sets);
   const guarantee = vectorMethodGuaranteeFor(graph, sets, terms);
@@ -124,4 +162,26 @@ export function vectorMethodRound(graph: Graph, options: VectorRoundingOptions =
     polish,
     trialSeconds,
   });
+}
+
+/** What vectorMethodRound's record says of the cut and the trials, without its guarantee and statistics. */
+export interface VectorRoundingCut {
+  /** The best cut's sides (owned by the caller) and its value. */
+  partition: Uint8Array;
+  value: number;
+  /** Mean raw rounded surplus over the trials (the record's `meanSurplus`). */
+  meanSurplus: number;
+}
+
+/**
+ * The best cut and mean surplus of vectorMethodRound with the same options, equal to the record's
+ * `partition`, `value` and `details.meanSurplus`, without the guarantee, the expected cut and the
+ * record (callers that round one vector choice many times compute those once: the decomposition).
+ */
+export function vectorMethodRoundCut(graph: Graph, options: VectorRoundingOptions = {}): VectorRoundingCut {
+  const sets = resolveVectorSets(graph, options);
+  const trials = checkTrials(OWNER, options.trials, 100);
+  const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
+  const r = roundTrials(graph, sets, trials, solverSeed, options.polish ?? false);
+  return { partition: r.bestSide, value: cutValue(graph, r.bestSide), meanSurplus: r.mean };
 }
