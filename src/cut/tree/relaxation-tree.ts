@@ -84,8 +84,15 @@ export interface TreeSearchOptions {
   separateEvery?: number;
   /** Branching rule (default "least-decided"): the free vertex whose SDP vector is closest to orthogonal to z's, or closest to ±z's. */
   branching?: TreeBranching;
-  /** Called about every half second with the bracket so far; `closedShare` is the share of all cuts in closed regions (2^−depth each). */
-  onProgress?: (p: { lower: number; upper: number; nodes: number; open: number; seconds: number; closedShare: number }) => void;
+  /**
+   * Bytes of warm-start data (parent vectors, inherited inequalities) the open nodes may hold
+   * (default 2^30). Past it, the open nodes farthest from the top of the heap lose theirs (down to
+   * three quarters of the allowance) and start cold when reached: bounds stay certified, only
+   * their cost changes. Deterministic: it counts array bytes, not the process's memory.
+   */
+  warmMemory?: number;
+  /** Called about every half second with the bracket so far; `closedShare` is the share of all cuts in closed regions (2^−depth each); `warmBytes` the warm-start data held by open nodes. */
+  onProgress?: (p: { lower: number; upper: number; nodes: number; open: number; seconds: number; closedShare: number; warmBytes: number }) => void;
 }
 
 export interface TreeSearchRecord extends CutRecord {
@@ -97,22 +104,38 @@ export interface TreeSearchRecord extends CutRecord {
   certificate: TreeCertificate;
 }
 
+/** A parent's SDP vectors with the branching vertex's row removed: one copy shared by both children. */
+interface WarmVectors {
+  data: Float64Array;
+  rank: number;
+  /** Open children still holding it; its bytes leave the count when this reaches 0. */
+  holders: number;
+}
+
+/** Default `warmMemory`: 1 GiB. ER_8 held 4 GB after 350,000 open nodes without a cap (bench/exact-hundred). */
+export const TREE_WARM_MEMORY = 2 ** 30;
+
+const NO_SIDE = new Uint8Array(0);
+
 interface Node {
+  /** Sides of every vertex (255 = free) while the node is open; emptied once it is evaluated. */
   side: Uint8Array;
+  /** The (vertex, side) fixings in order while open; emptied once evaluated (its region keeps them). */
   path: number[];
   depth: number;
   /** The parent's bound (Infinity at the root): an upper end for every cut in the node. */
   bound: number;
   parent: Node | null;
-  /** The parent's SDP vectors restricted to this node's reduced vertices (a warm start), and their rank. */
-  warm: Float64Array | null;
-  rank: number;
+  /** The parent's SDP vectors restricted to this node's reduced vertices (a warm start), or null. */
+  warm: WarmVectors | null;
   /** The parent's triangle inequalities and multipliers written for this node (a warm start), or null. */
   warmTriangles: { triangles: Int32Array; mu: Float64Array } | null;
   /** How much the inequalities lowered the nearest strengthened ancestor's bound (Infinity at the root). */
   gain: number;
-  /** Set when the node was evaluated: its own region evidence. */
+  /** Set when the node was evaluated: its own region evidence; dropped from a branched node once neither child is open (no certificate can need it then). */
   region: TreeRegion | null;
+  /** Children not yet evaluated (2 after branching). */
+  openKids: number;
   seq: number;
 }
 
@@ -161,6 +184,10 @@ class NodeHeap {
   all(): Node[] {
     return this.a.slice();
   }
+  /** The nodes ordered from the bottom (popped last) to the top. */
+  worstFirst(): Node[] {
+    return this.a.slice().sort((x, y) => (this.before(x, y) ? 1 : this.before(y, x) ? -1 : 0));
+  }
 }
 
 const OWNER = "relaxationTreeSearch";
@@ -187,6 +214,8 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   if (options.initial !== undefined) checkPartition(graph, options.initial, `${OWNER}: initial`);
   const n = graph.n;
   const deadline = t0 + seconds;
+  const warmMemory = options.warmMemory ?? TREE_WARM_MEMORY;
+  if (!(warmMemory >= 0)) throw invalidParameter(OWNER, "warmMemory", "should be a number of bytes ≥ 0", warmMemory);
   const strengthenWithin = options.strengthenWithin ?? 2;
   if (!(strengthenWithin >= 0)) throw invalidParameter(OWNER, "strengthenWithin", "should be a number ≥ 0", strengthenWithin);
 
@@ -208,7 +237,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   let seq = 0;
   const rootSide = new Uint8Array(n).fill(255);
   if (n > 0) rootSide[rootVertex] = 0;
-  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, rank: 0, region: null, seq: seq++, warmTriangles: null, gain: Infinity });
+  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, region: null, openKids: 0, seq: seq++, warmTriangles: null, gain: Infinity });
   let nodes = 0;
   let status: TreeSearchRecord["status"] = "optimal";
   let lastProgress = t0;
@@ -216,6 +245,25 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   const branching = options.branching ?? "least-decided";
   if (!TREE_BRANCHINGS.includes(branching)) throw invalidParameter(OWNER, "branching", `should be one of ${TREE_BRANCHINGS.join(", ")}`, branching);
   const upperNow = (): number => Math.max(lower, heap.size > 0 ? heap.top()!.bound : -Infinity);
+  // Warm-start bytes held by open nodes (shared vectors counted once) and how many nodes lost theirs.
+  let warmBytes = 0, warmDropped = 0;
+  const releaseWarm = (x: Node): void => {
+    if (x.warm !== null && --x.warm.holders === 0) warmBytes -= x.warm.data.byteLength;
+    if (x.warmTriangles !== null) warmBytes -= x.warmTriangles.triangles.byteLength + x.warmTriangles.mu.byteLength;
+    x.warm = null;
+    x.warmTriangles = null;
+  };
+  // Over the allowance: drop the warm data of the nodes to be reached last, down to ¾ of it (so
+  // the sort is paid once per quarter of the allowance, not once per node).
+  const capWarm = (): void => {
+    if (warmBytes <= warmMemory) return;
+    for (const x of heap.worstFirst()) {
+      if (warmBytes <= 0.75 * warmMemory) break;
+      if (x.warm === null && x.warmTriangles === null) continue;
+      releaseWarm(x);
+      warmDropped++;
+    }
+  };
 
   while (heap.size > 0) {
     const node = heap.top()!;
@@ -233,25 +281,32 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     }
     heap.pop();
     nodes++;
+    // Its parent's region is needed only while a child is open.
+    if (node.parent !== null && --node.parent.openKids === 0) node.parent.region = null;
     const red = reducedProblem(graph, node.side);
+    const path = node.path, nodeSide = node.side;
+    node.path = [];
+    node.side = NO_SIDE;
     const freeCount = red.free.length;
     const toFull = (redSide: ArrayLike<number>): Uint8Array => {
       const p = new Uint8Array(n);
-      for (let v = 0; v < n; v++) p[v] = node.side[v] === 255 ? 0 : node.side[v];
+      for (let v = 0; v < n; v++) p[v] = nodeSide[v] === 255 ? 0 : nodeSide[v];
       for (let i = 0; i < freeCount; i++) p[red.free[i]] = redSide[i + 1] === redSide[0] ? 0 : 1;
       return p;
     };
     if (freeCount <= TREE_LEAF_VERTICES) {
       const ex = exactMaxCut(red.graph, { seconds: 60, solverSeed: seed });
       offer(toFull(ex.partition));
-      node.region = { vertices: node.path.filter((_, i) => i % 2 === 0), sides: node.path.filter((_, i) => i % 2 === 1), bound: floorCutBound(red.offset + ex.upper), certificate: { kind: "exhaustive" } };
+      node.region = { vertices: path.filter((_, i) => i % 2 === 0), sides: path.filter((_, i) => i % 2 === 1), bound: floorCutBound(red.offset + ex.upper), certificate: { kind: "exhaustive" } };
+      releaseWarm(node);
       closed.push(node);
       closedShare += 2 ** -node.depth;
       continue;
     }
     const target = lower - red.offset;
-    const warm = node.warm !== null ? { initial: node.warm, rank: node.rank } : {};
+    const warm = node.warm !== null ? { initial: node.warm.data, rank: node.warm.rank } : {};
     const warmTri = node.warmTriangles !== null ? { warmTriangles: node.warmTriangles.triangles, warmMu: node.warmTriangles.mu } : {};
+    releaseWarm(node);
     const sdp = solveTriangleSdp(red.graph, {
       solverSeed: seed, iterations: relaxation === "triangles" ? (node.parent === null ? rootRounds : rounds) : 0, target, stopGap: 1, firstTolerance: 1e-7,
       strengthenWithin: strengthenWithin + 1.5 * node.gain, stopWhenHopeless: true, separateEvery: options.separateEvery ?? 3, ...warm, ...warmTri,
@@ -259,8 +314,8 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     // offset is an exact integer, the bound a float rounded up: round the sum up, then down to an integer.
     const bound = floorCutBound(roundUp(red.offset + sdp.value, 1));
     node.region = {
-      vertices: node.path.filter((_, i) => i % 2 === 0),
-      sides: node.path.filter((_, i) => i % 2 === 1),
+      vertices: path.filter((_, i) => i % 2 === 0),
+      sides: path.filter((_, i) => i % 2 === 1),
       bound,
       certificate: plainCertificate(sdp.certificate),
     };
@@ -285,21 +340,26 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
       }
       const v = red.free[pick - 1];
       // Children keep z and every free vertex but v, in the same order: their warm start drops v's row.
-      const childWarm = new Float64Array(freeCount * r);
-      childWarm.set(V.subarray(0, pick * r));
-      childWarm.set(V.subarray((pick + 1) * r), pick * r);
+      const data = new Float64Array(freeCount * r);
+      data.set(V.subarray(0, pick * r));
+      data.set(V.subarray((pick + 1) * r), pick * r);
+      const childWarm: WarmVectors = { data, rank: r, holders: 2 };
+      warmBytes += data.byteLength;
+      node.openKids = 2;
       for (const s of [0, 1]) {
-        const side = node.side.slice();
+        const side = nodeSide.slice();
         side[v] = s;
         const inherited = relaxation === "triangles" && sdp.certificate.mu.length > 0 ? mapTrianglesAfterFix(sdp.certificate.triangles, sdp.certificate.mu, pick, s) : null;
         const gain = sdp.rounds > 0 ? sdp.plainValue - sdp.value : node.gain;
-        heap.push({ side, path: [...node.path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, rank: r, region: null, seq: seq++, warmTriangles: inherited, gain });
+        if (inherited !== null) warmBytes += inherited.triangles.byteLength + inherited.mu.byteLength;
+        heap.push({ side, path: [...path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, region: null, openKids: 0, seq: seq++, warmTriangles: inherited, gain });
       }
+      capWarm();
     }
     const now = nowSeconds();
     if (options.onProgress !== undefined && now - lastProgress >= PROGRESS_INTERVAL) {
       lastProgress = now;
-      options.onProgress({ lower, upper: upperNow(), nodes, open: heap.size, seconds: now - t0, closedShare });
+      options.onProgress({ lower, upper: upperNow(), nodes, open: heap.size, seconds: now - t0, closedShare, warmBytes });
     }
   }
   // The evidence: closed regions, plus the parents of open nodes still above the incumbent (their
@@ -337,7 +397,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     nodes,
     relaxation,
     certificate: { rootVertex, relaxation, regions },
-    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size },
+    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size, warmDropped },
   };
 }
 

@@ -1,0 +1,89 @@
+// The tree search under a warm-start memory allowance (src/cut/tree/relaxation-tree.ts, option
+// `warmMemory`): dropping warm starts may change which nodes are cheap, never what is proved.
+import { describe, expect, it } from "vitest";
+import { exactMaxCut } from "../src/cut/exact/exact-max-cut.js";
+import { relaxationTreeSearch, verifyTreeCertificate, type TreeCertificate } from "../src/cut/tree/relaxation-tree.js";
+import { family } from "../src/families/registry.js";
+import { Rng } from "../src/random/prng.js";
+import { randomGraph } from "./helpers/graphs.js";
+import { cutOfPartition } from "./helpers/maxcut.js";
+import { milpSolver, solveMilp } from "./helpers/milp.js";
+
+describe("the tree search under a warm-start memory allowance", () => {
+  it("closes 8 random graphs with 30–38 vertices at the same value with no allowance as with the default (exact search; MILP when installed)", () => {
+    // Sources: exactMaxCut (src/cut/exact, Gray-code / bitmask search) and, when installed, the MILP
+    // optimum of Debian's coinor-cbc or glpk-utils (test/helpers/milp.ts).
+    const rng = new Rng(4242);
+    for (let t = 0; t < 8; t++) {
+      const n = 30 + rng.nextInt(9);
+      const g = randomGraph(n, (2.4 + 2 * rng.nextFloat()) / (n - 1), rng);
+      const base = {
+        relaxation: t % 2 === 0 ? ("triangles" as const) : ("plain" as const), branching: t % 4 < 2 ? ("most-decided" as const) : ("least-decided" as const),
+        work: 20_000, seconds: 1e6, solverSeed: t, roundsPerNode: 8,
+      };
+      const free = relaxationTreeSearch(g, base);
+      const tight = relaxationTreeSearch(g, { ...base, warmMemory: 0 });
+      expect([free.status, tight.status], `graph ${t}`).toEqual(["optimal", "optimal"]);
+      expect(tight.value, `graph ${t}`).toBe(free.value);
+      expect(tight.upper, `graph ${t}`).toBe(free.upper);
+      expect(free.value, `graph ${t}`).toBe(exactMaxCut(g, { work: 10_000_000, seconds: 1e6 }).value);
+      if (milpSolver !== null) expect(free.value, `graph ${t}`).toBe(solveMilp(g, `mem${t}`));
+      expect(cutOfPartition(g, tight.partition)).toBe(tight.value);
+      // The allowance was really exceeded (every branching node's children lost their warm data),
+      // and the default never was on graphs this small.
+      if (free.nodes > 1) expect(tight.details?.warmDropped as number, `graph ${t}`).toBeGreaterThan(0);
+      expect(free.details?.warmDropped, `graph ${t}`).toBe(0);
+      for (const r of [free, tight]) {
+        const v = verifyTreeCertificate(g, r.certificate);
+        expect(v.ok, `graph ${t}: ${v.message}`).toBe(true);
+        expect(v.bound).toBeLessThanOrEqual(r.upper);
+      }
+    }
+  });
+
+  it("gives identical records for a seed and node budget under a small allowance; verify accepts them and refuses tampered ones", () => {
+    // A small allowance (40 kB: some open nodes keep their warm start, others lose it) on
+    // unfinished searches, whose evidence includes the parents of open nodes.
+    const cases = [
+      { spec: "gnp:n=45,p=0.25,seed=6", relaxation: "triangles" as const, branching: "least-decided" as const, works: [3, 5, 8] },
+      { spec: "polarity:q=7,loops=drop", relaxation: "plain" as const, branching: "most-decided" as const, works: [25, 70] },
+    ];
+    let dropped = 0;
+    for (const { spec, relaxation, branching, works } of cases) {
+      const g = family(spec);
+      for (const work of works) {
+        const opts = { relaxation, branching, strengthenWithin: Infinity, work, seconds: 1e6, solverSeed: 5, roundsPerNode: 10, warmMemory: 40_000 };
+        const a = relaxationTreeSearch(g, opts);
+        const b = relaxationTreeSearch(g, opts);
+        const strip = (r: typeof a): unknown => ({ ...r, seconds: 0 });
+        expect(JSON.stringify(strip(a)), `${spec} work ${work}`).toBe(JSON.stringify(strip(b)));
+        dropped += a.details?.warmDropped as number;
+        const v = verifyTreeCertificate(g, a.certificate);
+        expect(v.ok, `${spec} work ${work}: ${v.message}`).toBe(true);
+        expect(v.bound).toBeLessThanOrEqual(a.upper);
+        // A region removed: the rest no longer covers every cut.
+        if (a.certificate.regions.length > 1) {
+          const fewer = JSON.parse(JSON.stringify(a.certificate)) as TreeCertificate;
+          fewer.regions.pop();
+          expect(verifyTreeCertificate(g, fewer).ok, `${spec} work ${work}`).toBe(false);
+        }
+        const idx = a.certificate.regions.findIndex((x) => x.certificate.kind === "triangle-dual");
+        expect(idx).toBeGreaterThanOrEqual(0);
+        // A region claiming one less than its certificate proves.
+        const lowered = JSON.parse(JSON.stringify(a.certificate)) as TreeCertificate;
+        lowered.regions[idx].bound -= 1;
+        expect(verifyTreeCertificate(g, lowered).ok, `${spec} work ${work}`).toBe(false);
+        // A dual vector lowered: the shift's Cholesky proof fails.
+        const bent = JSON.parse(JSON.stringify(a.certificate)) as TreeCertificate;
+        (bent.regions[idx].certificate as { y: number[] }).y[0] -= 1;
+        expect(verifyTreeCertificate(g, bent).ok, `${spec} work ${work}`).toBe(false);
+      }
+    }
+    // The allowance was really exceeded.
+    expect(dropped).toBeGreaterThan(0);
+  });
+
+  it("refuses a negative allowance", () => {
+    expect(() => relaxationTreeSearch(family("cycle:n=5"), { warmMemory: -1 })).toThrow(/warmMemory/);
+  });
+});
