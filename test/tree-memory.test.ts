@@ -2,6 +2,9 @@
 // `warmMemory`): dropping warm starts may change which nodes are cheap, never what is proved.
 import { describe, expect, it } from "vitest";
 import { exactMaxCut } from "../src/cut/exact/exact-max-cut.js";
+import { TRIANGLE_SIGNS } from "../src/cut/relaxation/triangle-dual.js";
+import { solveTriangleSdp } from "../src/cut/relaxation/triangle-sdp.js";
+import { trianglesAtRoot } from "../src/cut/tree/reduced-graph.js";
 import { relaxationTreeSearch, verifyTreeCertificate, type TreeCertificate } from "../src/cut/tree/relaxation-tree.js";
 import { family } from "../src/families/registry.js";
 import { Rng } from "../src/random/prng.js";
@@ -85,5 +88,54 @@ describe("the tree search under a warm-start memory allowance", () => {
 
   it("refuses a negative allowance", () => {
     expect(() => relaxationTreeSearch(family("cycle:n=5"), { warmMemory: -1 })).toThrow(/warmMemory/);
+  });
+});
+
+describe("the tree's root continuing from an earlier strengthened bound", () => {
+  const lhs = (tri: ArrayLike<number>, t: number, x: number[]): number => {
+    const [i, j, k] = [tri[4 * t], tri[4 * t + 1], tri[4 * t + 2]];
+    const s = TRIANGLE_SIGNS[tri[4 * t + 3]];
+    return s[0] * x[i] * x[j] + s[1] * x[i] * x[k] + s[2] * x[j] * x[k];
+  };
+
+  it("relabels inequalities so that each has the same value on every cut (brute force over 7 vertices)", () => {
+    const rng = new Rng(77);
+    const n = 7;
+    for (let trial = 0; trial < 40; trial++) {
+      const root = rng.nextInt(n);
+      const tri: number[] = [], mu: number[] = [];
+      for (let t = 0; t < 6; t++) {
+        const set = new Set<number>();
+        while (set.size < 3) set.add(rng.nextInt(n));
+        const [i, j, k] = [...set].sort((a, b) => a - b);
+        tri.push(i, j, k, rng.nextInt(4));
+        mu.push(rng.nextFloat());
+      }
+      const at = trianglesAtRoot(n, root, tri, mu);
+      expect(Array.from(at.mu)).toEqual(mu);
+      const label = (v: number): number => (v === root ? 0 : v < root ? v + 1 : v);
+      for (let mask = 0; mask < 1 << n; mask++) {
+        const x = Array.from({ length: n }, (_, v) => ((mask >> v) & 1 ? -1 : 1));
+        const xr = new Array<number>(n);
+        for (let v = 0; v < n; v++) xr[label(v)] = x[v];
+        for (let t = 0; t < mu.length; t++) expect(lhs(at.triangles, t, xr)).toBe(lhs(tri, t, x));
+      }
+    }
+  });
+
+  it("gives the same exact value from a strengthened bound's inequalities as without (exact search), and refuses a malformed list", () => {
+    // Source: exactMaxCut (src/cut/exact); the certificates are re-proved by verify.
+    const g = family("gnp:n=45,p=0.25,seed=6");
+    const stage = solveTriangleSdp(g, { solverSeed: 2, iterations: 30 });
+    expect(stage.certificate.mu.length).toBeGreaterThan(0);
+    const opts = { relaxation: "triangles" as const, work: 2000, seconds: 1e6, solverSeed: 3, roundsPerNode: 10 };
+    const cold = relaxationTreeSearch(g, opts);
+    const warm = relaxationTreeSearch(g, { ...opts, rootTriangles: stage.certificate });
+    expect([cold.status, warm.status]).toEqual(["optimal", "optimal"]);
+    expect(warm.value).toBe(cold.value);
+    expect(warm.value).toBe(exactMaxCut(g, { work: 10_000_000, seconds: 1e6 }).value);
+    const v = verifyTreeCertificate(g, warm.certificate);
+    expect(v.ok, v.message).toBe(true);
+    expect(() => relaxationTreeSearch(g, { ...opts, rootTriangles: { triangles: [0, 1, 1, 0], mu: [1] } })).toThrow(/rootTriangles/);
   });
 });

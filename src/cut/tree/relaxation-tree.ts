@@ -24,10 +24,10 @@ import { checkWork, nowSeconds, PROGRESS_INTERVAL } from "../exact/common.js";
 import { exactMaxCut } from "../exact/exact-max-cut.js";
 import { hyperplaneRound } from "../heuristic/hyperplane-rounding.js";
 import { localSearch } from "../heuristic/local-search.js";
-import { verifyTriangleCertificate, type TriangleCertificate } from "../relaxation/triangle-dual.js";
+import { triangleListProblem, verifyTriangleCertificate, type TriangleCertificate } from "../relaxation/triangle-dual.js";
 import { solveTriangleSdp } from "../relaxation/triangle-sdp.js";
 import type { CutRecord } from "../types.js";
-import { mapTrianglesAfterFix, reducedProblem } from "./reduced-graph.js";
+import { mapTrianglesAfterFix, reducedProblem, trianglesAtRoot } from "./reduced-graph.js";
 
 /** Which relaxation bounds the nodes: the plain SDP, or the SDP with triangle inequalities. */
 export type TreeRelaxation = "plain" | "triangles";
@@ -91,6 +91,12 @@ export interface TreeSearchOptions {
    * their cost changes. Deterministic: it counts array bytes, not the process's memory.
    */
   warmMemory?: number;
+  /**
+   * "triangles": inequalities of the whole graph (four integers each, as in a `triangle-dual`
+   * certificate) and their multipliers to start the root's rounds from, e.g. those of an earlier
+   * strengthened bound of the same graph; the root then continues instead of starting over.
+   */
+  rootTriangles?: { triangles: ArrayLike<number>; mu: ArrayLike<number> };
   /** Called about every half second with the bracket so far; `closedShare` is the share of all cuts in closed regions (2^−depth each); `warmBytes` the warm-start data held by open nodes. */
   onProgress?: (p: { lower: number; upper: number; nodes: number; open: number; seconds: number; closedShare: number; warmBytes: number }) => void;
 }
@@ -237,7 +243,14 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   let seq = 0;
   const rootSide = new Uint8Array(n).fill(255);
   if (n > 0) rootSide[rootVertex] = 0;
-  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, region: null, openKids: 0, seq: seq++, warmTriangles: null, gain: Infinity });
+  let rootWarm: Node["warmTriangles"] = null;
+  if (options.rootTriangles !== undefined && relaxation === "triangles" && n > 0) {
+    const { triangles, mu } = options.rootTriangles;
+    const problem = triangleListProblem(n, triangles, mu);
+    if (problem !== null) throw invalidParameter(OWNER, "rootTriangles", problem, triangles.length);
+    rootWarm = trianglesAtRoot(n, rootVertex, triangles, mu);
+  }
+  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, region: null, openKids: 0, seq: seq++, warmTriangles: rootWarm, gain: Infinity });
   let nodes = 0;
   let status: TreeSearchRecord["status"] = "optimal";
   let lastProgress = t0;
