@@ -4,7 +4,7 @@
 // warm-start data is held under `warmMemory` (bytes; the tree's default when unset).
 // Environment: TREE_MEMORY_SECONDS (wall clock, default 180), TREE_MEMORY_SPEC (default
 // polarity:q=8,loops=drop), TREE_MEMORY_WARM (bytes for warm data, default: the tree's default),
-// TREE_MEMORY_DIST (the build to load, default ../dist: lets one compare an older build).
+// TREE_MEMORY_MAX_OPEN (open nodes before depth-first dives, default: the tree's default), TREE_MEMORY_DIST (the build to load, default ../dist: lets one compare an older build).
 import { loadavg } from "node:os";
 import { resolve } from "node:path";
 import { pathToFileURL } from "node:url";
@@ -15,6 +15,7 @@ const { family } = await import(pathToFileURL(`${dist}/families/index.js`).href)
 const seconds = Number(process.env.TREE_MEMORY_SECONDS ?? 180);
 const spec = process.env.TREE_MEMORY_SPEC ?? "polarity:q=8,loops=drop";
 const warmMemory = process.env.TREE_MEMORY_WARM === undefined ? undefined : Number(process.env.TREE_MEMORY_WARM);
+const maxOpen = process.env.TREE_MEMORY_MAX_OPEN === undefined ? undefined : Number(process.env.TREE_MEMORY_MAX_OPEN);
 const mb = (x) => Math.round(x / 2 ** 20);
 const g = family(spec);
 console.log(`${spec}: n=${g.n}, m=${g.m}, ${seconds} s, build ${dist}, load ${loadavg().map((x) => x.toFixed(2)).join(" ")}`);
@@ -22,7 +23,7 @@ const cut = breakoutSearch(g, { seconds: 2, solverSeed: 1 });
 const c0 = process.cpuUsage();
 let next = 0;
 const r = relaxationTreeSearch(g, {
-  seconds, relaxation: "plain", branching: "most-decided", initial: cut.partition, solverSeed: 1, warmMemory,
+  seconds, relaxation: "plain", branching: "most-decided", initial: cut.partition, solverSeed: 1, warmMemory, maxOpen,
   onProgress: (p) => {
     if (p.seconds < next) return;
     next += 15;
@@ -33,4 +34,4 @@ const r = relaxationTreeSearch(g, {
   },
 });
 const m = process.memoryUsage();
-console.log(`end: ${r.status} [${r.value}, ${r.upper}] nodes=${r.nodes} regions=${r.certificate.regions.length} rss=${mb(m.rss)} MB heap=${mb(m.heapUsed)} MB load ${loadavg()[0].toFixed(2)}`);
+console.log(`end: ${r.status} [${r.value}, ${r.upper}] nodes=${r.nodes} regions=${r.certificate.regions.length} details=${JSON.stringify({ ...r.details, workUsed: undefined })} rss=${mb(m.rss)} MB heap=${mb(m.heapUsed)} MB load ${loadavg()[0].toFixed(2)}`);

@@ -13,7 +13,7 @@ import { cutOfPartition } from "./helpers/maxcut.js";
 import { milpSolver, solveMilp } from "./helpers/milp.js";
 
 describe("the tree search under a warm-start memory allowance", () => {
-  it("closes 8 random graphs with 30–38 vertices at the same value with no allowance as with the default (exact search; MILP when installed)", () => {
+  it("closes 8 random graphs with 30–38 vertices at the same value with no warm allowance or no heap room as with the defaults (exact search; MILP when installed)", () => {
     // Sources: exactMaxCut (src/cut/exact, Gray-code / bitmask search) and, when installed, the MILP
     // optimum of Debian's coinor-cbc or glpk-utils (test/helpers/milp.ts).
     const rng = new Rng(4242);
@@ -26,9 +26,14 @@ describe("the tree search under a warm-start memory allowance", () => {
       };
       const free = relaxationTreeSearch(g, base);
       const tight = relaxationTreeSearch(g, { ...base, warmMemory: 0 });
-      expect([free.status, tight.status], `graph ${t}`).toEqual(["optimal", "optimal"]);
-      expect(tight.value, `graph ${t}`).toBe(free.value);
-      expect(tight.upper, `graph ${t}`).toBe(free.upper);
+      // Depth-first dives from the first branching on (no room in the heap), with and without warm data.
+      const deep = relaxationTreeSearch(g, { ...base, maxOpen: 0, warmMemory: t % 2 === 0 ? 0 : undefined });
+      // The same from an empty cut (the incumbent then comes from the nodes' rounding).
+      const low = relaxationTreeSearch(g, { ...base, maxOpen: 0, initial: new Uint8Array(n) });
+      expect([free.status, tight.status, deep.status, low.status], `graph ${t}`).toEqual(["optimal", "optimal", "optimal", "optimal"]);
+      expect([tight.value, deep.value, low.value], `graph ${t}`).toEqual([free.value, free.value, free.value]);
+      expect([tight.upper, deep.upper, low.upper], `graph ${t}`).toEqual([free.upper, free.upper, free.upper]);
+      if (free.nodes > 3) expect(deep.details?.dives as number, `graph ${t}`).toBeGreaterThan(0);
       expect(free.value, `graph ${t}`).toBe(exactMaxCut(g, { work: 10_000_000, seconds: 1e6 }).value);
       if (milpSolver !== null) expect(free.value, `graph ${t}`).toBe(solveMilp(g, `mem${t}`));
       expect(cutOfPartition(g, tight.partition)).toBe(tight.value);
@@ -36,7 +41,7 @@ describe("the tree search under a warm-start memory allowance", () => {
       // and the default never was on graphs this small.
       if (free.nodes > 1) expect(tight.details?.warmDropped as number, `graph ${t}`).toBeGreaterThan(0);
       expect(free.details?.warmDropped, `graph ${t}`).toBe(0);
-      for (const r of [free, tight]) {
+      for (const r of [free, tight, deep, low]) {
         const v = verifyTreeCertificate(g, r.certificate);
         expect(v.ok, `graph ${t}: ${v.message}`).toBe(true);
         expect(v.bound).toBeLessThanOrEqual(r.upper);
@@ -50,17 +55,21 @@ describe("the tree search under a warm-start memory allowance", () => {
     const cases = [
       { spec: "gnp:n=45,p=0.25,seed=6", relaxation: "triangles" as const, branching: "least-decided" as const, works: [3, 5, 8] },
       { spec: "polarity:q=7,loops=drop", relaxation: "plain" as const, branching: "most-decided" as const, works: [25, 70] },
+      { spec: "polarity:q=7,loops=drop", relaxation: "plain" as const, branching: "most-decided" as const, works: [40, 90], maxOpen: 6 },
     ];
     let dropped = 0;
-    for (const { spec, relaxation, branching, works } of cases) {
+    let dives = 0;
+    for (const { spec, relaxation, branching, works, maxOpen } of cases) {
       const g = family(spec);
       for (const work of works) {
-        const opts = { relaxation, branching, strengthenWithin: Infinity, work, seconds: 1e6, solverSeed: 5, roundsPerNode: 10, warmMemory: 40_000 };
+        const opts = { relaxation, branching, strengthenWithin: Infinity, work, seconds: 1e6, solverSeed: 5, roundsPerNode: 10, warmMemory: 40_000, maxOpen };
         const a = relaxationTreeSearch(g, opts);
         const b = relaxationTreeSearch(g, opts);
         const strip = (r: typeof a): unknown => ({ ...r, seconds: 0 });
         expect(JSON.stringify(strip(a)), `${spec} work ${work}`).toBe(JSON.stringify(strip(b)));
         dropped += a.details?.warmDropped as number;
+        dives += a.details?.dives as number;
+        if (maxOpen !== undefined) expect(a.details?.openNodes as number).toBeLessThanOrEqual(maxOpen + 2 * 73);
         const v = verifyTreeCertificate(g, a.certificate);
         expect(v.ok, `${spec} work ${work}: ${v.message}`).toBe(true);
         expect(v.bound).toBeLessThanOrEqual(a.upper);
@@ -84,10 +93,12 @@ describe("the tree search under a warm-start memory allowance", () => {
     }
     // The allowance was really exceeded.
     expect(dropped).toBeGreaterThan(0);
+    expect(dives).toBeGreaterThan(0);
   });
 
-  it("refuses a negative allowance", () => {
+  it("refuses a negative allowance and a fractional heap size", () => {
     expect(() => relaxationTreeSearch(family("cycle:n=5"), { warmMemory: -1 })).toThrow(/warmMemory/);
+    expect(() => relaxationTreeSearch(family("cycle:n=5"), { maxOpen: 1.5 })).toThrow(/maxOpen/);
   });
 });
 

@@ -92,6 +92,13 @@ export interface TreeSearchOptions {
    */
   warmMemory?: number;
   /**
+   * Open nodes the best-first heap may hold (default 200,000). Past it, each node taken from the
+   * heap has its whole subtree searched depth first (a stack of about two nodes per level) before
+   * the heap is used again, so the open list stops growing; the upper end stays proven (the largest
+   * region bound) but may fall later than best first would let it.
+   */
+  maxOpen?: number;
+  /**
    * "triangles": inequalities of the whole graph (four integers each, as in a `triangle-dual`
    * certificate) and their multipliers to start the root's rounds from, e.g. those of an earlier
    * strengthened bound of the same graph; the root then continues instead of starting over.
@@ -122,6 +129,9 @@ interface WarmVectors {
 export const TREE_WARM_MEMORY = 2 ** 30;
 
 const NO_SIDE = new Uint8Array(0);
+
+/** Default `maxOpen`: ER_8 held 350,000 open nodes in 4 GB before warm data was capped (bench/exact-hundred). */
+export const TREE_MAX_OPEN = 200_000;
 
 interface Node {
   /** Sides of every vertex (255 = free) while the node is open; emptied once it is evaluated. */
@@ -222,6 +232,8 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   const deadline = t0 + seconds;
   const warmMemory = options.warmMemory ?? TREE_WARM_MEMORY;
   if (!(warmMemory >= 0)) throw invalidParameter(OWNER, "warmMemory", "should be a number of bytes ≥ 0", warmMemory);
+  const maxOpen = options.maxOpen ?? TREE_MAX_OPEN;
+  if (!(Number.isInteger(maxOpen) && maxOpen >= 0)) throw invalidParameter(OWNER, "maxOpen", "should be a non-negative integer", maxOpen);
   const strengthenWithin = options.strengthenWithin ?? 2;
   if (!(strengthenWithin >= 0)) throw invalidParameter(OWNER, "strengthenWithin", "should be a number ≥ 0", strengthenWithin);
 
@@ -257,7 +269,16 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   let closedShare = 0;
   const branching = options.branching ?? "least-decided";
   if (!TREE_BRANCHINGS.includes(branching)) throw invalidParameter(OWNER, "branching", `should be one of ${TREE_BRANCHINGS.join(", ")}`, branching);
-  const upperNow = (): number => Math.max(lower, heap.size > 0 ? heap.top()!.bound : -Infinity);
+  // Depth-first dives (see `maxOpen`): the subtree of a node taken from a full heap, last in first out.
+  const stack: Node[] = [];
+  // Dive nodes already beaten by the incumbent: closed by their parent's region, which they keep.
+  const beaten: Node[] = [];
+  let dives = 0;
+  const upperNow = (): number => {
+    let u = Math.max(lower, heap.size > 0 ? heap.top()!.bound : -Infinity);
+    for (const x of stack) u = Math.max(u, x.bound);
+    return u;
+  };
   // Warm-start bytes held by open nodes (shared vectors counted once) and how many nodes lost theirs.
   let warmBytes = 0, warmDropped = 0;
   const releaseWarm = (x: Node): void => {
@@ -278,11 +299,18 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     }
   };
 
-  while (heap.size > 0) {
-    const node = heap.top()!;
+  while (heap.size > 0 || stack.length > 0) {
+    const fromStack = stack.length > 0;
+    const node = fromStack ? stack[stack.length - 1] : heap.top()!;
     if (node.bound <= lower) {
-      // Every open node is beaten by the incumbent: closed by its parent's bound.
-      break;
+      if (!fromStack) break; // every open node is beaten by the incumbent: closed by its parent's bound
+      // Beaten on a dive: its parent's region covers it (the parent keeps it: openKids stays).
+      stack.pop();
+      releaseWarm(node);
+      node.side = NO_SIDE;
+      node.path = [];
+      beaten.push(node);
+      continue;
     }
     if (nodes >= workLimit) {
       status = "work-limit";
@@ -292,7 +320,8 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
       status = "time-limit";
       break;
     }
-    heap.pop();
+    if (fromStack) stack.pop();
+    else heap.pop();
     nodes++;
     // Its parent's region is needed only while a child is open.
     if (node.parent !== null && --node.parent.openKids === 0) node.parent.region = null;
@@ -359,20 +388,25 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
       const childWarm: WarmVectors = { data, rank: r, holders: 2 };
       warmBytes += data.byteLength;
       node.openKids = 2;
-      for (const s of [0, 1]) {
+      const dive = fromStack || heap.size > maxOpen;
+      if (dive && !fromStack) dives++;
+      // On a dive side 1 goes on the stack first, so side 0 is searched first, as the heap would.
+      for (const s of dive ? [1, 0] : [0, 1]) {
         const side = nodeSide.slice();
         side[v] = s;
         const inherited = relaxation === "triangles" && sdp.certificate.mu.length > 0 ? mapTrianglesAfterFix(sdp.certificate.triangles, sdp.certificate.mu, pick, s) : null;
         const gain = sdp.rounds > 0 ? sdp.plainValue - sdp.value : node.gain;
         if (inherited !== null) warmBytes += inherited.triangles.byteLength + inherited.mu.byteLength;
-        heap.push({ side, path: [...path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, region: null, openKids: 0, seq: seq++, warmTriangles: inherited, gain });
+        const child: Node = { side, path: [...path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, region: null, openKids: 0, seq: seq++, warmTriangles: inherited, gain };
+        if (dive) stack.push(child);
+        else heap.push(child);
       }
       capWarm();
     }
     const now = nowSeconds();
     if (options.onProgress !== undefined && now - lastProgress >= PROGRESS_INTERVAL) {
       lastProgress = now;
-      options.onProgress({ lower, upper: upperNow(), nodes, open: heap.size, seconds: now - t0, closedShare, warmBytes });
+      options.onProgress({ lower, upper: upperNow(), nodes, open: heap.size + stack.length, seconds: now - t0, closedShare, warmBytes });
     }
   }
   // The evidence: closed regions, plus the parents of open nodes still above the incumbent (their
@@ -380,7 +414,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   const regionNodes = new Set<Node>(closed);
   // The root still open (a budget spent before it was bounded): no evidence, no bound.
   const rootOpen = heap.all().some((x) => x.parent === null);
-  for (const open of heap.all()) if (open.parent !== null) regionNodes.add(open.parent);
+  for (const open of [...heap.all(), ...stack, ...beaten]) if (open.parent !== null) regionNodes.add(open.parent);
   // A region whose ancestor is a region adds nothing: drop it.
   const regions: TreeRegion[] = [];
   let upper = lower;
@@ -410,7 +444,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     nodes,
     relaxation,
     certificate: { rootVertex, relaxation, regions },
-    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size, warmDropped },
+    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size + stack.length, warmDropped, dives, beatenOnDives: beaten.length },
   };
 }
 
