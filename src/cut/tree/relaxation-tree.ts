@@ -271,9 +271,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   if (!TREE_BRANCHINGS.includes(branching)) throw invalidParameter(OWNER, "branching", `should be one of ${TREE_BRANCHINGS.join(", ")}`, branching);
   // Depth-first dives (see `maxOpen`): the subtree of a node taken from a full heap, last in first out.
   const stack: Node[] = [];
-  // Dive nodes already beaten by the incumbent: closed by their parent's region, which they keep.
-  const beaten: Node[] = [];
-  let dives = 0;
+  let dives = 0, beatenOnDives = 0;
   const upperNow = (): number => {
     let u = Math.max(lower, heap.size > 0 ? heap.top()!.bound : -Infinity);
     for (const x of stack) u = Math.max(u, x.bound);
@@ -304,12 +302,12 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     const node = fromStack ? stack[stack.length - 1] : heap.top()!;
     if (node.bound <= lower) {
       if (!fromStack) break; // every open node is beaten by the incumbent: closed by its parent's bound
-      // Beaten on a dive: its parent's region covers it (the parent keeps it: openKids stays).
+      // Beaten on a dive: it joins the heap's nodes at or below the incumbent, never taken again
+      // and covered, like them, by its parent's region (the parent keeps it: openKids stays).
       stack.pop();
       releaseWarm(node);
-      node.side = NO_SIDE;
-      node.path = [];
-      beaten.push(node);
+      heap.push(node);
+      beatenOnDives++;
       continue;
     }
     if (nodes >= workLimit) {
@@ -414,7 +412,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   const regionNodes = new Set<Node>(closed);
   // The root still open (a budget spent before it was bounded): no evidence, no bound.
   const rootOpen = heap.all().some((x) => x.parent === null);
-  for (const open of [...heap.all(), ...stack, ...beaten]) if (open.parent !== null) regionNodes.add(open.parent);
+  for (const open of [...heap.all(), ...stack]) if (open.parent !== null) regionNodes.add(open.parent);
   // A region whose ancestor is a region adds nothing: drop it.
   const regions: TreeRegion[] = [];
   let upper = lower;
@@ -444,7 +442,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     nodes,
     relaxation,
     certificate: { rootVertex, relaxation, regions },
-    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size + stack.length, warmDropped, dives, beatenOnDives: beaten.length },
+    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size + stack.length, warmDropped, dives, beatenOnDives },
   };
 }
 
