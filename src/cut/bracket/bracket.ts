@@ -649,6 +649,8 @@ function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation
   const rank = defaultSdpRank(g.n);
   const roundCost = 60 * costs.sweep(rank) + costs.denseProof;
   const triangleRounds = 60;
+  // The stage's inequalities and multipliers: the tree's root continues from them.
+  let stage: { triangles: Int32Array; mu: Float64Array } | undefined;
   state.attempt("sdp-triangles", "upper", () => {
     const r = solveTriangleSdp(g, {
       solverSeed: methodSeed(seed, 6),
@@ -657,6 +659,7 @@ function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation
       target: state.lower,
     });
     meter.charge("sdp-triangles", 2000 * costs.sweep(rank) + r.rounds * roundCost, r.seconds);
+    if (r.certificate.mu.length > 0) stage = { triangles: r.certificate.triangles, mu: r.certificate.mu };
     state.offerTriangle(r);
   });
   if (state.closed()) return;
@@ -670,6 +673,7 @@ function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation
       initial: state.partition,
       relaxation,
       branching,
+      rootTriangles: stage,
       onProgress: state.treeProgress("sdp tree"),
     });
     meter.charge("exact-sdp-tree", unitsOf(Number(r.details?.workUsed ?? 0), nodeCost), r.seconds);

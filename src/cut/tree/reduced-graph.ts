@@ -108,3 +108,28 @@ export function mapTrianglesAfterFix(triangles: ArrayLike<number>, mu: ArrayLike
   }
   return { triangles: Int32Array.from(outT), mu: Float64Array.from(outM) };
 }
+
+/**
+ * Triangle inequalities of a graph written for its reduced problem at the tree's root (one vertex
+ * `rootVertex` fixed on side 0, so z is that vertex and the others keep their order as reduced
+ * vertices 1..n−1): a relabelling only, each triple re-sorted with its pair signs carried along, so
+ * every inequality and its multiplier mean the same thing (common practice, no source).
+ */
+export function trianglesAtRoot(n: number, rootVertex: number, triangles: ArrayLike<number>, mu: ArrayLike<number>): { triangles: Int32Array; mu: Float64Array } {
+  const label = (v: number): number => (v === rootVertex ? 0 : v < rootVertex ? v + 1 : v);
+  const outT: number[] = [], outM: number[] = [];
+  for (let t = 0; t < mu.length; t++) {
+    const old = [triangles[4 * t], triangles[4 * t + 1], triangles[4 * t + 2]];
+    if (!old.every((v) => Number.isInteger(v) && v >= 0 && v < n)) throw new InputError(`trianglesAtRoot: inequality ${t} names a vertex outside 0..${n - 1}`);
+    const s = TRIANGLE_SIGNS[triangles[4 * t + 3]];
+    // Pair signs by unordered pair: (ij, ik, jk).
+    const sign = new Map<string, number>([[`${old[0]},${old[1]}`, s[0]], [`${old[0]},${old[2]}`, s[1]], [`${old[1]},${old[2]}`, s[2]]]);
+    const pairSign = (a: number, b: number): number => sign.get(`${a},${b}`) ?? sign.get(`${b},${a}`)!;
+    const byNew = [...old].sort((a, b) => label(a) - label(b));
+    const signs = [pairSign(byNew[0], byNew[1]), pairSign(byNew[0], byNew[2]), pairSign(byNew[1], byNew[2])];
+    const p = TRIANGLE_SIGNS.findIndex((q) => q[0] === signs[0] && q[1] === signs[1] && q[2] === signs[2]);
+    outT.push(label(byNew[0]), label(byNew[1]), label(byNew[2]), p);
+    outM.push(mu[t]);
+  }
+  return { triangles: Int32Array.from(outT), mu: Float64Array.from(outM) };
+}

@@ -24,10 +24,10 @@ import { checkWork, nowSeconds, PROGRESS_INTERVAL } from "../exact/common.js";
 import { exactMaxCut } from "../exact/exact-max-cut.js";
 import { hyperplaneRound } from "../heuristic/hyperplane-rounding.js";
 import { localSearch } from "../heuristic/local-search.js";
-import { verifyTriangleCertificate, type TriangleCertificate } from "../relaxation/triangle-dual.js";
+import { triangleListProblem, verifyTriangleCertificate, type TriangleCertificate } from "../relaxation/triangle-dual.js";
 import { solveTriangleSdp } from "../relaxation/triangle-sdp.js";
 import type { CutRecord } from "../types.js";
-import { mapTrianglesAfterFix, reducedProblem } from "./reduced-graph.js";
+import { mapTrianglesAfterFix, reducedProblem, trianglesAtRoot } from "./reduced-graph.js";
 
 /** Which relaxation bounds the nodes: the plain SDP, or the SDP with triangle inequalities. */
 export type TreeRelaxation = "plain" | "triangles";
@@ -84,8 +84,28 @@ export interface TreeSearchOptions {
   separateEvery?: number;
   /** Branching rule (default "least-decided"): the free vertex whose SDP vector is closest to orthogonal to z's, or closest to ±z's. */
   branching?: TreeBranching;
-  /** Called about every half second with the bracket so far; `closedShare` is the share of all cuts in closed regions (2^−depth each). */
-  onProgress?: (p: { lower: number; upper: number; nodes: number; open: number; seconds: number; closedShare: number }) => void;
+  /**
+   * Bytes of warm-start data (parent vectors, inherited inequalities) the open nodes may hold
+   * (default 2^30). Past it, the open nodes farthest from the top of the heap lose theirs (down to
+   * three quarters of the allowance) and start cold when reached: bounds stay certified, only
+   * their cost changes. Deterministic: it counts array bytes, not the process's memory.
+   */
+  warmMemory?: number;
+  /**
+   * Open nodes the best-first heap may hold (default 200,000). Past it, each node taken from the
+   * heap has its whole subtree searched depth first (a stack of about two nodes per level) before
+   * the heap is used again, so the open list stops growing; the upper end stays proven (the largest
+   * region bound) but may fall later than best first would let it.
+   */
+  maxOpen?: number;
+  /**
+   * "triangles": inequalities of the whole graph (four integers each, as in a `triangle-dual`
+   * certificate) and their multipliers to start the root's rounds from, e.g. those of an earlier
+   * strengthened bound of the same graph; the root then continues instead of starting over.
+   */
+  rootTriangles?: { triangles: ArrayLike<number>; mu: ArrayLike<number> };
+  /** Called about every half second with the bracket so far; `closedShare` is the share of all cuts in closed regions (2^−depth each); `warmBytes` the warm-start data held by open nodes. */
+  onProgress?: (p: { lower: number; upper: number; nodes: number; open: number; seconds: number; closedShare: number; warmBytes: number }) => void;
 }
 
 export interface TreeSearchRecord extends CutRecord {
@@ -97,22 +117,41 @@ export interface TreeSearchRecord extends CutRecord {
   certificate: TreeCertificate;
 }
 
+/** A parent's SDP vectors with the branching vertex's row removed: one copy shared by both children. */
+interface WarmVectors {
+  data: Float64Array;
+  rank: number;
+  /** Open children still holding it; its bytes leave the count when this reaches 0. */
+  holders: number;
+}
+
+/** Default `warmMemory`: 1 GiB. ER_8 held 4 GB after 350,000 open nodes without a cap (bench/exact-hundred). */
+export const TREE_WARM_MEMORY = 2 ** 30;
+
+const NO_SIDE = new Uint8Array(0);
+
+/** Default `maxOpen`: ER_8 held 350,000 open nodes in 4 GB before warm data was capped (bench/exact-hundred). */
+export const TREE_MAX_OPEN = 200_000;
+
 interface Node {
+  /** Sides of every vertex (255 = free) while the node is open; emptied once it is evaluated. */
   side: Uint8Array;
+  /** The (vertex, side) fixings in order while open; emptied once evaluated (its region keeps them). */
   path: number[];
   depth: number;
   /** The parent's bound (Infinity at the root): an upper end for every cut in the node. */
   bound: number;
   parent: Node | null;
-  /** The parent's SDP vectors restricted to this node's reduced vertices (a warm start), and their rank. */
-  warm: Float64Array | null;
-  rank: number;
+  /** The parent's SDP vectors restricted to this node's reduced vertices (a warm start), or null. */
+  warm: WarmVectors | null;
   /** The parent's triangle inequalities and multipliers written for this node (a warm start), or null. */
   warmTriangles: { triangles: Int32Array; mu: Float64Array } | null;
   /** How much the inequalities lowered the nearest strengthened ancestor's bound (Infinity at the root). */
   gain: number;
-  /** Set when the node was evaluated: its own region evidence. */
+  /** Set when the node was evaluated: its own region evidence; dropped from a branched node once neither child is open (no certificate can need it then). */
   region: TreeRegion | null;
+  /** Children not yet evaluated (2 after branching). */
+  openKids: number;
   seq: number;
 }
 
@@ -161,6 +200,10 @@ class NodeHeap {
   all(): Node[] {
     return this.a.slice();
   }
+  /** The nodes ordered from the bottom (popped last) to the top. */
+  worstFirst(): Node[] {
+    return this.a.slice().sort((x, y) => (this.before(x, y) ? 1 : this.before(y, x) ? -1 : 0));
+  }
 }
 
 const OWNER = "relaxationTreeSearch";
@@ -187,6 +230,10 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   if (options.initial !== undefined) checkPartition(graph, options.initial, `${OWNER}: initial`);
   const n = graph.n;
   const deadline = t0 + seconds;
+  const warmMemory = options.warmMemory ?? TREE_WARM_MEMORY;
+  if (!(warmMemory >= 0)) throw invalidParameter(OWNER, "warmMemory", "should be a number of bytes ≥ 0", warmMemory);
+  const maxOpen = options.maxOpen ?? TREE_MAX_OPEN;
+  if (!(Number.isInteger(maxOpen) && maxOpen >= 0)) throw invalidParameter(OWNER, "maxOpen", "should be a non-negative integer", maxOpen);
   const strengthenWithin = options.strengthenWithin ?? 2;
   if (!(strengthenWithin >= 0)) throw invalidParameter(OWNER, "strengthenWithin", "should be a number ≥ 0", strengthenWithin);
 
@@ -208,20 +255,60 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   let seq = 0;
   const rootSide = new Uint8Array(n).fill(255);
   if (n > 0) rootSide[rootVertex] = 0;
-  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, rank: 0, region: null, seq: seq++, warmTriangles: null, gain: Infinity });
+  let rootWarm: Node["warmTriangles"] = null;
+  if (options.rootTriangles !== undefined && relaxation === "triangles" && n > 0) {
+    const { triangles, mu } = options.rootTriangles;
+    const problem = triangleListProblem(n, triangles, mu);
+    if (problem !== null) throw invalidParameter(OWNER, "rootTriangles", problem, triangles.length);
+    rootWarm = trianglesAtRoot(n, rootVertex, triangles, mu);
+  }
+  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, region: null, openKids: 0, seq: seq++, warmTriangles: rootWarm, gain: Infinity });
   let nodes = 0;
   let status: TreeSearchRecord["status"] = "optimal";
   let lastProgress = t0;
   let closedShare = 0;
   const branching = options.branching ?? "least-decided";
   if (!TREE_BRANCHINGS.includes(branching)) throw invalidParameter(OWNER, "branching", `should be one of ${TREE_BRANCHINGS.join(", ")}`, branching);
-  const upperNow = (): number => Math.max(lower, heap.size > 0 ? heap.top()!.bound : -Infinity);
+  // Depth-first dives (see `maxOpen`): the subtree of a node taken from a full heap, last in first out.
+  const stack: Node[] = [];
+  let dives = 0, beatenOnDives = 0;
+  const upperNow = (): number => {
+    let u = Math.max(lower, heap.size > 0 ? heap.top()!.bound : -Infinity);
+    for (const x of stack) u = Math.max(u, x.bound);
+    return u;
+  };
+  // Warm-start bytes held by open nodes (shared vectors counted once) and how many nodes lost theirs.
+  let warmBytes = 0, warmDropped = 0;
+  const releaseWarm = (x: Node): void => {
+    if (x.warm !== null && --x.warm.holders === 0) warmBytes -= x.warm.data.byteLength;
+    if (x.warmTriangles !== null) warmBytes -= x.warmTriangles.triangles.byteLength + x.warmTriangles.mu.byteLength;
+    x.warm = null;
+    x.warmTriangles = null;
+  };
+  // Over the allowance: drop the warm data of the nodes to be reached last, down to ¾ of it (so
+  // the sort is paid once per quarter of the allowance, not once per node).
+  const capWarm = (): void => {
+    if (warmBytes <= warmMemory) return;
+    for (const x of heap.worstFirst()) {
+      if (warmBytes <= 0.75 * warmMemory) break;
+      if (x.warm === null && x.warmTriangles === null) continue;
+      releaseWarm(x);
+      warmDropped++;
+    }
+  };
 
-  while (heap.size > 0) {
-    const node = heap.top()!;
+  while (heap.size > 0 || stack.length > 0) {
+    const fromStack = stack.length > 0;
+    const node = fromStack ? stack[stack.length - 1] : heap.top()!;
     if (node.bound <= lower) {
-      // Every open node is beaten by the incumbent: closed by its parent's bound.
-      break;
+      if (!fromStack) break; // every open node is beaten by the incumbent: closed by its parent's bound
+      // Beaten on a dive: it joins the heap's nodes at or below the incumbent, never taken again
+      // and covered, like them, by its parent's region (the parent keeps it: openKids stays).
+      stack.pop();
+      releaseWarm(node);
+      heap.push(node);
+      beatenOnDives++;
+      continue;
     }
     if (nodes >= workLimit) {
       status = "work-limit";
@@ -231,27 +318,35 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
       status = "time-limit";
       break;
     }
-    heap.pop();
+    if (fromStack) stack.pop();
+    else heap.pop();
     nodes++;
+    // Its parent's region is needed only while a child is open.
+    if (node.parent !== null && --node.parent.openKids === 0) node.parent.region = null;
     const red = reducedProblem(graph, node.side);
+    const path = node.path, nodeSide = node.side;
+    node.path = [];
+    node.side = NO_SIDE;
     const freeCount = red.free.length;
     const toFull = (redSide: ArrayLike<number>): Uint8Array => {
       const p = new Uint8Array(n);
-      for (let v = 0; v < n; v++) p[v] = node.side[v] === 255 ? 0 : node.side[v];
+      for (let v = 0; v < n; v++) p[v] = nodeSide[v] === 255 ? 0 : nodeSide[v];
       for (let i = 0; i < freeCount; i++) p[red.free[i]] = redSide[i + 1] === redSide[0] ? 0 : 1;
       return p;
     };
     if (freeCount <= TREE_LEAF_VERTICES) {
       const ex = exactMaxCut(red.graph, { seconds: 60, solverSeed: seed });
       offer(toFull(ex.partition));
-      node.region = { vertices: node.path.filter((_, i) => i % 2 === 0), sides: node.path.filter((_, i) => i % 2 === 1), bound: floorCutBound(red.offset + ex.upper), certificate: { kind: "exhaustive" } };
+      node.region = { vertices: path.filter((_, i) => i % 2 === 0), sides: path.filter((_, i) => i % 2 === 1), bound: floorCutBound(red.offset + ex.upper), certificate: { kind: "exhaustive" } };
+      releaseWarm(node);
       closed.push(node);
       closedShare += 2 ** -node.depth;
       continue;
     }
     const target = lower - red.offset;
-    const warm = node.warm !== null ? { initial: node.warm, rank: node.rank } : {};
+    const warm = node.warm !== null ? { initial: node.warm.data, rank: node.warm.rank } : {};
     const warmTri = node.warmTriangles !== null ? { warmTriangles: node.warmTriangles.triangles, warmMu: node.warmTriangles.mu } : {};
+    releaseWarm(node);
     const sdp = solveTriangleSdp(red.graph, {
       solverSeed: seed, iterations: relaxation === "triangles" ? (node.parent === null ? rootRounds : rounds) : 0, target, stopGap: 1, firstTolerance: 1e-7,
       strengthenWithin: strengthenWithin + 1.5 * node.gain, stopWhenHopeless: true, separateEvery: options.separateEvery ?? 3, ...warm, ...warmTri,
@@ -259,8 +354,8 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     // offset is an exact integer, the bound a float rounded up: round the sum up, then down to an integer.
     const bound = floorCutBound(roundUp(red.offset + sdp.value, 1));
     node.region = {
-      vertices: node.path.filter((_, i) => i % 2 === 0),
-      sides: node.path.filter((_, i) => i % 2 === 1),
+      vertices: path.filter((_, i) => i % 2 === 0),
+      sides: path.filter((_, i) => i % 2 === 1),
       bound,
       certificate: plainCertificate(sdp.certificate),
     };
@@ -285,21 +380,31 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
       }
       const v = red.free[pick - 1];
       // Children keep z and every free vertex but v, in the same order: their warm start drops v's row.
-      const childWarm = new Float64Array(freeCount * r);
-      childWarm.set(V.subarray(0, pick * r));
-      childWarm.set(V.subarray((pick + 1) * r), pick * r);
-      for (const s of [0, 1]) {
-        const side = node.side.slice();
+      const data = new Float64Array(freeCount * r);
+      data.set(V.subarray(0, pick * r));
+      data.set(V.subarray((pick + 1) * r), pick * r);
+      const childWarm: WarmVectors = { data, rank: r, holders: 2 };
+      warmBytes += data.byteLength;
+      node.openKids = 2;
+      const dive = fromStack || heap.size > maxOpen;
+      if (dive && !fromStack) dives++;
+      // On a dive side 1 goes on the stack first, so side 0 is searched first, as the heap would.
+      for (const s of dive ? [1, 0] : [0, 1]) {
+        const side = nodeSide.slice();
         side[v] = s;
         const inherited = relaxation === "triangles" && sdp.certificate.mu.length > 0 ? mapTrianglesAfterFix(sdp.certificate.triangles, sdp.certificate.mu, pick, s) : null;
         const gain = sdp.rounds > 0 ? sdp.plainValue - sdp.value : node.gain;
-        heap.push({ side, path: [...node.path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, rank: r, region: null, seq: seq++, warmTriangles: inherited, gain });
+        if (inherited !== null) warmBytes += inherited.triangles.byteLength + inherited.mu.byteLength;
+        const child: Node = { side, path: [...path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, region: null, openKids: 0, seq: seq++, warmTriangles: inherited, gain };
+        if (dive) stack.push(child);
+        else heap.push(child);
       }
+      capWarm();
     }
     const now = nowSeconds();
     if (options.onProgress !== undefined && now - lastProgress >= PROGRESS_INTERVAL) {
       lastProgress = now;
-      options.onProgress({ lower, upper: upperNow(), nodes, open: heap.size, seconds: now - t0, closedShare });
+      options.onProgress({ lower, upper: upperNow(), nodes, open: heap.size + stack.length, seconds: now - t0, closedShare, warmBytes });
     }
   }
   // The evidence: closed regions, plus the parents of open nodes still above the incumbent (their
@@ -307,7 +412,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   const regionNodes = new Set<Node>(closed);
   // The root still open (a budget spent before it was bounded): no evidence, no bound.
   const rootOpen = heap.all().some((x) => x.parent === null);
-  for (const open of heap.all()) if (open.parent !== null) regionNodes.add(open.parent);
+  for (const open of [...heap.all(), ...stack]) if (open.parent !== null) regionNodes.add(open.parent);
   // A region whose ancestor is a region adds nothing: drop it.
   const regions: TreeRegion[] = [];
   let upper = lower;
@@ -337,7 +442,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     nodes,
     relaxation,
     certificate: { rootVertex, relaxation, regions },
-    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size },
+    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size + stack.length, warmDropped, dives, beatenOnDives },
   };
 }
 
