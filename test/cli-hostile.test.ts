@@ -39,7 +39,7 @@ function interruptCut(args: string[], signal: NodeJS.Signals): Promise<{ code: n
     child.stderr.on("data", (d: Buffer) => {
       stderr += d.toString();
       // The first bound after the start line: the bracket is well under way, far from done.
-      if (!sent && /after (multi-start local search|eigenvalue bound|Goemans|exhaustive search|branch and bound)/.test(stderr)) {
+      if (!sent && /after (multi-start local search|eigenvalue bound|Goemans|exhaustive search|branch and bound|breakout search)/.test(stderr)) {
         sent = true;
         child.kill(signal);
       }

@@ -114,9 +114,15 @@ export function progressWriter(stderr: NodeJS.WritableStream, label: string): { 
   const tty = (stderr as NodeJS.WriteStream).isTTY === true;
   let last = -Infinity;
   let shown = false;
+  let said = "";
   return {
     update(p) {
       if (p.elapsed - last < 0.25 && p.method !== "start") return;
+      const news = `${p.lower} ${p.upper} ${p.method}`;
+      // A log (stderr not a terminal) gets a line when the bracket or the stage changes, and
+      // otherwise one every 5 s to show the run is alive; a terminal's one line is redrawn freely.
+      if (!tty && news === said && p.elapsed - last < 5) return;
+      said = news;
       last = p.elapsed;
       const line = `${label}: max cut in [${num(p.lower)}, ${num(p.upper)}] after ${p.method === "start" ? "start" : words(p.method)}, ${num(p.elapsed)} s`;
       stderr.write(tty ? `\r\x1b[2K${line}` : `${line}\n`);

@@ -431,11 +431,10 @@ function breakoutEpisode(state: BracketState, phaseEnd: number, seed: number, in
     if (best.value > episodeBest) {
       episodeBest = best.value;
       sinceBest = 0;
-      if (best.value > state.lower) {
-        state.takeCut(best);
-        state.progress("breakout");
-      }
+      if (best.value > state.lower) state.takeCut(best);
     } else sinceBest += r - rounds;
+    // Every slice, improved or not: a long search with no new best still shows it is alive.
+    state.progress("breakout");
     rounds = r;
     moves = mv;
     if (status === "optimal") break;
