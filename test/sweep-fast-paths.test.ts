@@ -7,7 +7,9 @@
 // store's background log checkpoints (every committed row still there), the vector rounding's
 // trial loop (against the same trials counted by cutValue), the decomposition's lighter rounding
 // call (against vectorMethodRound's record), a file graph's hash handed to the worker (against
-// hashing the rebuilt graph) and sweep rows bound without conversion (read back equal). The
+// hashing the rebuilt graph), sweep rows bound without conversion (read back equal), and the
+// searches that reuse scratch arrays between calls (the same answers whatever ran before, and
+// the brute-force triangle count and max cut). The
 // reference values are definitions (common practice, no source): a subgraph's edges, a cut's
 // crossing weight, and the same function run twice.
 import { existsSync, mkdtempSync, rmSync } from "node:fs";
@@ -35,6 +37,11 @@ import { cutValue, surplusOf } from "../src/graph/cut-value.js";
 import { graphFromParts, graphToParts } from "../src/graph/graph.js";
 import { graphFromPartsWithHash, graphHash } from "../src/graph/hash.js";
 import { runJob, type JobInput } from "../src/experiment/job.js";
+import { girth } from "../src/graph/structure/girth.js";
+import { countFourCycles } from "../src/graph/structure/four-cycles.js";
+import { findCycle } from "../src/graph/structure/cycles.js";
+import { grayCodeMaxCut } from "../src/cut/exact/gray-code.js";
+import { branchAndBoundMaxCut } from "../src/cut/exact/branch-and-bound.js";
 
 /** The k-th labelled graph on n vertices: bit i of k says whether the i-th pair (u < v, v outer) is an edge. */
 function labelled(n: number, k: number): Graph {
@@ -369,6 +376,46 @@ describe("sweep rows bound without conversion", () => {
       store.close();
     } finally {
       rmSync(dir, { recursive: true, force: true });
+    }
+  });
+});
+
+describe("searches reusing scratch arrays", () => {
+  // Everything the pooled searches answer about one graph, as plain data.
+  const answers = (g: Graph): unknown => {
+    const t = countTriangles(g);
+    const out: unknown[] = [t.total, Array.from(t.perVertex), t.witness, girth(g), countFourCycles(g)];
+    for (let k = 3; k <= Math.min(g.n, 7); k++) out.push(findCycle(g, k));
+    for (let r = 3; r <= Math.min(g.n, 6); r++) out.push(findClique(g, r));
+    for (const rec of [grayCodeMaxCut(g), branchAndBoundMaxCut(g)]) out.push([rec.value, rec.upper, Array.from(rec.partition)]);
+    return out;
+  };
+  // The brute-force triangle count and max cut (definitions; common practice, no source).
+  const bruteTriangles = (g: Graph): number => {
+    let c = 0;
+    for (let a = 0; a < g.n; a++) for (let b = a + 1; b < g.n; b++) for (let d = b + 1; d < g.n; d++) if (g.hasEdge(a, b) && g.hasEdge(b, d) && g.hasEdge(a, d)) c++;
+    return c;
+  };
+  const bruteMaxCut = (g: Graph): number => {
+    let best = 0;
+    for (let mask = 0; mask < 2 ** (g.n - 1); mask++) best = Math.max(best, cutValue(g, Uint8Array.from({ length: g.n }, (_, v) => (mask >>> v) & 1)));
+    return best;
+  };
+
+  it("give the same answers whatever ran before (a complete graph of the same order in between), and the brute-force ones", () => {
+    const rng = new Rng(808);
+    const graphs: Graph[] = [];
+    for (const n of [1, 2, 3, 5, 6, 7, 8]) for (let k = 0; k < 12; k++) graphs.push(labelled(n, Math.floor(rng.nextFloat() * 2 ** ((n * (n - 1)) / 2))));
+    for (const n of [9, 12, 16]) for (const p of [0.2, 0.5, 0.8]) graphs.push(randomGraph(n, p, rng));
+    const forward = graphs.map(answers);
+    const complete = (n: number): Graph => labelled(n, 2 ** ((n * (n - 1)) / 2) - 1);
+    for (let i = graphs.length - 1; i >= 0; i--) {
+      const g = graphs[i];
+      answers(complete(g.n));
+      answers(complete(g.n + 1));
+      expect(answers(g)).toEqual(forward[i]);
+      expect(countTriangles(g).total).toBe(bruteTriangles(g));
+      if (g.n <= 12) expect(grayCodeMaxCut(g).value).toBe(bruteMaxCut(g));
     }
   });
 });

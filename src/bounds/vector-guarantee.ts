@@ -19,6 +19,11 @@ import { resolveVectorSets, vectorEdgeTerms, type VectorEdgeTerms, type VectorSe
 export const VECTOR_LINEAR_FACTOR = 1 / (2 * Math.PI);
 export const VECTOR_OVERLAP_FACTOR = 1 / 2;
 
+// The record's two possible reasons, built once (a template literal would build a new string per record).
+const REASON_TAIL = ": (1/2π)Σ ε_i|V_i| − ½Σ_{ij∈E} ε_iε_j|V_i∩V_j|";
+const REASON_NEIGHBOURHOODS = "explicit vector method with V_i = N(i)" + REASON_TAIL;
+const REASON_GIVEN_SETS = "explicit vector method with the given V_i" + REASON_TAIL;
+
 export interface VectorGuaranteeRecord extends LowerBoundRecord {
   /** (1/2π)·Σ_i ε_i|V_i|. */
   linearTerm: number;
@@ -67,7 +72,7 @@ export function vectorMethodGuaranteeFor(graph: Graph, sets: VectorSets, terms: 
   // per sweep job, and object spread costs more than the sums above on small graphs.
   const b = graph.weighted
     ? boundDoesNotApply(name, "the vector-method guarantee is proved for unweighted graphs")
-    : boundApplies(name, graph.totalWeight, linear - overlap, `explicit vector method with ${sets.neighbourhoods ? "V_i = N(i)" : "the given V_i"}: (1/2π)Σ ε_i|V_i| − ½Σ_{ij∈E} ε_iε_j|V_i∩V_j|`);
+    : boundApplies(name, graph.totalWeight, linear - overlap, sets.neighbourhoods ? REASON_NEIGHBOURHOODS : REASON_GIVEN_SETS);
   return { name: b.name, value: b.value, surplus: b.surplus, applies: b.applies, reason: b.reason, linearTerm: linear, overlapTerm: overlap, overlapEdges, normedTerm: normed };
 }
 

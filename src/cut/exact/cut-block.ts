@@ -1,6 +1,11 @@
 // The "block" of the exact searches: the last b vertices, whose 2^b internal cut values are
 // tabulated so that the best completion of any outer pattern costs two lookups per pattern.
 
+import { float64Pool, int32Pool } from "../../graph/scratch.js";
+
+// Scratch for the constructor's temporaries (exact searches on tiny graphs run by the hundred thousand).
+const densePool = float64Pool(), maskPool = int32Pool(), degPool = int32Pool();
+
 /** Set bits of a 32-bit integer (SWAR). */
 function popcount(x: number): number {
   x -= (x >>> 1) & 0x55555555;
@@ -35,7 +40,7 @@ export class CutBlock {
     const count = 1 << size;
     const table = new Float64Array(count);
     // Dense adjacency of the block, for the table recurrence below.
-    const w = new Float64Array(size * size);
+    const w = densePool.take(size * size).fill(0); // scratch, zeroed: the diagonal is never written
     for (let i = 0; i < size; i++) for (let j = i + 1; j < size; j++) w[i * size + j] = w[j * size + i] = weightBetween(i, j);
     // table[c] = table[c without its lowest bit j] + (edges from j to the zeros of c) − (edges to its ones):
     // moving j to side 1 cuts its edges to side 0 and uncuts its edges to side 1.
@@ -46,8 +51,8 @@ export class CutBlock {
     let unit = true;
     for (let i = 0; i < w.length && unit; i++) unit = w[i] === 0 || w[i] === 1;
     if (unit) {
-      const mask = new Int32Array(size);
-      const deg = new Int32Array(size);
+      const mask = maskPool.take(size).fill(0);
+      const deg = degPool.take(size).fill(0);
       for (let i = 0; i < size; i++) {
         for (let k = 0; k < size; k++) {
           if (w[i * size + k] === 1) {

@@ -9,6 +9,7 @@ import { checkSeed } from "../../random/seed.js";
 import { checkSeconds } from "../../validate.js";
 import { DEFAULT_EXACT_SECONDS, PROGRESS_INTERVAL, checkWork, exactRecord, nowSeconds, type ExactCutRecord, type ExactOptions, type ExactStatus } from "./common.js";
 import { CutBlock } from "./cut-block.js";
+import { float64Pool, int32Pool, uint8Pool, type ScratchPool } from "../../graph/scratch.js";
 import { GRAY_RESYNC_STEPS, graphSlack } from "./exact-slack.js";
 
 /** Largest n the Gray-code enumeration accepts (2^33 patterns: tens of seconds without pruning). */
@@ -18,6 +19,13 @@ export interface GrayOptions extends ExactOptions {
   /** Vertices in the tabulated block (default min(n − 1, 14)). */
   blockSize?: number;
 }
+
+// Scratch for the search state (tiny graphs come by the hundred thousand in a sweep); each array
+// is fully written before it is read. A run with a progress callback takes fresh arrays, since the
+// callback could start another search.
+const byDegreePool = int32Pool(), outerPool = int32Pool(), blockVertsPool = int32Pool(), blockBitPool = int32Pool();
+const sidePool = uint8Pool(), gainPool = float64Pool(), tPool = float64Pool();
+const freshInt32 = (pool: ScratchPool<Int32Array>, k: number, pooled: boolean): Int32Array => (pooled ? pool.take(k) : new Int32Array(k));
 
 export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCutRecord {
   const t0 = nowSeconds();
@@ -37,12 +45,13 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
     throw new InputError(`${owner}: invalid \`blockSize\`: should be an integer between ${bMin} and ${bMax} (got ${JSON.stringify(b)})`);
   }
   const { offsets, neighbors, weights } = graph;
+  const pooled = options.onProgress === undefined;
 
   // Roles: the highest-degree vertex is fixed (it never flips, saving its O(deg) updates); the
   // lowest-degree outer vertices take the low Gray bits, which flip most often.
   // By (degree, id) ascending, by insertion (n ≤ GRAY_MAX_VERTICES): the order the comparator
   // (a, c) ↦ deg a − deg c || a − c defines.
-  const byDegree = new Int32Array(n);
+  const byDegree = freshInt32(byDegreePool, n, pooled);
   for (let v = 0; v < n; v++) {
     const dv = graph.degree(v);
     let s = v - 1;
@@ -53,21 +62,21 @@ export function grayCodeMaxCut(graph: Graph, options: GrayOptions = {}): ExactCu
     byDegree[s + 1] = v;
   }
   const fixed = byDegree[n - 1];
-  const outer = new Int32Array(n - 1 - b);
-  const blockVerts = new Int32Array(b);
+  const outer = freshInt32(outerPool, n - 1 - b, pooled);
+  const blockVerts = freshInt32(blockVertsPool, b, pooled);
   for (let i = 0; i < n - 1; i++) {
     if (i < outer.length) outer[i] = byDegree[i];
     else blockVerts[i - outer.length] = byDegree[i];
   }
-  const blockBit = new Int32Array(n).fill(-1);
+  const blockBit = freshInt32(blockBitPool, n, pooled).fill(-1);
   for (let i = 0; i < b; i++) blockBit[blockVerts[i]] = i;
 
   const block = new CutBlock(b, (i, j) => graph.edgeWeight(blockVerts[i], blockVerts[j]));
 
   // State for the current outer pattern (the block's side is chosen per pattern by `maximise`).
-  const side = new Uint8Array(n);
-  const gain = new Float64Array(n); // change of the outer–outer cut if v flips
-  const t = new Float64Array(b); // extra cut if block vertex i goes to side 1 instead of side 0
+  const side = (pooled ? sidePool.take(n) : new Uint8Array(n)).fill(0);
+  const gain = pooled ? gainPool.take(n) : new Float64Array(n); // zeroed by resync; change of the outer–outer cut if v flips
+  const t = pooled ? tPool.take(b) : new Float64Array(b); // zeroed by resync; extra cut if block vertex i goes to side 1 instead of side 0
   let outerCut = 0; // cut among outer + fixed vertices
   let toSideOne = 0; // Σ over block vertices of their weight to outer vertices on side 1
   // Recompute the incremental state from `side`: at the start, and now and then for

@@ -6,12 +6,17 @@ import type { Graph } from "../graph.js";
 import { sharedDegeneracy, type DegeneracyResult } from "./degeneracy.js";
 import { firstAbove, rankedAdjacency, type RankedAdjacency } from "./orientation.js";
 import { perGraph } from "../per-graph.js";
+import { int32Pool, type ScratchPool } from "../scratch.js";
 
 /** The degeneracy-ordered adjacency, kept per Graph object (small graphs): a clique number is several searches. */
 const sharedRanking: (g: Graph) => RankedAdjacency = perGraph((g) => rankedAdjacency(g, sharedDegeneracy(g).order));
 
 /** Largest r accepted; the search is exponential in r (intended use is r ≤ 6). */
 export const MAX_CLIQUE_ORDER = 16;
+
+// Scratch for the search (each level its own pool); every entry is written before it is read.
+const candPools: ScratchPool<Int32Array>[] = Array.from({ length: MAX_CLIQUE_ORDER }, () => int32Pool());
+const candLenPool = int32Pool(), chosenPool = int32Pool();
 
 export interface SearchBudget {
   /** Stop after examining this many search nodes (a node is one vertex tried in a partial solution). */
@@ -54,9 +59,9 @@ export function findClique(g: Graph, r: number, options: SearchBudget = {}): Cli
   const d = dg.degeneracy;
   // cand[level] holds the common forward neighbours of the chosen vertices, sorted by rank.
   const cand: Int32Array[] = [];
-  for (let l = 0; l < r; l++) cand.push(new Int32Array(d + 1));
-  const candLen = new Int32Array(r);
-  const chosen = new Int32Array(r);
+  for (let l = 0; l < r; l++) cand.push(candPools[l].take(d + 1));
+  const candLen = candLenPool.take(r);
+  const chosen = chosenPool.take(r);
   let nodes = 0;
   let outOfBudget = false;
 

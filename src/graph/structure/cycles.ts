@@ -5,7 +5,10 @@ import { invalidParameter } from "../../errors.js";
 import type { Graph } from "../graph.js";
 import { checkBudget, findClique, type SearchBudget } from "./cliques.js";
 import { scanFourCycles } from "./four-cycles.js";
-import { degreeOrder, firstAbove, rankedAdjacency } from "./orientation.js";
+import { int32Pool } from "../scratch.js";
+import { firstAbove, scratchDegreeRanking } from "./orientation.js";
+
+const stampPool = int32Pool(), distPool = int32Pool(), onPathPool = int32Pool(), queuePool = int32Pool(), pathPool = int32Pool(), iterPool = int32Pool();
 
 /** Largest k accepted; the DFS is exponential in k (intended use is k ≤ 8). */
 export const MAX_CYCLE_LENGTH = 16;
@@ -43,14 +46,14 @@ export function findCycle(g: Graph, k: number, options: SearchBudget = {}): Cycl
 }
 
 function searchLongCycle(g: Graph, k: number, maxNodes: number): CycleSearchResult {
-  const { n, offsets: off, neighbors: nb, vertexOf } = rankedAdjacency(g, degreeOrder(g));
+  const { n, offsets: off, neighbors: nb, vertexOf } = scratchDegreeRanking(g); // scratch: read only until this returns
   const half = k >>> 1; // every vertex of a k-cycle through s is within ⌊k/2⌋ of s along it
-  const stampOf = new Int32Array(n); // = s + 1 when dist[v] is valid for root s
-  const dist = new Int32Array(n);
-  const onPath = new Int32Array(n); // = s + 1 while v is on the current path
-  const queue = new Int32Array(n);
-  const path = new Int32Array(k);
-  const iter = new Int32Array(k);
+  const stampOf = stampPool.take(n).fill(0); // = s + 1 when dist[v] is valid for root s
+  const dist = distPool.take(n); // read only where stampOf marks it written
+  const onPath = onPathPool.take(n).fill(0); // = s + 1 while v is on the current path
+  const queue = queuePool.take(n); // queue, path and iter: written before read
+  const path = pathPool.take(k);
+  const iter = iterPool.take(k);
   let nodes = 0;
   for (let s = 0; s < n; s++) {
     const sStart = firstAbove(nb, off[s], off[s + 1], s);

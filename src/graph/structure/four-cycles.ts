@@ -2,7 +2,10 @@
 // below each cycle's top vertex in (degree, id) order (Chiba & Nishizeki 1985).
 
 import type { Graph } from "../graph.js";
-import { degreeOrder, firstAbove, rankedAdjacency } from "./orientation.js";
+import { int32Pool } from "../scratch.js";
+import { firstAbove, scratchDegreeRanking } from "./orientation.js";
+
+const pathsPool = int32Pool(), middlePool = int32Pool(), touchedPool = int32Pool();
 
 export interface FourCycleCount {
   /** Number of 4-cycles. */
@@ -25,10 +28,10 @@ export function countFourCycles(g: Graph): FourCycleCount {
  */
 export function scanFourCycles(g: Graph, stopAtFirst: boolean): FourCycleCount {
   const { n } = g;
-  const { offsets: off, neighbors: nb, vertexOf } = rankedAdjacency(g, degreeOrder(g));
-  const paths = new Int32Array(n); // paths[w] = 2-paths u–·–w found so far for the current u
-  const firstMiddle = new Int32Array(n); // the middle vertex of the first such path (for the witness)
-  const touched = new Int32Array(n);
+  const { offsets: off, neighbors: nb, vertexOf } = scratchDegreeRanking(g); // scratch: read only until this returns
+  const paths = pathsPool.take(n).fill(0); // paths[w] = 2-paths u–·–w found so far for the current u
+  const firstMiddle = middlePool.take(n); // written before read; the middle vertex of the first such path (for the witness)
+  const touched = touchedPool.take(n); // written before read
   let total = 0;
   let witness: number[] | null = null;
   for (let u = 0; u < n; u++) {

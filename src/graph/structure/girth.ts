@@ -2,6 +2,12 @@
 // vertex over larger vertices, stopped once it cannot beat the best cycle so far.
 
 import type { Graph } from "../graph.js";
+import { int32Pool, uint8Pool } from "../scratch.js";
+
+// Scratch per role (tiny graphs come by the hundred thousand); each is initialised before it is read.
+const compPool = int32Pool(), queuePool = int32Pool(), onlyCyclePool = uint8Pool();
+const seenPool = int32Pool(), distPool = int32Pool(), parentPool = int32Pool();
+const degPool = int32Pool(), stackPool = int32Pool(), inCorePool = uint8Pool();
 
 export interface GirthResult {
   /** Length of a shortest cycle, or null when the graph is a forest. */
@@ -22,9 +28,9 @@ export function girth(g: Graph): GirthResult {
   let cycle: number[] | null = null;
 
   // Components of the 2-core; one whose vertices all have 2 core neighbours is a cycle.
-  const comp = new Int32Array(n).fill(-1);
-  const queue = new Int32Array(n);
-  const onlyCycle = new Uint8Array(n); // 1 for vertices of a 2-core component that is a plain cycle
+  const comp = compPool.take(n).fill(-1);
+  const queue = queuePool.take(n);
+  const onlyCycle = onlyCyclePool.take(n).fill(0); // 1 for vertices of a 2-core component that is a plain cycle
   for (let s = 0; s < n; s++) {
     if (!inCore[s] || comp[s] >= 0) continue;
     let head = 0, tail = 0, allTwo = true;
@@ -52,9 +58,9 @@ export function girth(g: Graph): GirthResult {
     }
   }
 
-  const seen = new Int32Array(n); // = s + 1 when visited from root s
-  const dist = new Int32Array(n);
-  const parent = new Int32Array(n);
+  const seen = seenPool.take(n).fill(0); // = s + 1 when visited from root s
+  const dist = distPool.take(n); // read only where seen[·] marks it written from this root
+  const parent = parentPool.take(n); // likewise
   for (let s = 0; s < n && best > 3; s++) {
     if (!inCore[s] || onlyCycle[s]) continue;
     // A shortest cycle is found from its smallest vertex, so vertices below s can be ignored.
@@ -92,9 +98,9 @@ export function girth(g: Graph): GirthResult {
 /** Peel vertices of degree ≤ 1 until none remain: what is left (the 2-core) holds every cycle. */
 function twoCore(g: Graph): Uint8Array {
   const { n, offsets, neighbors } = g;
-  const deg = new Int32Array(n);
-  const stack = new Int32Array(n);
-  const inCore = new Uint8Array(n).fill(1);
+  const deg = degPool.take(n);
+  const stack = stackPool.take(n);
+  const inCore = inCorePool.take(n).fill(1);
   let top = 0;
   for (let v = 0; v < n; v++) {
     deg[v] = offsets[v + 1] - offsets[v];

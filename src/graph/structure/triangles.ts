@@ -3,7 +3,10 @@
 
 import type { Graph } from "../graph.js";
 import { perGraph } from "../per-graph.js";
-import { degreeOrder, firstAbove, rankedAdjacency } from "./orientation.js";
+import { float64Pool, int32Pool } from "../scratch.js";
+
+const fwdPool = int32Pool(), markPool = int32Pool(), perRankPool = float64Pool();
+import { firstAbove, scratchDegreeRanking } from "./orientation.js";
 
 export interface TriangleCount {
   /** Number of triangles (exact below 2^53). */
@@ -17,13 +20,13 @@ export interface TriangleCount {
 /** Orienting each edge towards the larger (degree, id) endpoint bounds out-degrees by √(2m). */
 export function countTriangles(g: Graph): TriangleCount {
   const { n } = g;
-  const ra = rankedAdjacency(g, degreeOrder(g));
+  const ra = scratchDegreeRanking(g); // scratch: read only until this returns
   const { offsets: off, neighbors: nb, vertexOf } = ra;
   // fwd[u]: start of u's forward neighbours (those of larger rank) within its sorted list.
-  const fwd = new Int32Array(n);
+  const fwd = fwdPool.take(n); // scratch pools: each is fully initialised below
   for (let u = 0; u < n; u++) fwd[u] = firstAbove(nb, off[u], off[u + 1], u);
-  const mark = new Int32Array(n); // mark[w] = u + 1 while scanning u: stamps avoid clearing
-  const perRank = new Float64Array(n);
+  const mark = markPool.take(n).fill(0); // mark[w] = u + 1 while scanning u: stamps avoid clearing
+  const perRank = perRankPool.take(n).fill(0);
   let total = 0;
   let wa = -1, wb = -1, wc = -1;
   for (let u = 0; u < n; u++) {
