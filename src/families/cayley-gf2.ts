@@ -7,12 +7,7 @@ import type { Graph } from "../graph/graph.js";
 import { bipartiteFreeOf } from "./free-of.js";
 import { resolveTyped } from "./typed-build.js";
 import { defineFamily, type FreeOfClaim } from "./types.js";
-
-function popcount(x: number): number {
-  let c = 0;
-  for (; x !== 0; x &= x - 1) c++;
-  return c;
-}
+import { popcount } from "../graph/bits.js";
 
 export function checkBitmaskSet(owner: string, dim: number, s: readonly number[]): void {
   const seen = new Set<number>();

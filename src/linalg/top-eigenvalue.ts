@@ -79,13 +79,11 @@ export function denseTopEigenvalue(a: Float64Array, n: number, options: { maxSte
     alpha[j] = al;
     // Full reorthogonalisation, one Gram–Schmidt pass against every earlier vector (enough for an
     // eigenvalue estimate; the proof that follows does not rely on it).
-    for (let pass = 0; pass < 1; pass++) {
-      for (let t = 0; t <= j; t++) {
-        const o = t * n;
-        let c = 0;
-        for (let i = 0; i < n; i++) c += w[i] * Q[o + i];
-        for (let i = 0; i < n; i++) w[i] -= c * Q[o + i];
-      }
+    for (let t = 0; t <= j; t++) {
+      const o = t * n;
+      let c = 0;
+      for (let i = 0; i < n; i++) c += w[i] * Q[o + i];
+      for (let i = 0; i < n; i++) w[i] -= c * Q[o + i];
     }
     let bn = 0;
     for (let i = 0; i < n; i++) bn += w[i] * w[i];

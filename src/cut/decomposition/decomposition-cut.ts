@@ -320,7 +320,7 @@ function stageSeed(run: Run): number {
 // 0..k−1 in ascending order) again and again. Both sub-steps below are deterministic functions of
 // the stage graph and of the run's settings, seed and rounding count, so on graphs of at most
 // SMALL_VERTICES vertices their results are kept, keyed by the exact edge set and those inputs, and
-// handed back as a fresh run would compute them (test/cut-decomposition.test.ts compares the two
+// handed back as a fresh run would compute them (test/sweep-fast-paths.test.ts compares the two
 // paths). The memo is bounded: it is emptied when it reaches MEMO_LIMIT entries.
 
 /** Stage graphs up to this many vertices are remembered (their edge set fits one 28-bit key). */

@@ -7,6 +7,7 @@ import type { Graph } from "../../graph/graph.js";
 import { hasIntegerWeights } from "../../graph/weights.js";
 import { checkSeed } from "../../random/seed.js";
 import { exactRecord, nowSeconds, type ExactCutRecord } from "./common.js";
+import { popcount } from "../../graph/bits.js";
 
 /** Largest n the bitmask search takes: one bit per vertex in a 32-bit integer, 2^(n−1) patterns at worst. */
 export const BITMASK_MAX_VERTICES = 30;
@@ -19,13 +20,6 @@ export interface BitmaskCutStats {
   graySteps: number;
   /** The side-1 vertices of a maximum cut (vertex bit v set = vertex v on side 1). */
   side: number;
-}
-
-/** Bits set in a 32-bit integer (the classic SWAR count: common practice, no source). */
-function popcount(x: number): number {
-  x = x - ((x >>> 1) & 0x55555555);
-  x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
-  return (Math.imul((x + (x >>> 4)) & 0x0f0f0f0f, 0x01010101) >>> 24) & 0xff;
 }
 
 // Scratch for the hot path, sized once: the census calls this millions of times per thread.

@@ -2,17 +2,10 @@
 // tabulated so that the best completion of any outer pattern costs two lookups per pattern.
 
 import { float64Pool, int32Pool } from "../../graph/scratch.js";
+import { popcount } from "../../graph/bits.js";
 
 // Scratch for the constructor's temporaries (exact searches on tiny graphs run by the hundred thousand).
 const densePool = float64Pool(), maskPool = int32Pool(), degPool = int32Pool();
-
-/** Set bits of a 32-bit integer (SWAR). */
-function popcount(x: number): number {
-  x -= (x >>> 1) & 0x55555555;
-  x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
-  x = (x + (x >>> 4)) & 0x0f0f0f0f;
-  return Math.imul(x, 0x01010101) >>> 24;
-}
 
 /**
  * Vertices in bit positions 0..b-1 with the internal cut of every side pattern c ∈ [0, 2^b)

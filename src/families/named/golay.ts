@@ -1,11 +1,7 @@
 // The extended binary Golay code [24,12,8] as 4096 bitmask codewords: the span of the cyclic shifts of
 // the quadratic residues mod 23 (the [23,12,7] quadratic-residue code) plus an overall parity bit 23.
 
-function popcount(x: number): number {
-  let c = 0;
-  for (; x !== 0; x &= x - 1) c++;
-  return c;
-}
+import { popcount } from "../../graph/bits.js";
 
 export function extendedGolayCodewords(): Uint32Array {
   const residues = new Set<number>();

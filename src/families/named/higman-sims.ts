@@ -5,12 +5,7 @@ import { EdgeBuffer } from "../../graph/builder.js";
 import type { Graph } from "../../graph/graph.js";
 import { namedFamily } from "./define.js";
 import { extendedGolayCodewords } from "./golay.js";
-
-function popcount(x: number): number {
-  let c = 0;
-  for (; x !== 0; x &= x - 1) c++;
-  return c;
-}
+import { popcount } from "../../graph/bits.js";
 
 /** The 77 hexads of S(3,6,22) on points 0..21: octads of the Golay code through coordinates 22 and 23, with both removed. */
 export function steinerHexads(): number[] {

@@ -4,9 +4,9 @@
 import type { Graph } from "../graph.js";
 import { perGraph } from "../per-graph.js";
 import { float64Pool, int32Pool } from "../scratch.js";
+import { firstAbove, scratchDegreeRanking } from "./orientation.js";
 
 const fwdPool = int32Pool(), markPool = int32Pool(), perRankPool = float64Pool();
-import { firstAbove, scratchDegreeRanking } from "./orientation.js";
 
 export interface TriangleCount {
   /** Number of triangles (exact below 2^53). */
