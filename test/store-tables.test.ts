@@ -15,7 +15,7 @@ import { copyFileSync, mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { Readable } from "node:stream";
-import { afterAll, beforeAll, describe, expect } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { runCensus } from "../src/experiment/census/run.js";
 import type { CensusCell } from "../src/experiment/census/cells.js";
 import { parseCsv } from "../src/experiment/csv.js";
@@ -330,5 +330,49 @@ describeNeeds(NEEDS, "census and hunt tables across merge, export and verify", (
     } finally {
       s.close();
     }
+  });
+});
+
+// The frontier's merge rule is the table's own (hunt-store.ts: a row replaces the stored one only
+// with a strictly smaller value); these rows are made up to reach each case (common practice, no source).
+describe("the hunt frontier in a merge: the smaller value per key wins, a tie keeps the target's", () => {
+  beforeAll(ensureBuilt);
+  const row = (m: number, value: number, graph6: string, foundAt = "2026-01-01T00:00:00Z"): HuntFrontierRow => ({
+    pattern: "C4", n: 5, objective: "ratio", m, value, surplusLower: 1, surplusUpper: 1, degeneracy: 2, graph6, graphHash: `sha256:${graph6}`,
+    start: "test", solverSeed: 0, iteration: 0, foundAt, record: "{}",
+  });
+  const storeWith = (name: string, rows: HuntFrontierRow[]): string => {
+    const s = openStore(at(name));
+    for (const r of rows) expect(s.putHuntEntry(r)).toBe(true);
+    s.close();
+    return at(name);
+  };
+
+  it("counts each case and keeps every key of both stores", () => {
+    const target = storeWith("f-target.db", [row(2, 0.5, "DQc"), row(3, 0.5, "DUW"), row(4, 0.5, "DQW"), row(5, 0.5, "Dhc")]);
+    const source = storeWith("f-source.db", [
+      row(2, 0.4, "D]w"), // better: replaces
+      row(3, 0.5, "DrW"), // a tie: the target's stays
+      row(4, 0.6, "D^{"), // worse: the target's stays
+      row(5, 0.5, "Dhc", "2027-01-01T00:00:00Z"), // the same row, stored later
+      row(6, 0.7, "D~{"), // a new m
+    ]);
+    const report = mergeStores([source], target);
+    expect(report.sources[0].frontier).toEqual({ rows: 5, added: 1, alreadyThere: 1, improved: 1, notBetter: 2 });
+    expect(report.sources[0].census).toBeUndefined();
+    expect(report.frontierRows).toBe(5);
+    const s = openStore(target, { readonly: true });
+    expect(s.huntEntries().map((r) => [r.m, r.value, r.graph6])).toEqual([[2, 0.4, "D]w"], [3, 0.5, "DUW"], [4, 0.5, "DQW"], [5, 0.5, "Dhc"], [6, 0.7, "D~{"]]);
+    s.close();
+    const again = mergeStores([source], target);
+    expect(again.sources[0].frontier).toEqual({ rows: 5, added: 0, alreadyThere: 3, improved: 0, notBetter: 2 });
+  });
+
+  it("stores without census or frontier rows merge with the same report and text as before", () => {
+    const a = storeWith("plain-a.db", []);
+    const r = halfplus(["merge", a, "--into", at("plain-into.db")]);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toBe(`${a}: 0 rows, 0 added, 0 already in ${at("plain-into.db")}\n${at("plain-into.db")}: 0 rows\n`);
+    expect(Object.keys(mergeStores([a], at("plain-into.db")))).toEqual(["into", "sources", "total"]);
   });
 });
