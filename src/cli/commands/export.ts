@@ -45,10 +45,10 @@ export const exportCommand: CommandSpec = {
   options: [
     { name: "csv", type: "string", description: "write CSV with a header line to FILE (- for standard output)", placeholder: "FILE" },
     { name: "jsonl", type: "string", description: "write one JSON object per row to FILE (- for standard output)", placeholder: "FILE" },
-    { name: "timing", type: "boolean", description: "include the wall-clock fields seconds and startedAt (they differ from run to run)" },
-    { name: "columns", type: "string", description: "only these columns, comma-separated, in this order", placeholder: "A,B,..." },
-    { name: "family", type: "string", description: "only rows of this family label", placeholder: "NAME" },
-    { name: "table", type: "string", description: "which table: results (the swept and imported rows), census-runs, census-cells, census-histogram (halfplus census) or hunt-frontier (halfplus hunt)", choices: STORE_TABLES, default: "results" },
+    { name: "timing", type: "boolean", description: "include the wall-clock fields seconds and startedAt (a census's start, update and finish times; a frontier row's foundAt): they differ from run to run" },
+    { name: "columns", type: "string", description: "results only: these columns, comma-separated, in this order", placeholder: "A,B,..." },
+    { name: "family", type: "string", description: "results only: rows of this family label", placeholder: "NAME" },
+    { name: "table", type: "string", description: "which table: results (the swept and imported rows), census-runs, census-cells, census-histogram (halfplus census) or hunt-frontier (halfplus hunt)", choices: STORE_TABLES, default: "results", placeholder: "TABLE" },
     { name: "name", type: "string", description: "census tables only: the census of this name (default: every census)", placeholder: "NAME" },
   ],
   examples: [
