@@ -172,6 +172,21 @@ describeNeeds(NEEDS, "census and hunt tables across merge, export and verify", (
     expect(two.sources[1].census).toMatchObject({ advanced: 0, behind: 1 });
     expect(tablesOf(at("grow-1.db")).censuses.get("tf")).toEqual(late);
     expect(tablesOf(at("grow-2.db")).censuses.get("tf")).toEqual(late);
+    // At the same position, a run that has seen the end of its stream says so; the merge keeps that.
+    await censusOf(at("open.db"), "tf", tf7, tf7.length);
+    copyFileSync(at("open.db"), at("open-copy.db"));
+    await censusOf(at("open.db"), "tf", tf7);
+    const complete = (path: string): boolean => {
+      const s = openStore(path, { readonly: true });
+      const state = s.census().state("tf")!;
+      s.close();
+      expect(state.consumed).toBe(107);
+      return state.finishedAt !== null;
+    };
+    expect([complete(at("open-copy.db")), complete(at("open.db"))]).toEqual([false, true]);
+    const fin = mergeStores([at("open-copy.db"), at("open.db")], at("open-merged.db"));
+    expect(fin.sources[1].census).toMatchObject({ alreadyThere: 1 });
+    expect(complete(at("open-merged.db"))).toBe(true);
     // A snapshot the further run does not extend (a bar with more graphs than the later count) is refused.
     const bad = tampered(at("early.db"), "early-bad.db", `UPDATE census_histogram SET graphs = graphs + 1000 WHERE name = 'tf' AND n = 7 AND m = 6`);
     const r = halfplus(["merge", at("run.db"), bad, "--into", at("grow-3.db")]);
