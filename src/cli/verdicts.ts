@@ -29,6 +29,13 @@ export function verdictText(what: string, record: Pick<BracketRecord, "exact" | 
   return [`${what}: ${head}`, ...rows].join("\n");
 }
 
+/** The verdict line of a census row (no bracket: verified or REJECTED) followed by one line per check. */
+export function checkedText(what: string, verifiedHead: string, v: { verdict: VerdictWord; checks: BracketVerdict["checks"] }): string {
+  const head = v.verdict === "rejected" ? `REJECTED (${v.checks.filter((c) => !c.ok).map((c) => c.name).join(", ")})` : `${v.verdict}: ${verifiedHead}`;
+  const rows = formatRows(v.checks.map((c) => [`${c.ok ? "pass" : "FAIL"}  ${c.name}`, c.message] as const));
+  return [`${what}: ${head}`, ...rows].join("\n");
+}
+
 /** The JSON fields of a verdict, after the fields that say which record it is. */
 export function verdictJson(v: BracketVerdict): { ok: boolean; verdict: VerdictWord; upperKind: BracketVerdict["upperKind"]; failureProbability?: number; checks: BracketVerdict["checks"] } {
   return { ok: v.ok, verdict: v.verdict, upperKind: v.upperKind, ...(v.failureProbability === undefined ? {} : { failureProbability: v.failureProbability }), checks: v.checks };
@@ -41,7 +48,7 @@ export class VerdictTally {
   probable = 0;
   rejected = 0;
 
-  add(v: BracketVerdict): void {
+  add(v: Pick<BracketVerdict, "verdict">): void {
     this[v.verdict]++;
   }
 

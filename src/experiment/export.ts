@@ -28,7 +28,8 @@ export function resolveExportColumns(options: ExportOptions = {}): ColumnSpec[] 
   });
 }
 
-function csvText(s: string): string {
+/** A CSV field: quoted when it holds a quote, comma or line break, or leading/trailing blanks (RFC 4180). */
+export function csvText(s: string): string {
   return /[",\r\n]/.test(s) || s !== s.trim() ? `"${s.replace(/"/g, '""')}"` : s;
 }
 

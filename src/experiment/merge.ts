@@ -3,10 +3,13 @@
 // disagreement refuses the whole merge, naming the key and the fields. Merging twice adds nothing.
 // The store does each source's union itself where it can (set-based in SQLite: sqlite-store.ts
 // `unionFrom`); `unionRowByRow` is the plain path for any other store, with the same outcome.
+// The census tables and the hunt frontier merge by their own rules (merge-tables.ts) in the same
+// transaction, so a refusal anywhere writes nothing.
 
 import { realpathSync, existsSync } from "node:fs";
 import { InputError } from "../errors.js";
 import { comparedColumns, type CellValue, type StoredRow } from "./columns.js";
+import { mergeCensuses, mergeFrontier, type CensusMergeReport, type FrontierMergeReport } from "./merge-tables.js";
 import { openStore } from "./sqlite-store.js";
 import type { ResultStore, UnionOutcome } from "./store.js";
 
@@ -34,6 +37,10 @@ export interface MergeSourceReport {
   added: number;
   /** Rows the target already held, identical in every result field. */
   alreadyThere: number;
+  /** The source's censuses (present when it holds any). */
+  census?: CensusMergeReport;
+  /** The source's hunt frontier (present when it holds any rows). */
+  frontier?: FrontierMergeReport;
 }
 
 export interface MergeReport {
@@ -41,6 +48,9 @@ export interface MergeReport {
   sources: MergeSourceReport[];
   /** Rows in the target afterwards. */
   total: number;
+  /** Censuses and hunt frontier rows in the target afterwards (present when there are any). */
+  censuses?: number;
+  frontierRows?: number;
 }
 
 function realOrSelf(path: string): string {
@@ -103,10 +113,20 @@ export function mergeInto(target: ResultStore, sources: readonly ResultStore[]):
         throw new InputError(`${src.path}: disagrees with ${target.path}: key ${JSON.stringify(key)} differs in ${diff.join(", ")}${more}; nothing merged`);
       }
       for (const s of src.sweeps()) target.logSweep(s);
-      reports.push({ path: src.path, rows: out.rows, added: out.added, alreadyThere: out.alreadyThere });
+      const report: MergeSourceReport = { path: src.path, rows: out.rows, added: out.added, alreadyThere: out.alreadyThere };
+      const census = mergeCensuses(target, src);
+      if (census.censuses > 0) report.census = census;
+      const frontier = mergeFrontier(target, src);
+      if (frontier.rows > 0) report.frontier = frontier;
+      reports.push(report);
     }
   });
-  return { into: target.path, sources: reports, total: target.count() };
+  const result: MergeReport = { into: target.path, sources: reports, total: target.count() };
+  const censuses = target.census().list().length;
+  const frontierRows = target.huntEntries().length;
+  if (censuses > 0) result.censuses = censuses;
+  if (frontierRows > 0) result.frontierRows = frontierRows;
+  return result;
 }
 
 /** `halfplus merge a.db b.db --into all.db`: open the files and merge. */

@@ -47,3 +47,19 @@ export function objectiveLabel(o: HuntObjective): string {
       return `surplus at m = ${o.m}`;
   }
 }
+
+/** The objective as the store keeps it (hunt_frontier's `objective`): "ratio", "power:<α>", "surplus:<m>". */
+export function objectiveKey(o: HuntObjective): string {
+  return o.kind === "ratio" ? "ratio" : o.kind === "power" ? `power:${o.alpha}` : `surplus:${o.m}`;
+}
+
+/** The objective back from its stored key (the inverse of objectiveKey); null when the text is not one. */
+export function parseObjectiveKey(key: string): HuntObjective | null {
+  if (key === "ratio") return { kind: "ratio" };
+  const m = /^(power|surplus):(.+)$/.exec(key);
+  if (m === null) return null;
+  const x = Number(m[2]);
+  if (!Number.isFinite(x) || String(x) !== m[2]) return null;
+  if (m[1] === "power") return x > 0 && x <= 2 ? { kind: "power", alpha: x } : null;
+  return Number.isInteger(x) && x >= 1 ? { kind: "surplus", m: x } : null;
+}

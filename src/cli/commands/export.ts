@@ -1,9 +1,10 @@
 // `halfplus export <store>`: stored rows as CSV and/or JSON lines, in a fixed column and row
-// order (wall-clock fields only with --timing), to files or standard output ("-").
+// order (wall-clock fields only with --timing), to files or standard output ("-"). `--table`
+// picks another of the store's tables: the census runs, cells or histogram, or the hunt frontier.
 import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
-import { exportLines, openStore, resolveExportColumns, type ExportFormat, type ExportOptions } from "../../experiment/index.js";
+import { exportLines, exportTableLines, openStore, parseStoreTable, resolveExportColumns, STORE_TABLES, type ExportFormat, type ExportOptions } from "../../experiment/index.js";
 import { writeLine } from "../output.js";
 
 async function writeAll(target: string, lines: Iterable<string>, stdout: NodeJS.WritableStream): Promise<void> {
@@ -37,18 +38,25 @@ async function writeAll(target: string, lines: Iterable<string>, stdout: NodeJS.
 
 export const exportCommand: CommandSpec = {
   name: "export",
-  summary: "write the rows of a results store as CSV or JSON lines (same plan, same bytes)",
+  summary: "write the rows of a results store (or its census or hunt frontier tables) as CSV or JSON lines (same plan, same bytes)",
   positionals: "<store.db>",
   minPositionals: 1,
   maxPositionals: 1,
   options: [
     { name: "csv", type: "string", description: "write CSV with a header line to FILE (- for standard output)", placeholder: "FILE" },
     { name: "jsonl", type: "string", description: "write one JSON object per row to FILE (- for standard output)", placeholder: "FILE" },
-    { name: "timing", type: "boolean", description: "include the wall-clock fields seconds and startedAt (they differ from run to run)" },
-    { name: "columns", type: "string", description: "only these columns, comma-separated, in this order", placeholder: "A,B,..." },
-    { name: "family", type: "string", description: "only rows of this family label", placeholder: "NAME" },
+    { name: "timing", type: "boolean", description: "include the wall-clock fields seconds and startedAt (a census's start, update and finish times; a frontier row's foundAt): they differ from run to run" },
+    { name: "columns", type: "string", description: "results only: these columns, comma-separated, in this order", placeholder: "A,B,..." },
+    { name: "family", type: "string", description: "results only: rows of this family label", placeholder: "NAME" },
+    { name: "table", type: "string", description: "which table: results (the swept and imported rows), census-runs, census-cells, census-histogram (halfplus census) or hunt-frontier (halfplus hunt)", choices: STORE_TABLES, default: "results", placeholder: "TABLE" },
+    { name: "name", type: "string", description: "census tables only: the census of this name (default: every census)", placeholder: "NAME" },
   ],
-  examples: ["halfplus export results/halfplus.db --csv rows.csv", "halfplus export results/halfplus.db --jsonl - --family polarity | head"],
+  examples: [
+    "halfplus export results/halfplus.db --csv rows.csv",
+    "halfplus export results/halfplus.db --jsonl - --family polarity | head",
+    "halfplus export results/census.db --table census-cells --csv cells.csv",
+    "halfplus export results/hunt.db --table hunt-frontier --jsonl -",
+  ],
   async run(args, io) {
     const o = args.options;
     const csv = o["csv"] as string | undefined;
@@ -56,6 +64,23 @@ export const exportCommand: CommandSpec = {
     if (csv === undefined && jsonl === undefined) throw new InputError("give --csv FILE and/or --jsonl FILE (- for standard output)");
     if (csv === "-" && jsonl === "-") throw new InputError("--csv and --jsonl cannot both go to standard output");
     for (const [name, v] of [["csv", csv], ["jsonl", jsonl]] as const) if (v === "") throw new InputError(`--${name} needs a file name`);
+    const table = parseStoreTable(o["table"] as string);
+    if (table !== "results") {
+      if (o["columns"] !== undefined || o["family"] !== undefined) throw new InputError(`--${o["columns"] !== undefined ? "columns" : "family"} applies to --table results, not ${table}`);
+      if (o["name"] !== undefined && !table.startsWith("census-")) throw new InputError(`--name picks a census; --table ${table} has none`);
+      const store = openStore(args.positionals[0], { readonly: true });
+      try {
+        const tableOptions = { timing: o["timing"] === true, census: o["name"] as string | undefined };
+        // Check the census name before any file is touched.
+        if (tableOptions.census !== undefined && store.census().state(tableOptions.census) === undefined) throw new InputError(`${store.path}: no census named ${JSON.stringify(tableOptions.census)}`);
+        if (csv !== undefined) await writeAll(csv, exportTableLines(store, table, "csv", tableOptions), io.stdout);
+        if (jsonl !== undefined) await writeAll(jsonl, exportTableLines(store, table, "jsonl", tableOptions), io.stdout);
+      } finally {
+        store.close();
+      }
+      return 0;
+    }
+    if (o["name"] !== undefined) throw new InputError("--name picks a census: give --table census-runs, census-cells or census-histogram");
     const columnsText = o["columns"] as string | undefined;
     const options: ExportOptions = {
       timing: o["timing"] === true,

@@ -6,7 +6,7 @@ import { InputError } from "../../errors.js";
 import { encodeGraph6 } from "../../graph/formats/graph6.js";
 import type { Graph } from "../../graph/graph.js";
 import { parsePatternName, patternGraph } from "../../graph/structure/patterns.js";
-import { hunt, HUNT_STARTS, objectiveLabel, OBJECTIVE_KINDS, type HuntObjective, type HuntProgress, type HuntStarts } from "../../hunt/index.js";
+import { hunt, HUNT_STARTS, objectiveKey, objectiveLabel, OBJECTIVE_KINDS, type HuntObjective, type HuntProgress, type HuntStarts } from "../../hunt/index.js";
 import { DEFAULT_STORE, openStore, type HuntFrontierRow } from "../../experiment/index.js";
 import { figureHtml, huntFrontierFigure } from "../../plot/index.js";
 import { openSingleGraph } from "../../sources/index.js";
@@ -45,11 +45,6 @@ function objectiveFrom(o: Record<string, unknown>): HuntObjective {
     return { kind, m };
   }
   return { kind: "ratio" };
-}
-
-/** The objective as stored: "ratio", "power:<α>", "surplus:<m>". */
-function objectiveKey(o: HuntObjective): string {
-  return o.kind === "ratio" ? "ratio" : o.kind === "power" ? `power:${o.alpha}` : `surplus:${o.m}`;
 }
 
 function progressWriter(stderr: NodeJS.WritableStream): (p: HuntProgress) => void {

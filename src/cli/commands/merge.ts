@@ -1,5 +1,6 @@
 // `halfplus merge a.db b.db --into all.db`: union of results stores. Rows with the same key must
 // agree on every result field; any disagreement refuses the merge and names the key and fields.
+// Census tables and the hunt frontier come along (src/experiment/merge-tables.ts has their rules).
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
 import { mergeStores } from "../../experiment/index.js";
@@ -7,7 +8,7 @@ import { writeLine } from "../output.js";
 
 export const mergeCommand: CommandSpec = {
   name: "merge",
-  summary: "merge results stores into one (refuses rows that disagree on the same key; merging again adds nothing)",
+  summary: "merge results stores into one, census and hunt frontier included (refuses rows that disagree on the same key; merging again adds nothing)",
   positionals: "<store.db...>",
   minPositionals: 1,
   maxPositionals: Infinity,
@@ -22,8 +23,21 @@ export const mergeCommand: CommandSpec = {
     const report = mergeStores(args.positionals, into);
     if (args.options["json"] === true) await writeLine(io.stdout, JSON.stringify(report));
     else {
-      const lines = report.sources.map((s) => `${s.path}: ${s.rows} rows, ${s.added} added, ${s.alreadyThere} already in ${report.into}`);
+      const lines: string[] = [];
+      for (const s of report.sources) {
+        lines.push(`${s.path}: ${s.rows} rows, ${s.added} added, ${s.alreadyThere} already in ${report.into}`);
+        const c = s.census;
+        if (c !== undefined) {
+          lines.push(`${s.path}: ${c.censuses} census${c.censuses === 1 ? "" : "es"}, ${c.added} added, ${c.alreadyThere} already in ${report.into}, ${c.advanced} further along in ${s.path} (taken), ${c.behind} further along in ${report.into} (kept)`);
+        }
+        const f = s.frontier;
+        if (f !== undefined) {
+          lines.push(`${s.path}: ${f.rows} hunt frontier rows, ${f.added} added, ${f.alreadyThere} already in ${report.into}, ${f.improved} better than ${report.into}'s (replaced them), ${f.notBetter} no better than ${report.into}'s (kept ${report.into}'s)`);
+        }
+      }
       lines.push(`${report.into}: ${report.total} rows`);
+      if (report.censuses !== undefined) lines.push(`${report.into}: ${report.censuses} census${report.censuses === 1 ? "" : "es"}`);
+      if (report.frontierRows !== undefined) lines.push(`${report.into}: ${report.frontierRows} hunt frontier rows`);
       await writeLine(io.stdout, lines.join("\n"));
     }
     return 0;

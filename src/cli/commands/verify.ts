@@ -30,6 +30,7 @@ export const verifyCommand: CommandSpec = {
     "Trusts nothing the solvers did: the cut of the record's partition is recomputed, and the upper bound is re-derived from its certificate (the dual certificate's shift proved again, or the exact search rerun) with verify's own rounding allowances, never the record's. The graph is the copy embedded in the record (standard input and small graphs), else rebuilt from its spec or file, else the one given with --graph.",
     `Verdicts: verified (every check passed, the upper end proven), estimate (every check passed, but the upper end rests on a Lanczos estimate of the shift: not a proof), REJECTED (a check failed). Exit status 0 when all are verified, 1 when any is rejected, ${EXIT_ESTIMATE} when some upper end is an estimate (0 with --accept-estimates), 2 for unreadable or malformed input.`,
     "Records are numbered from 1. `-` reads the records from standard input.",
+    "A results store is re-checked row by row; unless --row or --family picks rows, its census tables (each cell's histogram, least surplus and witnesses, re-solved exactly) and its hunt frontier (each graph H-free with the stated n and m, its bracket record, its value) are re-checked too, each with its own tally.",
   ],
   options: [
     { name: "graph", type: "string", description: "take the graphs from this source instead of the records' own: a single graph serves every record, otherwise graph k serves the record at position k", placeholder: "SOURCE" },

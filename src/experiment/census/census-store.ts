@@ -36,6 +36,11 @@ export interface CensusTables {
    * the cells of exactly `state.consumed` graphs.
    */
   commit(state: CensusState, changed: Iterable<CensusCell>): void;
+  /**
+   * Put `state` and exactly `cells` in place of whatever the store holds under `state.name`, in
+   * one transaction (merge.ts: a census taken whole from another store).
+   */
+  replace(state: CensusState, cells: Iterable<CensusCell>): void;
 }
 
 const STATE_FIELDS = ["name", "consumed", "fingerprint", "witnessLimit", "source", "startedAt", "updatedAt", "finishedAt", "version"] as const;
@@ -71,7 +76,7 @@ export function censusTables(db: Database.Database, path: string, readonly: bool
     throw new Error(`${path}: opened read-only`);
   };
   if (!present) {
-    return { list: () => [], state: () => undefined, cells: () => [], commit: readonly ? refuseWrite : () => refuseWrite() };
+    return { list: () => [], state: () => undefined, cells: () => [], commit: refuseWrite, replace: refuseWrite };
   }
   const upsertState = readonly
     ? null
@@ -99,6 +104,12 @@ export function censusTables(db: Database.Database, path: string, readonly: bool
           for (const [twice, count] of c.histogram) upsertBar!.run(state.name, c.n, c.m, twice, count);
         }
       });
+  const replace = readonly
+    ? refuseWrite
+    : db.transaction((state: CensusState, cells: Iterable<CensusCell>) => {
+        for (const table of ["census_histogram", "census_cells", "census_runs"]) db.prepare(`DELETE FROM ${table} WHERE name = ?`).run(state.name);
+        (commit as (s: CensusState, c: Iterable<CensusCell>) => void)(state, cells);
+      });
   return {
     list: () => db.prepare(`SELECT * FROM census_runs ORDER BY name`).all() as CensusState[],
     state: (name) => db.prepare(`SELECT * FROM census_runs WHERE name = ?`).get(name) as CensusState | undefined,
@@ -122,5 +133,6 @@ export function censusTables(db: Database.Database, path: string, readonly: bool
       return sortedCells(cells.values());
     },
     commit: (state, changed) => (commit as (s: CensusState, c: Iterable<CensusCell>) => void)(state, changed),
+    replace: (state, cells) => (replace as (s: CensusState, c: Iterable<CensusCell>) => void)(state, cells),
   };
 }
