@@ -89,8 +89,10 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   }
   const workers = options.workers ?? availableParallelism();
   if (!Number.isInteger(workers) || workers < 0 || workers > 1024) throw new InputError(`runSweep: invalid \`workers\`: should be an integer from 0 to 1024 (got ${JSON.stringify(options.workers)})`);
-  // Workers start first: loading their modules overlaps with checking the plan and opening the store.
+  // Workers start first, then the git commands of the provenance: loading the workers' code and
+  // running git overlap with checking the plan and opening the store.
   const runner = createRunner(workers);
+  const provenanceLater = provenance();
   const ownStore = typeof options.store !== "object";
   let p: Plan;
   let store: ResultStore;
@@ -114,7 +116,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     if (ownStore) store.close();
     throw e;
   }
-  const prov = provenance();
+  const prov = await provenanceLater;
   const started = nowIso();
   const shardText = shard === null ? null : `${shard.index}/${shard.count}`;
   const log = {
