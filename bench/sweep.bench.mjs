@@ -4,7 +4,7 @@
 // search, end to end into the store (target ≥ 10,000 graphs/s per core). "Per core" divides by
 // the CPU seconds the whole process used (all threads), so other load on the machine does not
 // count against it; the wall-clock rates are shown too.
-// Usage: node bench/sweep.bench.mjs [--only overhead|scaling|stream] [--stream-n 7] [--stream-count 100000]
+// Usage: node bench/sweep.bench.mjs [--only overhead|scaling|stream] [--workload exact26|heuristic60] [--stream-n 7] [--stream-count 100000]
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { loadavg, tmpdir } from "node:os";
 import { join } from "node:path";
@@ -114,6 +114,7 @@ const WORKLOADS = [
 
 if (only === null || only === "overhead" || only === "scaling") {
   for (const w of WORKLOADS) {
+    if (opt("workload", w.plan.name) !== w.plan.name) continue;
     const one = await timed(w.plan, 1, w.plan.name);
     rows.push({
       bench: `overhead, ${w.label}, 1 worker`,
