@@ -3,7 +3,11 @@
 // (2) throughput of 2 workers against 1 on the same plans (target ≥ 1.7×); (3) a graph6 stream of 10^5 small graphs closed by exact
 // search, end to end into the store (target ≥ 10,000 graphs/s per core). "Per core" divides by
 // the CPU seconds the whole process used (all threads), so other load on the machine does not
-// count against it; the wall-clock rates are shown too.
+// count against it; the wall-clock rates are shown too. Start-up (call to first stored row) is
+// given in wall seconds and in process CPU seconds (startup_cpu_s, the one to compare on a shared
+// machine): the workers' module loading (one bundled file, scripts/bundle-worker.mjs), the plan,
+// the store and the first, still unoptimised, job. With load above the core count the scaling
+// rows cannot be judged: machine_speedup and process_ceiling then fall to about 1.
 // Usage: node bench/sweep.bench.mjs [--only overhead|scaling|stream] [--workload exact26|heuristic60] [--stream-n 7] [--stream-count 100000]
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { loadavg, tmpdir } from "node:os";
