@@ -38,13 +38,13 @@ export interface JobRunner {
 }
 
 /**
- * The compiled worker script. Under the TypeScript sources (the test runner) there is no
- * worker.js beside this file, and Node 20 cannot start a worker from .ts: use the build.
+ * The worker script: worker.js and every module it imports joined into one file by the build's
+ * second step (scripts/bundle-worker.mjs), since loading ~150 modules one by one was most of a
+ * worker's start-up. Under the TypeScript sources (the test runner) there is no build beside
+ * this file, and Node 20 cannot start a worker from .ts: use the one in dist/.
  */
 function workerScript(): URL {
-  const here = new URL("./worker.js", import.meta.url);
-  if (import.meta.url.endsWith(".js")) return here;
-  const built = new URL("../../dist/experiment/worker.js", import.meta.url);
+  const built = import.meta.url.endsWith(".js") ? new URL("./worker-bundle.js", import.meta.url) : new URL("../../dist/experiment/worker-bundle.js", import.meta.url);
   if (!existsSync(fileURLToPath(built))) throw new Error(`sweep workers need the build: run npm run build (missing ${fileURLToPath(built)})`);
   return built;
 }

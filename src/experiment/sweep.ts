@@ -54,8 +54,19 @@ export interface SweepSummary {
   lowest: LowestRatio | null;
 }
 
-/** Batches aim at this many seconds of work, so tiny jobs do not pay one message each. */
-const BATCH_TARGET_SECONDS = 0.03;
+/**
+ * Batches aim at this many seconds of work, so tiny jobs do not pay one message and one commit
+ * each. 50 ms rather than 30: a third fewer commits on the main thread, whose CPU comes out of
+ * the workers' share when both cores are busy; a kill still loses at most BATCHES_PER_WORKER of
+ * them per worker (DEVELOPERS.md, Benchmarks).
+ */
+const BATCH_TARGET_SECONDS = 0.05;
+/**
+ * Batches in flight per worker: one running, two waiting. With one waiting, a worker on a loaded
+ * machine often finished both before the main thread was scheduled to send more (1.0–1.7 s idle
+ * in a 2-worker sweep of 1000 exact jobs at load 9–10; 0–0.3 s with two waiting).
+ */
+const BATCHES_PER_WORKER = 3;
 const MAX_BATCH = 256;
 /** Rows written before the store's background maintenance starts: fewer rows make a log of a few megabytes at most. */
 const BACKGROUND_MAINTENANCE_ROWS = 2000;
@@ -89,8 +100,10 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   }
   const workers = options.workers ?? availableParallelism();
   if (!Number.isInteger(workers) || workers < 0 || workers > 1024) throw new InputError(`runSweep: invalid \`workers\`: should be an integer from 0 to 1024 (got ${JSON.stringify(options.workers)})`);
-  // Workers start first: loading their modules overlaps with checking the plan and opening the store.
+  // Workers start first, then the git commands of the provenance: loading the workers' code and
+  // running git overlap with checking the plan and opening the store.
   const runner = createRunner(workers);
+  const provenanceLater = provenance();
   const ownStore = typeof options.store !== "object";
   let p: Plan;
   let store: ResultStore;
@@ -114,7 +127,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     if (ownStore) store.close();
     throw e;
   }
-  const prov = provenance();
+  const prov = await provenanceLater;
   const started = nowIso();
   const shardText = shard === null ? null : `${shard.index}/${shard.count}`;
   const log = {
@@ -162,7 +175,7 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     version: prov.version,
     shared: { gitCommit: prov.gitCommit, nodeVersion: prov.nodeVersion, platform: prov.platform },
   };
-  const slots = Math.max(1, 2 * runner.size); // two batches per worker: one running, one waiting
+  const slots = Math.max(1, BATCHES_PER_WORKER * runner.size);
   const inFlight = new Set<Promise<void>>();
   const sent = new Set<string>();
   let failure: Error | null = null;
@@ -230,7 +243,10 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
   let stopped = false;
   let batch: PlannedJob[] = [];
   try {
-    const batchSize = (): number => (secondsPerJob === null ? 1 : Math.max(1, Math.min(MAX_BATCH, Math.floor(BATCH_TARGET_SECONDS / Math.max(secondsPerJob, 1e-7)))));
+    const timed = (): number => (secondsPerJob === null ? 1 : Math.max(1, Math.min(MAX_BATCH, Math.floor(BATCH_TARGET_SECONDS / Math.max(secondsPerJob, 1e-7)))));
+    // Near the end, the jobs left (at most: some may still be skipped) are spread over every slot,
+    // so no worker is left with a full queue while the other has nothing.
+    const batchSize = (): number => Math.min(timed(), Math.max(1, Math.ceil((total - skipped - sent.size + batch.length) / slots)));
     for await (const job of planJobs(p, prov.version, shard, slices ?? undefined)) {
       if (failure !== null) break;
       if (options.signal?.aborted) {

@@ -1,8 +1,22 @@
 // Full eigen-decomposition of a small dense symmetric matrix through ml-matrix
 // (Householder tridiagonalisation + QL). Cubic time and array-of-rows storage: keep n small.
 
-import { EigenvalueDecomposition, Matrix } from "ml-matrix";
+import { createRequire } from "node:module";
 import { InputError } from "../errors.js";
+
+type MlMatrix = typeof import("ml-matrix");
+let ml: MlMatrix | null = null;
+
+/**
+ * ml-matrix, loaded on first use through require. Its ES-module entry is a facade over the
+ * CommonJS build, and importing it that way cost 50–110 ms of CPU per thread (Node 20 scans the
+ * 150 kB CommonJS file for its exports) against about 10 ms by require, paid by every sweep
+ * worker and CLI start even when no dense decomposition runs (bench/sweep.bench.mjs, startup_s).
+ */
+function mlMatrix(): MlMatrix {
+  ml ??= createRequire(import.meta.url)("ml-matrix") as MlMatrix;
+  return ml;
+}
 
 export interface DenseEigen {
   n: number;
@@ -18,6 +32,7 @@ export function symmetricEigen(a: Float64Array, n: number): DenseEigen {
     throw new InputError(`symmetricEigen: expected a row-major ${n}×${n} matrix, got ${a.length} entries`);
   }
   if (n === 0) return { n, values: new Float64Array(0), vectors: new Float64Array(0) };
+  const { EigenvalueDecomposition, Matrix } = mlMatrix();
   const m = new Matrix(n, n);
   for (let i = 0; i < n; i++) {
     for (let j = 0; j <= i; j++) {
