@@ -288,7 +288,7 @@ class BracketState {
       this.upper = r.upper;
       this.upperMethod = r.method;
       this.upperKind = "proven";
-      this.certificate = { kind: "sdp-tree", rootVertex: r.certificate.rootVertex, relaxation: r.relaxation, regions: r.certificate.regions, nodes: r.nodes, roundedDown: true, tolerance: this.tolerance };
+      this.certificate = { kind: "sdp-tree", rootVertex: r.certificate.rootVertex, relaxation: r.relaxation, regions: r.certificate.regions, ...(r.certificate.orbital === undefined ? {} : { orbital: r.certificate.orbital, automorphisms: r.certificate.automorphisms }), nodes: r.nodes, roundedDown: true, tolerance: this.tolerance };
     }
     this.progress(r.method);
   }

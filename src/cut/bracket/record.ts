@@ -6,6 +6,7 @@ import type { RecordEnvelope } from "../../graph/record/envelope.js";
 import type { ProbableShift, ShiftProof, SolverStatus, UpperKind } from "../types.js";
 import type { BracketBudget } from "./budget.js";
 import type { TreeRegion, TreeRelaxation } from "../tree/relaxation-tree.js";
+import type { TreeOrbitalBranch } from "../tree/symmetry.js";
 
 /** The `kind` every bracket record carries, so verify can refuse other JSON. */
 export const BRACKET_RECORD_KIND = "halfplus/bracket";
@@ -41,7 +42,7 @@ export type BracketCertificate =
   | { kind: "unfinished-search"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
   | { kind: "positive-weights"; roundedDown: boolean; tolerance: number }
   | { kind: "triangle-dual"; y: number[]; shift: number; shiftProof: "cholesky"; triangles: number[]; mu: number[]; roundedDown: boolean; tolerance: number }
-  | { kind: "sdp-tree"; rootVertex: number; relaxation: TreeRelaxation; regions: TreeRegion[]; nodes: number; roundedDown: boolean; tolerance: number };
+  | { kind: "sdp-tree"; rootVertex: number; relaxation: TreeRelaxation; regions: TreeRegion[]; orbital?: TreeOrbitalBranch[]; automorphisms?: number[][]; nodes: number; roundedDown: boolean; tolerance: number };
 
 /** One method's contribution, summarised. */
 export interface BracketRun {

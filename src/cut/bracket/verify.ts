@@ -244,6 +244,16 @@ function parseStrengthened(f: Fields, c: Record<string, unknown>): void {
     f.oneOf(`certificate.regions[${q}].certificate.kind`, rc.kind, ["triangle-dual", "exhaustive"]);
     if (rc.kind === "triangle-dual") dual(`certificate.regions[${q}].certificate`, rc);
   });
+  if (c.orbital === undefined && c.automorphisms === undefined) return;
+  if (!Array.isArray(c.orbital)) f.bad("certificate.orbital", "an array", c.orbital);
+  if (!Array.isArray(c.automorphisms)) f.bad("certificate.automorphisms", "an array", c.automorphisms);
+  (c.automorphisms as unknown[]).forEach((p, q) => numbers(`certificate.automorphisms[${q}]`, p));
+  (c.orbital as unknown[]).forEach((b, q) => {
+    const r = f.object(`certificate.orbital[${q}]`, b);
+    for (const k of ["vertices", "sides", "orbit", "maps"]) numbers(`certificate.orbital[${q}].${k}`, r[k]);
+    f.count(`certificate.orbital[${q}].vertex`, r.vertex);
+    f.count(`certificate.orbital[${q}].side`, r.side);
+  });
 }
 
 // ---- verdict ----------------------------------------------------------------------------------
@@ -281,7 +291,7 @@ function deriveUpper(graph: Graph, record: BracketRecord, integral: boolean, sec
     }
     case "sdp-tree": {
       if (!integral) return failed("an SDP tree certificate needs integer weights");
-      const v = verifyTreeCertificate(graph, { rootVertex: cert.rootVertex, relaxation: cert.relaxation, regions: cert.regions });
+      const v = verifyTreeCertificate(graph, { rootVertex: cert.rootVertex, relaxation: cert.relaxation, regions: cert.regions, orbital: cert.orbital, automorphisms: cert.automorphisms });
       if (!v.ok) return failed(`tree certificate rejected: ${v.message}`);
       return { bound: v.bound, kind: "proven", message: `branch and bound: ${v.message}` };
     }

@@ -28,6 +28,8 @@ import { triangleListProblem, verifyTriangleCertificate, type TriangleCertificat
 import { solveTriangleSdp } from "../relaxation/triangle-sdp.js";
 import type { CutRecord } from "../types.js";
 import { mapTrianglesAfterFix, reducedProblem, trianglesAtRoot } from "./reduced-graph.js";
+import { childStabiliser, keepsFixings, orbitWithWitnesses, type TreeOrbitalBranch } from "./symmetry.js";
+import { isAutomorphism, listAutomorphisms } from "../../graph/structure/automorphisms.js";
 
 /** Which relaxation bounds the nodes: the plain SDP, or the SDP with triangle inequalities. */
 export type TreeRelaxation = "plain" | "triangles";
@@ -58,6 +60,10 @@ export interface TreeCertificate {
   rootVertex: number;
   relaxation: TreeRelaxation;
   regions: TreeRegion[];
+  /** Orbital branches (./symmetry.ts); absent when none. */
+  orbital?: TreeOrbitalBranch[];
+  /** The automorphisms `orbital` refers to, as permutations of the vertices. */
+  automorphisms?: number[][];
 }
 
 export interface TreeSearchOptions {
@@ -104,7 +110,13 @@ export interface TreeSearchOptions {
    * strengthened bound of the same graph; the root then continues instead of starting over.
    */
   rootTriangles?: { triangles: ArrayLike<number>; mu: ArrayLike<number> };
-  /** Called about every half second with the bracket so far; `closedShare` is the share of all cuts in closed regions (2^−depth each); `warmBytes` the warm-start data held by open nodes. */
+  /**
+   * Orbital branching (default true; ./symmetry.ts): where automorphisms of the graph keep a node's
+   * fixings, branch on "v on its likely side" and "v's whole orbit on the other side". The
+   * automorphisms are listed once, within a fixed work cap (src/graph/structure/automorphisms.ts).
+   */
+  symmetry?: boolean;
+  /** Called about every half second with the bracket so far; `closedShare` is the share of all cuts in closed regions (2^−depth each under ordinary branching); `warmBytes` the warm-start data held by open nodes. */
   onProgress?: (p: { lower: number; upper: number; nodes: number; open: number; seconds: number; closedShare: number; warmBytes: number }) => void;
 }
 
@@ -117,7 +129,7 @@ export interface TreeSearchRecord extends CutRecord {
   certificate: TreeCertificate;
 }
 
-/** A parent's SDP vectors with the branching vertex's row removed: one copy shared by both children. */
+/** A parent's SDP vectors without the rows of the vertices a child fixes: under ordinary branching one copy shared by both children. */
 interface WarmVectors {
   data: Float64Array;
   rank: number;
@@ -153,6 +165,10 @@ interface Node {
   /** Children not yet evaluated (2 after branching). */
   openKids: number;
   seq: number;
+  /** Automorphisms (indices into the listed ones) keeping the node's fixings and sides, or null when none but the identity. */
+  stab: Int32Array | null;
+  /** The share of all cuts the node stands for: 2^−depth under ordinary branching; an orbital branch's second child gets 2^−|orbit| of its parent's, the first the rest (it stands for the orbit's images too). */
+  share: number;
 }
 
 /** Max-heap on (bound, depth, −seq): best bound first, deeper first among equals, then oldest. */
@@ -262,7 +278,29 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     if (problem !== null) throw invalidParameter(OWNER, "rootTriangles", problem, triangles.length);
     rootWarm = trianglesAtRoot(n, rootVertex, triangles, mu);
   }
-  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, region: null, openKids: 0, seq: seq++, warmTriangles: rootWarm, gain: Infinity });
+  // Orbital branching: the automorphisms, and those used by the branches so far (renumbered).
+  const autos = options.symmetry === false || n === 0 ? null : listAutomorphisms(graph);
+  const elements = autos !== null && autos.elements.length > 1 ? autos.elements : null;
+  const orbital: TreeOrbitalBranch[] = [];
+  const usedAutos: number[][] = [];
+  const autoIndex = new Map<number, number>();
+  const useAuto = (e: number): number => {
+    let k = autoIndex.get(e);
+    if (k === undefined) {
+      k = usedAutos.length;
+      usedAutos.push(Array.from(elements![e]));
+      autoIndex.set(e, k);
+    }
+    return k;
+  };
+  let rootStab: Int32Array | null = null;
+  let orbitalBranches = 0;
+  if (elements !== null) {
+    const all = Int32Array.from(elements.keys());
+    rootStab = childStabiliser(elements, all, [rootVertex]);
+    if (rootStab.length <= 1) rootStab = null;
+  }
+  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, region: null, openKids: 0, seq: seq++, warmTriangles: rootWarm, gain: Infinity, stab: rootStab, share: 1 });
   let nodes = 0;
   let status: TreeSearchRecord["status"] = "optimal";
   let lastProgress = t0;
@@ -340,7 +378,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
       node.region = { vertices: path.filter((_, i) => i % 2 === 0), sides: path.filter((_, i) => i % 2 === 1), bound: floorCutBound(red.offset + ex.upper), certificate: { kind: "exhaustive" } };
       releaseWarm(node);
       closed.push(node);
-      closedShare += 2 ** -node.depth;
+      closedShare += node.share;
       continue;
     }
     const target = lower - red.offset;
@@ -364,7 +402,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     offer(toFull(rounded.partition));
     if (bound <= lower) {
       closed.push(node);
-      closedShare += 2 ** -node.depth;
+      closedShare += node.share;
     } else {
       // Branch on the free vertex least (or most) decided relative to z.
       const r = sdp.rank, V = sdp.vectors;
@@ -379,23 +417,66 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
         }
       }
       const v = red.free[pick - 1];
-      // Children keep z and every free vertex but v, in the same order: their warm start drops v's row.
-      const data = new Float64Array(freeCount * r);
-      data.set(V.subarray(0, pick * r));
-      data.set(V.subarray((pick + 1) * r), pick * r);
-      const childWarm: WarmVectors = { data, rank: r, holders: 2 };
-      warmBytes += data.byteLength;
-      node.openKids = 2;
+      let dotZ = 0;
+      for (let t = 0; t < r; t++) dotZ += V[t] * V[pick * r + t];
+      // Orbital branching where automorphisms keep the node's fixings: children "v on its likely
+      // side" and "v's orbit on the other side" (./symmetry.ts); else the two sides of v.
+      const orbit = node.stab !== null ? orbitWithWitnesses(elements!, node.stab, v) : null;
+      const kids: { fix: number[]; side: number; stab: Int32Array | null; share: number }[] = [];
+      if (orbit !== null && orbit.orbit.length > 1) {
+        const likely = dotZ >= 0 ? 0 : 1;
+        orbital.push({
+          vertices: path.filter((_, i) => i % 2 === 0), sides: path.filter((_, i) => i % 2 === 1),
+          vertex: v, side: likely, orbit: orbit.orbit, maps: orbit.witness.map((e) => (e < 0 ? -1 : useAuto(e))),
+        });
+        const tail = 2 ** -orbit.orbit.length;
+        kids.push({ fix: [v], side: likely, stab: childStabiliser(elements!, node.stab!, [v]), share: node.share * (1 - tail) });
+        kids.push({ fix: orbit.orbit, side: 1 - likely, stab: childStabiliser(elements!, node.stab!, orbit.orbit), share: node.share * tail });
+        orbitalBranches++;
+      } else {
+        const stab = node.stab !== null ? childStabiliser(elements!, node.stab, [v]) : null;
+        kids.push({ fix: [v], side: 0, stab, share: node.share / 2 }, { fix: [v], side: 1, stab, share: node.share / 2 });
+      }
+      // On a dive the second child goes on the stack first, so the first is searched first, as the heap would.
       const dive = fromStack || heap.size > maxOpen;
-      if (dive && !fromStack) dives++;
-      // On a dive side 1 goes on the stack first, so side 0 is searched first, as the heap would.
-      for (const s of dive ? [1, 0] : [0, 1]) {
+      if (dive) {
+        if (!fromStack) dives++;
+        kids.reverse();
+      }
+      node.openKids = kids.length;
+      // Both children of an ordinary branch share one copy of the warm start.
+      let shared: WarmVectors | null = null;
+      for (const kid of kids) {
+        // Reduced indices of the fixed vertices, largest first (so the earlier ones keep their index).
+        const picks = kid.fix.map((x) => 1 + lowerBoundIndex(red.free, x)).sort((a, b) => b - a);
+        // The child's warm start: the parent's vectors without the fixed vertices' rows.
+        let warmKid: WarmVectors;
+        if (shared !== null && kid.fix.length === 1) {
+          warmKid = shared;
+          warmKid.holders++;
+        } else {
+          const drop = new Uint8Array(freeCount + 1);
+          for (const q of picks) drop[q] = 1;
+          const data = new Float64Array((freeCount + 1 - picks.length) * r);
+          for (let i = 0, o = 0; i <= freeCount; i++) if (drop[i] === 0) data.set(V.subarray(i * r, (i + 1) * r), r * o++);
+          warmBytes += data.byteLength;
+          warmKid = { data, rank: r, holders: 1 };
+          if (kids.every((k) => k.fix.length === 1)) shared = warmKid;
+        }
         const side = nodeSide.slice();
-        side[v] = s;
-        const inherited = relaxation === "triangles" && sdp.certificate.mu.length > 0 ? mapTrianglesAfterFix(sdp.certificate.triangles, sdp.certificate.mu, pick, s) : null;
+        const added: number[] = [];
+        let inherited: Node["warmTriangles"] = relaxation === "triangles" && sdp.certificate.mu.length > 0 ? { triangles: sdp.certificate.triangles, mu: sdp.certificate.mu } : null;
+        for (const q of picks) if (inherited !== null) inherited = mapTrianglesAfterFix(inherited.triangles, inherited.mu, q, kid.side);
+        for (const x of kid.fix) {
+          side[x] = kid.side;
+          added.push(x, kid.side);
+        }
         const gain = sdp.rounds > 0 ? sdp.plainValue - sdp.value : node.gain;
         if (inherited !== null) warmBytes += inherited.triangles.byteLength + inherited.mu.byteLength;
-        const child: Node = { side, path: [...path, v, s], depth: node.depth + 1, bound, parent: node, warm: childWarm, region: null, openKids: 0, seq: seq++, warmTriangles: inherited, gain };
+        const child: Node = {
+          side, path: [...path, ...added], depth: node.depth + 1, bound, parent: node, warm: warmKid, region: null, openKids: 0,
+          seq: seq++, warmTriangles: inherited, gain, stab: kid.stab !== null && kid.stab.length > 1 ? kid.stab : null, share: kid.share,
+        };
         if (dive) stack.push(child);
         else heap.push(child);
       }
@@ -441,8 +522,11 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     upper,
     nodes,
     relaxation,
-    certificate: { rootVertex, relaxation, regions },
-    details: { workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size + stack.length, warmDropped, dives, beatenOnDives },
+    certificate: { rootVertex, relaxation, regions, ...(orbital.length > 0 ? { orbital, automorphisms: usedAutos } : {}) },
+    details: {
+      workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size + stack.length, warmDropped, dives, beatenOnDives,
+      automorphisms: autos === null ? 0 : autos.elements.length, automorphismsComplete: autos === null ? false : autos.complete, orbitalBranches,
+    },
   };
 }
 
@@ -503,6 +587,56 @@ export function verifyTreeCertificate(graph: Graph, cert: TreeCertificate): Tree
     if (b > reg.bound) return bad(`region ${q}: re-derived bound ${b} is above the claimed ${reg.bound}`);
     bound = Math.max(bound, b);
   }
+  // Fixings after the root: distinct vertices other than the root, sides 0 or 1.
+  const validPath = (vertices: unknown, sides: unknown): vertices is number[] => {
+    if (!Array.isArray(vertices) || !Array.isArray(sides) || vertices.length !== sides.length) return false;
+    const seen = new Set<number>([cert.rootVertex]);
+    for (let k = 0; k < vertices.length; k++) {
+      const v = vertices[k], s = sides[k];
+      if (!Number.isInteger(v) || v < 0 || v >= n || seen.has(v) || (s !== 0 && s !== 1)) return false;
+      seen.add(v);
+    }
+    return true;
+  };
+  const walk = (vertices: readonly number[], sides: readonly number[]): Trie => {
+    let t = root;
+    for (let k = 0; k < vertices.length; k++) {
+      const key = `${vertices[k]}:${sides[k]}`;
+      let next = t.kids.get(key);
+      if (next === undefined) t.kids.set(key, (next = { region: false, kids: new Map() }));
+      t = next;
+    }
+    return t;
+  };
+  // Orbital branches (./symmetry.ts): each map must be an automorphism keeping the node's fixings
+  // and sides and sending its orbit vertex to the branching vertex.
+  const orbital = cert.orbital ?? [];
+  const branchAt = new Map<Trie, TreeOrbitalBranch[]>();
+  if (orbital.length > 0) {
+    const autos = cert.automorphisms;
+    if (!Array.isArray(autos)) return bad("orbital branches without automorphisms");
+    const autoOk = new Map<number, boolean>();
+    for (let q = 0; q < orbital.length; q++) {
+      const b = orbital[q];
+      if (!validPath(b.vertices, b.sides)) return bad(`orbital branch ${q}: invalid fixings`);
+      const withOrbit = [...b.vertices, ...(Array.isArray(b.orbit) ? b.orbit : [])];
+      if (!Array.isArray(b.orbit) || b.orbit.length < 1 || b.orbit[0] !== b.vertex || !validPath(withOrbit, withOrbit.map(() => 0)) || (b.side !== 0 && b.side !== 1)) return bad(`orbital branch ${q}: invalid orbit`);
+      if (!Array.isArray(b.maps) || b.maps.length !== b.orbit.length || b.maps[0] !== -1) return bad(`orbital branch ${q}: one map per orbit vertex needed (−1 for the branching vertex)`);
+      for (let i = 1; i < b.orbit.length; i++) {
+        const e = b.maps[i];
+        const perm = Number.isInteger(e) && e >= 0 && e < autos.length ? autos[e] : undefined;
+        if (perm === undefined) return bad(`orbital branch ${q}: automorphism ${e} is not listed`);
+        let ok = autoOk.get(e);
+        if (ok === undefined) autoOk.set(e, (ok = Array.isArray(perm) && isAutomorphism(graph, perm)));
+        if (!ok) return bad(`automorphism ${e} is not an automorphism of the graph`);
+        if (perm[b.orbit[i]] !== b.vertex || !keepsFixings(perm, cert.rootVertex, b.vertices, b.sides)) {
+          return bad(`orbital branch ${q}: automorphism ${e} does not send vertex ${b.orbit[i]} to ${b.vertex} keeping the fixings`);
+        }
+      }
+      const t = walk(b.vertices, b.sides);
+      branchAt.set(t, [...(branchAt.get(t) ?? []), b]);
+    }
+  }
   const covers = (t: Trie): boolean => {
     if (t.region) return true;
     const byVertex = new Map<string, number>();
@@ -512,8 +646,31 @@ export function verifyTreeCertificate(graph: Graph, cert: TreeCertificate): Tree
       byVertex.set(v, (byVertex.get(v) ?? 0) + 1);
     }
     for (const c of byVertex.values()) if (c === 2) return true;
+    // An orbital branch: "vertex on side" covered, and the chain fixing the whole orbit on the other side.
+    for (const b of branchAt.get(t) ?? []) {
+      const first = t.kids.get(`${b.vertex}:${b.side}`);
+      if (first === undefined || !covers(first)) continue;
+      let at: Trie | undefined = t, done = false;
+      for (let k = 0; k < b.orbit.length && at !== undefined && !done; k++) {
+        at = at.kids.get(`${b.orbit[k]}:${1 - b.side}`);
+        if (at !== undefined && at.region) done = true;
+      }
+      if (done || (at !== undefined && covers(at))) return true;
+    }
     return false;
   };
   if (!covers(root)) return bad("the regions do not cover every cut");
-  return { ok: true, bound, message: `${cert.regions.length} regions cover every cut; largest bound ${bound}` };
+  const also = orbital.length > 0 ? ` and ${orbital.length} orbital branches` : "";
+  return { ok: true, bound, message: `${cert.regions.length} regions${also} cover every cut; largest bound ${bound}` };
+}
+
+/** Index of x in the sorted array a (x must be present). */
+function lowerBoundIndex(a: Int32Array, x: number): number {
+  let lo = 0, hi = a.length - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (a[mid] < x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
 }

@@ -16,3 +16,4 @@ export { findCompleteBipartite, type CompleteBipartiteResult } from "./complete-
 export * from "./strongly-regular.js";
 export * from "./describe.js";
 export * from "./summary-record.js";
+export { listAutomorphisms, isAutomorphism, type AutomorphismList, type AutomorphismOptions } from "./automorphisms.js";
