@@ -44,11 +44,35 @@ describe("halfplus cut", () => {
     expect(JSON.parse(lines[0]).lower).toBeLessThanOrEqual(JSON.parse(lines[0]).upper);
   });
 
+  it("--symmetry on branches on orbits and records the maps verify re-checks; off records none", () => {
+    // Values: the exact optimum of GP(15,4) from the tree search itself on both settings, and verify
+    // re-derives every region bound and map from the graph (test/tree-orbital.test.ts checks the
+    // same rule against exactMaxCut and the MILP). Plumbing check, common practice, no source.
+    const seen: Record<string, unknown> = {};
+    for (const s of ["on", "off"]) {
+      const out = join(dir, `gp-${s}.jsonl`);
+      const r = halfplus(["cut", "generalized-petersen:n=15,k=4", "--effort", "deep", "--node-bound", "plain", "--branching", "most-decided", "--symmetry", s, "--work", "300000000", "--json", "--out", out]);
+      expect(r.code, r.stderr).toBe(0);
+      const rec = JSON.parse(r.stdout.trim());
+      const tree = rec.runs.find((x: { method: string }) => x.method === "exact-sdp-tree");
+      expect(tree?.status).toBe("optimal");
+      seen[s] = rec.lower;
+      expect(rec.exact).toBe(true);
+      if (s === "on") expect(tree.details.orbitalBranches).toBeGreaterThan(0);
+      else expect(tree.details.orbitalBranches).toBe(0);
+      expect(JSON.stringify(rec.certificate).includes('"orbital"')).toBe(s === "on");
+      const v = halfplus(["verify", out]);
+      expect(v.code, v.stdout).toBe(0);
+    }
+    expect(seen["on"]).toBe(seen["off"]);
+  });
+
   it("bad options and sources exit 2 with one line", () => {
     for (const args of [
       ["cut", "petersen", "--seconds", "0"],
       ["cut", "petersen", "--effort", "fastest"],
       ["cut", "petersen", "--effort", "deep", "--branching", "random"],
+      ["cut", "petersen", "--effort", "deep", "--symmetry", "maybe"],
       ["cut", "petersen", "--solver-seed", "-3"],
       ["cut", "petersen", "--seed", "3"],
       ["cut", "petersen", "--method", "exact"],

@@ -181,6 +181,14 @@ export const cutCommand: CommandSpec = {
       choices: TREE_BRANCHINGS,
       placeholder: "R",
     },
+    {
+      name: "symmetry",
+      type: "string",
+      description: "effort deep: on (branch on whole orbits of the graph's automorphisms where they keep a node's fixings; the certificate lists the maps, verify re-checks them) or off",
+      default: "on",
+      choices: ["on", "off"],
+      placeholder: "S",
+    },
     { name: "node-budget", type: "integer", description: "effort deep: stop branch and bound after N nodes (a budget that gives the same result on any machine)", min: 1, max: 1e12, placeholder: "N" },
     { name: "solver-seed", type: "integer", description: "seed of the randomised solvers (local search, SDP start, rounding, breakout)", default: 0, min: 0, max: MAX_SEED, placeholder: "N" },
     { name: "json", type: "boolean", description: "one JSON record per graph, one per line (what `halfplus verify` reads)" },
@@ -219,7 +227,7 @@ export const cutCommand: CommandSpec = {
     const budget = work !== undefined ? { work } : { seconds: seconds ?? DEFAULT_BRACKET_SECONDS };
     const solverSeed = o["solver-seed"] as number;
     const effort = o["effort"] as BracketEffort;
-    const deep = { relaxation: o["node-bound"] as TreeRelaxation, treeNodes: o["node-budget"] as number | undefined, branching: o["branching"] as TreeBranching };
+    const deep = { relaxation: o["node-bound"] as TreeRelaxation, treeNodes: o["node-budget"] as number | undefined, branching: o["branching"] as TreeBranching, symmetry: o["symmetry"] === "on" };
     const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
     const outPath = o["out"] as string | undefined;
     if (outPath === "") throw new InputError("--out needs a file name");
