@@ -19,15 +19,15 @@ function newestSourceMtime(dir: string): number {
 /** `npm test` builds first; when a suite runs on its own, rebuild a missing or stale dist. */
 export function ensureBuilt(): void {
   const notebookEntry = join(ROOT, "dist", "notebook", "index.js");
-  // The sweep workers' single-file bundle (scripts/bundle-worker.mjs), the build's second step.
-  const workerBundle = join(ROOT, "dist", "experiment", "worker-bundle.js");
+  // The worker threads' single-file bundles (scripts/bundle-worker.mjs), the build's second step.
+  const workerBundles = ["experiment/worker-bundle.js", "cut/bracket/bracket-worker-bundle.js", "experiment/census/census-worker-bundle.js"].map((f) => join(ROOT, "dist", f));
+  const srcTime = newestSourceMtime(join(ROOT, "src"));
   const fresh =
     existsSync(BIN) &&
     existsSync(notebookEntry) &&
-    existsSync(workerBundle) &&
-    statSync(BIN).mtimeMs >= newestSourceMtime(join(ROOT, "src")) &&
-    statSync(workerBundle).mtimeMs >= newestSourceMtime(join(ROOT, "src")) &&
-    statSync(notebookEntry).mtimeMs >= Math.max(newestSourceMtime(join(ROOT, "src")), newestSourceMtime(join(ROOT, "kernel-helpers")));
+    workerBundles.every((f) => existsSync(f) && statSync(f).mtimeMs >= srcTime) &&
+    statSync(BIN).mtimeMs >= srcTime &&
+    statSync(notebookEntry).mtimeMs >= Math.max(srcTime, newestSourceMtime(join(ROOT, "kernel-helpers")));
   if (fresh) return;
   // Both builds: the package (src → dist) and halfplus/notebook (kernel-helpers → dist/notebook).
   execSync("npm run --silent build", { cwd: ROOT, stdio: "inherit" });

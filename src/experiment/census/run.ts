@@ -94,7 +94,10 @@ function nowIso(): string {
   return new Date().toISOString();
 }
 
-/** Worker threads for census batches; their script comes from the build under the test runner. */
+/**
+ * Worker threads for census batches. They start from one file, the build's bundle of census-worker.js
+ * and everything it imports (scripts/bundle-worker.mjs), which comes from dist/ under the test runner.
+ */
 class CensusPool {
   private readonly workers: Worker[] = [];
   private readonly waiting = new Map<number, { resolve: (r: CensusBatchResult) => void; reject: (e: Error) => void; worker: number }>();
@@ -102,11 +105,10 @@ class CensusPool {
   private closing = false;
 
   constructor(size: number) {
-    let script = new URL("./census-worker.js", import.meta.url);
-    if (!import.meta.url.endsWith(".js")) {
-      script = new URL("../../../dist/experiment/census/census-worker.js", import.meta.url);
-      if (!existsSync(fileURLToPath(script))) throw new Error(`census workers need the build: run npm run build (missing ${fileURLToPath(script)})`);
-    }
+    const script = import.meta.url.endsWith(".js")
+      ? new URL("./census-worker-bundle.js", import.meta.url)
+      : new URL("../../../dist/experiment/census/census-worker-bundle.js", import.meta.url);
+    if (!existsSync(fileURLToPath(script))) throw new Error(`census workers need the build: run npm run build (missing ${fileURLToPath(script)})`);
     for (let i = 0; i < size; i++) {
       const w = new Worker(script);
       this.load.push(0);
