@@ -461,3 +461,24 @@ describe("sweep messages packed per batch (wire.ts)", () => {
     }
   });
 });
+
+describe("per-graph results kept on the graph (src/graph/per-graph.ts)", () => {
+  it("are computed once per graph object, equal a fresh computation, and leave the graph's value alone", () => {
+    const rng = new Rng(5150);
+    for (const n of [1, 7, 20]) {
+      const g = randomGraph(n, 0.4, rng);
+      const copy = graphFromParts(graphToParts(g));
+      const first = sharedTriangleCount(g);
+      expect(sharedTriangleCount(g)).toBe(first);
+      expect(sharedDegeneracy(g)).toBe(sharedDegeneracy(g));
+      // The definitions (common practice, no source): the plain functions on a graph that kept nothing.
+      expect(first).toEqual(countTriangles(copy));
+      expect(sharedDegeneracy(g)).toEqual(degeneracy(copy));
+      // What is kept is not part of the graph: equal to its copy, left out of keys, clones and JSON.
+      expect(g).toEqual(copy);
+      expect(Object.keys(g)).toEqual(Object.keys(copy));
+      expect(JSON.stringify(structuredClone(g))).toBe(JSON.stringify(copy));
+      expect(sharedTriangleCount(copy)).not.toBe(first);
+    }
+  });
+});
