@@ -7,7 +7,8 @@
 // store's background log checkpoints (every committed row still there), the vector rounding's
 // trial loop (against the same trials counted by cutValue), the decomposition's lighter rounding
 // call (against vectorMethodRound's record), a file graph's hash handed to the worker (against
-// hashing the rebuilt graph), sweep rows bound without conversion (read back equal), and the
+// hashing the rebuilt graph), sweep rows bound without conversion (read back equal), the
+// messages packed per batch between the sweep's threads (against runJob's rows), and the
 // searches that reuse scratch arrays between calls (the same answers whatever ran before, and
 // the brute-force triangle count and max cut). The
 // reference values are definitions (common practice, no source): a subgraph's edges, a cut's
@@ -36,7 +37,8 @@ import { FlipState } from "../src/cut/heuristic/flip-state.js";
 import { cutValue, surplusOf } from "../src/graph/cut-value.js";
 import { graphFromParts, graphToParts } from "../src/graph/graph.js";
 import { graphFromPartsWithHash, graphHash } from "../src/graph/hash.js";
-import { runJob, type JobInput } from "../src/experiment/job.js";
+import { EVALUATOR_NAMES, runJob, type JobInput } from "../src/experiment/job.js";
+import { decodeRows, encodeJobs, runJobsMessage } from "../src/experiment/wire.js";
 import { girth } from "../src/graph/structure/girth.js";
 import { countFourCycles } from "../src/graph/structure/four-cycles.js";
 import { findCycle } from "../src/graph/structure/cycles.js";
@@ -416,6 +418,67 @@ describe("searches reusing scratch arrays", () => {
       expect(answers(g)).toEqual(forward[i]);
       expect(countTriangles(g).total).toBe(bruteTriangles(g));
       if (g.n <= 12) expect(grayCodeMaxCut(g).value).toBe(bruteMaxCut(g));
+    }
+  });
+});
+
+describe("sweep messages packed per batch (wire.ts)", () => {
+  it("give the rows runJob gives (the plain path), for family specs, file graphs (weighted too) and a failing job", () => {
+    const rng = new Rng(91);
+    const settings = { effort: "exact" as const, seconds: null, work: 1e9 };
+    const context = { evaluators: EVALUATOR_NAMES, degrees: ["degeneracy", "maxDegree"], version: "0", shared: { gitCommit: null, nodeVersion: "v", platform: "p" } };
+    const jobs: JobInput[] = [];
+    const fileJob = (g: Graph, position: number, solverSeed: number): JobInput => ({
+      key: `h${position}|${solverSeed}`,
+      family: "f",
+      graph: { kind: "parts", parts: graphToParts(g), hash: graphHash(g), source: { path: "x.g6", position, format: "graph6" } },
+      params: null,
+      graphSeed: null,
+      solverSeed,
+      settings,
+    });
+    for (let k = 0; k < 6; k++) jobs.push(fileJob(randomGraph(7, 0.5, rng), k + 1, k % 2));
+    jobs.push(fileJob(randomGraph(9, 0.4, rng, { weight: (r) => 1 + r.nextInt(5) }), 7, 0));
+    jobs.push({ key: "spec", family: "gnp", graph: { kind: "spec", spec: "gnp:n=10,p=0.3,seed=4" }, params: '{"n":10,"p":0.3}', graphSeed: 4, solverSeed: 3, settings: { effort: "auto", seconds: null, work: 2e6 } });
+    const plain = jobs.map((j) => runJob(j, context).values);
+    // Wall-clock cells differ run to run (common practice, no source): left out of the comparison.
+    const timing = new Set(["seconds", "startedAt", "runs", "budgetStages"].map((c) => COLUMNS.findIndex((x) => x.name === c)));
+    const steady = (v: readonly unknown[]) => v.map((x, i) => (timing.has(i) ? null : x instanceof Uint8Array ? Array.from(x) : x));
+    // structuredClone stands in for the thread boundary (the same serialiser as postMessage).
+    const sent = structuredClone(encodeJobs(5, [...jobs, { ...jobs[0], key: "bad", graph: { kind: "spec", spec: "no-such-family:n=3" } }, jobs[1]], context));
+    const back = structuredClone(runJobsMessage(sent, context));
+    expect(back.rows).toBe(jobs.length);
+    expect(back.failure?.inputError).toBe(true);
+    const decoded = decodeRows(back, [...jobs, { ...jobs[0], key: "bad" }], context);
+    expect(decoded.length).toBe(jobs.length + 1);
+    expect(decoded[jobs.length]).toMatchObject({ key: "bad", inputError: true });
+    for (let k = 0; k < jobs.length; k++) {
+      const d = decoded[k];
+      expect(d.error).toBeUndefined();
+      if (d.error !== undefined) continue;
+      expect(d.key).toBe(jobs[k].key);
+      expect(steady(d.values)).toEqual(steady(plain[k]));
+    }
+  });
+});
+
+describe("per-graph results kept on the graph (src/graph/per-graph.ts)", () => {
+  it("are computed once per graph object, equal a fresh computation, and leave the graph's value alone", () => {
+    const rng = new Rng(5150);
+    for (const n of [1, 7, 20]) {
+      const g = randomGraph(n, 0.4, rng);
+      const copy = graphFromParts(graphToParts(g));
+      const first = sharedTriangleCount(g);
+      expect(sharedTriangleCount(g)).toBe(first);
+      expect(sharedDegeneracy(g)).toBe(sharedDegeneracy(g));
+      // The definitions (common practice, no source): the plain functions on a graph that kept nothing.
+      expect(first).toEqual(countTriangles(copy));
+      expect(sharedDegeneracy(g)).toEqual(degeneracy(copy));
+      // What is kept is not part of the graph: equal to its copy, left out of keys, clones and JSON.
+      expect(g).toEqual(copy);
+      expect(Object.keys(g)).toEqual(Object.keys(copy));
+      expect(JSON.stringify(structuredClone(g))).toBe(JSON.stringify(copy));
+      expect(sharedTriangleCount(copy)).not.toBe(first);
     }
   });
 });

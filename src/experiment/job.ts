@@ -168,18 +168,22 @@ function embeddedOfText(text: string): EmbeddedGraph {
 
 export type JobGraph = { kind: "spec"; spec: string } | { kind: "parts"; parts: GraphParts; hash: string; source: FileSource };
 
-export interface JobInput {
-  key: string;
-  family: string;
+/** What a worker needs to compute a job's cells; the rest of JobInput is filled in on the main thread. */
+export interface WorkerJob {
   graph: JobGraph;
-  /** Family parameters as JSON text, or null for file graphs. */
-  params: string | null;
-  graphSeed: number | null;
   solverSeed: number;
   settings: BracketSettings;
 }
 
-/** What every job of a sweep shares (sent once per batch, not once per job). */
+export interface JobInput extends WorkerJob {
+  key: string;
+  family: string;
+  /** Family parameters as JSON text, or null for file graphs. */
+  params: string | null;
+  graphSeed: number | null;
+}
+
+/** What every job of a sweep shares (sent once per worker, not once per job). */
 export interface JobContext {
   evaluators: readonly string[];
   degrees: readonly string[];
@@ -201,10 +205,58 @@ const STRUCTURE_SEARCH_NODES = 10_000_000;
 /** Column positions by name: rows are filled as value arrays (a tiny job's row costs about as much as its solver). */
 const I: Readonly<Record<string, number>> = Object.fromEntries(COLUMNS.map((c, i) => [c.name, i]));
 
+/**
+ * Columns identityCells fills from the job and the context alone: the main thread has them, so a
+ * worker computes (and sends back) only the others (WORKER_COLUMNS). The context's `shared` columns
+ * are filled there too.
+ */
+const IDENTITY_COLUMNS: readonly string[] = ["key", "origin", "family", "graph", "spec", "params", "graphSeed", "sourcePath", "sourcePosition", "sourceFormat", "budgetSeconds", "workLimit", "version"];
+
+/** Positions (in COLUMNS) of the cells computeCells may set: every column but IDENTITY_COLUMNS. */
+export const WORKER_COLUMNS: readonly number[] = COLUMNS.map((_, i) => i).filter((i) => !IDENTITY_COLUMNS.includes(COLUMNS[i].name));
+
 const bool = (b: boolean | null): number | null => (b === null ? null : b ? 1 : 0);
+
+/** A context's evaluators and degree measures as flags, worked out once per context rather than once per row. */
+interface Selection {
+  evaluators: readonly Evaluator[];
+  minDegree: boolean;
+  maxDegree: boolean;
+  averageDegree: boolean;
+  degeneracy: boolean;
+  shared: readonly (readonly [number, CellValue])[];
+}
+const selections = new WeakMap<JobContext, Selection>();
+function selectionOf(context: JobContext): Selection {
+  let s = selections.get(context);
+  if (s === undefined) {
+    const keep = context.degrees;
+    s = {
+      evaluators: EVALUATORS.filter((e) => context.evaluators.includes(e.name)),
+      minDegree: keep.includes("minDegree"),
+      maxDegree: keep.includes("maxDegree"),
+      averageDegree: keep.includes("averageDegree"),
+      degeneracy: keep.includes("degeneracy"),
+      shared: Object.keys(context.shared).map((k) => [I[k], context.shared[k]] as const),
+    };
+    selections.set(context, s);
+  }
+  return s;
+}
 
 /** Build the graph, bracket it, measure it: one row. */
 export function runJob(job: JobInput, context: JobContext): JobOutput {
+  const v = new Array<CellValue>(COLUMNS.length).fill(null);
+  const solverSeconds = computeCells(job, context, v);
+  identityCells(job, context, v);
+  return { values: v, solverSeconds };
+}
+
+/**
+ * The row cells that need the job run (WORKER_COLUMNS), written into `v` (COLUMNS order; cells it
+ * leaves alone must hold null already). Returns the seconds inside bracket().
+ */
+export function computeCells(job: WorkerJob, context: JobContext, v: CellValue[]): number {
   const startedAt = new Date().toISOString();
   let graph: Graph;
   let notes: string[] = [];
@@ -236,39 +288,22 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
   );
   const solverSeconds = (performance.now() - t0) / 1000;
   const s = describeGraph(graph, { maxSearchNodes: STRUCTURE_SEARCH_NODES });
-  const keep = context.degrees;
+  const sel = selectionOf(context);
 
   let sdpUpper: number | null = null;
   for (const r of rec.runs) if (r.method === "sdp-certified" && r.role === "upper" && Number.isFinite(r.value)) sdpUpper = r.value;
-  const file = job.graph.kind === "parts" ? job.graph.source : null;
 
-  const v = new Array<CellValue>(COLUMNS.length).fill(null);
-  v[I.key] = job.key;
-  v[I.origin] = "sweep";
-  v[I.family] = job.family;
-  v[I.graph] = job.graph.kind === "spec" ? job.graph.spec : job.graph.hash;
-  v[I.spec] = job.graph.kind === "spec" ? job.graph.spec : null;
-  v[I.params] = job.params;
-  v[I.graphSeed] = job.graphSeed;
-  if (file !== null) {
-    v[I.sourcePath] = file.path;
-    v[I.sourcePosition] = file.position;
-    v[I.sourceFormat] = file.format;
-    v[I.embedded] = embedded;
-  }
+  if (job.graph.kind === "parts") v[I.embedded] = embedded;
   v[I.graphHash] = rec.graphHash;
   v[I.solverSeed] = rec.solverSeed;
   v[I.effort] = rec.effort;
-  v[I.budgetSeconds] = job.settings.seconds;
-  v[I.workLimit] = job.settings.work;
-  v[I.version] = context.version;
   v[I.n] = s.n;
   v[I.m] = s.m;
   v[I.totalWeight] = s.totalWeight;
-  if (keep.includes("minDegree")) v[I.minDegree] = s.minDegree;
-  if (keep.includes("maxDegree")) v[I.maxDegree] = s.maxDegree;
-  if (keep.includes("averageDegree")) v[I.averageDegree] = s.avgDegree;
-  if (keep.includes("degeneracy")) v[I.degeneracy] = s.degeneracy;
+  if (sel.minDegree) v[I.minDegree] = s.minDegree;
+  if (sel.maxDegree) v[I.maxDegree] = s.maxDegree;
+  if (sel.averageDegree) v[I.averageDegree] = s.avgDegree;
+  if (sel.degeneracy) v[I.degeneracy] = s.degeneracy;
   v[I.triangles] = s.triangles;
   v[I.fourCycles] = s.fourCycles;
   v[I.girth] = s.girth;
@@ -298,18 +333,37 @@ export function runJob(job: JobInput, context: JobContext): JobOutput {
   v[I.certificate] = packJson(rec.certificate);
   v[I.runs] = packJson(rec.runs);
   v[I.budgetStages] = packJson(rec.budget.stages);
-  for (const e of EVALUATORS) {
-    if (!context.evaluators.includes(e.name)) continue;
+  for (const e of sel.evaluators) {
     // The triangle-free bound does not apply to a graph with a triangle: no need to evaluate it.
     if (e.name === "triangle-free" && s.free.K3 === false) continue;
     const records = e.run(graph);
-    e.columns.forEach((column, k) => {
+    for (let k = 0; k < e.columns.length; k++) {
       const b = records[k];
-      v[I[column]] = b.applies ? b.surplus : null;
-    });
+      v[I[e.columns[k]]] = b.applies ? b.surplus : null;
+    }
   }
-  for (const k of Object.keys(context.shared)) v[I[k]] = context.shared[k];
-  return { values: v, solverSeconds };
+  return solverSeconds;
+}
+
+/** The row cells told by the job and the context alone (IDENTITY_COLUMNS and the context's shared columns), written into `v`. */
+export function identityCells(job: JobInput, context: JobContext, v: CellValue[]): void {
+  const file = job.graph.kind === "parts" ? job.graph.source : null;
+  v[I.key] = job.key;
+  v[I.origin] = "sweep";
+  v[I.family] = job.family;
+  v[I.graph] = job.graph.kind === "spec" ? job.graph.spec : job.graph.hash;
+  v[I.spec] = job.graph.kind === "spec" ? job.graph.spec : null;
+  v[I.params] = job.params;
+  v[I.graphSeed] = job.graphSeed;
+  if (file !== null) {
+    v[I.sourcePath] = file.path;
+    v[I.sourcePosition] = file.position;
+    v[I.sourceFormat] = file.format;
+  }
+  v[I.budgetSeconds] = job.settings.seconds;
+  v[I.workLimit] = job.settings.work;
+  v[I.version] = context.version;
+  for (const [i, value] of selectionOf(context).shared) v[i] = value;
 }
 
 // ---------------------------------------------------------------------------------------------

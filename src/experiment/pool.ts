@@ -1,6 +1,7 @@
 // Runs batches of sweep jobs on worker threads (one per core by default), or in the calling
 // thread when asked for 0 workers. Jobs cross the thread boundary as plain data: a family spec
-// (the worker builds the graph) or graphToParts arrays (graphs read from files).
+// (the worker builds the graph) or graphToParts arrays (graphs read from files), packed per batch
+// by wire.ts, which also packs the rows coming back.
 
 import { existsSync } from "node:fs";
 import { fileURLToPath } from "node:url";
@@ -8,6 +9,7 @@ import { Worker } from "node:worker_threads";
 import { isInputError } from "../errors.js";
 import type { CellValue } from "./columns.js";
 import { runJob, type JobContext, type JobInput } from "./job.js";
+import { decodeRows, encodeJobs, transferables, type RowsMessage } from "./wire.js";
 
 export interface BatchRequest {
   batch: number;
@@ -84,8 +86,11 @@ class InlineRunner implements JobRunner {
 
 interface Slot {
   worker: Worker;
-  pending: Map<number, { resolve: (r: BatchResult) => void; reject: (e: Error) => void }>;
+  /** Each batch in flight with the jobs and context it was sent with (its rows are completed from them). */
+  pending: Map<number, { resolve: (r: BatchResult) => void; reject: (e: Error) => void; jobs: JobInput[]; context: JobContext }>;
   dead: Error | null;
+  /** The context this worker holds: sent with its first batch and again only when it changes. */
+  context: JobContext | null;
 }
 
 class ThreadRunner implements JobRunner {
@@ -96,11 +101,16 @@ class ThreadRunner implements JobRunner {
   constructor(readonly size: number) {
     const script = workerScript();
     for (let i = 0; i < size; i++) {
-      const slot: Slot = { worker: new Worker(script), pending: new Map(), dead: null };
-      slot.worker.on("message", (r: BatchResult) => {
+      const slot: Slot = { worker: new Worker(script), pending: new Map(), dead: null, context: null };
+      slot.worker.on("message", (r: RowsMessage) => {
         const p = slot.pending.get(r.batch);
         slot.pending.delete(r.batch);
-        p?.resolve(r);
+        if (p === undefined) return;
+        try {
+          p.resolve({ batch: r.batch, results: decodeRows(r, p.jobs, p.context), seconds: r.seconds });
+        } catch (e) {
+          p.reject(e instanceof Error ? e : new Error(String(e)));
+        }
       });
       const fail = (e: Error): void => {
         slot.dead = e;
@@ -123,8 +133,10 @@ class ThreadRunner implements JobRunner {
     for (const s of alive) if (s.pending.size < slot.pending.size) slot = s;
     const batch = this.next++;
     return new Promise((resolve, reject) => {
-      slot.pending.set(batch, { resolve, reject });
-      slot.worker.postMessage({ batch, jobs, context } satisfies BatchRequest);
+      slot.pending.set(batch, { resolve, reject, jobs, context });
+      const message = encodeJobs(batch, jobs, slot.context === context ? null : context);
+      slot.context = context;
+      slot.worker.postMessage(message, transferables(message));
     });
   }
 

@@ -16,6 +16,14 @@ export class Graph {
   readonly weights: Float64Array | null;
   /** Sum of edge weights (m when unweighted). */
   readonly totalWeight: number;
+  /**
+   * Results derived from this graph, one slot per kind (src/graph/per-graph.ts). Not part of the
+   * graph's value: a private field, so copies, comparisons and serialisation leave it out (and,
+   * unlike a non-enumerable property, it costs the constructor nothing extra, where defineProperty cost ~400 ns a graph). Kept on the graph
+   * rather than in WeakMaps: a sweep makes a few graphs per tiny job, and each WeakMap entry of a
+   * short-lived key cost the garbage collector more than the job's own search.
+   */
+  readonly #derived: unknown[] = [];
 
   /** Use `buildGraph`; this constructor trusts its arguments. */
   constructor(n: number, offsets: Int32Array, neighbors: Int32Array, weights: Float64Array | null) {
@@ -30,6 +38,11 @@ export class Graph {
     // Each weight is stored twice; halve once, after summing, so integer weights stay exact.
     this.totalWeight = weights === null ? w : w / 2;
     Object.freeze(this);
+  }
+
+  /** The slots of results derived from this graph (src/graph/per-graph.ts only). */
+  get derived(): unknown[] {
+    return this.#derived;
   }
 
   get weighted(): boolean {

@@ -3,13 +3,14 @@
 
 import { createHash } from "node:crypto";
 import { graphFromParts, type Graph, type GraphParts } from "./graph.js";
+import { graphSlot } from "./per-graph.js";
 
 // Reused between calls (hash.update copies what it is given): sweeps hash one small graph per job.
 const HEAD = Buffer.alloc(24);
 const CHUNKS = Buffer.alloc(4096 * 16);
 
 /** Hashes already computed for graphs rebuilt from parts (graphFromPartsWithHash); graphs are immutable. */
-const known = new WeakMap<Graph, string>();
+const known = graphSlot<string>();
 
 /**
  * The graph of `parts` (graphFromParts, trusted), with `hash` remembered as its graphHash. The
