@@ -4,7 +4,7 @@
 // prints its stack.
 
 import { echo, isInputError, oneLine } from "../errors.js";
-import { commandHelp, parseArgs, type CommandIO, type CommandSpec } from "./args.js";
+import { commandHelp, parseArgs, type CommandIO } from "./args.js";
 import { COMMANDS } from "./commands/index.js";
 
 function overview(): string {
@@ -38,11 +38,13 @@ export async function runCli(argv: readonly string[], io: CommandIO): Promise<nu
     io.stdout.write(`${await packageVersion()}\n`);
     return 0;
   }
-  const cmd: CommandSpec | undefined = COMMANDS.find((c) => c.name === name);
-  if (cmd === undefined) {
+  const entry = COMMANDS.find((c) => c.name === name);
+  if (entry === undefined) {
     io.stderr.write(`halfplus: unknown command ${oneLine(echo(name))} (run halfplus --help)\n`);
     return 2;
   }
+  // Only the invoked command's module (and what it imports) is loaded.
+  const cmd = await entry.load();
   if (rest.includes("--help") || rest.includes("-h")) {
     io.stdout.write(commandHelp(cmd));
     return 0;

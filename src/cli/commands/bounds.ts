@@ -10,6 +10,7 @@ import { GRAY_MAX_VERTICES } from "../../cut/exact/gray-code.js";
 import { MAX_SEED } from "../../random/seed.js";
 import { openSource } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { formatNumber as num, formatRows, formatTable } from "../format.js";
 import { writeLine } from "../output.js";
 import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
@@ -100,7 +101,7 @@ export function formatAccount(label: string, a: BoundsAccountRecord): string {
 
 export const boundsCommand: CommandSpec = {
   name: "bounds",
-  summary: "each surplus argument against the bracket: its surplus, its share, the proof step that gives most away",
+  summary: COMMAND_SUMMARIES["bounds"],
   positionals: "<source>",
   minPositionals: 1,
   maxPositionals: 1,

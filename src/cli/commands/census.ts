@@ -4,6 +4,7 @@ import { existsSync } from "node:fs";
 import { availableParallelism } from "node:os";
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import {
   censusesToShow,
   censusProgressDisplay,
@@ -39,7 +40,7 @@ function tableLines(name: string, source: string, counted: number, complete: boo
 
 export const censusCommand: CommandSpec = {
   name: "census",
-  summary: "exact max cut of every graph in a graph6/sparse6 stream, aggregated per (n, m) in a results store; resumable",
+  summary: COMMAND_SUMMARIES["census"],
   positionals: "<stream | store.db>",
   minPositionals: 1,
   maxPositionals: 1,

@@ -7,6 +7,7 @@ import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { InputError, echo } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { arraySpec, clusterStatus, createSlurmRun, mergeRun, resubmitShards, submitRun, type ClusterStatus, type ShardStatus } from "../../experiment/index.js";
 import { formatNumber } from "../format.js";
 import { writeLine } from "../output.js";
@@ -56,7 +57,7 @@ export function statusText(st: ClusterStatus): string {
 
 export const clusterCommand: CommandSpec = {
   name: "cluster",
-  summary: "run a sweep plan on a Slurm cluster: a job array over its shards, status, resubmitting what died, merging",
+  summary: COMMAND_SUMMARIES["cluster"],
   positionals: "slurm <plan.json> | status <dir> | resubmit <dir> | merge <dir>",
   minPositionals: 2,
   maxPositionals: 2,

@@ -4,14 +4,16 @@
 // write the best verifiable record so far, marked `interrupted`, before exiting with 130 / 143.
 import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
-import { DEFAULT_BRACKET_SECONDS, MAX_BRACKET_WORK, type BracketProgress } from "../../cut/bracket/bracket.js";
+import type { BracketProgress } from "../../cut/bracket/bracket.js";
+import { DEFAULT_BRACKET_SECONDS, MAX_BRACKET_WORK } from "../../cut/bracket/budget-limits.js";
 import { BracketRunner, type RunningBracket } from "../../cut/bracket/bracket-runner.js";
-import { TREE_BRANCHINGS, TREE_RELAXATIONS, type TreeBranching, type TreeRelaxation } from "../../cut/tree/relaxation-tree.js";
+import { TREE_BRANCHINGS, TREE_RELAXATIONS, type TreeBranching, type TreeRelaxation } from "../../cut/tree/tree-choices.js";
 import { BRACKET_EFFORTS, recordJson, type BracketEffort, type BracketRecord, type BracketSnapshot } from "../../cut/bracket/record.js";
 import type { BracketBudget } from "../../cut/bracket/budget.js";
 import { MAX_SEED } from "../../random/seed.js";
 import { openSource } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { formatNumber as num, formatRows } from "../format.js";
 import { writeLine } from "../output.js";
 import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
@@ -136,7 +138,7 @@ export function progressWriter(stderr: NodeJS.WritableStream, label: string): { 
 
 export const cutCommand: CommandSpec = {
   name: "cut",
-  summary: "bracket the max cut of each graph, lower ≤ max cut ≤ upper, with evidence for both ends",
+  summary: COMMAND_SUMMARIES["cut"],
   positionals: "<source>",
   minPositionals: 1,
   maxPositionals: 1,

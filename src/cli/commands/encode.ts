@@ -6,6 +6,7 @@ import { InputError } from "../../errors.js";
 import { GRAPH_FORMATS, writeGraph, type GraphFormat } from "../../graph/formats/index.js";
 import { openSource } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { writeLine } from "../output.js";
 import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 
@@ -14,7 +15,7 @@ const STREAM_FORMATS: readonly GraphFormat[] = ["graph6", "sparse6"];
 
 export const encodeCommand: CommandSpec = {
   name: "encode",
-  summary: "write each graph of a source as graph6, sparse6, an edge list (or gset, DIMACS), for pipes",
+  summary: COMMAND_SUMMARIES["encode"],
   positionals: "<source>",
   minPositionals: 1,
   maxPositionals: 1,

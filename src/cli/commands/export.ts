@@ -4,6 +4,7 @@
 import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { exportLines, exportTableLines, openStore, parseStoreTable, resolveExportColumns, STORE_TABLES, type ExportFormat, type ExportOptions } from "../../experiment/index.js";
 import { writeLine } from "../output.js";
 
@@ -38,7 +39,7 @@ async function writeAll(target: string, lines: Iterable<string>, stdout: NodeJS.
 
 export const exportCommand: CommandSpec = {
   name: "export",
-  summary: "write the rows of a results store (or its census or hunt frontier tables) as CSV or JSON lines (same plan, same bytes)",
+  summary: COMMAND_SUMMARIES["export"],
   positionals: "<store.db>",
   minPositionals: 1,
   maxPositionals: 1,

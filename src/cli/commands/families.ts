@@ -7,6 +7,7 @@ import { getFamily, listFamilies, renamedFamily } from "../../families/registry.
 import { parseRawSpec } from "../../families/spec.js";
 import type { ParamValue, PredictedSize } from "../../families/types.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { formatNumber as num } from "../format.js";
 import { writeLine } from "../output.js";
 
@@ -67,7 +68,7 @@ export function formatFamilyReport(r: FamilyReport, detailed: boolean): string {
 
 export const familiesCommand: CommandSpec = {
   name: "families",
-  summary: "list graph families: parameters, subgraphs proven absent (with citations), predicted size",
+  summary: COMMAND_SUMMARIES["families"],
   positionals: "[name | spec]",
   minPositionals: 0,
   maxPositionals: 1,

@@ -5,6 +5,7 @@ import { existsSync } from "node:fs";
 import { InputError } from "../../errors.js";
 import { parseDecimal } from "../../decimal.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { fitRowsFromStore, openStore } from "../../experiment/index.js";
 import {
   DEFAULT_LEVEL,
@@ -52,7 +53,7 @@ export function parseConjecture(text: string, law: PowerLaw): Record<string, num
 
 export const fitCommand: CommandSpec = {
   name: "fit",
-  summary: "fit surplus ≈ C·m^a·d^b (or a one-predictor law) per family to a results store's brackets",
+  summary: COMMAND_SUMMARIES["fit"],
   positionals: "<store.db>",
   minPositionals: 1,
   maxPositionals: 1,

@@ -4,6 +4,7 @@ import { describeGraph, type GraphSummary } from "../../graph/structure/describe
 import { graphSummaryRecord } from "../../graph/structure/summary-record.js";
 import { openSource } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { formatNumber as num, formatRows } from "../format.js";
 import { writeLine } from "../output.js";
 import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
@@ -36,7 +37,7 @@ export function formatSummary(label: string, s: GraphSummary, notes: readonly st
 
 export const graphCommand: CommandSpec = {
   name: "graph",
-  summary: "structure of each graph: degrees, degeneracy, girth, triangles, 4-cycles, K3/K4/C4/C5 present?",
+  summary: COMMAND_SUMMARIES["graph"],
   positionals: "<source>",
   minPositionals: 1,
   maxPositionals: 1,

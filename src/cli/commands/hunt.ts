@@ -11,6 +11,7 @@ import { DEFAULT_STORE, openStore, type HuntFrontierRow } from "../../experiment
 import { figureHtml, huntFrontierFigure } from "../../plot/index.js";
 import { openSingleGraph } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { formatNumber, formatTable } from "../format.js";
 import { writeLine } from "../output.js";
 
@@ -66,7 +67,7 @@ function progressWriter(stderr: NodeJS.WritableStream): (p: HuntProgress) => voi
 
 export const huntCommand: CommandSpec = {
   name: "hunt",
-  summary: "search H-free graphs on n vertices for small certified surplus; keep the best graph per m in the store",
+  summary: COMMAND_SUMMARIES["hunt"],
   positionals: "",
   minPositionals: 0,
   maxPositionals: 0,

@@ -2,12 +2,13 @@
 // n and degree measures when known) become store rows that fits and figures read like swept ones.
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { STORED_DEGREES, IMPORT_COLUMNS, importCsvFile, openStore, type StoredDegree } from "../../experiment/index.js";
 import { writeLine } from "../output.js";
 
 export const importCommand: CommandSpec = {
   name: "import",
-  summary: "add rows measured elsewhere (CSV: m, surplus bounds, optionally n and d) to a results store",
+  summary: COMMAND_SUMMARIES["import"],
   positionals: "<rows.csv>",
   minPositionals: 1,
   maxPositionals: 1,

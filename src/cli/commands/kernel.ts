@@ -3,6 +3,7 @@
 // what is missing.
 import { InputError, echo } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { KERNEL_DISPLAY_NAME, formatKernelStatus, installKernelSpec, kernelStatus } from "../kernelspec.js";
 import { writeLine } from "../output.js";
 
@@ -10,7 +11,7 @@ const ACTIONS = ["install", "status"] as const;
 
 export const kernelCommand: CommandSpec = {
   name: "kernel",
-  summary: "install or check the Jupyter kernel for TypeScript notebooks (tslab)",
+  summary: COMMAND_SUMMARIES["kernel"],
   positionals: "<install|status>",
   minPositionals: 1,
   maxPositionals: 1,

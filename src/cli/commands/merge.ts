@@ -3,12 +3,13 @@
 // Census tables and the hunt frontier come along (src/experiment/merge-tables.ts has their rules).
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { mergeStores } from "../../experiment/index.js";
 import { writeLine } from "../output.js";
 
 export const mergeCommand: CommandSpec = {
   name: "merge",
-  summary: "merge results stores into one, census and hunt frontier included (refuses rows that disagree on the same key; merging again adds nothing)",
+  summary: COMMAND_SUMMARIES["merge"],
   positionals: "<store.db...>",
   minPositionals: 1,
   maxPositionals: Infinity,

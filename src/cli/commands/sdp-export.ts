@@ -4,11 +4,12 @@ import { writeFile } from "node:fs/promises";
 import { toSdpa } from "../../cut/relaxation/sdpa.js";
 import { openSingleGraph } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
 
 export const sdpExportCommand: CommandSpec = {
   name: "sdp-export",
-  summary: "write a graph's max-cut SDP relaxation in SDPA sparse format (.dat-s), for outside solvers",
+  summary: COMMAND_SUMMARIES["sdp-export"],
   description: [
     "The Goemans–Williamson relaxation max ¼⟨L, X⟩ subject to diag X = 1, X positive semidefinite (L the weighted Laplacian), in the format SDPA-family solvers read (e.g. dsdp5), so halfplus's SDP bounds can be cross-checked. The source must hold exactly one graph.",
     SOURCE_HELP,

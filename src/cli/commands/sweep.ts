@@ -3,6 +3,7 @@
 import { availableParallelism } from "node:os";
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { DEFAULT_STORE, loadPlan, parseShard, pendingKeys, progressDisplay, runSweep, type SweepSummary } from "../../experiment/index.js";
 import { writeLine } from "../output.js";
 
@@ -17,7 +18,7 @@ function summaryText(s: SweepSummary): string {
 
 export const sweepCommand: CommandSpec = {
   name: "sweep",
-  summary: "run a sweep plan (families × parameters × seeds) into a results store; re-running computes only what is missing",
+  summary: COMMAND_SUMMARIES["sweep"],
   positionals: "<plan.json>",
   minPositionals: 1,
   maxPositionals: 1,

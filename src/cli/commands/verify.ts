@@ -11,6 +11,7 @@ import { EXIT_ESTIMATE, verifyBracket } from "../../cut/bracket/verify.js";
 import { readTextInput } from "../../limits/input.js";
 import { SourceResolver, pickGivenGraph, readAllGraphs } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
+import { COMMAND_SUMMARIES } from "./summaries.js";
 import { writeLine } from "../output.js";
 import { VerdictTally, shortLabel, verdictJson, verdictText } from "../verdicts.js";
 import { SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
@@ -22,7 +23,7 @@ const MAX_RECORDS_BYTES = 2 ** 29 - 64;
 
 export const verifyCommand: CommandSpec = {
   name: "verify",
-  summary: "re-check bracket records (from `halfplus cut --json`, or the rows of a results store) against their graphs",
+  summary: COMMAND_SUMMARIES["verify"],
   positionals: "<records|store.db>",
   minPositionals: 1,
   maxPositionals: 1,

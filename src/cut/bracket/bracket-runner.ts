@@ -5,7 +5,8 @@
 // build's bundle of bracket-worker.js and everything it imports (scripts/bundle-worker.mjs), which
 // it loads in a third of the CPU of the module graph. Falls back to running in this thread when no
 // worker can be started (the TypeScript sources under a test runner) or the graph's copy would not
-// fit.
+// fit; only then does this thread import the solvers (bracket.js), so `halfplus cut` does not load
+// them twice.
 
 import { existsSync } from "node:fs";
 import { fileURLToPath } from "node:url";
@@ -14,7 +15,7 @@ import { InputError } from "../../errors.js";
 import type { Graph } from "../../graph/graph.js";
 import { graphToParts } from "../../graph/graph.js";
 import { graphBytes, memoryRoom } from "../../limits/memory.js";
-import { bracketSnapshot, type BracketOptions } from "./bracket.js";
+import type { BracketOptions } from "./bracket.js";
 import type { BracketSnapshot } from "./record.js";
 import type { BracketWorkerMessage, BracketWorkerRequest } from "./bracket-worker.js";
 
@@ -139,12 +140,16 @@ export function runBracket(graph: Graph, options: BracketOptions = {}): RunningB
 
 function inThisThread(graph: Graph, options: BracketOptions): RunningBracket {
   let last: BracketSnapshot | null = null;
-  const record = bracketSnapshot(graph, {
-    ...options,
-    onProgress: (p) => {
-      options.onProgress?.(p);
-      last = p.snapshot();
-    },
+  const done = import("./bracket.js").then(({ bracketSnapshot }) => {
+    const record = bracketSnapshot(graph, {
+      ...options,
+      onProgress: (p) => {
+        options.onProgress?.(p);
+        last = p.snapshot();
+      },
+    });
+    last = record;
+    return { record, stopped: false };
   });
-  return { done: Promise.resolve({ record, stopped: false }), latest: () => last ?? record, stop: () => {}, inWorker: false };
+  return { done, latest: () => last, stop: () => {}, inWorker: false };
 }

@@ -43,10 +43,10 @@ import {
   type BracketSnapshot,
 } from "./record.js";
 
-export const DEFAULT_BRACKET_SECONDS = 10;
-
-/** Largest work budget accepted (units; 2^53 keeps every sum of units exact). */
-export const MAX_BRACKET_WORK = Number.MAX_SAFE_INTEGER;
+// The budget defaults live in a module of their own so that the command line can show them
+// without loading the solvers.
+export { DEFAULT_BRACKET_SECONDS, MAX_BRACKET_WORK } from "./budget-limits.js";
+import { DEFAULT_BRACKET_SECONDS, MAX_BRACKET_WORK } from "./budget-limits.js";
 
 /** Seconds given to solvers that take only a time limit when a work budget governs: never reached. */
 const NO_DEADLINE_SECONDS = 1e9;

@@ -31,13 +31,10 @@ import { mapTrianglesAfterFix, reducedProblem, trianglesAtRoot } from "./reduced
 import { childStabiliser, keepsFixings, orbitWithWitnesses, type TreeOrbitalBranch } from "./symmetry.js";
 import { isAutomorphism, listAutomorphisms } from "../../graph/structure/automorphisms.js";
 
-/** Which relaxation bounds the nodes: the plain SDP, or the SDP with triangle inequalities. */
-export type TreeRelaxation = "plain" | "triangles";
-export const TREE_RELAXATIONS: readonly TreeRelaxation[] = ["plain", "triangles"];
-
-/** Which free vertex a node branches on (see `TreeSearchOptions.branching`). */
-export type TreeBranching = "least-decided" | "most-decided";
-export const TREE_BRANCHINGS: readonly TreeBranching[] = ["least-decided", "most-decided"];
+// The choices live in a module of their own so that the command line can list them without
+// loading the search.
+export { TREE_BRANCHINGS, TREE_RELAXATIONS, type TreeBranching, type TreeRelaxation } from "./tree-choices.js";
+import { TREE_BRANCHINGS, TREE_RELAXATIONS, type TreeBranching, type TreeRelaxation } from "./tree-choices.js";
 
 /** Nodes with at most this many free vertices are solved exactly by Gray code. */
 export const TREE_LEAF_VERTICES = 16;
