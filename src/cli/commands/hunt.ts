@@ -154,7 +154,7 @@ export const huntCommand: CommandSpec = {
         const lines = formatTable(rows);
         for (const r of result.references) lines.push(`reference ${r.label}: m = ${r.m}, d = ${r.degeneracy}, ${objectiveLabel(objective)} ≤ ${formatNumber(r.value)}`);
         const b = result.best;
-        lines.push(`best: ${b === null ? "none" : `${formatNumber(b.value)} at m = ${b.m} (${b.graph6})`}; ${result.iterations} moves (${result.status}), ${result.certified} certified, ${stored} rows stored in ${storePath}`);
+        lines.push(`best: ${b === null ? "none" : `${formatNumber(b.value)} at m = ${b.m} (${b.graph6})`}; ${result.iterations} moves (${result.status}), ${result.certified} certified, ${stored} frontier improvements written to ${storePath}`);
         await writeLine(io.stdout, lines.join("\n"));
       }
     } finally {
