@@ -28,6 +28,10 @@ import { runSweep } from "../src/experiment/sweep.js";
 import { verifyCensusTables, verifyFrontierRow } from "../src/experiment/verify-tables.js";
 import { encodeGraph6, parseGraph6 } from "../src/graph/formats/graph6.js";
 import { graphFromEdges } from "../src/graph/builder.js";
+import { graphHash } from "../src/graph/hash.js";
+import { degeneracy } from "../src/graph/structure/degeneracy.js";
+import { bracket } from "../src/cut/bracket/bracket.js";
+import { objectiveValue } from "../src/hunt/objective.js";
 import { ensureBuilt, halfplus } from "./helpers/cli.js";
 import { bruteForceMaxCut } from "./helpers/maxcut.js";
 import { gengLines } from "./helpers/nauty.js";
@@ -349,38 +353,85 @@ describeNeeds(NEEDS, "census and hunt tables across merge, export and verify", (
 });
 
 // The frontier's merge rule is the table's own (hunt-store.ts: a row replaces the stored one only
-// with a strictly smaller value); these rows are made up to reach each case (common practice, no source).
+// with a strictly smaller value). The rows are genuine: small C4-free graphs on 5 vertices, each
+// with an exact bracket record (checked by verify, as the merge now does for every row that would
+// enter the target) and its ratio surplus/(m/√d) from src/hunt/objective.ts. Which graph wins is
+// the table's rule (common practice, no source); the values are re-derived by verify.
 describe("the hunt frontier in a merge: the smaller value per key wins, a tie keeps the target's", () => {
   beforeAll(ensureBuilt);
-  const row = (m: number, value: number, graph6: string, foundAt = "2026-01-01T00:00:00Z"): HuntFrontierRow => ({
-    pattern: "C4", n: 5, objective: "ratio", m, value, surplusLower: 1, surplusUpper: 1, degeneracy: 2, graph6, graphHash: `sha256:${graph6}`,
-    start: "test", solverSeed: 0, iteration: 0, foundAt, record: "{}",
-  });
+  const row = (edges: [number, number][], foundAt = "2026-01-01T00:00:00Z"): HuntFrontierRow => {
+    const g = graphFromEdges(5, edges);
+    const record = bracket(g, { effort: "exact", work: 10_000_000 });
+    expect(record.exact).toBe(true);
+    const deg = degeneracy(g).degeneracy;
+    return {
+      pattern: "C4", n: 5, objective: "ratio", m: g.m, value: objectiveValue({ kind: "ratio" }, record.surplusUpper, g.m, deg),
+      surplusLower: record.surplusLower, surplusUpper: record.surplusUpper, degeneracy: deg, graph6: encodeGraph6(g), graphHash: graphHash(g),
+      start: "test", solverSeed: 0, iteration: 0, foundAt, record: JSON.stringify(record),
+    };
+  };
   const storeWith = (name: string, rows: HuntFrontierRow[]): string => {
     const s = openStore(at(name));
     for (const r of rows) expect(s.putHuntEntry(r)).toBe(true);
     s.close();
     return at(name);
   };
+  // m = 3: a path, and the same path relabelled (equal value: a tie). m = 4: a path P5 (bipartite,
+  // ratio 0.5) and a triangle with a pendant edge (surplus 1, d = 2: ratio 1/(4/√2) ≈ 0.354).
+  // And a star K1,4 (m = 4, bipartite, d = 1: ratio 0.5).
+  const path3 = row([[0, 1], [1, 2], [2, 3]]);
+  const path3b = row([[4, 3], [3, 2], [2, 1]]);
+  const p5 = row([[0, 1], [1, 2], [2, 3], [3, 4]]);
+  const paw = row([[0, 1], [1, 2], [0, 2], [2, 3]]);
+  const star = row([[0, 1], [0, 2], [0, 3], [0, 4]]);
 
   it("counts each case and keeps every key of both stores", () => {
-    const target = storeWith("f-target.db", [row(2, 0.5, "DQc"), row(3, 0.5, "DUW"), row(4, 0.5, "DQW"), row(5, 0.5, "Dhc")]);
+    expect(paw.value).toBeLessThan(p5.value);
+    expect(path3b.value).toBe(path3.value);
+    expect(path3b.graph6).not.toBe(path3.graph6);
+    const target = storeWith("f-target.db", [path3, p5, paw]);
     const source = storeWith("f-source.db", [
-      row(2, 0.4, "D]w"), // better: replaces
-      row(3, 0.5, "DrW"), // a tie: the target's stays
-      row(4, 0.6, "D^{"), // worse: the target's stays
-      row(5, 0.5, "Dhc", "2027-01-01T00:00:00Z"), // the same row, stored later
-      row(6, 0.7, "D~{"), // a new m
+      path3b, // a tie: the target's stays
+      { ...paw, foundAt: "2027-01-01T00:00:00Z" }, // m = 4, the target's own row stored later
     ]);
-    const report = mergeStores([source], target);
-    expect(report.sources[0].frontier).toEqual({ rows: 5, added: 1, alreadyThere: 1, improved: 1, notBetter: 2 });
-    expect(report.sources[0].census).toBeUndefined();
-    expect(report.frontierRows).toBe(5);
-    const s = openStore(target, { readonly: true });
-    expect(s.huntEntries().map((r) => [r.m, r.value, r.graph6])).toEqual([[2, 0.4, "D]w"], [3, 0.5, "DUW"], [4, 0.5, "DQW"], [5, 0.5, "Dhc"], [6, 0.7, "D~{"]]);
+    // The target holds paw at m = 4 (putHuntEntry kept the smaller of p5 and paw).
+    const s0 = openStore(target, { readonly: true });
+    expect(s0.huntEntries().map((r) => [r.m, r.graph6])).toEqual([[3, path3.graph6], [4, paw.graph6]]);
+    s0.close();
+    const worse = storeWith("f-worse.db", [p5]); // m = 4: a larger value, the target's stays
+    const star4 = storeWith("f-star.db", [star]); // m = 4 as well: bipartite, d = 1, ratio 2/(4/1) = 0.5, the target's stays
+    const report = mergeStores([source, worse, star4], target);
+    expect(report.sources.map((r) => r.frontier)).toEqual([
+      { rows: 2, added: 0, alreadyThere: 1, improved: 0, notBetter: 1 },
+      { rows: 1, added: 0, alreadyThere: 0, improved: 0, notBetter: 1 },
+      { rows: 1, added: 0, alreadyThere: 0, improved: 0, notBetter: 1 },
+    ]);
+    // A store holding only the better graph improves one that holds only the worse one; a new m is added.
+    const onlyP5 = storeWith("f-p5.db", [p5]);
+    const improving = storeWith("f-improving.db", [paw, path3]);
+    const r2 = mergeStores([improving], onlyP5);
+    expect(r2.sources[0].frontier).toEqual({ rows: 2, added: 1, alreadyThere: 0, improved: 1, notBetter: 0 });
+    const s = openStore(onlyP5, { readonly: true });
+    expect(s.huntEntries().map((r) => [r.m, r.graph6])).toEqual([[3, path3.graph6], [4, paw.graph6]]);
     s.close();
-    const again = mergeStores([source], target);
-    expect(again.sources[0].frontier).toEqual({ rows: 5, added: 0, alreadyThere: 3, improved: 0, notBetter: 2 });
+    const again = mergeStores([improving], onlyP5);
+    expect(again.sources[0].frontier).toEqual({ rows: 2, added: 0, alreadyThere: 2, improved: 0, notBetter: 0 });
+  });
+
+  it("refuses a row that would enter the target but fails verification (a forged small value), one line, nothing merged", () => {
+    const target = storeWith("f-honest.db", [p5]);
+    const forged = storeWith("f-forged.db", [{ ...p5, value: p5.value / 2 }]);
+    const before = allRows(target);
+    const r = halfplus(["merge", forged, "--into", target]);
+    expect(r.code).toBe(2);
+    const lines = r.stderr.trim().split("\n");
+    expect(lines).toHaveLength(1);
+    expect(lines[0]).toContain(`${forged}: hunt_frontier key (C4, n=5, ratio, m=4) fails verification (frontierValue`);
+    expect(lines[0]).toContain("nothing merged");
+    const s = openStore(target, { readonly: true });
+    expect(s.huntEntries().map((x) => x.value)).toEqual([p5.value]);
+    s.close();
+    expect(allRows(target)).toEqual(before);
   });
 
   it("stores without census or frontier rows merge with the same report and text as before", () => {

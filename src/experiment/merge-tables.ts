@@ -10,7 +10,10 @@
 //   further one extends the other cell by cell; the further one is then taken whole.
 // - The hunt frontier keeps the best graph per (pattern, n, objective, m) (hunt-store.ts: a row
 //   replaces the stored one only when its value is strictly smaller), so a merge does the same:
-//   a smaller value wins, a tie keeps the target's graph, and the report counts both.
+//   a smaller value wins, a tie keeps the target's graph, and the report counts both. A row that
+//   would enter the target (new key, or a smaller value) is verified first (verify-tables.ts:
+//   H-free, n, m, hash, its bracket record, the value): a forged small value would otherwise win
+//   the slot and push out a genuine graph, so a rejected row refuses the merge.
 //
 // Disagreements are refused (InputError, one line naming the table, the key and both stores);
 // mergeInto runs everything in one transaction, so a refusal writes nothing.
@@ -20,6 +23,7 @@ import type { CensusCell } from "./census/cells.js";
 import type { CensusState } from "./census/census-store.js";
 import type { HuntFrontierRow } from "./hunt-store.js";
 import type { ResultStore } from "./store.js";
+import { verifyFrontierRow } from "./verify-tables.js";
 
 /** What merging one source's censuses found. */
 export interface CensusMergeReport {
@@ -175,6 +179,11 @@ export function mergeFrontier(target: ResultStore, src: ResultStore): FrontierMe
     if (have !== undefined && sameFrontierRow(have, r)) out.alreadyThere++;
     else if (have !== undefined && !(r.value < have.value)) out.notBetter++;
     else {
+      const v = verifyFrontierRow(r);
+      if (v.verdict === "rejected") {
+        const failed = v.checks.filter((c) => !c.ok).map((c) => `${c.name}: ${c.message}`);
+        throw new InputError(`${src.path}: hunt_frontier key (${r.pattern}, n=${r.n}, ${r.objective}, m=${r.m}) fails verification (${failed.join("; ")}); nothing merged`);
+      }
       // putHuntEntry applies the same rule (new, or strictly smaller): it must keep the row.
       if (!target.putHuntEntry(r)) throw new Error(`merge: hunt_frontier key ${FRONTIER_KEY(r)} was not stored`);
       held.set(FRONTIER_KEY(r), r);
