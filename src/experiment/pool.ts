@@ -6,10 +6,8 @@
 import { existsSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
-import { isInputError } from "../errors.js";
-import type { CellValue } from "./columns.js";
 import { runJob, type JobContext, type JobInput } from "./job.js";
-import { decodeRows, encodeJobs, transferables, type RowsMessage } from "./wire.js";
+import { decodeRows, encodeJobs, jobFailure, transferables, type DecodedResult, type RowsMessage } from "./wire.js";
 
 export interface BatchRequest {
   batch: number;
@@ -18,10 +16,8 @@ export interface BatchRequest {
   context: JobContext;
 }
 
-/** A finished job's row as values in COLUMNS order (cheaper to pass between threads than an object). */
-export type JobResult =
-  | { key: string; values: CellValue[]; solverSeconds: number; jobSeconds: number; error?: undefined }
-  | { key: string; error: string; inputError: boolean; stack?: string };
+/** A finished job's row as values in COLUMNS order, or its failure (one type with wire.ts's decoded rows). */
+export type JobResult = DecodedResult;
 
 export interface BatchResult {
   batch: number;
@@ -61,7 +57,7 @@ export function runBatch(request: BatchRequest): BatchResult {
       const out = runJob(job, request.context);
       results.push({ key: job.key, values: out.values, solverSeconds: out.solverSeconds, jobSeconds: (performance.now() - t) / 1000 });
     } catch (e) {
-      results.push({ key: job.key, error: e instanceof Error ? e.message : String(e), inputError: isInputError(e), stack: e instanceof Error ? e.stack : undefined });
+      results.push({ key: job.key, ...jobFailure(e) });
       break;
     }
   }

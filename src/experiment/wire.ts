@@ -89,6 +89,11 @@ class Table<T> {
   }
 }
 
+/** A job's thrown error as the sweep reports it (message, whether it is bad input, stack). */
+export function jobFailure(e: unknown): { error: string; inputError: boolean; stack?: string } {
+  return { error: e instanceof Error ? e.message : String(e), inputError: isInputError(e), stack: e instanceof Error ? e.stack : undefined };
+}
+
 /** The buffers a message can hand over rather than copy. */
 export function transferables(m: JobsMessage | RowsMessage): ArrayBuffer[] {
   const arrays = "meta" in m ? [m.meta, m.ints, m.weights] : [m.kinds, m.numbers, m.bytes, m.ends, m.solverSeconds, m.jobSeconds];
@@ -203,7 +208,7 @@ export function runJobsMessage(m: JobsMessage, context: JobContext): RowsMessage
       for (let c = 0; c < W; c++) v[WORKER_COLUMNS[c]] = null;
       solverSeconds[rows] = computeCells(job, context, v);
     } catch (e) {
-      failure = { error: e instanceof Error ? e.message : String(e), inputError: isInputError(e), stack: e instanceof Error ? e.stack : undefined };
+      failure = jobFailure(e);
       break;
     }
     const base = rows * W;
