@@ -67,7 +67,7 @@ function certificateText(r: Shown): string {
     case "triangle-dual":
       return `${words(r.upperMethod)}: dual vector, ${c.mu.length} weighted triangle inequalities, shift proven by a Cholesky factorisation${rounded}`;
     case "sdp-tree":
-      return `${words(r.upperMethod)} (${c.relaxation === "triangles" ? "SDP with triangle inequalities" : "plain SDP"} at each node): ${c.regions.length} regions after ${c.nodes} nodes, each with its certificate`;
+      return `${words(r.upperMethod)} (${c.relaxation === "triangles" ? "SDP with triangle inequalities" : "plain SDP"} at each node): ${c.packed?.regions ?? c.regions?.length ?? 0} regions after ${c.nodes} nodes, each with its certificate`;
   }
 }
 
