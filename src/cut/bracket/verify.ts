@@ -59,8 +59,9 @@ export interface BracketVerifyOptions {
   seconds?: number;
 }
 
-/** `halfplus verify`'s exit status when every check passed but an upper end is an estimate (0 with --accept-estimates). */
-export const EXIT_ESTIMATE = 3;
+// EXIT_ESTIMATE lives in ./exit-estimate.ts (the command line's help shows it without loading verify).
+import { EXIT_ESTIMATE } from "./exit-estimate.js";
+export { EXIT_ESTIMATE };
 
 /**
  * The exit status of a verify run from its verdicts: 1 when any record is rejected, else
