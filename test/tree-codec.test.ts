@@ -16,6 +16,7 @@ import { InputError } from "../src/errors.js";
 import { family } from "../src/families/registry.js";
 import type { Graph } from "../src/graph/graph.js";
 import { Rng } from "../src/random/prng.js";
+import { packJson, unpackJson } from "../src/experiment/witness.js";
 import { bruteForceMaxCut } from "./helpers/maxcut.js";
 
 const clone = <T>(x: T): T => JSON.parse(JSON.stringify(x)) as T;
@@ -208,6 +209,15 @@ describe("bracket records with packed tree certificates", () => {
       const v = verifyBracket(g, rec);
       expect(v.ok, JSON.stringify(v.checks)).toBe(true);
       expect(v.verdict).toBe("verified");
+    }
+  });
+
+  it("a results store's certificate column keeps either form as it is (packJson/unpackJson, src/experiment/witness.ts)", () => {
+    for (const form of ["packed", "plain"] as const) {
+      const rec = treeRecord(form);
+      const stored = unpackJson(packJson(rec.certificate), "test") as BracketRecord["certificate"];
+      expect(stored).toEqual(clone(rec.certificate));
+      expect(verifyBracket(g, { ...rec, certificate: stored }).verdict).toBe("verified");
     }
   });
 
