@@ -22,8 +22,8 @@ import { sharedTriangleCount } from "../graph/structure/triangles.js";
 import { perGraph } from "../graph/per-graph.js";
 import { boundDoesNotApply, type LowerBoundRecord } from "./types.js";
 import { fewTrianglesChoice } from "./few-triangles.js";
-import { VECTOR_LINEAR_FACTOR, VECTOR_OVERLAP_FACTOR, vectorMethodGuaranteeFor, type VectorGuaranteeRecord } from "./vector-guarantee.js";
-import { resolveVectorSets, vectorEdgeTerms, type VectorSets } from "./vector-sets.js";
+import { VECTOR_LINEAR_FACTOR, VECTOR_OVERLAP_FACTOR, sharedDefaultVectorChoice, vectorMethodGuaranteeFor, type VectorGuaranteeRecord } from "./vector-guarantee.js";
+import type { VectorSets } from "./vector-sets.js";
 
 const OWNER = "vector choice";
 const NAME = "vector-optimised";
@@ -225,10 +225,10 @@ export function optimiseVectorChoice(graph: Graph, options: VectorChoiceOptions 
   const arcs = graph.neighbors.length;
   const triangles = sharedTriangleCount(graph);
   const inTriangle = triangles.perVertex;
-  const defaultSets = resolveVectorSets(graph);
-  // With V_i = N(i) the per-edge overlaps depend on the graph alone: both starts share them.
-  const terms = vectorEdgeTerms(graph, defaultSets);
-  const defaultSurplus = vectorMethodGuaranteeFor(graph, defaultSets, terms).surplus as number;
+  // With V_i = N(i) the per-edge overlaps depend on the graph alone: both starts share them (and
+  // the vector-method evaluator of the same graph object, which computed them already).
+  const { sets: defaultSets, terms, guarantee: defaultGuarantee } = sharedDefaultVectorChoice(graph);
+  const defaultSurplus = defaultGuarantee.surplus as number;
   // The few-triangles bound's uniform ε* (unweighted here), on every vertex with an edge.
   let maxDegree = 0;
   for (let i = 0; i < n; i++) maxDegree = Math.max(maxDegree, offsets[i + 1] - offsets[i]);
