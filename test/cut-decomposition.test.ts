@@ -184,6 +184,40 @@ describe("small graphs and options", () => {
     expect(w.cut.applies || w.guarantee.applies).toBe(false);
   });
 
+  it("H from the clique number: K_(ω+1) on small graphs (bitmask search up to 16 vertices) and above", () => {
+    // ω of named graphs: the Petersen graph is triangle-free (Holton & Sheehan 1993, "The Petersen
+    // Graph"): ω = 2; K_n has ω = n; the Turán graph T(n, r) has ω = r (Turán 1941).
+    const complete = (n: number) => {
+      const e: [number, number][] = [];
+      for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) e.push([u, v]);
+      return graphFromEdges(n, e);
+    };
+    expect(decompositionCut(family("petersen")).pattern).toBe("K3");
+    expect(decompositionCut(family("complete-multipartite:parts=3+3+3+3")).pattern).toBe("K5");
+    for (let n = 1; n <= 15; n++) expect(decompositionCut(complete(n)).pattern).toBe(`K${n + 1}`);
+    // ω = 16 is past MAX_CLIQUE_ORDER's search range: no H, as the node-budgeted search says too.
+    expect(decompositionCut(complete(16)).patternFrom).toBe("unknown");
+    // Random graphs on 8–17 vertices (17: the node-budgeted search) against ω by brute force over
+    // all vertex subsets (common practice, no source).
+    let x = 12345;
+    const next = () => (x = (Math.imul(x, 1103515245) + 12345) >>> 0) / 2 ** 32;
+    for (let k = 0; k < 40; k++) {
+      const n = 8 + (k % 10);
+      const p = 0.3 + 0.5 * next();
+      const e: [number, number][] = [];
+      for (let u = 0; u < n; u++) for (let v = u + 1; v < n; v++) if (next() < p) e.push([u, v]);
+      const g = graphFromEdges(n, e);
+      let omega = 0;
+      for (let s = 1; s < 1 << n; s++) {
+        const vs: number[] = [];
+        for (let v = 0; v < n; v++) if ((s >> v) & 1) vs.push(v);
+        if (vs.length <= omega) continue;
+        if (vs.every((u, i) => vs.slice(i + 1).every((v) => g.hasEdge(u, v)))) omega = vs.length;
+      }
+      expect(decompositionCut(g, { solverSeed: k }).pattern).toBe(`K${omega + 1}`);
+    }
+  });
+
   it("H′ = H minus a vertex of largest degree, by name", () => {
     expect(patternMinusVertex("K4")).toBe("K3");
     expect(patternMinusVertex("C5")).toBe("P4");

@@ -20,10 +20,11 @@ import { invalidParameter, InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { sharedTriangleCount } from "../graph/structure/triangles.js";
 import { perGraph } from "../graph/per-graph.js";
+import { float64Pool, int32Pool, uint8Pool } from "../graph/scratch.js";
 import { boundDoesNotApply, type LowerBoundRecord } from "./types.js";
 import { fewTrianglesChoice } from "./few-triangles.js";
-import { VECTOR_LINEAR_FACTOR, VECTOR_OVERLAP_FACTOR, vectorMethodGuaranteeFor, type VectorGuaranteeRecord } from "./vector-guarantee.js";
-import { resolveVectorSets, vectorEdgeTerms, type VectorSets } from "./vector-sets.js";
+import { VECTOR_LINEAR_FACTOR, VECTOR_OVERLAP_FACTOR, sharedDefaultVectorChoice, vectorMethodGuaranteeFor, type VectorGuaranteeRecord } from "./vector-guarantee.js";
+import type { VectorSets } from "./vector-sets.js";
 
 const OWNER = "vector choice";
 const NAME = "vector-optimised";
@@ -77,11 +78,17 @@ interface Scratch {
   slot: Int32Array;
 }
 
+// The scratch arrays come from pools (a sweep runs the optimiser on 10^5 tiny graphs; see
+// src/graph/scratch.ts): b, order and slot are written before they are read, owner is reset here
+// (a stale entry of another graph could match), dirty is filled at the start of each ascent. No
+// call made while they are in use runs the optimiser again.
+const bPool = float64Pool(), orderPool = int32Pool(), ownerPool = int32Pool(), slotPool = int32Pool(), dirtyPool = uint8Pool();
+
 function scratchFor(graph: Graph): Scratch {
   const { n, offsets: off } = graph;
   let maxDeg = 0;
   for (let i = 0; i < n; i++) maxDeg = Math.max(maxDeg, off[i + 1] - off[i]);
-  return { b: new Float64Array(maxDeg), order: new Int32Array(maxDeg), owner: new Int32Array(n).fill(-1), slot: new Int32Array(n) };
+  return { b: bPool.take(maxDeg), order: orderPool.take(maxDeg), owner: ownerPool.take(n).fill(-1), slot: slotPool.take(n) };
 }
 
 /**
@@ -108,7 +115,7 @@ function ascend(graph: Graph, inSet: Uint8Array, eps: Float64Array, start: numbe
   const Q = VECTOR_OVERLAP_FACTOR;
   // Block i's optimum depends only on (V_j, ε_j) for j ∈ N(i): a vertex is looked at again only
   // after a neighbour changed (all are dirty at the start).
-  const dirty = new Uint8Array(n).fill(1);
+  const dirty = dirtyPool.take(n).fill(1);
   let f = start;
   const trace = [f];
   let sweeps = 0;
@@ -225,10 +232,10 @@ export function optimiseVectorChoice(graph: Graph, options: VectorChoiceOptions 
   const arcs = graph.neighbors.length;
   const triangles = sharedTriangleCount(graph);
   const inTriangle = triangles.perVertex;
-  const defaultSets = resolveVectorSets(graph);
-  // With V_i = N(i) the per-edge overlaps depend on the graph alone: both starts share them.
-  const terms = vectorEdgeTerms(graph, defaultSets);
-  const defaultSurplus = vectorMethodGuaranteeFor(graph, defaultSets, terms).surplus as number;
+  // With V_i = N(i) the per-edge overlaps depend on the graph alone: both starts share them (and
+  // the vector-method evaluator of the same graph object, which computed them already).
+  const { sets: defaultSets, terms, guarantee: defaultGuarantee } = sharedDefaultVectorChoice(graph);
+  const defaultSurplus = defaultGuarantee.surplus as number;
   // The few-triangles bound's uniform ε* (unweighted here), on every vertex with an edge.
   let maxDegree = 0;
   for (let i = 0; i < n; i++) maxDegree = Math.max(maxDegree, offsets[i + 1] - offsets[i]);

@@ -8,6 +8,7 @@
 // then 1 ≤ N ≤ 2 (ε_i²|V_i| ≤ 1) gives A/(2π) − B/2, and Σ_edges A = Σ_i ε_i|V_i|.
 
 import type { Graph } from "../graph/graph.js";
+import { perGraph } from "../graph/per-graph.js";
 import { boundApplies, boundDoesNotApply, type LowerBoundRecord } from "./types.js";
 import { resolveVectorSets, vectorEdgeTerms, type VectorEdgeTerms, type VectorSetOptions, type VectorSets } from "./vector-sets.js";
 
@@ -76,7 +77,30 @@ export function vectorMethodGuaranteeFor(graph: Graph, sets: VectorSets, terms: 
   return { name: b.name, value: b.value, surplus: b.surplus, applies: b.applies, reason: b.reason, linearTerm: linear, overlapTerm: overlap, overlapEdges, normedTerm: normed };
 }
 
+/** The default choice (V_i = N(i), ε_i = 1/√d_i) with its edge terms and guarantee. */
+export interface DefaultVectorChoice {
+  sets: VectorSets;
+  terms: VectorEdgeTerms;
+  guarantee: VectorGuaranteeRecord;
+}
+
+/**
+ * The default choice, its edge terms and its guarantee, computed once per Graph object: a sweep job
+ * asks for them in the vector-method and triangle-free evaluators and again as the optimiser's first
+ * start (optimiseVectorChoice). Read-only, like every perGraph result.
+ */
+export const sharedDefaultVectorChoice: (graph: Graph) => DefaultVectorChoice = perGraph((g) => {
+  const sets = resolveVectorSets(g);
+  const terms = vectorEdgeTerms(g, sets);
+  return { sets, terms, guarantee: vectorMethodGuaranteeFor(g, sets, terms) };
+});
+
 /** Guarantee of the explicit vector method for sets V_i and weights ε_i (defaults V_i = N(i), ε_i = 1/√|V_i|). */
 export function vectorMethodGuarantee(graph: Graph, options: VectorSetOptions = {}): VectorGuaranteeRecord {
+  if (options.sets === undefined && options.eps === undefined && options.epsScale === undefined) {
+    // A copy: the shared record stays as computed whatever the caller does with its own.
+    const r = sharedDefaultVectorChoice(graph).guarantee;
+    return { name: r.name, value: r.value, surplus: r.surplus, applies: r.applies, reason: r.reason, linearTerm: r.linearTerm, overlapTerm: r.overlapTerm, overlapEdges: r.overlapEdges, normedTerm: r.normedTerm };
+  }
   return vectorMethodGuaranteeFor(graph, resolveVectorSets(graph, options));
 }

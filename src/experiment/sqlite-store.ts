@@ -88,7 +88,7 @@ function bindsAsIs(r: readonly (CellValue | boolean | undefined)[]): boolean {
  * the writing thread it stalls the sweep's scheduling. Checkpoints are crash-safe by SQLite's
  * design, and a commit is in the log before it returns, whichever thread checkpoints.
  */
-const CHECKPOINT_EVERY_MS = 250;
+const CHECKPOINT_EVERY_MS = 1000;
 /** The writer checkpoints itself only when the log passes this many pages (4 KiB each): a safety net. */
 const WRITER_CHECKPOINT_PAGES = 16384;
 const CHECKPOINTER = `

@@ -105,7 +105,12 @@ function methodSeed(seed: number, k: number): number {
 function plainDetails(d: CutRecord["details"]): BracketRun["details"] {
   if (d === undefined) return undefined;
   const out: Record<string, number | string | boolean | null> = {};
-  for (const [k, v] of Object.entries(d)) if (v === null || ["number", "string", "boolean"].includes(typeof v)) out[k] = v;
+  // Object.keys: the order Object.entries gives, without an array per entry (a run per tiny job).
+  for (const k of Object.keys(d)) {
+    const v = d[k];
+    const t = typeof v;
+    if (v === null || t === "number" || t === "string" || t === "boolean") out[k] = v as number | string | boolean | null;
+  }
   return out;
 }
 

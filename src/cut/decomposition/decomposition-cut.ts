@@ -31,15 +31,15 @@ import { cutValue, surplusOf } from "../../graph/cut-value.js";
 import type { Graph } from "../../graph/graph.js";
 import { inducedSubgraph } from "../../graph/induced.js";
 import { findClique, MAX_CLIQUE_ORDER } from "../../graph/structure/cliques.js";
-import { parsePatternName } from "../../graph/structure/patterns.js";
+import { parsePatternName, type PatternName } from "../../graph/structure/patterns.js";
 import { sharedTriangleCount } from "../../graph/structure/triangles.js";
 import { fewTrianglesBound } from "../../bounds/few-triangles.js";
 import { boundApplies, boundDoesNotApply, type LowerBoundRecord } from "../../bounds/types.js";
-import { optimiseVectorChoice, sharedVectorChoice, vectorChoiceOptions } from "../../bounds/vector-choice.js";
+import { optimiseVectorChoice, sharedVectorChoice } from "../../bounds/vector-choice.js";
 import { checkSeed } from "../../random/seed.js";
 import { exactMaxCut } from "../exact/exact-max-cut.js";
 import { GRAY_MAX_VERTICES } from "../exact/gray-code.js";
-import { vectorMethodExpectedCut, vectorMethodRoundCut, type VectorRoundingCut } from "../heuristic/vector-rounding.js";
+import { vectorMethodExpectedCutFor, vectorMethodRoundCutFor, type VectorRoundingCut } from "../heuristic/vector-rounding.js";
 import { cutRecordOf, type CutRecord } from "../types.js";
 
 const OWNER = "decomposition cut";
@@ -155,6 +155,27 @@ interface Run {
   reached: boolean;
 }
 
+// A sweep decomposes graph after graph with the same few pattern names (K3, K4, …): their parses
+// and H′ names are pure functions of the name, kept here (read-only).
+const parsedPatterns = new Map<string, PatternName>();
+function parsedPattern(name: string): PatternName {
+  let p = parsedPatterns.get(name);
+  if (p === undefined) {
+    p = parsePatternName(name);
+    parsedPatterns.set(name, p);
+  }
+  return p;
+}
+const minusVertexNames = new Map<string, string | null>();
+function minusVertexOf(name: string): string | null {
+  let h = minusVertexNames.get(name);
+  if (h === undefined) {
+    h = patternMinusVertex(name);
+    minusVertexNames.set(name, h);
+  }
+  return h;
+}
+
 /** H minus a vertex of largest degree, by name: K_r → K_{r−1}, C_k → P_{k−1}, K_{s,t} (s ≤ t) → K_{s−1,t}, P_k → P_{k−1}. */
 export function patternMinusVertex(name: string): string | null {
   const p = parsePatternName(name);
@@ -174,9 +195,46 @@ export function patternMinusVertex(name: string): string | null {
   }
 }
 
+/**
+ * Graphs up to this many vertices get their clique number from a bitmask search: it has at most
+ * 2^16 cliques to meet, far below findClique's node budget, so the node-budgeted searches below
+ * would run to completion too and give the same number.
+ */
+const BITMASK_CLIQUE_VERTICES = 16;
+
+/** Largest clique of a graph of at most 30 vertices, by branch and bound over adjacency bitmasks. */
+function bitmaskCliqueNumber(graph: Graph): number {
+  const { n, offsets, neighbors } = graph;
+  const adj = new Int32Array(n);
+  for (let v = 0; v < n; v++) for (let a = offsets[v]; a < offsets[v + 1]; a++) if (neighbors[a] !== v) adj[v] |= 1 << neighbors[a];
+  let best = 0;
+  const bits = (x: number): number => {
+    x = x - ((x >>> 1) & 0x55555555);
+    x = (x & 0x33333333) + ((x >>> 2) & 0x33333333);
+    return (Math.imul((x + (x >>> 4)) & 0x0f0f0f0f, 0x01010101) >>> 24);
+  };
+  // `size` vertices chosen, pairwise adjacent; `cand` holds the vertices adjacent to all of them.
+  const grow = (size: number, cand: number): void => {
+    if (size > best) best = size;
+    while (cand !== 0) {
+      if (size + bits(cand) <= best) return;
+      const v = 31 - Math.clz32(cand);
+      cand &= ~(1 << v);
+      grow(size + 1, cand & adj[v]);
+    }
+  };
+  grow(0, (1 << n) - 1);
+  return best;
+}
+
 /** Largest r ≤ MAX_CLIQUE_ORDER with a K_r, or null when the search ran out of its node budget. */
 function cliqueNumber(graph: Graph): number | null {
   if (graph.n === 0) return 0;
+  if (graph.n <= BITMASK_CLIQUE_VERTICES) {
+    // The loop below stops at r = MAX_CLIQUE_ORDER without an answer: the same null here.
+    const w = bitmaskCliqueNumber(graph);
+    return w < MAX_CLIQUE_ORDER ? w : null;
+  }
   let r = 1;
   while (r < MAX_CLIQUE_ORDER) {
     const s = findClique(graph, r + 1, { maxNodes: 2_000_000 });
@@ -205,7 +263,7 @@ function checkOptions(graph: Graph, options: DecompositionOptions): { settings: 
   if (!(typeof triangleFactor === "number" && triangleFactor >= 0 && triangleFactor < 1e9)) {
     throw invalidParameter(OWNER, "triangleFactor", "should be a number ≥ 0", options.triangleFactor);
   }
-  const clique = pattern === null ? null : parsePatternName(pattern);
+  const clique = pattern === null ? null : parsedPattern(pattern);
   const depthDefault = clique !== null && clique.kind === "complete" ? Math.max(0, clique.sizes[0] - 4) : 1;
   const maxDepth = options.maxDepth ?? depthDefault;
   if (!Number.isInteger(maxDepth) || maxDepth < 0 || maxDepth > 64) throw invalidParameter(OWNER, "maxDepth", "should be an integer between 0 and 64", options.maxDepth);
@@ -375,15 +433,21 @@ interface Rounded {
   reached: boolean;
 }
 
-/** Round the best vector choice of `graph` until a cut reaches its guarantee (or maxTrials run out). */
-function roundToGuarantee(run: Run, graph: Graph): { side: Uint8Array; guarantee: number; details: DecompositionStage["details"] } {
+/**
+ * Round the best vector choice of `graph` until a cut reaches its guarantee (or maxTrials run out).
+ * `store`: remember a fresh result. The caller passes false for the input graph itself (nothing
+ * set aside): in a sweep every input graph is a different one, so its entry would only be met
+ * again by a smaller graph equal to a later remainder, and keeping one per job filled the memo
+ * with entries the collector had to copy and then throw away. It is still looked up.
+ */
+function roundToGuarantee(run: Run, graph: Graph, store = true): { side: Uint8Array; guarantee: number; details: DecompositionStage["details"] } {
   const key = tinyGraphKey(graph);
   const { trials, maxTrials, optimiseSets, solverSeed } = run.settings;
   const k = key === null ? null : `r|${key}|${solverSeed}|${run.roundings}|${trials}|${maxTrials}|${optimiseSets}`;
   let r = k === null ? undefined : (memo.get(k) as Rounded | undefined);
   if (r === undefined) {
     r = roundFresh(run, graph);
-    if (k !== null) remember(k, r);
+    if (k !== null && store) remember(k, r);
   }
   run.roundings += r.batches;
   if (!r.reached) run.reached = false;
@@ -403,7 +467,9 @@ function roundFrom(run: Run, graph: Graph): { side: Uint8Array; guarantee: numbe
   // The default choice is shared with the vector-optimised bound of the same graph object.
   const best = optimiseSets ? sharedVectorChoice(graph) : optimiseVectorChoice(graph, { optimiseSets });
   const guarantee = best.guarantee.surplus as number;
-  const choice = vectorChoiceOptions(best.choice);
+  // The optimiser's choice as it is (sorted CSR sets, valid by construction): the same sets and ε
+  // that vectorChoiceOptions would spell out and the rounding would resolve and check again.
+  const choice = best.choice;
   let used = 0;
   let batch = trials;
   let top: VectorRoundingCut | null = null;
@@ -411,7 +477,7 @@ function roundFrom(run: Run, graph: Graph): { side: Uint8Array; guarantee: numbe
   for (;;) {
     // vectorMethodRound's cut and mean without its record: the guarantee is best.guarantee, and the
     // expected cut depends on the choice only (computed once below).
-    const rec = vectorMethodRoundCut(graph, { ...choice, trials: batch, solverSeed: stageSeed(run), polish: true });
+    const rec = vectorMethodRoundCutFor(graph, choice, { trials: batch, solverSeed: stageSeed(run), polish: true });
     mean += rec.meanSurplus * batch;
     used += batch;
     if (top === null || rec.value > top.value) top = rec;
@@ -428,7 +494,7 @@ function roundFrom(run: Run, graph: Graph): { side: Uint8Array; guarantee: numbe
       trials: used,
       reached,
       meanRoundedSurplus: mean / used,
-      expectedSurplus: surplusOf(graph, vectorMethodExpectedCut(graph, choice)),
+      expectedSurplus: surplusOf(graph, vectorMethodExpectedCutFor(graph, choice)),
       defaultGuarantee: best.defaultSurplus,
       fewTrianglesGuarantee: few.surplus,
       triangles: few.triangles,
@@ -460,7 +526,7 @@ function decompose(run: Run, graph: Graph, ids: Int32Array, level: number, withi
   if (rest.m === 0) {
     restSide = new Uint8Array(rest.n);
   } else {
-    const r = roundToGuarantee(run, rest);
+    const r = roundToGuarantee(run, rest, !(level === 0 && rest === graph));
     restSide = r.side;
     restGuarantee = r.guarantee;
     restDetails = r.details;
@@ -482,7 +548,7 @@ function decompose(run: Run, graph: Graph, ids: Int32Array, level: number, withi
   }
 
   // Steps 3 and 4: cut each piece, then orient it against everything already placed.
-  const subPattern = pattern === null ? null : patternMinusVertex(pattern);
+  const subPattern = pattern === null ? null : minusVertexOf(pattern);
   let betweenEdges = 0;
   let betweenCut = 0;
   const { offsets: off, neighbors: nb } = graph;

@@ -72,7 +72,19 @@ function edgeComponents(graph: Graph): EdgeComponents {
       }
     }
     const members = verts.subarray(first, tail);
-    members.sort();
+    // Ascending; by insertion when short (the typed-array sort's call costs more on tiny graphs).
+    if (members.length > 32) members.sort();
+    else {
+      for (let i = 1; i < members.length; i++) {
+        const x = members[i];
+        let j = i - 1;
+        while (j >= 0 && members[j] > x) {
+          members[j + 1] = members[j];
+          j--;
+        }
+        members[j + 1] = x;
+      }
+    }
     for (let i = 0; i < members.length; i++) local[members[i]] = i;
     count++;
   }

@@ -61,7 +61,11 @@ function expectedCutFor(graph: Graph, sets: VectorSets, terms: VectorEdgeTerms):
 
 /** Exact expected cut of sparse vector rounding: Σ_edges w·arccos(⟨x̂_i, x̂_j⟩)/π. */
 export function vectorMethodExpectedCut(graph: Graph, options: VectorSetOptions = {}): number {
-  const sets = resolveVectorSets(graph, options);
+  return vectorMethodExpectedCutFor(graph, resolveVectorSets(graph, options));
+}
+
+/** The same for sets already resolved (a choice the optimiser returned: no second validation). */
+export function vectorMethodExpectedCutFor(graph: Graph, sets: VectorSets): number {
   return expectedCutFor(graph, sets, vectorEdgeTerms(graph, sets));
 }
 
@@ -179,7 +183,14 @@ export interface VectorRoundingCut {
  * record (callers that round one vector choice many times compute those once: the decomposition).
  */
 export function vectorMethodRoundCut(graph: Graph, options: VectorRoundingOptions = {}): VectorRoundingCut {
-  const sets = resolveVectorSets(graph, options);
+  return vectorMethodRoundCutFor(graph, resolveVectorSets(graph, options), options);
+}
+
+/**
+ * vectorMethodRoundCut for sets already resolved (`options`' own sets and ε are not read): the
+ * decomposition rounds the choice the optimiser returned, valid by construction, batch after batch.
+ */
+export function vectorMethodRoundCutFor(graph: Graph, sets: VectorSets, options: Pick<VectorRoundingOptions, "trials" | "solverSeed" | "polish"> = {}): VectorRoundingCut {
   const trials = checkTrials(OWNER, options.trials, 100);
   const solverSeed = checkSeed(OWNER, "solverSeed", options.solverSeed);
   const r = roundTrials(graph, sets, trials, solverSeed, options.polish ?? false);

@@ -131,8 +131,13 @@ export function graph6Bytes(g: Graph): Uint8Array {
   return out;
 }
 
+/** Longest text encodeGraph6 builds from character codes (an argument list that stays small). */
+const SHORT_TEXT = 256;
+
 /** graph6 text of g (no newline), optionally with the `>>graph6<<` header in front. */
 export function encodeGraph6(g: Graph, header = false): string {
-  const text = Buffer.from(graph6Bytes(g)).toString("latin1");
+  const bytes = graph6Bytes(g);
+  // Short texts (a sweep embeds one per small graph) as character codes: no Buffer copy and decode.
+  const text = bytes.length <= SHORT_TEXT ? String.fromCharCode.apply(null, bytes as unknown as number[]) : Buffer.from(bytes).toString("latin1");
   return header ? GRAPH6_HEADER + text : text;
 }
