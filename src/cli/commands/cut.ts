@@ -178,8 +178,8 @@ export const cutCommand: CommandSpec = {
     {
       name: "branching",
       type: "string",
-      description: "effort deep: the free vertex each branch-and-bound node splits on, least-decided (its SDP vector closest to orthogonal to the fixed side's) or most-decided (closest to parallel; fewer nodes on polarity graphs, bench/exact-hundred)",
-      default: "least-decided",
+      description: "effort deep: the free vertex each branch-and-bound node splits on, least-decided (its SDP vector closest to orthogonal to the fixed side's), most-decided (closest to parallel; fewer nodes on polarity graphs, bench/exact-hundred) or auto (a short probe of each, the better one kept)",
+      default: "auto",
       choices: TREE_BRANCHINGS,
       placeholder: "R",
     },

@@ -90,7 +90,7 @@ export interface BracketOptions {
   relaxation?: TreeRelaxation;
   /** Effort "deep": a deterministic budget of branch-and-bound nodes (default: time only). */
   treeNodes?: number;
-  /** Effort "deep": the branching rule of its branch and bound (default "least-decided"). */
+  /** Effort "deep": the branching rule of its branch and bound (default "auto": a short probe of each rule, src/cut/tree/relaxation-tree.ts). */
   branching?: TreeBranching;
   /** Effort "deep": orbital branching over the graph's automorphisms (default true; src/cut/tree/symmetry.ts). */
   symmetry?: boolean;
