@@ -135,15 +135,15 @@ describe("parity in the exact tree", () => {
 
 describe('branching "auto"', () => {
   it("probes both rules and picks least-decided on a sparse random graph and most-decided on ER_7, deterministically", () => {
-    // The comparison the probes make, re-run by hand: closed share, then the share whose bound fell
-    // below the root's, then the upper end (src/cut/tree/relaxation-tree.ts, relaxationTreeSearch).
+    // The comparison the probes make, re-run by hand: the upper end, then the closed share, then the
+    // share whose bound fell below the root's (src/cut/tree/relaxation-tree.ts, relaxationTreeSearch).
     const chosen: string[] = [];
     for (const spec of ["random-regular:n=60,d=3,seed=1", "polarity:q=7,loops=drop"]) {
       const g = family(spec);
       const opts = { relaxation: "plain" as const, seconds: 1e6, solverSeed: 1 };
       const probe = (branching: "least-decided" | "most-decided") => relaxationTreeSearch(g, { ...opts, branching, work: AUTO_PROBE_NODES });
       const [a, b] = [probe("least-decided"), probe("most-decided")];
-      const score = (r: typeof a): number[] => [Number(r.details!.closedShare), Number(r.details!.droppedShare), -r.upper];
+      const score = (r: typeof a): number[] => [-r.upper, Number(r.details!.closedShare), Number(r.details!.droppedShare)];
       const [sa, sb] = [score(a), score(b)];
       const k = sa.findIndex((x, i) => x !== sb[i]);
       const expected = k >= 0 && sb[k] > sa[k] ? "most-decided" : "least-decided";

@@ -248,9 +248,9 @@ function plainCertificate(c: TriangleCertificate): TreeRegion["certificate"] {
 /**
  * Nodes each probe of `branching: "auto"` may use (`relaxationTreeSearch`), at most a quarter of the
  * work budget. At 30–100 nodes the two rules already differ clearly on the targets of issue 11
- * (bench/exact-hundred; see DEVELOPERS.md): on ER_7 most-decided had 3.8 % of the cuts closed after
- * 100 nodes and least-decided none, on a random 3-regular graph with 100 vertices least-decided
- * 68.8 % after 30 nodes and most-decided 19.5 %.
+ * (bench/exact-hundred; see DEVELOPERS.md): after 48 nodes from a breakout cut, G(80, 0.3) has upper
+ * ends 580 (least-decided) and 585 (most-decided); on ER_7 the upper ends are equal and most-decided
+ * had 3.8 % of the cuts closed after 100 nodes and least-decided none.
  */
 export const AUTO_PROBE_NODES = 48;
 
@@ -259,9 +259,9 @@ export const AUTO_PROBE_NODES = 48;
  *
  * `branching: "auto"` (the default) probes: a search with each rule under `AUTO_PROBE_NODES` nodes
  * (least-decided first; a probe that finishes is the answer), then the whole search with the rule
- * whose probe closed the larger share of the cuts; ties go to the larger share in nodes whose bound
- * fell below the root's (`droppedShare`: progress that does not wait for a good incumbent), then to
- * the lower upper end, then to least-decided. The probes' best cut seeds the search; their nodes count in `workUsed` and in the
+ * whose probe left the lower upper end; ties go to the larger share of the cuts closed, then to the
+ * larger share in nodes whose bound fell below the root's (`droppedShare`: progress that does not
+ * wait for a good incumbent), then to least-decided. The probes' best cut seeds the search; their nodes count in `workUsed` and in the
  * work budget. Deterministic under a work budget, like every rule.
  */
 export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = {}): TreeSearchRecord {
@@ -283,9 +283,10 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
   if (least.status !== "work-limit") return withProbes(least, "least-decided", 0);
   const most = searchWithRule(graph, { ...probeOptions, seconds: left(), initial: least.partition, branching: "most-decided" });
   if (most.status !== "work-limit") return withProbes(most, "most-decided", least.nodes);
-  // Compared in turn: the share of cuts closed, the share whose bound fell below the root's (progress
-  // even when the incumbent is still weak), the upper end.
-  const score = (r: TreeSearchRecord): number[] => [Number(r.details?.closedShare ?? 0), Number(r.details?.droppedShare ?? 0), -r.upper];
+  // Compared in turn: the upper end (what the search must bring down to the incumbent), the share of
+  // cuts closed, the share whose bound fell below the root's (progress even while the incumbent is
+  // too weak to close anything).
+  const score = (r: TreeSearchRecord): number[] => [-r.upper, Number(r.details?.closedShare ?? 0), Number(r.details?.droppedShare ?? 0)];
   const [a, b] = [score(least), score(most)];
   const k = a.findIndex((x, i) => x !== b[i]);
   const chosen: TreeBranching = k >= 0 && b[k] > a[k] ? "most-decided" : "least-decided";
