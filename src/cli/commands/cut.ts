@@ -191,6 +191,14 @@ export const cutCommand: CommandSpec = {
       choices: ["on", "off"],
       placeholder: "S",
     },
+    {
+      name: "parity",
+      type: "string",
+      description: "effort deep: on (a node that fixes every odd-degree vertex knows its cuts' parity and rounds its bound to it; few such vertices are branched on first) or off",
+      default: "on",
+      choices: ["on", "off"],
+      placeholder: "P",
+    },
     { name: "node-budget", type: "integer", description: "effort deep: stop branch and bound after N nodes (a budget that gives the same result on any machine)", min: 1, max: 1e12, placeholder: "N" },
     { name: "solver-seed", type: "integer", description: "seed of the randomised solvers (local search, SDP start, rounding, breakout)", default: 0, min: 0, max: MAX_SEED, placeholder: "N" },
     { name: "json", type: "boolean", description: "one JSON record per graph, one per line (what `halfplus verify` reads)" },
@@ -229,7 +237,7 @@ export const cutCommand: CommandSpec = {
     const budget = work !== undefined ? { work } : { seconds: seconds ?? DEFAULT_BRACKET_SECONDS };
     const solverSeed = o["solver-seed"] as number;
     const effort = o["effort"] as BracketEffort;
-    const deep = { relaxation: o["node-bound"] as TreeRelaxation, treeNodes: o["node-budget"] as number | undefined, branching: o["branching"] as TreeBranching, symmetry: o["symmetry"] === "on" };
+    const deep = { relaxation: o["node-bound"] as TreeRelaxation, treeNodes: o["node-budget"] as number | undefined, branching: o["branching"] as TreeBranching, symmetry: o["symmetry"] === "on", parity: o["parity"] === "on" };
     const wantProgress = o["progress"] === true || (o["progress"] === undefined && (io.stderr as NodeJS.WriteStream).isTTY === true);
     const outPath = o["out"] as string | undefined;
     if (outPath === "") throw new InputError("--out needs a file name");
