@@ -7,9 +7,11 @@
 // given in wall seconds and in process CPU seconds (startup_cpu_s, the one to compare on a shared
 // machine): the workers' module loading (one bundled file, scripts/bundle-worker.mjs), the plan,
 // the store and the first, still unoptimised, job. With load above the core count the scaling
-// rows cannot be judged: machine_speedup and process_ceiling then fall to about 1.
-// Usage: node bench/sweep.bench.mjs [--only overhead|scaling|stream] [--workload exact26|heuristic60] [--stream-n 7] [--stream-count 100000]
-import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+// rows cannot be judged: machine_speedup and process_ceiling then fall to about 1. The scaling row also splits the
+// CPU seconds of a 1- and a 2-worker run by thread (main, workers, V8's helper threads; Linux /proc) and gives the
+// speed-up they allow on idle cores (cpu_bound_speedup), which load from others hardly moves.
+// Usage: node bench/sweep.bench.mjs [--only overhead|scaling|stream] [--workload exact26|heuristic60] [--graphs 1000] [--stream-n 7] [--stream-count 100000]
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { loadavg, tmpdir } from "node:os";
 import { join } from "node:path";
 import { Worker } from "node:worker_threads";
@@ -20,22 +22,43 @@ import { encodeGraph6 } from "../dist/graph/formats/graph6.js";
 import { graphFromEdges } from "../dist/graph/builder.js";
 import { report } from "./util.mjs";
 
+/** Clock ticks since boot now (/proc/uptime), in the unit of /proc/<pid>/task/<tid>/stat's start time (USER_HZ = 100 on Linux). */
+function uptimeTicks() {
+  return Math.floor(Number(readFileSync("/proc/uptime", "utf8").split(" ")[0]) * 100);
+}
+
+/** A thread's CPU seconds (user + system) and start time in ticks, from its /proc stat line. */
+function threadStat(path) {
+  const text = readFileSync(path, "utf8");
+  const f = text.slice(text.lastIndexOf(")") + 2).split(" ");
+  return { cpu: (Number(f[11]) + Number(f[12])) / 100, start: Number(f[19]) };
+}
+
 const args = process.argv.slice(2);
 const opt = (name, fallback) => {
   const i = args.indexOf(`--${name}`);
   return i < 0 ? fallback : args[i + 1];
 };
 const only = opt("only", null);
-// Child mode (used by processCeiling below): one plan, 1 worker, in a process of its own.
+// Child mode (used by processCeiling and threadSeconds below): one plan in a process of its own
+// (1 worker unless --child-workers). Before the sweep it says on stderr when it starts (in the
+// clock ticks of /proc), so the parent can tell the sweep's worker threads from Node's own.
 if (opt("child", null) !== null) {
   const { runSweep: run } = await import("../dist/experiment/index.js");
   const plan = JSON.parse(opt("child", "{}"));
+  if (existsSync("/proc/self/stat")) {
+    // CPU already used by each thread (loading the modules), subtracted by the parent.
+    const before = readdirSync("/proc/self/task").map((tid) => `${tid}:${threadStat(`/proc/self/task/${tid}/stat`).cpu}`);
+    process.stderr.write(`sweep-starts-at-tick ${uptimeTicks()} ${before.join(",")}\n`);
+  }
   const t0 = performance.now();
-  await run(plan, { store: opt("child-store", ""), workers: 1, base: tmpdir(), progressEvery: 0 });
-  console.log(JSON.stringify({ wall: (performance.now() - t0) / 1000 }));
+  const s = await run(plan, { store: opt("child-store", ""), workers: Number(opt("child-workers", 1)), base: tmpdir(), progressEvery: 0 });
+  console.log(JSON.stringify({ wall: (performance.now() - t0) / 1000, computed: s.computed, solverSeconds: s.solverSeconds, jobSeconds: s.jobSeconds }));
   process.exit(0);
 }
 const streamN = Number(opt("stream-n", 7));
+/** Graphs per workload of the overhead and scaling rows (1000 for the targets; fewer for a quick look). */
+const graphs = Number(opt("graphs", 1000));
 const streamCount = Number(opt("stream-count", 100_000));
 const dir = mkdtempSync(join(tmpdir(), "halfplus-bench-sweep-"));
 
@@ -65,21 +88,100 @@ async function machineSpeedup(total = 1.5e8) {
  * realistic ceiling for the in-process 2-worker speed-up.
  */
 function processCeiling(plan, label) {
-  const runChild = (tag) =>
-    new Promise((resolve, reject) => {
-      const store = join(dir, `${label}-ceiling-${tag}.db`);
-      rmSync(store, { force: true });
-      const c = spawn(process.execPath, [fileURLToPath(import.meta.url), "--child", JSON.stringify(plan), "--child-store", store], { stdio: ["ignore", "pipe", "inherit"] });
-      let out = "";
-      c.stdout.on("data", (d) => (out += d));
-      c.on("exit", (code) => (code === 0 ? resolve(JSON.parse(out.trim()).wall) : reject(new Error(`ceiling child exited ${code}`))));
-    });
   return (async () => {
-    const alone = await runChild("alone");
-    const pair = await Promise.all([runChild("a"), runChild("b")]);
+    const alone = await runChild(plan, join(dir, `${label}-ceiling-alone.db`));
+    const pair = await Promise.all([runChild(plan, join(dir, `${label}-ceiling-a.db`)), runChild(plan, join(dir, `${label}-ceiling-b.db`))]);
     return (2 * alone) / Math.max(...pair);
   })();
 }
+/**
+ * Where a sweep's CPU goes, per thread (Linux): the sweep run in a child process whose threads the
+ * parent reads from /proc every 20 ms (a thread's last reading is kept after it exits, so at most
+ * ~20 ms of each is missed). Threads started after the sweep began are its workers; the others are
+ * Node's and V8's own (compiler and collector helper threads, shared by every worker of the process).
+ */
+function threadSeconds(plan, workers, label) {
+  if (!existsSync("/proc/self/task")) return Promise.resolve(null);
+  const store = join(dir, `${label}-threads-${workers}.db`);
+  rmSync(store, { force: true });
+  return new Promise((resolve, reject) => {
+    const c = spawn(process.execPath, [fileURLToPath(import.meta.url), "--child", JSON.stringify(plan), "--child-store", store, "--child-workers", String(workers)], { stdio: ["ignore", "pipe", "pipe"] });
+    let out = "";
+    let err = "";
+    c.stdout.on("data", (d) => (out += d));
+    c.stderr.on("data", (d) => (err += d));
+    const seen = new Map(); // tid → { cpu, start }
+    const sample = () => {
+      let tids;
+      try {
+        tids = readdirSync(`/proc/${c.pid}/task`);
+      } catch {
+        return;
+      }
+      for (const tid of tids) {
+        try {
+          seen.set(tid, threadStat(`/proc/${c.pid}/task/${tid}/stat`));
+        } catch {
+          // the thread has just exited: its last reading stays
+        }
+      }
+    };
+    const timer = setInterval(sample, 20);
+    c.on("exit", (code) => {
+      clearInterval(timer);
+      if (code !== 0) return reject(new Error(`thread-time child exited ${code}: ${err.trim()}`));
+      const m = /sweep-starts-at-tick (\d+) (\S+)/.exec(err);
+      if (m === null) return reject(new Error(`thread-time child said nothing about its start: ${err.trim()}`));
+      const began = Number(m[1]);
+      const before = new Map(m[2].split(",").map((x) => x.split(":")).map(([tid, cpu]) => [tid, Number(cpu)]));
+      for (const [tid, t] of seen) t.cpu -= before.get(tid) ?? 0;
+      const r = JSON.parse(out.trim());
+      let main = 0;
+      let helpers = 0;
+      const ws = [];
+      for (const [tid, t] of seen) {
+        if (Number(tid) === c.pid) main = t.cpu;
+        else if (t.start >= began) ws.push(t.cpu);
+        else helpers += t.cpu;
+      }
+      resolve({ ...r, main, workers: ws.reduce((a, b) => a + b, 0), workerThreads: ws.length, helpers });
+    });
+  });
+}
+
+/**
+ * The plan's job list cut in two (its one family's graph seeds halved): the best split a 2-worker
+ * pool could hope for if each half ran in a process of its own and paid its own start-up and JIT
+ * warm-up, as each pool worker does.
+ */
+function halves(plan) {
+  const f = plan.families[0];
+  const { from, count } = f.graphSeeds;
+  const half = Math.floor(count / 2);
+  return [
+    { ...plan, families: [{ ...f, graphSeeds: { from, count: half } }] },
+    { ...plan, families: [{ ...f, graphSeeds: { from: from + half, count: count - half } }] },
+  ];
+}
+
+function runChild(plan, store) {
+  return new Promise((resolve, reject) => {
+    rmSync(store, { force: true });
+    const c = spawn(process.execPath, [fileURLToPath(import.meta.url), "--child", JSON.stringify(plan), "--child-store", store], { stdio: ["ignore", "pipe", "inherit"] });
+    let out = "";
+    c.stdout.on("data", (d) => (out += d));
+    c.on("exit", (code) => (code === 0 ? resolve(JSON.parse(out.trim()).wall) : reject(new Error(`ceiling child exited ${code}`))));
+  });
+}
+
+/** The whole plan in one 1-worker process against its two halves in two 1-worker processes at once. */
+async function splitCeiling(plan, label) {
+  const whole = await runChild(plan, join(dir, `${label}-split-whole.db`));
+  const [a, b] = halves(plan);
+  const pair = await Promise.all([runChild(a, join(dir, `${label}-split-a.db`)), runChild(b, join(dir, `${label}-split-b.db`))]);
+  return whole / Math.max(...pair);
+}
+
 const rows = [];
 
 async function timed(plan, workers, label) {
@@ -107,12 +209,12 @@ async function timed(plan, workers, label) {
 // and G(60, 0.1) bracketed by the heuristics under a work budget of 4·10^5 units each (about 20 ms).
 const WORKLOADS = [
   {
-    label: "1000 x G(26,0.3), effort exact",
-    plan: { name: "exact26", bracket: { effort: "exact", work: 1_000_000_000 }, families: [{ family: "gnp", grid: { n: 26, p: 0.3 }, graphSeeds: { from: 0, count: 1000 } }] },
+    label: `${graphs} x G(26,0.3), effort exact`,
+    plan: { name: "exact26", bracket: { effort: "exact", work: 1_000_000_000 }, families: [{ family: "gnp", grid: { n: 26, p: 0.3 }, graphSeeds: { from: 0, count: graphs } }] },
   },
   {
-    label: "1000 x G(60,0.1), effort heuristic, 4e5 work units each",
-    plan: { name: "heuristic60", bracket: { effort: "heuristic", work: 400_000 }, families: [{ family: "gnp", grid: { n: 60, p: 0.1 }, graphSeeds: { from: 0, count: 1000 } }] },
+    label: `${graphs} x G(60,0.1), effort heuristic, 4e5 work units each`,
+    plan: { name: "heuristic60", bracket: { effort: "heuristic", work: 400_000 }, families: [{ family: "gnp", grid: { n: 60, p: 0.1 }, graphSeeds: { from: 0, count: graphs } }] },
   },
 ];
 
@@ -145,6 +247,9 @@ if (only === null || only === "overhead" || only === "scaling") {
     const two = await timed(w.plan, 2, w.plan.name);
     const after = await machineSpeedup();
     const ceiling = await processCeiling(w.plan, w.plan.name);
+    const split = await splitCeiling(w.plan, w.plan.name);
+    const t1 = await threadSeconds(w.plan, 1, w.plan.name);
+    const t2 = await threadSeconds(w.plan, 2, w.plan.name);
     rows.push({
       bench: `scaling, ${w.label}`,
       one_worker_per_s: +(one.computed / one.wall).toFixed(1),
@@ -159,6 +264,22 @@ if (only === null || only === "overhead" || only === "scaling") {
       workers_busy_pct: +((100 * two.jobSeconds) / (2 * two.wall)).toFixed(1),
       // Seconds per job inside the solver with 2 workers against 1: above 1 when the threads get less than a core each.
       solver_slowdown: +(two.solverSeconds / one.solverSeconds).toFixed(2),
+      // The plan in one 1-worker process against its two halves in two processes at once: each half
+      // pays start-up and JIT warm-up, as each worker of the pool does; the fairer ceiling for a fixed plan.
+      split_ceiling: +split.toFixed(2),
+      // CPU seconds per thread kind with 1 and 2 workers (child process, /proc; null off Linux):
+      // main thread, sweep workers, V8/Node helper threads (mostly the optimising compiler: each worker warms up its own code).
+      cpu_main_1w: t1 && +t1.main.toFixed(2),
+      cpu_workers_1w: t1 && +t1.workers.toFixed(2),
+      cpu_helpers_1w: t1 && +t1.helpers.toFixed(2),
+      cpu_main_2w: t2 && +t2.main.toFixed(2),
+      cpu_workers_2w: t2 && +t2.workers.toFixed(2),
+      cpu_helpers_2w: t2 && +t2.helpers.toFixed(2),
+      // Worker-thread CPU seconds per job, 2 workers against 1: above 1 when a job costs more CPU with both cores busy (shared execution units, caches).
+      worker_cpu_per_job_ratio: t1 && t2 && +(t2.workers / t2.computed / (t1.workers / t1.computed)).toFixed(2),
+      // The speed-up these CPU seconds allow on two idle cores, whatever the load now: 1 worker needs at
+      // least its worker's CPU (the rest can run on the other core), 2 workers at least half of everything.
+      cpu_bound_speedup: t1 && t2 && +(Math.max(t1.workers, (t1.main + t1.workers + t1.helpers) / 2) / ((t2.main + t2.workers + t2.helpers) / 2)).toFixed(2),
       load: loadavg()[0].toFixed(1),
     });
     console.log(JSON.stringify(rows[rows.length - 1]));

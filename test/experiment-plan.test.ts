@@ -7,6 +7,8 @@ import { InputError } from "../src/errors.js";
 import { jobKey, parseShard, planJobs, shardSize } from "../src/experiment/jobs.js";
 import { planSlices } from "../src/experiment/shards.js";
 import { loadPlan, type SweepPlan } from "../src/experiment/plan.js";
+import { resolveFamily } from "../src/experiment/job.js";
+import { listFamilies, predictedSizeOf } from "../src/families/registry.js";
 import { parseStrictJson } from "../src/limits/strict-json.js";
 import { encodeGraph6 } from "../src/graph/formats/graph6.js";
 import { cycle, petersen } from "./helpers/graphs.js";
@@ -136,6 +138,51 @@ describe("grids, seeds and keys", () => {
       "cycle cycle:n=5|solverSeed=3|effort=exact,seconds=4|halfplus@9.9.9",
     ]);
     expect(jobKey("petersen", 0, { effort: "auto", seconds: 10, work: null }, "1.0.0")).toBe("petersen|solverSeed=0|effort=auto,seconds=10|halfplus@1.0.0");
+  });
+});
+
+describe("random families: one grid point over many seeds", () => {
+  // One point of every random family (common practice, no source: the slow path, resolveFamily
+  // per seed, is the reference). A new random family fails the first check until it is listed.
+  const POINTS: Record<string, Record<string, string | number>> = {
+    gnp: { n: 26, p: 0.3 },
+    gnm: { n: 20, m: 31 },
+    "random-regular": { n: 20, d: 3 },
+    "bipartite-gnp": { a: 7, b: 9, p: 0.4 },
+    "hfree-process": { n: 15, h: "K4" },
+    "delete-random-edges": { of: "kneser:n=7,k=2", p: 0.25 },
+  };
+  const SEEDS = [0, 1, 2, 17, 4_000_000_000];
+
+  it("a random family's predicted size does not depend on its graph seed", () => {
+    expect(listFamilies().filter((d) => d.random).map((d) => d.name).sort()).toEqual(Object.keys(POINTS).sort());
+    for (const [name, point] of Object.entries(POINTS)) {
+      const spec = (seed: number): string => resolveFamily(name, { ...point, seed }).spec;
+      const sizes = SEEDS.map((s) => predictedSizeOf(spec(s)));
+      for (const size of sizes) expect(size, name).toEqual(sizes[0]);
+    }
+  });
+
+  it("the plan's members equal resolveFamily seed by seed (spec, parameters, graph seed, size)", () => {
+    for (const [name, point] of Object.entries(POINTS)) {
+      const grid = Object.fromEntries(Object.entries(point).map(([k, v]) => [k, typeof v === "string" && k === "of" ? { values: [v] } : v]));
+      const p = loadPlan({ families: [{ family: name, grid, graphSeeds: SEEDS }] } as SweepPlan);
+      const entry = p.entries[0];
+      if (entry.kind !== "specs") throw new Error("expected family members");
+      expect(entry.items).toHaveLength(SEEDS.length);
+      entry.items.forEach((item, i) => {
+        const one = resolveFamily(name, { ...point, seed: SEEDS[i] });
+        expect({ spec: item.spec, family: item.family, params: item.params, graphSeed: item.graphSeed, n: item.n, m: item.m }, `${name} seed ${SEEDS[i]}`).toEqual(one);
+        expect(Object.keys(item.params)).toEqual(Object.keys(one.params));
+        expect(item.paramsJson).toBe(JSON.stringify(one.params));
+      });
+    }
+  });
+
+  it("a point that fails is named with its first seed, in one line", () => {
+    expect(planError({ families: [{ family: "gnm", grid: { n: 5, m: 11 }, graphSeeds: { from: 3, count: 1000 } }] })).toMatch(
+      /^plan: families\[0\]: gnm \{"n":5,"m":11,"seed":3\}: .*`m`/,
+    );
   });
 });
 

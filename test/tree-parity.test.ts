@@ -7,6 +7,7 @@ import { describe, expect, it } from "vitest";
 import { cutValue } from "../src/graph/cut-value.js";
 import { exactMaxCut } from "../src/cut/exact/exact-max-cut.js";
 import { nodeParity, oddDegreeVertices, parityFloor } from "../src/cut/tree/parity.js";
+import { packTreeRegions, unpackTreeRegions } from "../src/cut/tree/tree-codec.js";
 import { AUTO_PROBE_NODES, relaxationTreeSearch, verifyTreeCertificate, type TreeCertificate } from "../src/cut/tree/relaxation-tree.js";
 import { family } from "../src/families/registry.js";
 import { graphFromEdges } from "../src/graph/builder.js";
@@ -130,6 +131,35 @@ describe("parity in the exact tree", () => {
     }
     // Where an odd-degree vertex is free, the parity may not lower the bound.
     for (const q of undecided.slice(0, 3)) expect(edit(q, 1), `region ${q}`).toBe(false);
+  });
+});
+
+describe("parity in the packed certificate", () => {
+  it("coarsens y of regions closed by parity too (the codec re-derives bounds as verify does), and the unpacked regions verify", () => {
+    const [name, g] = parityGraphs()[0];
+    const r = relaxationTreeSearch(g, { relaxation: "plain", branching: "most-decided", work: 20_000, seconds: 1e6, solverSeed: 1 });
+    const cert = r.certificate;
+    const back = unpackTreeRegions(JSON.parse(JSON.stringify(packTreeRegions(g, cert))), g.n);
+    const v = verifyTreeCertificate(g, { ...cert, regions: back });
+    expect(v.ok, `${name}: ${v.message}`).toBe(true);
+    const odd = oddDegreeVertices(g);
+    const key = (x: { vertices: number[]; sides: number[] }): string => `${x.vertices.join(",")}|${x.sides.join(",")}`;
+    const original = new Map(cert.regions.map((x) => [key(x), x]));
+    let decided = 0, kept = 0;
+    for (const b of back) {
+      const a = original.get(key(b))!;
+      if (a.certificate.kind !== "triangle-dual" || b.certificate.kind !== "triangle-dual") continue;
+      const side = new Uint8Array(g.n).fill(255);
+      side[cert.rootVertex] = 0;
+      a.vertices.forEach((x, i) => (side[x] = a.sides[i]));
+      if (nodeParity(odd, side) < 0) continue;
+      decided++;
+      if (b.certificate.y.every((y, i) => y === (a.certificate as { y: number[] }).y[i])) kept++;
+    }
+    // Without the parity step in the codec, a region whose bound parity lowered could not be re-proved
+    // at any coarser precision and would keep y in doubles.
+    expect(decided).toBeGreaterThan(0);
+    expect(kept).toBe(0);
   });
 });
 

@@ -39,6 +39,9 @@ export interface CommandSpec {
   run(args: ParsedArgs, io: CommandIO): Promise<number>;
 }
 
+/** A command's spec without its implementation: everything `--help` and the option parser need. */
+export type CommandHelp = Omit<CommandSpec, "run">;
+
 export interface ParsedArgs {
   positionals: string[];
   options: Record<string, boolean | string | number | undefined>;
@@ -133,7 +136,7 @@ export function parseArgs(cmd: CommandSpec, argv: readonly string[]): ParsedArgs
   return { positionals, options };
 }
 
-export function commandHelp(cmd: CommandSpec): string {
+export function commandHelp(cmd: CommandHelp): string {
   const lines = [`halfplus ${cmd.name} ${cmd.positionals}`.trimEnd(), "", `  ${cmd.summary}`, ""];
   for (const paragraph of cmd.description ?? []) lines.push(...wrap(paragraph, 96).map((l) => `  ${l}`), "");
   if (cmd.options.length > 0) {

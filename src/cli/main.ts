@@ -43,12 +43,12 @@ export async function runCli(argv: readonly string[], io: CommandIO): Promise<nu
     io.stderr.write(`halfplus: unknown command ${oneLine(echo(name))} (run halfplus --help)\n`);
     return 2;
   }
-  // Only the invoked command's module (and what it imports) is loaded.
-  const cmd = await entry.load();
+  // --help needs only the command's help module; otherwise only the invoked command's module (and what it imports) is loaded.
   if (rest.includes("--help") || rest.includes("-h")) {
-    io.stdout.write(commandHelp(cmd));
+    io.stdout.write(commandHelp(await entry.help()));
     return 0;
   }
+  const cmd = await entry.load();
   try {
     return await cmd.run(parseArgs(cmd, rest), io);
   } catch (e) {

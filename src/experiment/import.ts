@@ -12,26 +12,9 @@ import { STORED_DEGREES, type StoredDegree } from "./rows.js";
 import { disagreements } from "./merge.js";
 import type { ResultStore } from "./store.js";
 
-/** Columns an imported CSV may have; `d` is the degree measure named by `dIs`. */
-export const IMPORT_COLUMNS = [
-  "key",
-  "family",
-  "n",
-  "m",
-  "d",
-  "degeneracy",
-  "maxDegree",
-  "averageDegree",
-  "minDegree",
-  "totalWeight",
-  "surplusLower",
-  "surplusUpper",
-  "surplus",
-  "lower",
-  "upper",
-  "exact",
-  "notes",
-] as const;
+// IMPORT_COLUMNS lives in ./import-columns.ts (`halfplus import --help` lists them without loading this file).
+import { IMPORT_COLUMNS } from "./import-columns.js";
+export { IMPORT_COLUMNS };
 
 export interface ImportOptions {
   /** Family label for rows without a `family` column (default: the file name without extension). */

@@ -124,6 +124,23 @@ export function resolveFamily(name: string, values: Params): ResolvedSpec {
   return { spec, family: def.name, params, graphSeed: def.random ? (params.seed as number) : null, n: shape.n, m: shape.m };
 }
 
+/**
+ * One grid point of a random family, resolved seed after seed: the first seed by resolveFamily, each
+ * further one by its parameters alone (checked, canonicalised and written out the same way), since
+ * a random family's predicted size never depends on its graph seed (FamilyDefinition.predictedSize).
+ * Same results as resolveFamily per seed; a plan of 1000 seeds of one point spent most of its
+ * check re-parsing each spec only to size it again.
+ */
+export function seedResolver(name: string, point: Params): (seed: number) => ResolvedSpec {
+  let first: ResolvedSpec | null = null;
+  return (seed) => {
+    if (first === null) return (first = resolveFamily(name, { ...point, seed }));
+    const def = getFamily(name)!;
+    const { params } = resolveParams(def, { ...point, seed });
+    return { spec: formatSpec(def, params), family: def.name, params, graphSeed: params.seed as number, n: first.n, m: first.m };
+  };
+}
+
 /** Same, from a spec string such as `kneser:n=7,k=2`. */
 export function resolveSpecString(spec: string): ResolvedSpec {
   const raw = parseRawSpec(spec);

@@ -17,6 +17,7 @@ import {
   familyFacts,
   resolveFamily,
   resolveSpecString,
+  seedResolver,
   type BracketSettings,
   type Effort,
   type ParamValue,
@@ -454,11 +455,12 @@ function entryCommon(f: Fields, path: string, o: Record<string, Json>, defaults:
   };
 }
 
-function resolveOrFail(f: Fields, path: string, what: string, run: () => ResolvedSpec): ResolvedSpec {
+/** `what` is only written out for the message (a plan can have 10^5 members). */
+function resolveOrFail(f: Fields, path: string, what: () => string, run: () => ResolvedSpec): ResolvedSpec {
   try {
     return run();
   } catch (e) {
-    if (e instanceof InputError) f.fail(path, `${what}: ${e.message}`);
+    if (e instanceof InputError) f.fail(path, `${what()}: ${e.message}`);
     throw e;
   }
 }
@@ -505,9 +507,14 @@ function familyEntry(f: Fields, path: string, o: Record<string, Json>, defaults:
   const items: SpecItem[] = [];
   const seen = new Set<string>();
   for (const point of points) {
+    const bySeed = facts!.random ? seedResolver(name, point) : null;
     for (const seed of graphSeeds) {
-      const values = seed === null ? point : { ...point, seed };
-      const r = resolveOrFail(f, path, `${name} ${JSON.stringify(values)}`, () => resolveFamily(name, values));
+      const r = resolveOrFail(
+        f,
+        path,
+        () => `${name} ${JSON.stringify(seed === null ? point : { ...point, seed })}`,
+        () => (seed === null ? resolveFamily(name, point) : bySeed!(seed)),
+      );
       if (seen.has(r.spec)) continue; // a ladder rounded two steps to the same size
       seen.add(r.spec);
       items.push({ ...r, label, paramsJson: stableJson(r.params) });
@@ -523,7 +530,7 @@ function specsEntry(f: Fields, path: string, o: Record<string, Json>, defaults: 
   const items: SpecItem[] = [];
   const seen = new Set<string>();
   specs.forEach((s, j) => {
-    const r = resolveOrFail(f, `${path}.specs[${j}]`, JSON.stringify(s), () => resolveSpecString(s));
+    const r = resolveOrFail(f, `${path}.specs[${j}]`, () => JSON.stringify(s), () => resolveSpecString(s));
     if (r.graphSeed !== null && !/(^|[:,])\s*seed\s*=/.test(s)) f.fail(`${path}.specs[${j}]`, `${JSON.stringify(s)} is random: write its seed (e.g. ${s}${s.includes(":") ? "," : ":"}seed=0)`);
     if (seen.has(r.spec)) f.fail(`${path}.specs[${j}]`, `${r.spec} is listed twice`);
     seen.add(r.spec);

@@ -24,8 +24,9 @@ function sqlite(): typeof Database {
   return driver;
 }
 
-/** Where `halfplus sweep` writes when no --store is given. */
-export const DEFAULT_STORE = "results/halfplus.db";
+// DEFAULT_STORE lives in ./default-store.ts (`--help` shows it without loading SQLite).
+import { DEFAULT_STORE } from "./default-store.js";
+export { DEFAULT_STORE };
 
 const FORMAT = "halfplus-results";
 const SCHEMA_VERSION = "1";

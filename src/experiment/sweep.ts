@@ -276,13 +276,16 @@ export async function runSweep(plan: SweepPlan | Plan | string, options: SweepOp
     while (inFlight.size > 0) await Promise.race(inFlight);
   } finally {
     workerIdleSeconds = runner.idleSeconds();
-    await runner.close();
+    // Every batch has come back: the workers stop while the main thread closes the store (both
+    // take tens of milliseconds of wall time, the store mostly waiting for the disk).
+    const closing = runner.close();
     log.finishedAt = nowIso();
     log.computed = computed;
     log.status = failure !== null ? "failed" : stopped ? "stopped" : "finished";
     store.logSweep(log);
     await maintenance.stop?.();
     if (ownStore) store.close();
+    await closing;
   }
   if (failure !== null) throw failure;
   report(true);

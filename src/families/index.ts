@@ -3,6 +3,7 @@
 export * from "./types.js";
 export { formatSpec, parseRawSpec, resolveParams, allParams, SEED_PARAM, type RawSpec } from "./spec.js";
 export * from "./registry.js";
+export { isFamilyName, loadFamilyDefinition, loadFamilyWithInfo, loadableFamilyNames } from "./family-loaders.js";
 export * from "./report.js";
 export { MAX_FIELD_ORDER, GaloisField, finiteField, finiteFieldOf, isPrimePower, isIrreducible, type PrimePower } from "./finite-field.js";
 export { complete } from "./complete.js";

@@ -84,7 +84,10 @@ export interface FamilyDefinition<P = Params> {
   random: boolean;
   /** Subgraphs it is proven free of, with the citation. */
   freeOf(params: P): FreeOfClaim[];
-  /** Predicted size, used by `halfplus families` and to refuse graphs that would not fit in memory. */
+  /**
+   * Predicted size, used by `halfplus families` and to refuse graphs that would not fit in memory.
+   * Never depends on a random family's graph seed: a sweep plan sizes one seed per grid point.
+   */
   predictedSize(params: P, ctx?: SizeContext): PredictedSize;
   /** Cross-parameter checks beyond the per-parameter ranges (e.g. k ≤ n/2); throw InputError via `invalidParameter`. */
   validate?(params: P): void;

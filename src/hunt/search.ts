@@ -19,9 +19,8 @@ import { MutableGraph } from "./mutable-graph.js";
 import { checkObjective, type HuntObjective } from "./objective.js";
 import { RootedSearch, rootedPattern, type RootedPattern } from "./pattern-through-edge.js";
 
-/** Where chains start: known constructions and process outputs, process outputs only, or the empty graph (filled greedily). */
-export type HuntStarts = "references" | "process" | "empty";
-export const HUNT_STARTS: readonly HuntStarts[] = ["references", "process", "empty"];
+import { HUNT_STARTS, type HuntStarts } from "./starts.js";
+export { HUNT_STARTS, type HuntStarts };
 
 export interface HuntOptions {
   /** H, as a graph (at least one edge). */

@@ -9,7 +9,9 @@ import type { BuildOptions } from "../graph/builder.js";
 import type { Graph } from "../graph/graph.js";
 import { exactlyOneGraph, readGraphs, type GraphFormat } from "../graph/formats/index.js";
 import { sourceLabel, type GraphSource } from "../graph/record/source.js";
-import { familyWithInfo, getFamily, renamedFamily } from "../families/registry.js";
+// Only the families a spec names are loaded (families/family-loaders.ts), not the whole registry.
+import { isFamilyName, loadFamilyDefinition, loadFamilyWithInfo } from "../families/family-loaders.js";
+import { renamedFamily } from "../families/resolver.js";
 import { looksLikeSpec, parseRawSpec } from "../families/spec.js";
 import { checkSeed } from "../random/seed.js";
 
@@ -43,7 +45,7 @@ function classify(arg: string): Kind {
   }
   if (looksLikeSpec(arg)) {
     const { name } = parseRawSpec(arg);
-    if (getFamily(name) !== undefined) return "family";
+    if (isFamilyName(name)) return "family";
     const now = renamedFamily(name);
     throw new InputError(`${echo(arg)}: no such file, and no family called ${echo(name)} (${now === undefined ? "run halfplus families" : `it is now called ${now}`})`);
   }
@@ -59,11 +61,11 @@ function stdinIsDirectory(): boolean {
 }
 
 /** The spec with the graph seed filled in; a seed that is not wanted or disagrees is bad input. */
-function seededSpec(spec: string, graphSeed: number | undefined): string {
+async function seededSpec(spec: string, graphSeed: number | undefined): Promise<string> {
   if (graphSeed === undefined) return spec;
   checkSeed("--graph-seed", "seed", graphSeed);
   const raw = parseRawSpec(spec);
-  if (getFamily(raw.name)?.random !== true) {
+  if ((await loadFamilyDefinition(raw.name)).random !== true) {
     throw new InputError(`${spec}: --graph-seed applies to random families, and ${raw.name} is not one`);
   }
   const given = raw.values.get("seed");
@@ -79,7 +81,7 @@ export async function* openSource(arg: string, options: OpenSourceOptions = {}):
   const kind = classify(arg);
   if (kind === "family") {
     if (options.format !== undefined) throw new InputError(`${arg}: --format applies to files, not to family specs`);
-    const f = familyWithInfo(seededSpec(arg, options.graphSeed));
+    const f = await loadFamilyWithInfo(await seededSpec(arg, options.graphSeed));
     const source: GraphSource = { spec: f.spec, graphSeed: f.graphSeed };
     yield { graph: f.graph, label: sourceLabel(source), source, notes: f.notes };
     return;

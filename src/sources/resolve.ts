@@ -7,7 +7,7 @@ import { InputError } from "../errors.js";
 import type { Graph } from "../graph/graph.js";
 import { readEmbeddedGraph } from "../graph/record/embed.js";
 import { sourceLabel, type GraphSource } from "../graph/record/source.js";
-import { familyWithInfo } from "../families/registry.js";
+import { loadFamilyWithInfo } from "../families/family-loaders.js";
 import { openSource, type OpenSourceOptions } from "./open.js";
 
 export class SourceResolver {
@@ -19,7 +19,7 @@ export class SourceResolver {
   async resolve(source: GraphSource, where: string): Promise<Graph> {
     if (typeof source !== "object" || source === null) throw new InputError(`${where}: \`source\` should be an object`);
     if (source.embedded !== undefined) return readEmbeddedGraph(source.embedded, where);
-    if (source.spec !== undefined) return familyWithInfo(source.spec).graph;
+    if (source.spec !== undefined) return (await loadFamilyWithInfo(source.spec)).graph;
     if (source.path === "-") throw new InputError(`${where}: the graph came from standard input and the record has no embedded copy; pass it with --graph`);
     if (source.path === undefined) throw new InputError(`${where}: \`source\` names no spec, file or embedded graph; pass the graph with --graph`);
     const graphs = await this.file(source, where);

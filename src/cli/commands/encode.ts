@@ -3,38 +3,18 @@
 // `halfplus encode kneser:n=7,k=2 | nauty-countg`, `... | halfplus cut -`.
 import { closeSync, openSync, writeSync } from "node:fs";
 import { InputError } from "../../errors.js";
-import { GRAPH_FORMATS, writeGraph, type GraphFormat } from "../../graph/formats/index.js";
+import { writeGraph, type GraphFormat } from "../../graph/formats/index.js";
 import { openSource } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
-import { COMMAND_SUMMARIES } from "./summaries.js";
+import { encodeHelp } from "./help/encode.js";
 import { writeLine } from "../output.js";
-import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
+import { sourceOptionsFrom } from "./source-options.js";
 
 /** Formats that hold any number of graphs, one per line; the others hold one graph per file. */
 const STREAM_FORMATS: readonly GraphFormat[] = ["graph6", "sparse6"];
 
 export const encodeCommand: CommandSpec = {
-  name: "encode",
-  summary: COMMAND_SUMMARIES["encode"],
-  positionals: "<source>",
-  minPositionals: 1,
-  maxPositionals: 1,
-  description: [
-    "graph6 and sparse6 write one graph per line, so a family spec or a whole stream becomes a stream other tools read (nauty's countg, labelg, ...). The other formats hold one graph per file and refuse a second graph. Weighted graphs need a format with weights (edgelist or gset).",
-    SOURCE_HELP,
-  ],
-  options: [
-    { name: "as", type: "string", description: "output format", default: "graph6", choices: GRAPH_FORMATS, placeholder: "F" },
-    { name: "out", short: "o", type: "string", description: "write to FILE instead of standard output", placeholder: "FILE" },
-    ...SOURCE_OPTIONS,
-  ],
-  examples: [
-    "halfplus encode petersen",
-    "halfplus encode polarity:q=7 --as sparse6 -o er7.s6",
-    "halfplus encode hfree-process:n=30,h=C4 --graph-seed 2 --as edgelist",
-    "halfplus encode kneser:n=7,k=2 | nauty-countg",
-    "nauty-geng -c 6 | halfplus encode - --as sparse6",
-  ],
+  ...encodeHelp,
   async run(args, io) {
     const format = args.options["as"] as GraphFormat;
     const outPath = args.options["out"] as string | undefined;

@@ -7,7 +7,7 @@ import { getFamily, listFamilies, renamedFamily } from "../../families/registry.
 import { parseRawSpec } from "../../families/spec.js";
 import type { ParamValue, PredictedSize } from "../../families/types.js";
 import type { CommandSpec } from "../args.js";
-import { COMMAND_SUMMARIES } from "./summaries.js";
+import { familiesHelp } from "./help/families.js";
 import { formatNumber as num } from "../format.js";
 import { writeLine } from "../output.js";
 
@@ -67,16 +67,7 @@ export function formatFamilyReport(r: FamilyReport, detailed: boolean): string {
 }
 
 export const familiesCommand: CommandSpec = {
-  name: "families",
-  summary: COMMAND_SUMMARIES["families"],
-  positionals: "[name | spec]",
-  minPositionals: 0,
-  maxPositionals: 1,
-  description: [
-    "A family spec is name:key=value,... (lists joined by +, nested specs in brackets: blow-up:of=[petersen],t=3). Random families take seed=N, the graph seed. Given a name or a spec, one family is shown in detail, its predicted size evaluated at that spec.",
-  ],
-  options: [{ name: "json", type: "boolean", description: "one JSON object per family, one per line" }],
-  examples: ["halfplus families", "halfplus families polarity", "halfplus families kneser:n=9,k=4 --json"],
+  ...familiesHelp,
   async run(args, io) {
     const json = args.options["json"] === true;
     const target = args.positionals[0];

@@ -4,10 +4,10 @@ import { describeGraph, type GraphSummary } from "../../graph/structure/describe
 import { graphSummaryRecord } from "../../graph/structure/summary-record.js";
 import { openSource } from "../../sources/index.js";
 import type { CommandSpec } from "../args.js";
-import { COMMAND_SUMMARIES } from "./summaries.js";
+import { graphHelp } from "./help/graph.js";
 import { formatNumber as num, formatRows } from "../format.js";
 import { writeLine } from "../output.js";
-import { SOURCE_HELP, SOURCE_OPTIONS, sourceOptionsFrom } from "./source-options.js";
+import { sourceOptionsFrom } from "./source-options.js";
 
 function text(x: number | null | boolean): string {
   if (x === null) return "not known";
@@ -36,22 +36,7 @@ export function formatSummary(label: string, s: GraphSummary, notes: readonly st
 }
 
 export const graphCommand: CommandSpec = {
-  name: "graph",
-  summary: COMMAND_SUMMARIES["graph"],
-  positionals: "<source>",
-  minPositionals: 1,
-  maxPositionals: 1,
-  description: [
-    "Subgraphs are counted as subgraphs, not necessarily induced. With --json each graph gives one record (kind halfplus/graph-summary) carrying the graph's hash and source, so it joins with `halfplus cut` records of the same graph.",
-    SOURCE_HELP,
-  ],
-  options: [{ name: "json", type: "boolean", description: "one JSON record per graph, one per line" }, ...SOURCE_OPTIONS],
-  examples: [
-    "halfplus graph petersen",
-    "halfplus graph graphs.g6 --json",
-    "nauty-geng -c 8 -t | halfplus graph - --json",
-    "halfplus graph gnp:n=500,p=0.02 --graph-seed 7",
-  ],
+  ...graphHelp,
   async run(args, io) {
     const json = args.options["json"] === true;
     let first = true;

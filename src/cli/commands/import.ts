@@ -2,23 +2,12 @@
 // n and degree measures when known) become store rows that fits and figures read like swept ones.
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
-import { COMMAND_SUMMARIES } from "./summaries.js";
-import { STORED_DEGREES, IMPORT_COLUMNS, importCsvFile, openStore, type StoredDegree } from "../../experiment/index.js";
+import { importHelp } from "./help/import.js";
+import { importCsvFile, openStore, type StoredDegree } from "../../experiment/index.js";
 import { writeLine } from "../output.js";
 
 export const importCommand: CommandSpec = {
-  name: "import",
-  summary: COMMAND_SUMMARIES["import"],
-  positionals: "<rows.csv>",
-  minPositionals: 1,
-  maxPositionals: 1,
-  options: [
-    { name: "into", type: "string", description: "the results store (created if missing)", placeholder: "FILE" },
-    { name: "family", type: "string", description: "family label for rows without a family column (default: the file name)", placeholder: "NAME" },
-    { name: "d-is", type: "string", description: "what a `d` column holds", default: "degeneracy", choices: STORED_DEGREES, placeholder: "MEASURE" },
-    { name: "skip-unknown", type: "boolean", description: "leave out columns halfplus does not know (and list them) instead of refusing the file" },
-  ],
-  examples: [`halfplus import measured.csv --into results/halfplus.db --family my-graphs   # columns: ${IMPORT_COLUMNS.slice(2, 6).join(", ")}, surplusLower, surplusUpper, ...`],
+  ...importHelp,
   async run(args, io) {
     const o = args.options;
     const into = o["into"] as string | undefined;

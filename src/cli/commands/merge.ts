@@ -3,21 +3,12 @@
 // Census tables and the hunt frontier come along (src/experiment/merge-tables.ts has their rules).
 import { InputError } from "../../errors.js";
 import type { CommandSpec } from "../args.js";
-import { COMMAND_SUMMARIES } from "./summaries.js";
+import { mergeHelp } from "./help/merge.js";
 import { mergeStores } from "../../experiment/index.js";
 import { writeLine } from "../output.js";
 
 export const mergeCommand: CommandSpec = {
-  name: "merge",
-  summary: COMMAND_SUMMARIES["merge"],
-  positionals: "<store.db...>",
-  minPositionals: 1,
-  maxPositionals: Infinity,
-  options: [
-    { name: "into", type: "string", description: "the store to merge into (created if missing)", placeholder: "FILE" },
-    { name: "json", type: "boolean", description: "print the report as one JSON object" },
-  ],
-  examples: ["halfplus merge shard-0.db shard-1.db shard-2.db --into all.db"],
+  ...mergeHelp,
   async run(args, io) {
     const into = args.options["into"] as string | undefined;
     if (into === undefined || into === "") throw new InputError("--into FILE is required: the store to merge into");

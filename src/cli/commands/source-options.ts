@@ -1,5 +1,5 @@
 // Options shared by every command that reads graphs, and their translation to openSource.
-import { GRAPH_FORMATS, type GraphFormat } from "../../graph/formats/index.js";
+import { GRAPH_FORMATS, type GraphFormat } from "../../graph/formats/types.js";
 import { MAX_SEED } from "../../random/seed.js";
 import type { OpenSourceOptions } from "../../sources/index.js";
 import type { OptionSpec, ParsedArgs } from "../args.js";

@@ -28,6 +28,7 @@ import { defaultSdpRank, solveSdp, type SdpRecord } from "../relaxation/sdp-mixi
 import { positiveWeightBound } from "../positive-weights.js";
 import { solveTriangleSdp, type TriangleSdpRecord } from "../relaxation/triangle-sdp.js";
 import { TREE_BRANCHINGS, TREE_RELAXATIONS, relaxationTreeSearch, type TreeBranching, type TreeRelaxation, type TreeSearchRecord } from "../tree/relaxation-tree.js";
+import { packTreeRegions } from "../tree/tree-codec.js";
 import type { CutRecord, DualCertificate, UpperBoundRecord, UpperKind } from "../types.js";
 import { recordEnvelope } from "../../graph/record/envelope.js";
 import type { GraphSource } from "../../graph/record/source.js";
@@ -292,7 +293,7 @@ class BracketState {
       this.upper = r.upper;
       this.upperMethod = r.method;
       this.upperKind = "proven";
-      this.certificate = { kind: "sdp-tree", rootVertex: r.certificate.rootVertex, relaxation: r.relaxation, regions: r.certificate.regions, ...(r.certificate.orbital === undefined ? {} : { orbital: r.certificate.orbital, automorphisms: r.certificate.automorphisms }), nodes: r.nodes, roundedDown: true, tolerance: this.tolerance };
+      this.certificate = { kind: "sdp-tree", rootVertex: r.certificate.rootVertex, relaxation: r.relaxation, packed: packTreeRegions(this.graph, r.certificate), ...(r.certificate.orbital === undefined ? {} : { orbital: r.certificate.orbital, automorphisms: r.certificate.automorphisms }), nodes: r.nodes, roundedDown: true, tolerance: this.tolerance };
     }
     this.progress(r.method);
   }

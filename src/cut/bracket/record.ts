@@ -7,6 +7,7 @@ import type { ProbableShift, ShiftProof, SolverStatus, UpperKind } from "../type
 import type { BracketBudget } from "./budget.js";
 import type { TreeRegion, TreeRelaxation } from "../tree/relaxation-tree.js";
 import type { TreeOrbitalBranch } from "../tree/symmetry.js";
+import type { PackedTreeRegions } from "../tree/tree-codec.js";
 
 /** The `kind` every bracket record carries, so verify can refuse other JSON. */
 export const BRACKET_RECORD_KIND = "halfplus/bracket";
@@ -17,7 +18,9 @@ export const BRACKET_RECORD_KIND = "halfplus/bracket";
  * proofs `sparse-cholesky` and `chebyshev-probable`; a probable certificate carries
  * `probable` (δ, seed, filter degree and interval) and the record's `upperKind` is then "probable";
  * effort `deep`; certificates `triangle-dual` (the SDP with triangle inequalities) and `sdp-tree`
- * (the regions of a relaxation-bounded branch and bound).
+ * (the regions of a relaxation-bounded branch and bound). An `sdp-tree` certificate carries its
+ * regions either `packed` (../tree/tree-codec.ts: what this build writes) or as the JSON array
+ * `regions` (what earlier builds wrote, still read: stores and record files may hold it); exactly one.
  */
 export const BRACKET_RECORD_VERSION = 3;
 
@@ -42,7 +45,7 @@ export type BracketCertificate =
   | { kind: "unfinished-search"; search: string; graySteps: number; branchNodes: number; roundedDown: boolean; tolerance: number }
   | { kind: "positive-weights"; roundedDown: boolean; tolerance: number }
   | { kind: "triangle-dual"; y: number[]; shift: number; shiftProof: "cholesky"; triangles: number[]; mu: number[]; roundedDown: boolean; tolerance: number }
-  | { kind: "sdp-tree"; rootVertex: number; relaxation: TreeRelaxation; regions: TreeRegion[]; orbital?: TreeOrbitalBranch[]; automorphisms?: number[][]; nodes: number; roundedDown: boolean; tolerance: number };
+  | { kind: "sdp-tree"; rootVertex: number; relaxation: TreeRelaxation; packed?: PackedTreeRegions; regions?: TreeRegion[]; orbital?: TreeOrbitalBranch[]; automorphisms?: number[][]; nodes: number; roundedDown: boolean; tolerance: number };
 
 /** One method's contribution, summarised. */
 export interface BracketRun {

@@ -8,7 +8,7 @@
 // its recorded seed and reported as probable, with its failure probability. The verdict word and the exit
 // status it leads to are decided here, once, for record files and results stores alike.
 
-import { InputError, echo } from "../../errors.js";
+import { InputError, echo, isInputError, oneLine } from "../../errors.js";
 import { cutValue, floorCutBound } from "../../graph/cut-value.js";
 import { GRAPH_FORMATS } from "../../graph/formats/types.js";
 import type { Graph } from "../../graph/graph.js";
@@ -19,7 +19,8 @@ import { closingTolerance } from "../exact/exact-slack.js";
 import { MAX_DUAL_ENTRY, SHIFT_PROOFS, verifyCertificate } from "../relaxation/certificate.js";
 import { positiveWeightBound } from "../positive-weights.js";
 import { verifyTriangleCertificate } from "../relaxation/triangle-dual.js";
-import { TREE_RELAXATIONS, verifyTreeCertificate } from "../tree/relaxation-tree.js";
+import { TREE_RELAXATIONS, verifyTreeCertificate, type TreeRegion } from "../tree/relaxation-tree.js";
+import { TREE_PACKING_FORMAT, unpackTreeRegions } from "../tree/tree-codec.js";
 import type { UpperKind } from "../types.js";
 import { BRACKET_EFFORTS, BRACKET_RECORD_KIND, BRACKET_RECORD_VERSION, type BracketRecord } from "./record.js";
 import { BUDGET_KINDS } from "./budget.js";
@@ -58,8 +59,9 @@ export interface BracketVerifyOptions {
   seconds?: number;
 }
 
-/** `halfplus verify`'s exit status when every check passed but an upper end is an estimate (0 with --accept-estimates). */
-export const EXIT_ESTIMATE = 3;
+// EXIT_ESTIMATE lives in ./exit-estimate.ts (the command line's help shows it without loading verify).
+import { EXIT_ESTIMATE } from "./exit-estimate.js";
+export { EXIT_ESTIMATE };
 
 /**
  * The exit status of a verify run from its verdicts: 1 when any record is rejected, else
@@ -234,6 +236,20 @@ function parseStrengthened(f: Fields, c: Record<string, unknown>): void {
   f.count("certificate.rootVertex", c.rootVertex);
   f.count("certificate.nodes", c.nodes);
   f.oneOf("certificate.relaxation", c.relaxation, TREE_RELAXATIONS);
+  // The packed form (what this build writes) or the plain array (earlier builds; stores hold it).
+  const hasPacked = Object.prototype.hasOwnProperty.call(c, "packed"), hasPlain = Object.prototype.hasOwnProperty.call(c, "regions");
+  if (hasPacked === hasPlain) f.bad("certificate", "either `packed` or `regions`, not both or neither", hasPacked ? "both" : "neither");
+  if (hasPacked) {
+    const p = f.object("certificate.packed", c.packed);
+    f.oneOf("certificate.packed.format", p.format, [TREE_PACKING_FORMAT]);
+    f.count("certificate.packed.regions", p.regions);
+    f.count("certificate.packed.bytes", p.bytes);
+    f.text("certificate.packed.data", p.data);
+  }
+  if (!hasPlain) {
+    parseOrbital(f, c);
+    return;
+  }
   if (!Array.isArray(c.regions)) f.bad("certificate.regions", "an array", c.regions);
   (c.regions as unknown[]).forEach((reg, q) => {
     const r = f.object(`certificate.regions[${q}]`, reg);
@@ -244,6 +260,14 @@ function parseStrengthened(f: Fields, c: Record<string, unknown>): void {
     f.oneOf(`certificate.regions[${q}].certificate.kind`, rc.kind, ["triangle-dual", "exhaustive"]);
     if (rc.kind === "triangle-dual") dual(`certificate.regions[${q}].certificate`, rc);
   });
+  parseOrbital(f, c);
+}
+
+/** Shapes of a tree certificate's orbital branches and automorphisms, when present. */
+function parseOrbital(f: Fields, c: Record<string, unknown>): void {
+  const numbers = (field: string, v: unknown): void => {
+    if (!Array.isArray(v) || !v.every((x) => typeof x === "number" && Number.isFinite(x))) f.bad(field, "an array of finite numbers", v);
+  };
   if (c.orbital === undefined && c.automorphisms === undefined) return;
   if (!Array.isArray(c.orbital)) f.bad("certificate.orbital", "an array", c.orbital);
   if (!Array.isArray(c.automorphisms)) f.bad("certificate.automorphisms", "an array", c.automorphisms);
@@ -291,7 +315,15 @@ function deriveUpper(graph: Graph, record: BracketRecord, integral: boolean, sec
     }
     case "sdp-tree": {
       if (!integral) return failed("an SDP tree certificate needs integer weights");
-      const v = verifyTreeCertificate(graph, { rootVertex: cert.rootVertex, relaxation: cert.relaxation, regions: cert.regions, orbital: cert.orbital, automorphisms: cert.automorphisms });
+      let regions: TreeRegion[];
+      try {
+        regions = cert.packed !== undefined ? unpackTreeRegions(cert.packed, graph.n) : (cert.regions ?? []);
+      } catch (e) {
+        // A forged or truncated byte string: the certificate fails (one line), the record is rejected.
+        if (isInputError(e)) return failed(`tree certificate rejected: ${oneLine(e.message)}`);
+        throw e;
+      }
+      const v = verifyTreeCertificate(graph, { rootVertex: cert.rootVertex, relaxation: cert.relaxation, regions, orbital: cert.orbital, automorphisms: cert.automorphisms });
       if (!v.ok) return failed(`tree certificate rejected: ${v.message}`);
       return { bound: v.bound, kind: "proven", message: `branch and bound: ${v.message}` };
     }

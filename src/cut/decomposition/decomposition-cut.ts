@@ -44,17 +44,9 @@ import { cutRecordOf, type CutRecord } from "../types.js";
 
 const OWNER = "decomposition cut";
 
-/**
- * Default triangle factor c = 1/(3π): with T ≤ m√Δ/(3π) the few-triangles form with ε = 1/√Δ,
- * m/(π√Δ) − 3T/(2Δ), keeps at least half of its triangle-free value m/(π√Δ).
- */
-export const DEFAULT_TRIANGLE_FACTOR = 1 / (3 * Math.PI);
-
-/**
- * Default size up to which a piece is cut exactly: the Gray-code search's own default range
- * (measured: a 24-vertex piece takes a few milliseconds).
- */
-export const DEFAULT_EXACT_VERTICES = 24;
+// The defaults live in ./defaults.ts (the command line shows them without loading this file).
+import { DEFAULT_EXACT_VERTICES, DEFAULT_TRIANGLE_FACTOR } from "./defaults.js";
+export { DEFAULT_EXACT_VERTICES, DEFAULT_TRIANGLE_FACTOR };
 
 export interface DecompositionOptions {
   /** H, a pattern name (K4, C5, K2,3, …) the graph is free of. Default: K_{ω+1}, ω the clique number. */

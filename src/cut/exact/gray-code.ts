@@ -12,8 +12,8 @@ import { CutBlock } from "./cut-block.js";
 import { float64Pool, int32Pool, uint8Pool, type ScratchPool } from "../../graph/scratch.js";
 import { GRAY_RESYNC_STEPS, graphSlack } from "./exact-slack.js";
 
-/** Largest n the Gray-code enumeration accepts (2^33 patterns: tens of seconds without pruning). */
-export const GRAY_MAX_VERTICES = 34;
+import { GRAY_MAX_VERTICES } from "./gray-limit.js";
+export { GRAY_MAX_VERTICES };
 
 export interface GrayOptions extends ExactOptions {
   /** Vertices in the tabulated block (default min(n − 1, 14)). */

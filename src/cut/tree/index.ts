@@ -2,3 +2,4 @@
 // the reduced problem of a node.
 export * from "./reduced-graph.js";
 export * from "./relaxation-tree.js";
+export * from "./tree-codec.js";

@@ -17,12 +17,8 @@ import { cellKey, fromPlainCell, mergeCell, type CensusCell } from "./cells.js";
 import type { CensusState } from "./census-store.js";
 import { StreamBatcher, type LineBatch } from "./stream-batches.js";
 
-/** The census name when none is given. */
-export const DEFAULT_CENSUS = "census";
-/** Witness graphs kept per (n, m) when not told otherwise. */
-export const DEFAULT_WITNESS_LIMIT = 8;
-/** Graphs per batch: at n = 12 about 20–40 ms of work, so a kill loses little and messages stay few. */
-export const DEFAULT_BATCH_GRAPHS = 2000;
+import { DEFAULT_BATCH_GRAPHS, DEFAULT_CENSUS, DEFAULT_WITNESS_LIMIT } from "./defaults.js";
+export { DEFAULT_BATCH_GRAPHS, DEFAULT_CENSUS, DEFAULT_WITNESS_LIMIT };
 /** Seconds between commits; the last batch is always committed. */
 const COMMIT_EVERY = 0.25;
 const SKIP_BATCH = 1 << 20;
