@@ -9,11 +9,11 @@
 // plain on the polarity graphs, whose SDP optimum already satisfies every triangle inequality at the
 // root and where plain nodes closed about twice as much of the tree per CPU-second on ER_7,
 // triangles elsewhere), EXACT_HUNDRED_BRANCHING (least-decided | most-decided | auto, default auto:
-// most-decided on the polarity graphs, where it closed about three times more of the tree per
-// CPU-second on ER_7, least-decided elsewhere, where it did better on the 3-regular graphs and on
-// G(80, 0.3)), EXACT_HUNDRED_CBC=1: also solve each target's MILP with cbc (coinor-cbc) for
+// the tree's own choice from a short probe of each rule; it picks most-decided on the polarity
+// graphs and least-decided on the 3-regular graphs and G(80, 0.3), as fixed choices did before), EXACT_HUNDRED_CBC=1: also solve each target's MILP with cbc (coinor-cbc) for
 // EXACT_HUNDRED_CBC_SECONDS (default 600) and print its value (an independent check);
-// EXACT_HUNDRED_SYMMETRY=off: no orbital branching (the tree's `symmetry` option; default on).
+// EXACT_HUNDRED_SYMMETRY=off: no orbital branching (the tree's `symmetry` option; default on);
+// EXACT_HUNDRED_PARITY=off: no parity rule (the tree's `parity` option; default on).
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { loadavg, tmpdir } from "node:os";
@@ -51,6 +51,7 @@ function cbcValue(g, name) {
 }
 const branchingChoice = process.env.EXACT_HUNDRED_BRANCHING ?? "auto";
 const symmetry = process.env.EXACT_HUNDRED_SYMMETRY !== "off";
+const parity = process.env.EXACT_HUNDRED_PARITY !== "off";
 const targets = [
   "polarity:q=7,loops=drop", "polarity:q=8,loops=drop", "polarity:q=9,loops=drop", "kneser:n=8,k=3",
   "random-regular:n=100,d=3,seed=1", "random-regular:n=100,d=3,seed=2", "random-regular:n=100,d=3,seed=3", "gnp:n=80,p=0.3,seed=1",
@@ -62,7 +63,7 @@ const rows = [];
 for (const spec of targets) {
   const g = family(spec);
   const polarity = spec.startsWith("polarity");
-  const branching = branchingChoice === "auto" ? (polarity ? "most-decided" : "least-decided") : branchingChoice;
+  const branching = branchingChoice;
   const relaxation = boundChoice === "auto" ? (polarity ? "plain" : "triangles") : boundChoice;
   const load = loadavg()[0];
   const c0 = process.cpuUsage();
@@ -71,7 +72,7 @@ for (const spec of targets) {
   const cut = breakoutSearch(g, { seconds: 2, solverSeed: 1 });
   let closedShare = 0, lastPrint = 0;
   const r = relaxationTreeSearch(g, {
-    seconds, relaxation, branching, symmetry, initial: cut.partition, solverSeed: 1,
+    seconds, relaxation, branching, symmetry, parity, initial: cut.partition, solverSeed: 1,
     onProgress: (p) => {
       closedShare = p.closedShare;
       if (p.seconds - lastPrint >= 60) {
@@ -84,7 +85,8 @@ for (const spec of targets) {
   const cpu = cpuSeconds(process.cpuUsage(c0));
   const v = verifyTreeCertificate(g, r.certificate);
   rows.push({
-    graph: spec, n: g.n, m: g.m, relaxation, branching, status: r.status, lower: r.value, upper: r.upper, nodes: r.nodes,
+    graph: spec, n: g.n, m: g.m, relaxation, branching: r.details?.branching ?? branching, status: r.status, lower: r.value, upper: r.upper, nodes: r.nodes,
+    probeNodes: r.details?.probeNodes ?? 0, parityClosed: r.details?.parityClosed ?? 0,
     wallSeconds: round(wall), cpuSeconds: round(cpu), closedPct: r.status === "optimal" ? 100 : round(100 * closedShare, 2),
     load: round(load, 2), regions: r.certificate.regions.length, orbitalBranches: r.certificate.orbital?.length ?? 0, verified: v.ok,
     ...(withCbc ? { cbc: cbcValue(g, spec.replace(/[^A-Za-z0-9]/g, "_")) } : {}),

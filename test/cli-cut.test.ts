@@ -67,12 +67,35 @@ describe("halfplus cut", () => {
     expect(seen["on"]).toBe(seen["off"]);
   });
 
+  it("--parity on closes regions by the cuts' parity and verify re-derives them; off closes none", () => {
+    // C30(1,4,7) is 6-regular, so every cut is even (handshake argument; common practice, no source):
+    // with parity on the tree rounds bounds to even integers. Values: both settings agree, and verify
+    // re-derives every region (test/tree-parity.test.ts checks the rule against exactMaxCut and the MILP).
+    const seen: Record<string, unknown> = {};
+    for (const s of ["on", "off"]) {
+      const out = join(dir, `parity-${s}.jsonl`);
+      const r = halfplus(["cut", "circulant:n=30,s=1+4+7", "--effort", "deep", "--node-bound", "plain", "--branching", "most-decided", "--parity", s, "--node-budget", "5000", "--work", "300000000", "--json", "--out", out]);
+      expect(r.code, r.stderr).toBe(0);
+      const rec = JSON.parse(r.stdout.trim());
+      const tree = rec.runs.find((x: { method: string }) => x.method === "exact-sdp-tree");
+      seen[s] = rec.lower;
+      expect(rec.exact).toBe(true);
+      expect(tree?.status).toBe("optimal");
+      if (s === "on") expect(tree.details.parityClosed).toBeGreaterThan(0);
+      else expect(tree.details.parityClosed).toBe(0);
+      const v = halfplus(["verify", out]);
+      expect(v.code, v.stdout).toBe(0);
+    }
+    expect(seen["on"]).toBe(seen["off"]);
+  });
+
   it("bad options and sources exit 2 with one line", () => {
     for (const args of [
       ["cut", "petersen", "--seconds", "0"],
       ["cut", "petersen", "--effort", "fastest"],
       ["cut", "petersen", "--effort", "deep", "--branching", "random"],
       ["cut", "petersen", "--effort", "deep", "--symmetry", "maybe"],
+      ["cut", "petersen", "--effort", "deep", "--parity", "maybe"],
       ["cut", "petersen", "--solver-seed", "-3"],
       ["cut", "petersen", "--seed", "3"],
       ["cut", "petersen", "--method", "exact"],

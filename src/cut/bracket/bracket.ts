@@ -91,10 +91,12 @@ export interface BracketOptions {
   relaxation?: TreeRelaxation;
   /** Effort "deep": a deterministic budget of branch-and-bound nodes (default: time only). */
   treeNodes?: number;
-  /** Effort "deep": the branching rule of its branch and bound (default "least-decided"). */
+  /** Effort "deep": the branching rule of its branch and bound (default "auto": a short probe of each rule, src/cut/tree/relaxation-tree.ts). */
   branching?: TreeBranching;
   /** Effort "deep": orbital branching over the graph's automorphisms (default true; src/cut/tree/symmetry.ts). */
   symmetry?: boolean;
+  /** Effort "deep": the cut's parity closes nodes that fix every odd-degree vertex (default true; src/cut/tree/parity.ts). */
+  parity?: boolean;
 }
 
 /** A seed per method, derived from the bracket's solverSeed so every run is reproducible. */
@@ -648,7 +650,7 @@ function exactStage(state: BracketState, seed: number, initial?: Uint8Array): vo
  * bounded by the chosen relaxation, warm-started from the best cut, for the rest. The tree search
  * needs integer weights; other graphs keep the strengthened bound (the search is logged as skipped).
  */
-function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation, treeNodes: number | undefined, branching: TreeBranching | undefined, symmetry: boolean | undefined): void {
+function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation, treeNodes: number | undefined, branching: TreeBranching | undefined, symmetry: boolean | undefined, parity: boolean | undefined): void {
   const { graph: g, meter, costs } = state;
   // Work per stage (our own estimates, bench/sdp-tree): the strengthened SDP is a first solve of up
   // to 2000 sweeps and 60 rounds of 60 warm-started sweeps with a dense proof each; a tree node is
@@ -681,6 +683,7 @@ function deepPhase(state: BracketState, seed: number, relaxation: TreeRelaxation
       relaxation,
       branching,
       symmetry,
+      parity,
       rootTriangles: stage,
       onProgress: state.treeProgress("sdp tree"),
     });
@@ -719,6 +722,7 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
   if (options.relaxation !== undefined && !TREE_RELAXATIONS.includes(options.relaxation)) throw invalidParameter(owner, "relaxation", `should be one of ${TREE_RELAXATIONS.join(", ")}`, options.relaxation);
   if (options.branching !== undefined && !TREE_BRANCHINGS.includes(options.branching)) throw invalidParameter(owner, "branching", `should be one of ${TREE_BRANCHINGS.join(", ")}`, options.branching);
   if (options.symmetry !== undefined && typeof options.symmetry !== "boolean") throw invalidParameter(owner, "symmetry", "should be true or false", options.symmetry);
+  if (options.parity !== undefined && typeof options.parity !== "boolean") throw invalidParameter(owner, "parity", "should be true or false", options.parity);
   if (options.treeNodes !== undefined && !(Number.isInteger(options.treeNodes) && options.treeNodes > 0)) throw invalidParameter(owner, "treeNodes", "should be a positive integer", options.treeNodes);
   const state = new BracketState(graph, meter, options.onProgress, { solverSeed: seed, effort, source: options.source, notes: [...(options.notes ?? [])] });
   state.failureProbability = checkFailureProbability(owner, options.failureProbability);
@@ -730,7 +734,7 @@ export function bracketSnapshot(graph: Graph, options: BracketOptions = {}): Bra
       if (!state.closed()) boundStage(state, "eigenvalue", () => eigenvalueUpperBound(graph, { denseLimit: graph.n <= 1000 ? 3000 : 0, failureProbability: state.failureProbability }));
     } else if (effort === "deep") {
       heuristicPhase(state, seed, false, 0.15);
-      if (!state.closed()) deepPhase(state, seed, options.relaxation ?? "triangles", options.treeNodes, options.branching, options.symmetry);
+      if (!state.closed()) deepPhase(state, seed, options.relaxation ?? "triangles", options.treeNodes, options.branching, options.symmetry, options.parity);
     } else if (effort === "auto" && graph.n <= AUTO_EXACT_VERTICES) {
       exactStage(state, seed);
       if (!state.closed()) heuristicPhase(state, seed, false, 1);

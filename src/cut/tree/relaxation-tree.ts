@@ -28,6 +28,7 @@ import { triangleListProblem, verifyTriangleCertificate, type TriangleCertificat
 import { solveTriangleSdp } from "../relaxation/triangle-sdp.js";
 import type { CutRecord } from "../types.js";
 import { mapTrianglesAfterFix, reducedProblem, trianglesAtRoot } from "./reduced-graph.js";
+import { nodeParity, oddDegreeVertices, parityFloor } from "./parity.js";
 import { childStabiliser, keepsFixings, orbitWithWitnesses, type TreeOrbitalBranch } from "./symmetry.js";
 import { isAutomorphism, listAutomorphisms } from "../../graph/structure/automorphisms.js";
 
@@ -38,6 +39,11 @@ import { TREE_BRANCHINGS, TREE_RELAXATIONS, type TreeBranching, type TreeRelaxat
 
 /** Nodes with at most this many free vertices are solved exactly by Gray code. */
 export const TREE_LEAF_VERTICES = 16;
+/**
+ * Parity branching (see `TreeSearchOptions.parity`) only for graphs with at most this many vertices
+ * of odd degree: fixing them all takes that many levels (fewer under orbital branching); ER_9 has 10.
+ */
+export const PARITY_BRANCH_LIMIT = 24;
 
 /**
  * A part of the search space and why no cut in it beats the record's upper end: the vertices fixed
@@ -85,7 +91,11 @@ export interface TreeSearchOptions {
   strengthenWithin?: number;
   /** "triangles": separation every this many rounds after the first two (default 3). */
   separateEvery?: number;
-  /** Branching rule (default "least-decided"): the free vertex whose SDP vector is closest to orthogonal to z's, or closest to ±z's. */
+  /**
+   * Branching rule (default "auto"): the free vertex whose SDP vector is closest to orthogonal to z's
+   * ("least-decided"), or closest to ±z's ("most-decided"), or "auto": short probes of both decide
+   * (`relaxationTreeSearch`).
+   */
   branching?: TreeBranching;
   /**
    * Bytes of warm-start data (parent vectors, inherited inequalities) the open nodes may hold
@@ -113,6 +123,14 @@ export interface TreeSearchOptions {
    * automorphisms are listed once, within a fixed work cap (src/graph/structure/automorphisms.ts).
    */
   symmetry?: boolean;
+  /**
+   * Parity of the cut (default true; ./parity.ts): a node that has fixed every vertex of odd weighted
+   * degree closes at the largest integer of its cuts' parity below its bound. When the graph has at
+   * most `PARITY_BRANCH_LIMIT` such vertices, the root is one of them and a node whose bound is one
+   * above the incumbent branches on them first (the rule's pick among them), so that half its cuts
+   * can close by parity.
+   */
+  parity?: boolean;
   /** Called about every half second with the bracket so far; `closedShare` is the share of all cuts in closed regions (2^−depth each under ordinary branching); `warmBytes` the warm-start data held by open nodes. */
   onProgress?: (p: { lower: number; upper: number; nodes: number; open: number; seconds: number; closedShare: number; warmBytes: number }) => void;
 }
@@ -166,6 +184,8 @@ interface Node {
   stab: Int32Array | null;
   /** The share of all cuts the node stands for: 2^−depth under ordinary branching; an orbital branch's second child gets 2^−|orbit| of its parent's, the first the rest (it stands for the orbit's images too). */
   share: number;
+  /** An ancestor (or the node itself) has a bound below the root's: its share is counted in `droppedShare`. */
+  dropped: boolean;
 }
 
 /** Max-heap on (bound, depth, −seq): best bound first, deeper first among equals, then oldest. */
@@ -225,8 +245,59 @@ function plainCertificate(c: TriangleCertificate): TreeRegion["certificate"] {
   return { kind: c.kind, y: Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, triangles: Array.from(c.triangles), mu: Array.from(c.mu) };
 }
 
-/** Exact max cut by relaxation-bounded branch and bound (see the file header). Integer weights only. */
+/**
+ * Nodes each probe of `branching: "auto"` may use (`relaxationTreeSearch`), at most a quarter of the
+ * work budget. At 30–100 nodes the two rules already differ clearly on the targets of issue 11
+ * (bench/exact-hundred; see DEVELOPERS.md): after 48 nodes from a breakout cut, G(80, 0.3) has upper
+ * ends 580 (least-decided) and 585 (most-decided); on ER_7 the upper ends are equal and most-decided
+ * had 3.8 % of the cuts closed after 100 nodes and least-decided none.
+ */
+export const AUTO_PROBE_NODES = 48;
+
+/**
+ * Exact max cut by relaxation-bounded branch and bound (see the file header). Integer weights only.
+ *
+ * `branching: "auto"` (the default) probes: a search with each rule under `AUTO_PROBE_NODES` nodes
+ * (least-decided first; a probe that finishes is the answer), then the whole search with the rule
+ * whose probe left the lower upper end; ties go to the larger share of the cuts closed, then to the
+ * larger share in nodes whose bound fell below the root's (`droppedShare`: progress that does not
+ * wait for a good incumbent), then to least-decided. The probes' best cut seeds the search; their nodes count in `workUsed` and in the
+ * work budget. Deterministic under a work budget, like every rule.
+ */
 export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = {}): TreeSearchRecord {
+  const branching = options.branching ?? "auto";
+  if (!TREE_BRANCHINGS.includes(branching)) throw invalidParameter(OWNER, "branching", `should be one of ${TREE_BRANCHINGS.join(", ")}`, branching);
+  if (branching !== "auto") return searchWithRule(graph, { ...options, branching });
+  const t0 = nowSeconds();
+  const seconds = checkSeconds(OWNER, options.seconds, 600);
+  const workLimit = checkWork(OWNER, options.work);
+  const probe = Math.min(AUTO_PROBE_NODES, Math.floor(workLimit / 4));
+  const withProbes = (r: TreeSearchRecord, chosen: TreeBranching, probeNodes: number): TreeSearchRecord => {
+    const used = Number(r.details?.workUsed ?? r.nodes) + probeNodes;
+    return { ...r, seconds: nowSeconds() - t0, details: { ...r.details, workUsed: used, branching: chosen, probeNodes } };
+  };
+  if (probe < 1) return withProbes(searchWithRule(graph, { ...options, branching: "least-decided" }), "least-decided", 0);
+  const left = (): number => Math.max(1e-3, seconds - (nowSeconds() - t0));
+  const probeOptions = { ...options, onProgress: undefined, work: probe };
+  const least = searchWithRule(graph, { ...probeOptions, seconds: left(), branching: "least-decided" });
+  if (least.status !== "work-limit") return withProbes(least, "least-decided", 0);
+  const most = searchWithRule(graph, { ...probeOptions, seconds: left(), initial: least.partition, branching: "most-decided" });
+  if (most.status !== "work-limit") return withProbes(most, "most-decided", least.nodes);
+  // Compared in turn: the upper end (what the search must bring down to the incumbent), the share of
+  // cuts closed, the share whose bound fell below the root's (progress even while the incumbent is
+  // too weak to close anything).
+  const score = (r: TreeSearchRecord): number[] => [-r.upper, Number(r.details?.closedShare ?? 0), Number(r.details?.droppedShare ?? 0)];
+  const [a, b] = [score(least), score(most)];
+  const k = a.findIndex((x, i) => x !== b[i]);
+  const chosen: TreeBranching = k >= 0 && b[k] > a[k] ? "most-decided" : "least-decided";
+  const probeNodes = least.nodes + most.nodes;
+  const best = most.value >= least.value ? most.partition : least.partition;
+  const work = options.work === undefined ? undefined : Math.max(1, workLimit - probeNodes);
+  return withProbes(searchWithRule(graph, { ...options, seconds: left(), work, initial: best, branching: chosen }), chosen, probeNodes);
+}
+
+/** The search with a fixed branching rule. */
+function searchWithRule(graph: Graph, options: TreeSearchOptions & { branching: Exclude<TreeBranching, "auto"> }): TreeSearchRecord {
   const t0 = nowSeconds();
   const seconds = checkSeconds(OWNER, options.seconds, 600);
   const workLimit = checkWork(OWNER, options.work);
@@ -261,8 +332,15 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     }
   };
 
-  let rootVertex = 0;
-  for (let v = 1; v < n; v++) if (graph.degree(v) > graph.degree(rootVertex)) rootVertex = v;
+  // Parity (./parity.ts): the odd-degree vertices; branch on them first when they are few.
+  const useParity = options.parity !== false;
+  const odd = oddDegreeVertices(graph);
+  const parityBranching = useParity && odd.length > 0 && odd.length <= PARITY_BRANCH_LIMIT;
+  const isOdd = new Uint8Array(n);
+  for (const v of odd) isOdd[v] = 1;
+  let rootVertex = parityBranching ? odd[0] : 0;
+  for (let v = 0; v < n; v++) if ((!parityBranching || isOdd[v] === 1) && graph.degree(v) > graph.degree(rootVertex)) rootVertex = v;
+  let parityClosed = 0, parityBranches = 0;
   const closed: Node[] = [];
   const heap = new NodeHeap();
   let seq = 0;
@@ -297,13 +375,22 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     rootStab = childStabiliser(elements, all, [rootVertex]);
     if (rootStab.length <= 1) rootStab = null;
   }
-  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, region: null, openKids: 0, seq: seq++, warmTriangles: rootWarm, gain: Infinity, stab: rootStab, share: 1 });
+  heap.push({ side: rootSide, path: [], depth: 0, bound: Infinity, parent: null, warm: null, region: null, openKids: 0, seq: seq++, warmTriangles: rootWarm, gain: Infinity, stab: rootStab, share: 1, dropped: false });
   let nodes = 0;
   let status: TreeSearchRecord["status"] = "optimal";
   let lastProgress = t0;
   let closedShare = 0;
-  const branching = options.branching ?? "least-decided";
-  if (!TREE_BRANCHINGS.includes(branching)) throw invalidParameter(OWNER, "branching", `should be one of ${TREE_BRANCHINGS.join(", ")}`, branching);
+  // The share of the cuts in nodes whose bound fell below the root's (the first such node on each
+  // path): progress that does not wait for the incumbent, compared by the "auto" probes.
+  let rootBound = Infinity, droppedShare = 0;
+  const noteBound = (x: Node, b: number): void => {
+    if (x.parent === null) rootBound = b;
+    else if (!x.dropped && b < rootBound) {
+      x.dropped = true;
+      droppedShare += x.share;
+    }
+  };
+  const branching = options.branching;
   // Depth-first dives (see `maxOpen`): the subtree of a node taken from a full heap, last in first out.
   const stack: Node[] = [];
   let dives = 0, beatenOnDives = 0;
@@ -373,6 +460,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
       const ex = exactMaxCut(red.graph, { seconds: 60, solverSeed: seed });
       offer(toFull(ex.partition));
       node.region = { vertices: path.filter((_, i) => i % 2 === 0), sides: path.filter((_, i) => i % 2 === 1), bound: floorCutBound(red.offset + ex.upper), certificate: { kind: "exhaustive" } };
+      noteBound(node, node.region.bound);
       releaseWarm(node);
       closed.push(node);
       closedShare += node.share;
@@ -386,8 +474,12 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
       solverSeed: seed, iterations: relaxation === "triangles" ? (node.parent === null ? rootRounds : rounds) : 0, target, stopGap: 1, firstTolerance: 1e-7,
       strengthenWithin: strengthenWithin + 1.5 * node.gain, stopWhenHopeless: true, separateEvery: options.separateEvery ?? 3, ...warm, ...warmTri,
     });
-    // offset is an exact integer, the bound a float rounded up: round the sum up, then down to an integer.
-    const bound = floorCutBound(roundUp(red.offset + sdp.value, 1));
+    // offset is an exact integer, the bound a float rounded up: round the sum up, then down to an
+    // integer, then to the cuts' parity once every odd-degree vertex is fixed.
+    const plainBound = floorCutBound(roundUp(red.offset + sdp.value, 1));
+    const bound = useParity ? parityFloor(plainBound, nodeParity(odd, nodeSide)) : plainBound;
+    if (bound < plainBound && bound <= lower) parityClosed++;
+    noteBound(node, bound);
     node.region = {
       vertices: path.filter((_, i) => i % 2 === 0),
       sides: path.filter((_, i) => i % 2 === 1),
@@ -405,7 +497,12 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
       const r = sdp.rank, V = sdp.vectors;
       const sign = branching === "least-decided" ? 1 : -1;
       let pick = 1, best = Infinity;
+      // One above the incumbent: only odd-degree vertices (while some are free), so the parity can close it.
+      let oddOnly = false;
+      if (parityBranching && bound === lower + 1) for (let i = 0; i < freeCount && !oddOnly; i++) oddOnly = isOdd[red.free[i]] === 1;
+      if (oddOnly) parityBranches++;
       for (let i = 1; i <= freeCount; i++) {
+        if (oddOnly && isOdd[red.free[i - 1]] === 0) continue;
         let dot = 0;
         for (let t = 0; t < r; t++) dot += V[t] * V[i * r + t];
         if (sign * Math.abs(dot) < best) {
@@ -472,7 +569,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
         if (inherited !== null) warmBytes += inherited.triangles.byteLength + inherited.mu.byteLength;
         const child: Node = {
           side, path: [...path, ...added], depth: node.depth + 1, bound, parent: node, warm: warmKid, region: null, openKids: 0,
-          seq: seq++, warmTriangles: inherited, gain, stab: kid.stab !== null && kid.stab.length > 1 ? kid.stab : null, share: kid.share,
+          seq: seq++, warmTriangles: inherited, gain, stab: kid.stab !== null && kid.stab.length > 1 ? kid.stab : null, share: kid.share, dropped: node.dropped,
         };
         if (dive) stack.push(child);
         else heap.push(child);
@@ -523,6 +620,7 @@ export function relaxationTreeSearch(graph: Graph, options: TreeSearchOptions = 
     details: {
       workUsed: nodes, nodes, regions: regions.length, relaxation, openNodes: heap.size + stack.length, warmDropped, dives, beatenOnDives,
       automorphisms: autos === null ? 0 : autos.elements.length, automorphismsComplete: autos === null ? false : autos.complete, orbitalBranches,
+      oddDegreeVertices: odd.length, parityClosed, parityBranches, closedShare, droppedShare,
     },
   };
 }
@@ -549,6 +647,7 @@ export function verifyTreeCertificate(graph: Graph, cert: TreeCertificate): Tree
   interface Trie { region: boolean; kids: Map<string, Trie> }
   const root: Trie = { region: false, kids: new Map() };
   let bound = -Infinity;
+  const odd = oddDegreeVertices(graph);
   for (let q = 0; q < cert.regions.length; q++) {
     const reg = cert.regions[q];
     if (!Array.isArray(reg.vertices) || !Array.isArray(reg.sides) || reg.vertices.length !== reg.sides.length) return bad(`region ${q}: vertices and sides differ in length`);
@@ -579,7 +678,8 @@ export function verifyTreeCertificate(graph: Graph, cert: TreeCertificate): Tree
       const c = reg.certificate;
       const check = verifyTriangleCertificate(red.graph, { kind: "triangle-dual", y: Float64Array.from(c.y), shift: c.shift, shiftProof: c.shiftProof, triangles: Int32Array.from(c.triangles), mu: Float64Array.from(c.mu) });
       if (!check.ok) return bad(`region ${q}: ${check.message}`);
-      b = floorCutBound(roundUp(red.offset + check.value, 1));
+      // Every cut of the region has the parity its fixings decide, if they fix every odd-degree vertex (./parity.ts).
+      b = parityFloor(floorCutBound(roundUp(red.offset + check.value, 1)), nodeParity(odd, side));
     } else return bad(`region ${q}: unknown certificate kind`);
     if (b > reg.bound) return bad(`region ${q}: re-derived bound ${b} is above the claimed ${reg.bound}`);
     bound = Math.max(bound, b);

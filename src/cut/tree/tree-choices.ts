@@ -6,5 +6,5 @@ export type TreeRelaxation = "plain" | "triangles";
 export const TREE_RELAXATIONS: readonly TreeRelaxation[] = ["plain", "triangles"];
 
 /** Which free vertex a node branches on (see `TreeSearchOptions.branching`). */
-export type TreeBranching = "least-decided" | "most-decided";
-export const TREE_BRANCHINGS: readonly TreeBranching[] = ["least-decided", "most-decided"];
+export type TreeBranching = "auto" | "least-decided" | "most-decided";
+export const TREE_BRANCHINGS: readonly TreeBranching[] = ["auto", "least-decided", "most-decided"];

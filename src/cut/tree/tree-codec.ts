@@ -32,6 +32,7 @@ import { floorCutBound } from "../../graph/cut-value.js";
 import type { Graph } from "../../graph/graph.js";
 import { roundUp } from "../../linalg/float-rounding.js";
 import { verifyTriangleCertificate } from "../relaxation/triangle-dual.js";
+import { nodeParity, oddDegreeVertices, parityFloor } from "./parity.js";
 import { reducedProblem } from "./reduced-graph.js";
 import type { TreeCertificate, TreeRegion } from "./relaxation-tree.js";
 
@@ -80,7 +81,7 @@ type TriangleRegionCertificate = Extract<TreeRegion["certificate"], { kind: "tri
  * The coarsest precision at which the region's certificate, y rounded up, still proves its bound
  * (re-proved as verifyTreeCertificate does), with that y; k = 0 and y itself when none does.
  */
-function coarsestPrecision(graph: Graph, rootVertex: number, region: TreeRegion, c: TriangleRegionCertificate): { k: number; y: readonly number[] } {
+function coarsestPrecision(graph: Graph, odd: Int32Array, rootVertex: number, region: TreeRegion, c: TriangleRegionCertificate): { k: number; y: readonly number[] } {
   const side = new Uint8Array(graph.n).fill(255);
   side[rootVertex] = 0;
   for (let i = 0; i < region.vertices.length; i++) side[region.vertices[i]] = region.sides[i];
@@ -91,8 +92,9 @@ function coarsestPrecision(graph: Graph, rootVertex: number, region: TreeRegion,
     const y = roundedUp(c.y, k);
     if (y === null) continue;
     const check = verifyTriangleCertificate(red.graph, { kind: "triangle-dual", y: Float64Array.from(y), shift: c.shift, shiftProof: "cholesky", triangles, mu });
-    // The region bound as verify derives it: offset (exact) plus the re-proved value, rounded up, then down to an integer.
-    if (check.ok && floorCutBound(roundUp(red.offset + check.value, 1)) <= region.bound) return { k, y };
+    // The region bound as verify derives it: offset (exact) plus the re-proved value, rounded up, then
+    // down to an integer, then to the cuts' parity where the fixings decide it (./parity.ts).
+    if (check.ok && parityFloor(floorCutBound(roundUp(red.offset + check.value, 1)), nodeParity(odd, side)) <= region.bound) return { k, y };
   }
   return { k: 0, y: c.y };
 }
@@ -154,6 +156,7 @@ function byPath(a: TreeRegion, b: TreeRegion): number {
  */
 export function packTreeRegions(graph: Graph, certificate: Pick<TreeCertificate, "rootVertex" | "regions">, options: { exact?: boolean } = {}): PackedTreeRegions {
   const w = new Writer();
+  const odd = oddDegreeVertices(graph);
   const sorted = certificate.regions.slice().sort(byPath);
   let prevV: readonly number[] = [], prevS: readonly number[] = [];
   for (const r of sorted) {
@@ -170,7 +173,7 @@ export function packTreeRegions(graph: Graph, certificate: Pick<TreeCertificate,
     else {
       w.byte(KIND_TRIANGLE);
       w.varint(c.y.length);
-      const { k, y } = options.exact === true ? { k: 0, y: c.y } : coarsestPrecision(graph, certificate.rootVertex, r, c);
+      const { k, y } = options.exact === true ? { k: 0, y: c.y } : coarsestPrecision(graph, odd, certificate.rootVertex, r, c);
       w.byte(k);
       if (k === 0) for (const v of y) w.float(v);
       else for (const v of y) w.varint(zigzag(v * 2 ** k));
