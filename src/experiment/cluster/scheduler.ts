@@ -1,4 +1,4 @@
-// Talking to Slurm through its own client commands (sbatch, squeue, scancel, scontrol), as a user
+// Driving Slurm through its own client commands (sbatch, squeue, scancel, scontrol), as a user
 // would: no library, no daemon of ours. Each call is one process with a bounded wait; a failure
 // becomes one line naming the command and what it said.
 
